@@ -1,0 +1,49 @@
+import {dimensions} from '../quantities/dimensions.js';
+import {isUnit, unit} from '../quantities/engine.js';
+import {hasDimension} from '../quantities/parse-quantity.js';
+import {checkAllowed, formulaName, type Calculation} from './calculation.js';
+import {calculations} from './registry.js';
+
+/** A call from a rule formula with the wrong number or kind of arguments. */
+export class FormulaCallError extends Error {
+	constructor(
+		readonly detail: string,
+	) {
+		super(detail);
+	}
+}
+
+function toSi(calculation: Calculation, args: unknown[]): Record<string, number> {
+	const keys = Object.keys(calculation.inputs);
+	const name = formulaName(calculation);
+	if (args.length !== keys.length) throw new FormulaCallError(`${name}() takes ${keys.length} arguments (${keys.join(', ')}), got ${args.length}`);
+	const values: Record<string, number> = {};
+	keys.forEach((key, index) => {
+		const input = calculation.inputs[key]!;
+		const arg = args[index];
+		const info = dimensions[input.dimension];
+		if (info.si === '') {
+			if (typeof arg !== 'number') throw new FormulaCallError(`${name}(): argument ${index + 1} (${key}) must be a plain number`);
+			values[key] = arg;
+		} else {
+			if (!isUnit(arg) || !hasDimension(arg, input.dimension)) throw new FormulaCallError(`${name}(): argument ${index + 1} (${key}) must be ${info.noun}`);
+			values[key] = arg.toNumber(info.si);
+		}
+	});
+	return values;
+}
+
+/** The function a rule formula calls for a calculation: its main output as a unit value. */
+function asFormulaFunction(calculation: Calculation) {
+	const output = calculation.outputs[calculation.main]!;
+	const si = dimensions[output.dimension].si;
+	return (...args: unknown[]) => {
+		const values = toSi(calculation, args);
+		checkAllowed(calculation, values);
+		const result = calculation.compute(values)[calculation.main]!;
+		return si === '' ? result : unit(result, si);
+	};
+}
+
+/** Every calculation as a formula function, keyed by the name formulas call. */
+export const formulaFunctions: ReadonlyMap<string, (...args: unknown[]) => unknown> = new Map(calculations.map((calculation) => [formulaName(calculation), asFormulaFunction(calculation)]));

@@ -1,0 +1,49 @@
+import {runCheck, type Io} from './commands/check.js';
+import {helpTexts} from './commands/help.js';
+import {runRules} from './commands/rules.js';
+import {formatProblem} from './problems.js';
+import {UsageError} from './usage-error.js';
+import {version} from './version.js';
+
+const commands: Record<string, (args: string[], io: Io) => number> = {check: runCheck, rules: runRules};
+
+/** Runs the program with its arguments; returns the exit status. Never throws. */
+export function main(argv: string[], io: Io): number {
+	try {
+		const [first, ...rest] = argv;
+		if (first === undefined || first === '--help' || first === '-h' || first === 'help') {
+			io.stdout.write(`${helpTexts.main}\n`);
+			return first === undefined ? 2 : 0;
+		}
+		if (first === '--version' || first === '-v') {
+			io.stdout.write(`${version}\n`);
+			return 0;
+		}
+		const command = commands[first];
+		if (!command) throw new UsageError(`unknown command "${first}"; commands are ${Object.keys(commands).join(', ')} (prelase --help)`);
+		return command(rest, io);
+	} catch (error) {
+		return report(error, io);
+	}
+}
+
+function isArgumentError(error: unknown): error is Error & {code: string} {
+	const code = (error as {code?: unknown} | null)?.code;
+	return error instanceof Error && typeof code === 'string' && code.startsWith('ERR_PARSE_ARGS');
+}
+
+function report(error: unknown, io: Io): number {
+	if (error instanceof UsageError) {
+		for (const found of error.problems) io.stderr.write(`${formatProblem(found)}\n`);
+		io.stderr.write(`prelase: ${error.message}\n`);
+		return 2;
+	}
+	if (isArgumentError(error)) {
+		io.stderr.write(`prelase: ${error.message} (see --help)\n`);
+		return 2;
+	}
+	const detail = error instanceof Error ? (error.stack ?? error.message) : String(error);
+	io.stderr.write(`prelase ${version}: internal error — this is a bug in prelase, not in your input.\nPlease report it with the command you ran and this text:\n${detail}\n`);
+	return 70;
+}
+

@@ -1,0 +1,96 @@
+import {deferral} from '../deferral.js';
+import type {Paint} from '../paint.js';
+import type {Answers} from '../rules/answers.js';
+import type {CompiledRules} from '../rules/compiled-rules.js';
+import {outcomeWords, type CheckResult, type ConfirmationResult, type Evaluation} from '../rules/evaluation.js';
+import {formatQuantity} from '../quantities/format.js';
+import {stripControl} from '../text.js';
+import {version} from '../version.js';
+import {wrap} from '../wrap.js';
+import {displayPath} from '../display-path.js';
+
+const verdictLabel = {pass: '✓ pass', fail: '✗ FAIL', advise: '! advise', open: '? open', skip: '- skip'} as const;
+const confirmationLabel = {yes: '✓ yes', no: '✗ NO', not_applicable: '- n/a', unanswered: '? unanswered', skip: '- skip', open: '? open'} as const;
+const order = {fail: 0, advise: 1, open: 2, pass: 3, skip: 4} as const;
+
+function paintVerdict(paint: Paint, verdict: keyof typeof verdictLabel, text: string): string {
+	if (verdict === 'pass') return paint.pass(text);
+	if (verdict === 'fail') return paint.fail(text);
+	if (verdict === 'advise') return paint.advise(text);
+	if (verdict === 'open') return paint.open(text);
+	return paint.dim(text);
+}
+
+/** The figures of a check in one line: `1.74 W ≤ 2 W · margin 261 mW (13 %)`. */
+export function checkFigures(check: CheckResult): string | undefined {
+	if (!check.value || !check.limit || !check.margin) return undefined;
+	const sign = check.relation === 'at_most' ? '≤' : '≥';
+	const fraction = check.margin.fraction === null ? '' : ` (${formatQuantity(Math.abs(check.margin.fraction), 'ratio', 2)})`;
+	const amount = check.margin.text.replace(/^-/, '');
+	if (check.verdict === 'pass') return `${check.value.text} ${sign} ${check.limit.text} · margin ${amount}${fraction}`;
+	const miss = check.relation === 'at_most' ? 'over the limit by' : 'short of the limit by';
+	return `${check.value.text}, limit ${sign} ${check.limit.text} · ${miss} ${amount}${fraction}`;
+}
+
+function checkLines(check: CheckResult, paint: Paint, width: number, withMessage: boolean): string[] {
+	const label = paintVerdict(paint, check.verdict, verdictLabel[check.verdict].padEnd(12));
+	const lines = wrap(check.title, width, '                ');
+	lines[0] = `   ${label} ${lines[0]!.trimStart()}`;
+	const figures = checkFigures(check);
+	if (figures) lines.push(...wrap(figures, width, '                '));
+	if (check.needs?.length) lines.push(...wrap(`needs ${check.needs.join(', ')}`, width, '                '));
+	if (check.error) lines.push(...wrap(check.error, width, '                '));
+	if (withMessage && check.message) lines.push(...wrap(stripControl(check.message), width, '                '));
+	return lines;
+}
+
+function confirmationLines(entry: ConfirmationResult, paint: Paint, width: number): string[] {
+	const status = entry.status;
+	const text = confirmationLabel[status].padEnd(12);
+	const painted = status === 'yes' ? paint.pass(text) : status === 'no' ? paint.fail(text) : status === 'unanswered' || status === 'open' ? paint.open(text) : paint.dim(text);
+	const lines = wrap(entry.statement, width, '                ');
+	lines[0] = `   ${painted} ${lines[0]!.trimStart()}`;
+	if (entry.note) lines.push(...wrap(`note: ${stripControl(entry.note)}`, width, '                '));
+	return lines;
+}
+
+/**
+ * The bench check as text for a person: header, caution, each step's inputs, checks and
+ * confirmations, a summary with failures first, and the outcome with the deferral.
+ */
+export function checkText(rules: CompiledRules, answers: Answers, evaluation: Evaluation, paint: Paint, width = 100): string {
+	const out: string[] = [];
+	out.push(paint.bold(`prelase ${version} · bench check`));
+	out.push(`Rules   ${stripControl(rules.rules.name)}`);
+	out.push(`        ${displayPath(rules.file)} · sha256 ${rules.sha256.slice(0, 16)}`);
+	if (answers.setup) out.push(`Setup   ${stripControl(answers.setup)}`);
+	out.push('', paint.bold('CAUTION'), ...wrap(stripControl(rules.rules.caution), width, '  '));
+
+	rules.rules.steps.forEach((step, index) => {
+		out.push('', paint.bold(`${index + 1}. ${stripControl(step.title)}`));
+		for (const input of step.inputs) {
+			const answer = answers.inputs.get(input.id);
+			const asked = Boolean(answer) || evaluation.missingInputs.includes(input.id) || input.optional;
+			const shown = answer ? (answer.kind === 'quantity' ? formatQuantity(answer.si, answer.dimension) : stripControl(answer.entered)) : asked ? paint.open('? not given') : paint.dim('- not asked');
+			out.push(`   ${input.id.padEnd(30)} ${shown}`);
+		}
+		for (const check of evaluation.checks.filter((entry) => entry.step === step.id)) out.push(...checkLines(check, paint, width, false));
+		for (const entry of evaluation.confirmations.filter((item) => item.step === step.id)) out.push(...confirmationLines(entry, paint, width));
+	});
+
+	const counts = {fail: 0, advise: 0, open: 0, pass: 0, skip: 0};
+	for (const check of evaluation.checks) counts[check.verdict] += 1;
+	out.push('', paint.bold(`Summary: ${counts.fail} fail · ${counts.advise} advise · ${counts.open} open · ${counts.pass} pass · ${counts.skip} skip`));
+	const notable = evaluation.checks.filter((check) => check.verdict !== 'pass' && check.verdict !== 'skip').sort((a, b) => order[a.verdict] - order[b.verdict]);
+	for (const check of notable) out.push(...checkLines(check, paint, width, true));
+	for (const entry of evaluation.confirmations.filter((item) => item.status === 'no')) out.push(...confirmationLines(entry, paint, width));
+	for (const entry of evaluation.confirmations.filter((item) => item.status === 'unanswered' || item.status === 'open')) out.push(...confirmationLines(entry, paint, width));
+	if (evaluation.missingInputs.length > 0) out.push(...wrap(`Inputs not given: ${evaluation.missingInputs.join(', ')}`, width, '   '));
+	if (notable.length === 0) out.push('   Every check that applies holds.');
+
+	const words = outcomeWords[evaluation.outcome].toUpperCase();
+	const outcome = evaluation.outcome === 'clear_to_energize' ? paint.pass(words) : evaluation.outcome === 'do_not_energize' ? paint.fail(words) : paint.open(words);
+	out.push('', paint.bold('Outcome: ') + outcome);
+	out.push(...wrap(deferral, width, '  '));
+	return out.join('\n');
+}

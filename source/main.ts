@@ -1,0 +1,13 @@
+import chalk from 'chalk';
+import {main} from './cli.js';
+
+// Ink's chalk ignores NO_COLOR; turn colour off for every chalk user before anything draws.
+if (process.env['NO_COLOR'] !== undefined && process.env['NO_COLOR'] !== '') chalk.level = 0;
+
+process.stdout.on('error', (error: NodeJS.ErrnoException) => {
+	// A closed pipe (prelase check … | head) is not an error worth a stack trace.
+	if (error.code === 'EPIPE') process.exit(0);
+	throw error;
+});
+
+process.exitCode = main(process.argv.slice(2), {stdout: process.stdout, stderr: process.stderr, env: process.env});

@@ -1,0 +1,68 @@
+import {version} from '../version.js';
+import {deferral} from '../deferral.js';
+import {dimensions} from '../quantities/dimensions.js';
+import type {Answers} from './answers.js';
+import type {CompiledRules} from './compiled-rules.js';
+import {outcomeWords, type Evaluation, type Shown, type Verdict} from './evaluation.js';
+import {shownSi} from './shown.js';
+
+/** A value in the JSON output: SI number, its SI unit, and the text a person reads. */
+export type JsonValue = {si: number; unit: string; text: string};
+
+function json(value: Shown): JsonValue {
+	return {si: value.si, unit: dimensions[value.dimension].si, text: value.text};
+}
+
+/**
+ * The evaluation as plain JSON data, the shape `prelase check --json` prints and records
+ * build on. Values carry SI numbers with their unit and the text shown to people.
+ */
+export function evaluationToJson(rules: CompiledRules, answers: Answers, evaluation: Evaluation) {
+	const counts: Record<Verdict, number> = {pass: 0, fail: 0, advise: 0, open: 0, skip: 0};
+	for (const check of evaluation.checks) counts[check.verdict] += 1;
+	const inputs: Record<string, {entered: string} & Partial<JsonValue> & {option?: string; value?: boolean | string}> = {};
+	for (const [id, answer] of answers.inputs) {
+		if (answer.kind === 'quantity') inputs[id] = {entered: answer.entered, ...json(shownSi(answer.si, answer.dimension))};
+		else if (answer.kind === 'choice') inputs[id] = {entered: answer.entered, option: answer.option};
+		else inputs[id] = {entered: answer.entered, value: answer.value};
+	}
+	return {
+		tool: {name: 'prelase', version},
+		rules: {name: rules.rules.name, file: rules.file, sha256: rules.sha256},
+		setup: answers.setup ?? null,
+		outcome: evaluation.outcome,
+		outcomeText: outcomeWords[evaluation.outcome],
+		counts,
+		missingInputs: evaluation.missingInputs,
+		inputs,
+		derived: Object.fromEntries(
+			evaluation.derived.map((entry) => [entry.id, entry.status === 'value' ? json(entry.value) : entry.status === 'open' ? {open: entry.needs} : {error: entry.error}]),
+		),
+		checks: evaluation.checks.map((check) => ({
+			id: check.id,
+			step: check.step,
+			title: check.title,
+			severity: check.severity,
+			verdict: check.verdict,
+			...(check.relation ? {relation: check.relation} : {}),
+			...(check.value ? {value: json(check.value)} : {}),
+			...(check.limit ? {limit: json(check.limit)} : {}),
+			...(check.margin ? {margin: {...json(check.margin), fraction: check.margin.fraction}} : {}),
+			...(check.needs ? {needs: check.needs} : {}),
+			...(check.message ? {message: check.message} : {}),
+			...(check.error ? {error: check.error} : {}),
+			explanation: check.explanation,
+			basis: check.basis,
+		})),
+		confirmations: evaluation.confirmations.map((entry) => ({
+			id: entry.id,
+			step: entry.step,
+			statement: entry.statement,
+			status: entry.status,
+			...(entry.note ? {note: entry.note} : {}),
+			...(entry.needs ? {needs: entry.needs} : {}),
+		})),
+		caution: rules.rules.caution,
+		deferral,
+	};
+}

@@ -1,0 +1,16 @@
+/** Wraps text to a width, indenting every line; long words are kept whole. */
+export function wrap(text: string, width: number, indent = ''): string[] {
+	const room = Math.max(20, width - indent.length);
+	const lines: string[] = [];
+	for (const paragraph of text.split('\n')) {
+		let line = '';
+		for (const word of paragraph.split(/\s+/).filter(Boolean)) {
+			if (line && line.length + 1 + word.length > room) {
+				lines.push(indent + line);
+				line = word;
+			} else line = line ? `${line} ${word}` : word;
+		}
+		lines.push(indent + line);
+	}
+	return lines;
+}

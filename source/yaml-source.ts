@@ -1,0 +1,83 @@
+import {readFileSync} from 'node:fs';
+import {isMap, isScalar, LineCounter, parseDocument, type Document} from 'yaml';
+import {problem, warning, type Problem} from './problems.js';
+import {failure, success, type Result} from './result.js';
+
+/** A parsed YAML file that can tell where each value came from. */
+export type YamlSource = {
+	file: string;
+	text: string;
+	data: unknown;
+	document: Document.Parsed;
+	/** Line and column (1-based) of the value at a path, or of its nearest parent that exists. */
+	locate(path: ReadonlyArray<string | number>): {line: number; column: number};
+	/** The comment written after the value at a path on the same line, if any. */
+	trailingComment(path: ReadonlyArray<string | number>): string | undefined;
+};
+
+/** Reads a file as text, refusing empty and binary files with a problem naming the file. */
+export function readTextFile(file: string, expected: string): Result<string, Problem> {
+	let bytes: Buffer;
+	try {
+		bytes = readFileSync(file);
+	} catch (error) {
+		const reason = (error as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : String((error as Error).message);
+		return failure([problem('file-unreadable', {reason}, {file})]);
+	}
+	if (bytes.includes(0)) return failure([problem('file-binary', {expected}, {file})]);
+	const text = bytes.toString('utf8');
+	if (text.trim() === '') return failure([problem('file-empty', {expected}, {file})]);
+	return success(text);
+}
+
+/** Parses YAML text, reporting syntax errors and duplicate keys with file:line:column. */
+export function parseYamlSource(text: string, file: string, expected: string): Result<YamlSource, Problem> {
+	if (text.trim() === '') return failure([problem('file-empty', {expected}, {file})]);
+	const lineCounter = new LineCounter();
+	const document = parseDocument(text, {lineCounter, prettyErrors: false, uniqueKeys: true, strict: true});
+	const at = (offset: number) => {
+		const position = lineCounter.linePos(offset);
+		return {line: position.line, column: position.col};
+	};
+	if (document.errors.length > 0) {
+		return failure(
+			document.errors.map((error) => {
+				const where = {file, ...at(error.pos[0])};
+				if (error.code === 'DUPLICATE_KEY') {
+					const key = /"([^"]*)"|'([^']*)'/.exec(text.slice(error.pos[0], error.pos[1]))?.[0] ?? text.slice(error.pos[0], error.pos[1]).split(':')[0];
+					return problem('yaml-duplicate-key', {key: (key ?? '').replaceAll(/^["']|["']$/g, '')}, where);
+				}
+				return problem('yaml-syntax', {detail: error.message.split('\n')[0] ?? error.code}, where);
+			}),
+		);
+	}
+	if (!isMap(document.contents)) {
+		const received = document.contents === null ? 'nothing' : isScalar(document.contents) ? `the single value ${JSON.stringify(document.contents.toJSON())}` : 'a list';
+		return failure([problem('yaml-not-mapping', {received}, {file, line: 1, column: 1})]);
+	}
+	const warnings: Problem[] = document.warnings.map((entry) => warning('yaml-syntax', {detail: entry.message.split('\n')[0] ?? entry.code}, {file, ...at(entry.pos[0])}));
+	const nodeAt = (path: ReadonlyArray<string | number>) => {
+		for (let length = path.length; length >= 0; length -= 1) {
+			const node = document.getIn(path.slice(0, length), true) as {range?: [number, number, number]} | undefined;
+			if (node && typeof node === 'object' && node.range) return node;
+		}
+		return undefined;
+	};
+	return success(
+		{
+			file,
+			text,
+			data: document.toJS({maxAliasCount: 100}) as unknown,
+			document,
+			locate(path) {
+				const node = nodeAt(path);
+				return node?.range ? at(node.range[0]) : {line: 1, column: 1};
+			},
+			trailingComment(path) {
+				const node = document.getIn(path, true);
+				return isScalar(node) && node.comment ? node.comment : undefined;
+			},
+		},
+		warnings,
+	);
+}
