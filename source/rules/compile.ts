@@ -100,7 +100,10 @@ export function compileRules(rules: RuleFile, source: YamlSource): Result<Compil
 		const compiled = formula(derived.formula, ['derived', index, 'formula']);
 		if (compiled) derivedList.push({derived, formula: compiled});
 	});
-	const ordered = orderDerived(derivedList, (cycle) => problems.push(problem('derived-cycle', {path: cycle.join(' → ')}, where(['derived']))));
+	const ordered = orderDerived(derivedList, (cycle) => {
+		const index = rules.derived.findIndex((derived) => derived.id === cycle[0]);
+		problems.push(problem('derived-cycle', {path: cycle.join(' → ')}, where(['derived', index, 'formula'])));
+	});
 
 	const stepIds = rules.steps.map((step) => step.id);
 	const checks: CompiledCheck[] = [];

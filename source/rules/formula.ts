@@ -62,7 +62,7 @@ export function compileFormula(text: string, names: NameTable, functions: Readon
 	try {
 		tree = parse(text);
 	} catch (error) {
-		return {ok: false, problems: [{code: 'yaml-syntax', data: {detail: `formula syntax: ${(error as Error).message}`}}]};
+		return {ok: false, problems: [{code: 'formula-syntax', data: {detail: (error as Error).message}}]};
 	}
 	const problems: FormulaProblem[] = [];
 	const used = new Set<string>();

@@ -45,7 +45,9 @@ export function loadRulesFromText(text: string, file: string): Result<CompiledRu
 export function schemaProblems(issues: readonly z.core.$ZodIssue[], source: YamlSource): Problem[] {
 	return issues.map((issue) => {
 		const path = issue.path.filter((part): part is string | number => typeof part !== 'symbol');
-		const where = {file: source.file, ...source.locate(path), field: path.join('.') || '(top level)'};
+		// An unknown field is best shown where it is written, not where its mapping starts.
+		const at = issue.code === 'unrecognized_keys' && issue.keys[0] !== undefined ? [...path, issue.keys[0]] : path;
+		const where = {file: source.file, ...source.locate(at), field: path.join('.') || '(top level)'};
 		return problem('schema', {detail: schemaDetail(issue, source, path)}, where);
 	});
 }
