@@ -25,7 +25,7 @@ function paintVerdict(paint: Paint, verdict: keyof typeof verdictLabel, text: st
 export function checkFigures(check: CheckResult): string | undefined {
 	if (!check.value || !check.limit || !check.margin) return undefined;
 	const sign = check.relation === 'at_most' ? '≤' : '≥';
-	const fraction = check.margin.fraction === null ? '' : ` (${formatQuantity(Math.abs(check.margin.fraction), 'ratio', 2)})`;
+	const fraction = check.margin.fraction === null ? '' : ` (${formatQuantity(Math.abs(check.margin.fraction), 'ratio')})`;
 	const amount = check.margin.text.replace(/^-/, '');
 	if (check.verdict === 'pass') return `${check.value.text} ${sign} ${check.limit.text} · margin ${amount}${fraction}`;
 	const miss = check.relation === 'at_most' ? 'over the limit by' : 'short of the limit by';
