@@ -1,6 +1,7 @@
 import {deferral} from '../deferral.js';
 import type {Paint} from '../paint.js';
-import type {Answers} from '../rules/answers.js';
+import type {Answers, InputAnswer} from '../rules/answers.js';
+import type {Input} from '../rules/schema.js';
 import type {CompiledRules} from '../rules/compiled-rules.js';
 import {outcomeWords, type CheckResult, type ConfirmationResult, type Evaluation} from '../rules/evaluation.js';
 import {formatQuantity} from '../quantities/format.js';
@@ -54,6 +55,13 @@ function confirmationLines(entry: ConfirmationResult, paint: Paint, width: numbe
 	return lines;
 }
 
+function answerText(input: Input, answer: InputAnswer): string {
+	if (answer.kind === 'quantity') return formatQuantity(answer.si, answer.dimension);
+	if (answer.kind === 'choice' && input.kind === 'choice') return stripControl(input.options[answer.option] ?? answer.option);
+	if (answer.kind === 'yes_no') return answer.value ? 'yes' : 'no';
+	return stripControl(answer.entered);
+}
+
 /**
  * The bench check as text for a person: header, caution, each step's inputs, checks and
  * confirmations, a summary with failures first, and the outcome with the deferral.
@@ -71,7 +79,7 @@ export function checkText(rules: CompiledRules, answers: Answers, evaluation: Ev
 		for (const input of step.inputs) {
 			const answer = answers.inputs.get(input.id);
 			const asked = Boolean(answer) || evaluation.missingInputs.includes(input.id) || input.optional;
-			const shown = answer ? (answer.kind === 'quantity' ? formatQuantity(answer.si, answer.dimension) : stripControl(answer.entered)) : asked ? paint.open('? not given') : paint.dim('- not asked');
+			const shown = answer ? answerText(input, answer) : asked ? paint.open('? not given') : paint.dim('- not asked');
 			out.push(`   ${input.id.padEnd(30)} ${shown}`);
 		}
 		for (const check of evaluation.checks.filter((entry) => entry.step === step.id)) out.push(...checkLines(check, paint, width, false));
