@@ -1,3 +1,4 @@
+import {runCalc} from './commands/calc.js';
 import {runCheck, type Io} from './commands/check.js';
 import {helpTexts} from './commands/help.js';
 import {runRules} from './commands/rules.js';
@@ -5,7 +6,7 @@ import {formatProblem} from './problems.js';
 import {UsageError} from './usage-error.js';
 import {version} from './version.js';
 
-const commands: Record<string, (args: string[], io: Io) => number> = {check: runCheck, rules: runRules};
+const commands: Record<string, (args: string[], io: Io) => number> = {check: runCheck, calc: runCalc, rules: runRules};
 
 /** Runs the program with its arguments; returns the exit status. Never throws. */
 export function main(argv: string[], io: Io): number {

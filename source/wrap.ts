@@ -14,3 +14,11 @@ export function wrap(text: string, width: number, indent = ''): string[] {
 	}
 	return lines;
 }
+
+/** A definition-list row: the term padded to a column, the description wrapped under itself. */
+export function definitionRow(term: string, description: string, termWidth: number, width: number, indent = '  '): string[] {
+	const hanging = indent + ' '.repeat(termWidth + 2);
+	const lines = wrap(description, width, hanging);
+	lines[0] = `${indent}${term.padEnd(termWidth)}  ${lines[0]!.trimStart()}`;
+	return lines;
+}

@@ -11,6 +11,8 @@ export type CalculationInput = {
 	allowed?: Allowed;
 	/** Default value in SI, used by `calc` when the key is left out. */
 	default?: number;
+	/** May be left out; outputs that need it are then not given. */
+	optional?: boolean;
 };
 
 /** One output of a calculation. */
@@ -33,7 +35,10 @@ export type Calculation = {
 	formula: string;
 	/** Published sources, or "common practice". */
 	basis: string[];
+	/** Pure: SI numbers in, SI numbers out. Outputs that need a left-out optional input are absent. */
 	compute(inputs: Record<string, number>): Record<string, number>;
+	/** Plain-words remarks on a result (e.g. "no heat sink can do it"), shown by `calc`. */
+	notes?(inputs: Record<string, number>, outputs: Record<string, number>): string[];
 };
 
 /** A value outside what a calculation is valid for. */
@@ -51,6 +56,7 @@ export class CalculationInputError extends Error {
 export function checkAllowed(calculation: Calculation, values: Record<string, number>): void {
 	for (const [key, input] of Object.entries(calculation.inputs)) {
 		const value = values[key];
+		if (value === undefined && input.optional) continue;
 		if (value === undefined || !Number.isFinite(value)) throw new CalculationInputError(calculation.name, key, 'a finite number');
 		const allowed = input.allowed ?? 'non-negative';
 		if (allowed === 'positive' && !(value > 0)) throw new CalculationInputError(calculation.name, key, 'greater than zero');

@@ -15,10 +15,16 @@ export class FormulaCallError extends Error {
 
 function toSi(calculation: Calculation, args: unknown[]): Record<string, number> {
 	const keys = Object.keys(calculation.inputs);
+	// Trailing inputs that are optional or have a default may be left out of a formula call.
+	let required = keys.length;
+	while (required > 0 && (calculation.inputs[keys[required - 1]!]!.optional || calculation.inputs[keys[required - 1]!]!.default !== undefined)) required -= 1;
 	const name = formulaName(calculation);
-	if (args.length !== keys.length) throw new FormulaCallError(`${name}() takes ${keys.length} arguments (${keys.join(', ')}), got ${args.length}`);
+	if (args.length < required || args.length > keys.length) {
+		const count = required === keys.length ? `${required}` : `${required} to ${keys.length}`;
+		throw new FormulaCallError(`${name}() takes ${count} arguments (${keys.join(', ')}), got ${args.length}`);
+	}
 	const values: Record<string, number> = {};
-	keys.forEach((key, index) => {
+	keys.slice(0, args.length).forEach((key, index) => {
 		const input = calculation.inputs[key]!;
 		const arg = args[index];
 		const info = dimensions[input.dimension];
@@ -30,6 +36,10 @@ function toSi(calculation: Calculation, args: unknown[]): Record<string, number>
 			values[key] = arg.toNumber(info.si);
 		}
 	});
+	for (const key of keys.slice(args.length)) {
+		const fallback = calculation.inputs[key]!.default;
+		if (fallback !== undefined) values[key] = fallback;
+	}
 	return values;
 }
 
@@ -40,7 +50,8 @@ function asFormulaFunction(calculation: Calculation) {
 	return (...args: unknown[]) => {
 		const values = toSi(calculation, args);
 		checkAllowed(calculation, values);
-		const result = calculation.compute(values)[calculation.main]!;
+		const result = calculation.compute(values)[calculation.main];
+		if (result === undefined) throw new FormulaCallError(`${formulaName(calculation)}() needs more arguments to give ${calculation.main}`);
 		return si === '' ? result : unit(result, si);
 	};
 }

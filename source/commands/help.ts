@@ -4,12 +4,14 @@ export const helpTexts = {
 
 Usage:
   prelase check --answers FILE [--rules FILE] [--json]
+  prelase calc [NAME key=value ... [--json]]
   prelase rules schema
   prelase rules validate FILE...
   prelase --help | --version
 
 Commands:
   check    Run the bench check over the rule file and report each check's verdict and margin
+  calc     Run one bench calculation (dissipation, headroom, wire, ...) on values with units
   rules    Print the rule file JSON Schema, or validate rule files
 
 Every command takes --help. NO_COLOR turns colour off.
@@ -39,6 +41,19 @@ Exit status:
   2  bad usage or bad input (the message names the file, line and field)
 
 The on-screen check is not in this version; use --answers FILE.`,
+	calc: `prelase calc — bench calculations
+
+Usage:
+  prelase calc                            List the calculations
+  prelase calc NAME --help                Inputs (dimension, description, default), outputs, basis
+  prelase calc NAME key=value ... [--json]
+
+Values carry units: prelase calc dissipation supply=28V knee=2V series_resistance=0ohm limit=1A
+Temperatures in degC; percentages as 5%. Rule formulas call the same calculations.
+
+--json prints {"calc", "inputs", "outputs": {KEY: {"si", "unit", "text"}}, "notes", "basis"}.
+Exit status: 0 done, 2 unknown name or key, wrong dimension, missing input, or a value
+outside the calculation's validity.`,
 	rules: `prelase rules — rule files
 
 Usage:

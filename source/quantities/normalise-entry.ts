@@ -11,6 +11,7 @@ export function normaliseEntry(text: string): string {
 		.replaceAll(/\s*°\s*F\b/g, ' degF')
 		.replaceAll('−', '-')
 		.replaceAll(/\bohms\b/g, 'ohm')
+		.replaceAll(/(?:√|sqrt|rt)\(?Hz\)?/g, 'Hz^0.5')
 		.replaceAll(/\s+/g, ' ')
 		.trim();
 }
