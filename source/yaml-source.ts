@@ -81,3 +81,30 @@ export function parseYamlSource(text: string, file: string, expected: string): R
 		warnings,
 	);
 }
+
+/**
+ * A source whose data is already known (the shipped policy, parsed when prelase was built):
+ * the YAML is parsed only if something asks where a value is. Trailing comments are not
+ * looked for; the shipped policy is tested to have none after a formula.
+ */
+export function preparsedYamlSource(text: string, file: string, data: unknown): YamlSource {
+	let parsed: YamlSource | undefined;
+	const full = () => {
+		if (!parsed) {
+			const result = parseYamlSource(text, file, 'a prelase rule file (YAML)');
+			if (!result.ok) throw new Error('the pre-parsed rule file no longer parses');
+			parsed = result.value;
+		}
+		return parsed;
+	};
+	return {
+		file,
+		text,
+		data,
+		get document() {
+			return full().document;
+		},
+		locate: (path) => full().locate(path),
+		trailingComment: () => undefined,
+	};
+}

@@ -1,5 +1,5 @@
 import {dimensions} from '../quantities/dimensions.js';
-import {isUnit, unit} from '../quantities/engine.js';
+import {quantity, toUnit, type Quantity} from '../quantities/engine.js';
 import {hasDimension} from '../quantities/parse-quantity.js';
 import {checkAllowed, formulaName, type Calculation} from './calculation.js';
 import {calculations} from './registry.js';
@@ -32,8 +32,8 @@ function toSi(calculation: Calculation, args: unknown[]): Record<string, number>
 			if (typeof arg !== 'number') throw new FormulaCallError(`${name}(): argument ${index + 1} (${key}) must be a plain number`);
 			values[key] = arg;
 		} else {
-			if (!isUnit(arg) || !hasDimension(arg, input.dimension)) throw new FormulaCallError(`${name}(): argument ${index + 1} (${key}) must be ${info.noun}`);
-			values[key] = arg.toNumber(info.si);
+			if (!hasDimension(arg, input.dimension)) throw new FormulaCallError(`${name}(): argument ${index + 1} (${key}) must be ${info.noun}`);
+			values[key] = toUnit(arg as Quantity, info.si);
 		}
 	});
 	for (const key of keys.slice(args.length)) {
@@ -52,7 +52,7 @@ function asFormulaFunction(calculation: Calculation) {
 		checkAllowed(calculation, values);
 		const result = calculation.compute(values)[calculation.main];
 		if (result === undefined) throw new FormulaCallError(`${formulaName(calculation)}() needs more arguments to give ${calculation.main}`);
-		return si === '' ? result : unit(result, si);
+		return si === '' ? result : quantity(result, si);
 	};
 }
 

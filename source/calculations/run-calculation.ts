@@ -40,7 +40,7 @@ export function runCalculation(calculation: Calculation, entries: ReadonlyArray<
 		}
 		const key = entry.slice(0, equals).trim();
 		const text = entry.slice(equals + 1);
-		const input = calculation.inputs[key];
+		const input = Object.hasOwn(calculation.inputs, key) ? calculation.inputs[key] : undefined;
 		if (!input) {
 			problems.push(problem('calc-unknown-key', {key, calc: calculation.name, allowed: Object.keys(calculation.inputs).join(', '), hint: didYouMean(key, Object.keys(calculation.inputs))}, {field: key}));
 			continue;

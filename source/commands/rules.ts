@@ -1,5 +1,5 @@
 import {parseArgs} from 'node:util';
-import {z} from 'zod';
+import {toJSONSchema} from 'zod';
 import {formatProblem} from '../problems.js';
 import {loadRules} from '../rules/load.js';
 import {ruleFileSchema} from '../rules/schema.js';
@@ -9,7 +9,7 @@ import {helpTexts} from './help.js';
 
 /** The JSON Schema of rule files, with `kind` optional on quantity inputs as the loader allows. */
 export function ruleFileJsonSchema(): Record<string, unknown> {
-	const schema = z.toJSONSchema(ruleFileSchema, {io: 'input', unrepresentable: 'any'}) as Record<string, unknown>;
+	const schema = toJSONSchema(ruleFileSchema, {io: 'input', unrepresentable: 'any'}) as Record<string, unknown>;
 	const relax = (node: unknown): void => {
 		if (!node || typeof node !== 'object') return;
 		const record = node as Record<string, unknown>;

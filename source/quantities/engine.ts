@@ -1,115 +1,50 @@
-import {
-	absDependencies,
-	addDependencies,
-	andDependencies,
-	create,
-	divideDependencies,
-	equalDependencies,
-	equalTextDependencies,
-	expDependencies,
-	largerDependencies,
-	largerEqDependencies,
-	log10Dependencies,
-	logDependencies,
-	maxDependencies,
-	minDependencies,
-	multiplyDependencies,
-	notDependencies,
-	orDependencies,
-	parseDependencies,
-	piDependencies,
-	powDependencies,
-	smallerDependencies,
-	smallerEqDependencies,
-	sqrtDependencies,
-	subtractDependencies,
-	toDependencies,
-	unaryMinusDependencies,
-	unaryPlusDependencies,
-	unequalDependencies,
-	unitDependencies,
-	type FactoryFunctionMap,
-	type MathNode,
-	type Unit,
-} from 'mathjs';
+import {builtinFunctions} from './expression-evaluate.js';
+import {isQuantity, quantityOrNumber, sameExponents, type Quantity} from './quantity.js';
+import {isUnitName, parseUnitExpression} from './units.js';
 
 /**
- * The restricted, unit-aware expression instance: only arithmetic, comparison, logic,
- * a few math functions and units. Nothing in it can import, define units, evaluate text,
- * or reach files, the environment or JavaScript.
+ * The unit-aware value layer that formulas, calculations and entries share: quantities in
+ * coherent SI units with the exponents of their dimension.
  */
-const instance = create({
-	absDependencies,
-	addDependencies,
-	andDependencies,
-	divideDependencies,
-	equalDependencies,
-	equalTextDependencies,
-	expDependencies,
-	largerDependencies,
-	largerEqDependencies,
-	log10Dependencies,
-	logDependencies,
-	maxDependencies,
-	minDependencies,
-	multiplyDependencies,
-	notDependencies,
-	orDependencies,
-	parseDependencies,
-	piDependencies,
-	powDependencies,
-	smallerDependencies,
-	smallerEqDependencies,
-	sqrtDependencies,
-	subtractDependencies,
-	toDependencies,
-	unaryMinusDependencies,
-	unaryPlusDependencies,
-	unequalDependencies,
-	unitDependencies,
-} as unknown as FactoryFunctionMap);
 
-const parseFormula = instance.parse.bind(instance) as (text: string) => MathNode;
-const makeUnit = instance.unit.bind(instance) as {
-	(text: string): Unit;
-	(value: number, unit: string): Unit;
-};
-const UnitClass = (instance as unknown as {Unit: {isValuelessUnit(name: string): boolean}}).Unit;
-
-function disabled(name: string) {
-	return () => {
-		throw new Error(`${name} is not available in rule formulas`);
-	};
-}
-
-for (const name of ['import', 'createUnit', 'evaluate', 'parse', 'compile', 'simplify', 'derivative', 'resolve', 'parser', 'reviver', 'replacer', 'config']) {
-	try {
-		(instance as unknown as {import(v: object, o: object): void}).import({[name]: disabled(name)}, {override: true});
-	} catch {
-		// Names the instance never had (simplify, derivative…) cannot be overridden; they are absent anyway.
+const cache = new Map<string, ReturnType<typeof parseUnitExpression>>();
+function unitOf(text: string) {
+	let found = cache.get(text);
+	if (found === undefined && !cache.has(text)) {
+		found = text === '' ? {factor: 1, exponents: [0, 0, 0, 0, 0, 0], offset: 0} : parseUnitExpression(text);
+		cache.set(text, found);
 	}
+	if (!found) throw new Error(`unknown unit "${text}"`);
+	return found;
 }
 
-/** Parses text into an expression tree (the caller must check the tree before compiling it). */
-export const parse = parseFormula;
-
-/** Makes a unit value: `unit('250 mA')` or `unit(0.25, 'A')`. */
-export const unit = makeUnit;
-
-/** True when the name is a unit the instance knows (so a formula symbol with that name is a unit). */
-export function isUnitName(name: string): boolean {
-	return UnitClass.isValuelessUnit(name);
+/** A value in a unit (`quantity(0.25, 'A')`, `quantity(25, 'degC')`) as an SI quantity, or a plain number. */
+export function quantity(value: number, unitText: string): Quantity | number {
+	const unit = unitOf(unitText);
+	return quantityOrNumber(value * unit.factor + unit.offset, unit.exponents);
 }
 
-/** True for a mathjs unit value. */
-export function isUnit(value: unknown): value is Unit {
-	return typeof value === 'object' && value !== null && (value as {type?: string}).type === 'Unit';
+/** A quantity's value in a unit of the same dimension (`toUnit(q, 'mA')`); throws on a dimension clash. */
+export function toUnit(value: Quantity | number, unitText: string): number {
+	const unit = unitOf(unitText);
+	const exponents = typeof value === 'number' ? ([0, 0, 0, 0, 0, 0] as const) : value.exponents;
+	if (!sameExponents(exponents, unit.exponents)) throw new Error(`cannot express this value in ${unitText}`);
+	const si = typeof value === 'number' ? value : value.value;
+	return (si - unit.offset) / unit.factor;
+}
+
+/** True when a value has the dimension of a unit (`hasUnitDimension(q, 'A')`). */
+export function hasUnitDimension(value: unknown, unitText: string): boolean {
+	const unit = unitOf(unitText);
+	if (typeof value === 'number') return unit.exponents.every((exponent) => exponent === 0);
+	return isQuantity(value) && sameExponents(value.exponents, unit.exponents);
 }
 
 /** Names of the math functions that rule formulas may call. */
-export const mathFunctions: ReadonlySet<string> = new Set(['min', 'max', 'abs', 'sqrt', 'exp', 'log', 'log10']);
+export const mathFunctions: ReadonlySet<string> = builtinFunctions;
 
 /** Constants that rule formulas may name. */
 export const mathConstants: ReadonlySet<string> = new Set(['pi']);
 
-export type {MathNode, Unit};
+export {isQuantity, isUnitName};
+export type {Quantity};

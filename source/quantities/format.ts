@@ -1,5 +1,5 @@
 import {dimensions, type Dimension} from './dimensions.js';
-import {unit} from './engine.js';
+import {quantity, toUnit} from './engine.js';
 
 const prefixes: Record<number, string> = {
 	[-15]: 'f',
@@ -55,6 +55,6 @@ export function formatQuantity(si: number, dimension: Dimension, digits = 3): st
 			break;
 	}
 	if (info.prefixed) return withPrefix(si, info.display, digits);
-	const shown = info.display === info.si ? si : unit(si, info.si).toNumber(info.display);
+	const shown = info.display === info.si ? si : toUnit(quantity(si, info.si), info.display);
 	return `${roundedText(shown, digits)} ${info.display}`;
 }

@@ -1,6 +1,9 @@
 import {dimensions, type Dimension} from './dimensions.js';
-import {isUnit, unit, type Unit} from './engine.js';
+import {describeValue} from './describe-value.js';
+import {hasUnitDimension, quantity, toUnit} from './engine.js';
 import {normaliseEntry} from './normalise-entry.js';
+import {isQuantity, type Quantity} from './quantity.js';
+import {parseUnitExpression} from './units.js';
 
 /** Why an entry could not be read as a quantity of the expected dimension. */
 export type QuantityProblem =
@@ -14,24 +17,18 @@ export type QuantityProblem =
 /** A quantity read from an entry: its value in the coherent SI unit of its dimension. */
 export type ParsedQuantity = {si: number; dimension: Dimension; entered: string};
 
-const plainNumber = /^[-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?$/;
-const percentage = /^([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)\s*%$/;
+const leadingNumber = /^[-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?/;
 
-/** Names the dimension of a unit value in words, for error messages. */
-export function describeDimension(value: Unit): string {
-	for (const info of Object.values(dimensions)) {
-		if (info.si !== '' && value.equalBase(unit(1, info.si))) return info.noun;
-	}
-	if (value.equalBase(unit(1, 'C'))) return 'a charge';
-	if (value.equalBase(unit(1, 'kg'))) return 'a mass';
-	return `a quantity in ${value.formatUnits() || 'no unit'}`;
+/** Names the dimension of a value in words, for error messages. */
+export function describeDimension(value: Quantity | number): string {
+	return describeValue(value);
 }
 
-/** True when a mathjs unit value has the given dimension. */
-export function hasDimension(value: Unit, dimension: Dimension): boolean {
+/** True when a value (a quantity, or a plain number for ratio and number) has the given dimension. */
+export function hasDimension(value: unknown, dimension: Dimension): boolean {
 	const si = dimensions[dimension].si;
-	if (si === '') return false;
-	return value.equalBase(unit(1, si));
+	if (si === '') return typeof value === 'number';
+	return isQuantity(value) && hasUnitDimension(value, si);
 }
 
 /**
@@ -41,33 +38,26 @@ export function hasDimension(value: Unit, dimension: Dimension): boolean {
 export function parseQuantity(entered: string, expected: Dimension): {ok: true; value: ParsedQuantity} | {ok: false; problem: QuantityProblem} {
 	const text = normaliseEntry(entered);
 	if (text === '') return {ok: false, problem: {code: 'entry-empty'}};
+	const number = leadingNumber.exec(text);
+	if (!number) return {ok: false, problem: {code: 'entry-not-a-number', entered}};
+	const value = Number(number[0]);
+	const unitText = text.slice(number[0].length).trim();
 	const plain = expected === 'ratio' || expected === 'number';
-	const percent = percentage.exec(text);
-	if (percent) {
+	if (unitText === '%') {
 		if (expected !== 'ratio') return {ok: false, problem: {code: 'entry-wrong-dimension', entered, expected, received: 'a percentage'}};
-		return finite(Number(percent[1]) / 100, expected, entered);
+		return finite(value / 100, expected, entered);
 	}
-	if (plainNumber.test(text)) {
+	if (unitText === '') {
 		if (!plain) return {ok: false, problem: {code: 'entry-missing-unit', entered, expected}};
-		return finite(Number(text), expected, entered);
+		return finite(value, expected, entered);
 	}
-	if (!/^[-+]?(?:\d|\.\d)/.test(text)) return {ok: false, problem: {code: 'entry-not-a-number', entered}};
-	let value: Unit;
-	try {
-		const parsed: unknown = unit(text);
-		if (!isUnit(parsed)) return {ok: false, problem: {code: 'entry-not-a-number', entered}};
-		value = parsed;
-	} catch {
-		return {ok: false, problem: {code: 'entry-unknown-unit', entered, expected}};
+	const unit = parseUnitExpression(unitText);
+	if (!unit) return {ok: false, problem: {code: 'entry-unknown-unit', entered, expected}};
+	const read = quantity(value, unitText);
+	if (!hasDimension(read, expected)) {
+		return {ok: false, problem: {code: 'entry-wrong-dimension', entered, expected, received: describeValue(read)}};
 	}
-	if (value.value === null) return {ok: false, problem: {code: 'entry-not-a-number', entered}};
-	if (plain) {
-		return {ok: false, problem: {code: 'entry-wrong-dimension', entered, expected, received: describeDimension(value)}};
-	}
-	if (!hasDimension(value, expected)) {
-		return {ok: false, problem: {code: 'entry-wrong-dimension', entered, expected, received: describeDimension(value)}};
-	}
-	return finite(value.toNumber(dimensions[expected].si), expected, entered);
+	return finite(plain ? (read as number) : toUnit(read, dimensions[expected].si), expected, entered);
 }
 
 function finite(si: number, dimension: Dimension, entered: string) {

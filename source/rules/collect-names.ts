@@ -16,13 +16,14 @@ export function collectNames(rules: RuleFile, source: YamlSource): {names: Map<s
 	const places = new Map<string, Place>();
 	const problems: Problem[] = [];
 	const claim = (id: string, kind: NameKind | undefined, place: Place) => {
-		const where = {file: source.file, ...source.locate(place.path), field: place.path.join('.')};
+		// Located only when there is a problem: finding a line may mean parsing the YAML again.
+		const where = () => ({file: source.file, ...source.locate(place.path), field: place.path.join('.')});
 		const first = places.get(id);
 		if (first) {
-			problems.push(problem('duplicate-id', {id, first: `${first.what} at line ${source.locate(first.path).line}`}, where));
+			problems.push(problem('duplicate-id', {id, first: `${first.what} at line ${source.locate(first.path).line}`}, where()));
 			return;
 		}
-		if (isUnitName(id)) problems.push(problem('id-is-unit', {id}, where));
+		if (isUnitName(id)) problems.push(problem('id-is-unit', {id}, where()));
 		places.set(id, place);
 		if (kind) names.set(id, kind);
 	};

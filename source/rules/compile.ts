@@ -24,7 +24,7 @@ export const formulaFunctionNames: ReadonlySet<string> = new Set([...mathFunctio
  * formula once, orders derived values, then lints with sample values. Reports every
  * problem found, each with file:line:column.
  */
-export function compileRules(rules: RuleFile, source: YamlSource): Result<CompiledRules, Problem> {
+export function compileRules(rules: RuleFile, source: YamlSource, sha256 = createHash('sha256').update(source.text).digest('hex')): Result<CompiledRules, Problem> {
 	const {names, problems} = collectNames(rules, source);
 	const warnings: Problem[] = [];
 	const where = (path: Path, name?: string, text = '') => ({file: source.file, ...locateInField(source, path, name, text), field: path.join('.')});
@@ -129,7 +129,7 @@ export function compileRules(rules: RuleFile, source: YamlSource): Result<Compil
 	const compiled: CompiledRules = {
 		file: source.file,
 		text: source.text,
-		sha256: createHash('sha256').update(source.text).digest('hex'),
+		sha256,
 		rules,
 		names: names as NameTable,
 		policy,

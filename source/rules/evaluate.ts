@@ -1,5 +1,5 @@
 import {fillPlaceholders} from '../problems.js';
-import {isUnit} from '../quantities/engine.js';
+import {isQuantity} from '../quantities/engine.js';
 import type {Answers} from './answers.js';
 import type {CompiledCheck, CompiledRules} from './compiled-rules.js';
 import type {CheckResult, ConfirmationResult, DerivedResult, Evaluation, Outcome} from './evaluation.js';
@@ -105,7 +105,7 @@ export function decideOutcome(checks: readonly CheckResult[], confirmations: rea
 function isFiniteResult(value: unknown): boolean {
 	if (typeof value === 'number') return Number.isFinite(value);
 	if (typeof value === 'boolean' || typeof value === 'string') return true;
-	if (isUnit(value)) return value.value !== null && Number.isFinite(value.value);
+	if (isQuantity(value)) return Number.isFinite(value.value);
 	return false;
 }
 
@@ -159,7 +159,7 @@ function placeholderValues(scope: Map<string, unknown>): Record<string, string> 
 	for (const [name, value] of scope) {
 		if (typeof value === 'function') continue;
 		const dimension = inferDimension(value);
-		values[name] = dimension && (typeof value === 'number' || isUnit(value)) ? toShown(value, dimension).text : String(value);
+		values[name] = dimension && (typeof value === 'number' || isQuantity(value)) ? toShown(value, dimension).text : String(value);
 	}
 	return values;
 }

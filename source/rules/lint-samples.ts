@@ -1,5 +1,5 @@
 import {dimensions} from '../quantities/dimensions.js';
-import {isUnit} from '../quantities/engine.js';
+import {isQuantity} from '../quantities/engine.js';
 import {hasDimension} from '../quantities/parse-quantity.js';
 import {problem, type Problem} from '../problems.js';
 import type {CompiledRules} from './compiled-rules.js';
@@ -39,7 +39,7 @@ export function lintWithSamples(rules: CompiledRules, where: Where): Problem[] {
 		formula.parts.forEach((part, index) => {
 			if (part.pairedWith === undefined) return;
 			const [a, b] = [results[index], results[part.pairedWith]];
-			const same = (isUnit(a) && isUnit(b) && a.equalBase(b)) || (typeof a === typeof b && !isUnit(a) && !isUnit(b));
+			const same = (isQuantity(a) && isQuantity(b) && a.equalBase(b)) || (typeof a === typeof b && !isQuantity(a) && !isQuantity(b));
 			if (!same) problems.push(problem('dimension-mismatch', {detail: `the two branches of a ? b : c differ: ${describeResult(a)} and ${describeResult(b)}`}, where(path, undefined, formula.text)));
 		});
 		try {
@@ -61,7 +61,7 @@ export function lintWithSamples(rules: CompiledRules, where: Where): Problem[] {
 		const result = run(formula, path);
 		if (!result.ok) continue;
 		const info = dimensions[derived.dimension];
-		const fits = info.si === '' ? typeof result.value === 'number' : isUnit(result.value) && hasDimension(result.value, derived.dimension);
+		const fits = hasDimension(result.value, derived.dimension);
 		if (!fits) problems.push(problem('wrong-dimension', {what: `derived value "${derived.id}"`, expected: info.noun, received: describeResult(result.value)}, where(path, undefined, formula.text)));
 		else scope.set(derived.id, result.value);
 	}
@@ -82,14 +82,14 @@ export function lintWithSamples(rules: CompiledRules, where: Where): Problem[] {
 		const value = run(compiled.value, ['checks', index, 'value']);
 		const limit = run(compiled.limit, ['checks', index, compiled.relation]);
 		if (!value.ok || !limit.ok) return;
-		const comparable = (isUnit(value.value) && isUnit(limit.value) && value.value.equalBase(limit.value)) || (typeof value.value === 'number' && typeof limit.value === 'number');
+		const comparable = (isQuantity(value.value) && isQuantity(limit.value) && value.value.equalBase(limit.value)) || (typeof value.value === 'number' && typeof limit.value === 'number');
 		if (!comparable) {
 			problems.push(problem('compare-mismatch', {value: describeResult(value.value), limit: describeResult(limit.value)}, where(['checks', index, compiled.relation], undefined, check.at_most ?? check.at_least)));
 			return;
 		}
 		if (check.dimension) {
 			const info = dimensions[check.dimension];
-			const fits = info.si === '' ? typeof value.value === 'number' : isUnit(value.value) && hasDimension(value.value, check.dimension);
+			const fits = hasDimension(value.value, check.dimension);
 			if (!fits) problems.push(problem('wrong-dimension', {what: `value of check "${check.id}"`, expected: info.noun, received: describeResult(value.value)}, where(['checks', index, 'dimension'])));
 		}
 	});

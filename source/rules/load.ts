@@ -1,10 +1,12 @@
+import {createHash} from 'node:crypto';
 import {existsSync} from 'node:fs';
 import {dirname, join, resolve} from 'node:path';
 import {fileURLToPath} from 'node:url';
 import type {z} from 'zod';
 import {problem, type Problem} from '../problems.js';
-import {failure, type Result} from '../result.js';
-import {parseYamlSource, readTextFile, type YamlSource} from '../yaml-source.js';
+import {failure, success, type Result} from '../result.js';
+import {parseYamlSource, preparsedYamlSource, readTextFile, type YamlSource} from '../yaml-source.js';
+import {shippedRulesData} from './shipped-rules.js';
 import {compileRules} from './compile.js';
 import type {CompiledRules} from './compiled-rules.js';
 import {ruleFileSchema} from './schema.js';
@@ -31,12 +33,14 @@ export function loadRules(file: string): Result<CompiledRules, Problem> {
 
 /** The same as loadRules, for text already in hand. */
 export function loadRulesFromText(text: string, file: string): Result<CompiledRules, Problem> {
-	const parsed = parseYamlSource(text, file, expected);
+	const sha256 = createHash('sha256').update(text).digest('hex');
+	const shipped = shippedRulesData(sha256);
+	const parsed = shipped === undefined ? parseYamlSource(text, file, expected) : success<YamlSource, Problem>(preparsedYamlSource(text, file, shipped));
 	if (!parsed.ok) return parsed;
 	const source = parsed.value;
 	const validated = ruleFileSchema.safeParse(source.data);
 	if (!validated.success) return failure(schemaProblems(validated.error.issues, source));
-	const compiled = compileRules(validated.data, source);
+	const compiled = compileRules(validated.data, source, sha256);
 	if (!compiled.ok) return compiled;
 	return {ok: true, value: compiled.value, warnings: [...parsed.warnings, ...compiled.warnings]};
 }

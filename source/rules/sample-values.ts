@@ -1,11 +1,11 @@
 import {dimensions, type Dimension} from '../quantities/dimensions.js';
-import {unit} from '../quantities/engine.js';
+import {quantity} from '../quantities/engine.js';
 import type {SiValue} from './compiled-rules.js';
 
 /** The value a formula sees for an SI number of a dimension: a unit value, or a plain number. */
 export function toFormulaValue(value: SiValue): unknown {
 	const si = dimensions[value.dimension].si;
-	return si === '' ? value.si : unit(value.si, si);
+	return si === '' ? value.si : quantity(value.si, si);
 }
 
 /** A representative value inside a range, for linting formulas with sample inputs. */

@@ -1,19 +1,19 @@
-import {z} from 'zod';
+// Named imports (not the z namespace) let the bundler drop the parts of zod prelase does not use.
+import {array, boolean, discriminatedUnion, literal, number, object, preprocess, record, string, tuple, union, enum as oneOf} from 'zod';
+import type {z} from 'zod';
 import {dimensionNames} from '../quantities/dimensions.js';
 
-const identifier = z
-	.string()
+const identifier = string()
 	.regex(/^[a-z][a-z0-9_]*$/, 'an id is lower case letters, digits and underscores, starting with a letter (e.g. current_limit)');
 
-const formula = z.string().trim().min(1, 'a formula cannot be empty');
-const quantityText = z.union([z.string(), z.number()]);
-const words = z.string().trim().min(1, 'this text cannot be empty');
+const formula = string().trim().min(1, 'a formula cannot be empty');
+const quantityText = union([string(), number()]);
+const words = string().trim().min(1, 'this text cannot be empty');
 
 /** A site-tunable constant with its unit, meaning and basis. */
-export const policyValueSchema = z
-	.object({
+export const policyValueSchema = object({
 		value: quantityText.describe('The value with its unit, e.g. "10 %" or "3 s"'),
-		dimension: z.enum(dimensionNames),
+		dimension: oneOf(dimensionNames),
 		meaning: words,
 		basis: words,
 	})
@@ -22,90 +22,81 @@ export const policyValueSchema = z
 const inputCommon = {
 	id: identifier,
 	label: words,
-	help: z.string().optional().describe('One line shown under the input'),
+	help: string().optional().describe('One line shown under the input'),
 	when: formula.optional().describe('The input is asked only when this holds'),
-	identifies: z.boolean().optional().describe('Part of what identifies the setup (diode, driver, supply, wiring, location)'),
-	optional: z.boolean().optional().describe('May be left blank without making the check incomplete'),
+	identifies: boolean().optional().describe('Part of what identifies the setup (diode, driver, supply, wiring, location)'),
+	optional: boolean().optional().describe('May be left blank without making the check incomplete'),
 };
 
 /** A number with a unit, in a sane range. */
-export const quantityInputSchema = z
-	.object({
+export const quantityInputSchema = object({
 		...inputCommon,
-		kind: z.literal('quantity'),
-		dimension: z.enum(dimensionNames),
-		range: z.tuple([quantityText, quantityText]).describe('[lowest, highest] accepted entry, with units'),
+		kind: literal('quantity'),
+		dimension: oneOf(dimensionNames),
+		range: tuple([quantityText, quantityText]).describe('[lowest, highest] accepted entry, with units'),
 		default: quantityText.optional(),
 	})
 	.strict();
 
 /** One option out of a listed set. */
-export const choiceInputSchema = z
-	.object({
+export const choiceInputSchema = object({
 		...inputCommon,
-		kind: z.literal('choice'),
-		options: z.record(identifier, words).refine((options) => Object.keys(options).length >= 2, 'a choice needs at least two options'),
+		kind: literal('choice'),
+		options: record(identifier, words).refine((options) => Object.keys(options).length >= 2, 'a choice needs at least two options'),
 		default: identifier.optional(),
 	})
 	.strict();
 
 /** A yes or no fact about the setup (not a confirmation of a precaution). */
-export const yesNoInputSchema = z
-	.object({...inputCommon, kind: z.literal('yes_no'), default: z.boolean().optional()})
+export const yesNoInputSchema = object({...inputCommon, kind: literal('yes_no'), default: boolean().optional()})
 	.strict();
 
 /** Short free text, such as a serial number or a procedure revision. */
-export const textInputSchema = z
-	.object({...inputCommon, kind: z.literal('text'), max_length: z.number().int().positive().max(2000).default(200)})
+export const textInputSchema = object({...inputCommon, kind: literal('text'), max_length: number().int().positive().max(2000).default(200)})
 	.strict();
 
 /** An input of a step. */
-export const inputSchema = z.preprocess(
+export const inputSchema = preprocess(
 	(raw) => (raw && typeof raw === 'object' && !Array.isArray(raw) && !('kind' in raw) ? {...raw, kind: 'quantity'} : raw),
-	z.discriminatedUnion('kind', [quantityInputSchema, choiceInputSchema, yesNoInputSchema, textInputSchema]),
+	discriminatedUnion('kind', [quantityInputSchema, choiceInputSchema, yesNoInputSchema, textInputSchema]),
 );
 
 /** A statement the operator answers yes, no or not applicable. */
-export const confirmationSchema = z
-	.object({
+export const confirmationSchema = object({
 		id: identifier,
 		statement: words,
 		when: formula.optional(),
-		not_applicable: z.enum(['allowed', 'forbidden']).default('allowed'),
+		not_applicable: oneOf(['allowed', 'forbidden']).default('allowed'),
 		basis: words,
 	})
 	.strict();
 
 /** A screen's worth of the bench check. */
-export const stepSchema = z
-	.object({
+export const stepSchema = object({
 		id: identifier,
 		title: words,
-		summary: z.string().optional(),
-		inputs: z.array(inputSchema).default([]),
-		confirmations: z.array(confirmationSchema).default([]),
+		summary: string().optional(),
+		inputs: array(inputSchema).default([]),
+		confirmations: array(confirmationSchema).default([]),
 	})
 	.strict();
 
 /** A value computed from inputs, policy values and other derived values. */
-export const derivedSchema = z
-	.object({id: identifier, label: words, dimension: z.enum(dimensionNames), formula})
+export const derivedSchema = object({id: identifier, label: words, dimension: oneOf(dimensionNames), formula})
 	.strict();
 
 /** Which options of one choice go with each option of another. */
-export const tableSchema = z
-	.object({
+export const tableSchema = object({
 		label: words,
 		key: identifier,
 		value: identifier,
-		rows: z.record(identifier, z.array(identifier)),
+		rows: record(identifier, array(identifier)),
 		basis: words,
 	})
 	.strict();
 
 /** A condition that must hold before energizing, with its severity, margin and basis. */
-export const checkSchema = z
-	.object({
+export const checkSchema = object({
 		id: identifier,
 		step: identifier,
 		title: words,
@@ -114,10 +105,10 @@ export const checkSchema = z
 		at_most: formula.optional().describe('The limit the value must not exceed'),
 		at_least: formula.optional().describe('The limit the value must reach'),
 		holds: formula.optional().describe('A true/false condition, for checks that are not a comparison with a limit'),
-		dimension: z.enum(dimensionNames).optional().describe('How value, limit and margin are shown (inferred when absent)'),
-		severity: z.enum(['stop', 'advise']),
+		dimension: oneOf(dimensionNames).optional().describe('How value, limit and margin are shown (inferred when absent)'),
+		severity: oneOf(['stop', 'advise']),
 		explanation: words.describe('One line: why this check exists'),
-		message: z.string().optional().describe('Shown when the check does not hold; {{value}}, {{limit}}, {{margin}} and names are filled in'),
+		message: string().optional().describe('Shown when the check does not hold; {{value}}, {{limit}}, {{margin}} and names are filled in'),
 		basis: words,
 	})
 	.strict()
@@ -131,16 +122,15 @@ export const checkSchema = z
 	});
 
 /** The whole rule file. */
-export const ruleFileSchema = z
-	.object({
-		format: z.literal(1).describe('Rule file format version'),
+export const ruleFileSchema = object({
+		format: literal(1).describe('Rule file format version'),
 		name: words,
 		caution: words.describe('Shown at the start of every check, on the summary and in every record'),
-		policy: z.record(identifier, policyValueSchema).default({}),
-		tables: z.record(identifier, tableSchema).default({}),
-		steps: z.array(stepSchema).min(1, 'a rule file needs at least one step'),
-		derived: z.array(derivedSchema).default([]),
-		checks: z.array(checkSchema).default([]),
+		policy: record(identifier, policyValueSchema).default({}),
+		tables: record(identifier, tableSchema).default({}),
+		steps: array(stepSchema).min(1, 'a rule file needs at least one step'),
+		derived: array(derivedSchema).default([]),
+		checks: array(checkSchema).default([]),
 	})
 	.strict();
 

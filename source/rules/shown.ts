@@ -1,5 +1,5 @@
 import {dimensionNames, dimensions, type Dimension} from '../quantities/dimensions.js';
-import {isUnit, unit, type Unit} from '../quantities/engine.js';
+import {hasUnitDimension, isQuantity, toUnit, type Quantity} from '../quantities/engine.js';
 import {formatQuantity} from '../quantities/format.js';
 import type {Shown} from './evaluation.js';
 
@@ -7,13 +7,13 @@ import type {Shown} from './evaluation.js';
 export function inferDimension(value: unknown, declared?: Dimension): Dimension | undefined {
 	if (declared) return declared;
 	if (typeof value === 'number') return 'number';
-	if (!isUnit(value)) return undefined;
-	return dimensionNames.find((name) => dimensions[name].si !== '' && value.equalBase(unit(1, dimensions[name].si)));
+	if (!isQuantity(value)) return undefined;
+	return dimensionNames.find((name) => dimensions[name].si !== '' && hasUnitDimension(value, dimensions[name].si));
 }
 
 /** A formula result as an SI number of a dimension, with its text. */
 export function toShown(value: unknown, dimension: Dimension): Shown {
-	const si = typeof value === 'number' ? value : (value as Unit).toNumber(dimensions[dimension].si);
+	const si = typeof value === 'number' ? value : toUnit(value as Quantity, dimensions[dimension].si);
 	return {si, dimension, text: formatQuantity(si, dimension)};
 }
 

@@ -2,7 +2,7 @@ import {describe, expect, it} from 'vitest';
 import {compileFormula} from '../../source/rules/formula.js';
 import {formulaFunctionNames} from '../../source/rules/compile.js';
 import type {NameTable} from '../../source/rules/names.js';
-import {unit} from '../../source/quantities/engine.js';
+import {quantity} from '../../source/quantities/engine.js';
 
 const names: NameTable = new Map([
 	['limit', {kind: 'quantity', source: 'input'}],
@@ -11,7 +11,7 @@ const names: NameTable = new Map([
 ] as const);
 
 const refused: Array<{name: string; formula: string; code: string}> = [
-	{name: 'import', formula: 'import({x: 1})', code: 'unknown-function'},
+	{name: 'import with an object', formula: 'import({x: 1})', code: 'construct-not-allowed'},
 	{name: 'import by call', formula: 'import(limit)', code: 'unknown-function'},
 	{name: 'createUnit', formula: 'createUnit("furlong")', code: 'unknown-function'},
 	{name: 'evaluate', formula: 'evaluate("1 + 1")', code: 'unknown-function'},
@@ -25,15 +25,21 @@ const refused: Array<{name: string; formula: string; code: string}> = [
 	{name: 'array', formula: '[1, 2]', code: 'construct-not-allowed'},
 	{name: 'object', formula: '{a: 1}', code: 'construct-not-allowed'},
 	{name: 'property access', formula: 'limit.value', code: 'construct-not-allowed'},
-	{name: 'constructor escape', formula: 'cos.constructor("return process")()', code: 'formula-syntax'},
-	{name: 'constructor escape through a call', formula: 'abs.constructor("return process")', code: 'unknown-function'},
+	{name: 'constructor escape', formula: 'cos.constructor("return process")()', code: 'construct-not-allowed'},
+	{name: 'constructor escape through a call', formula: 'abs.constructor("return process")', code: 'construct-not-allowed'},
+	{name: 'calling the result of a call', formula: 'abs(limit)(1)', code: 'construct-not-allowed'},
+	{name: 'calling a parenthesised value', formula: '(abs)(limit)', code: 'construct-not-allowed'},
+	{name: 'prototype name', formula: '__proto__', code: 'unknown-name'},
+	{name: 'constructor name', formula: 'constructor', code: 'unknown-name'},
+	{name: 'a call to constructor', formula: 'constructor(1)', code: 'unknown-function'},
+	{name: 'a call to toString', formula: 'toString()', code: 'unknown-function'},
 	{name: 'index escape', formula: 'limit["constructor"]', code: 'construct-not-allowed'},
 	{name: 'string literal', formula: '"process"', code: 'string-not-allowed'},
 	{name: 'unknown symbol process', formula: 'process', code: 'unknown-name'},
 	{name: 'unknown symbol require', formula: 'require', code: 'unknown-name'},
 	{name: 'range', formula: '1:3', code: 'construct-not-allowed'},
 	{name: 'factorial operator', formula: '3!', code: 'construct-not-allowed'},
-	{name: 'modulo', formula: '5 mod 2', code: 'construct-not-allowed'},
+	{name: 'modulo', formula: '5 mod 2', code: 'formula-syntax'},
 	{name: 'bitwise operator', formula: '1 & 2', code: 'construct-not-allowed'},
 	{name: 'chained comparison', formula: '0 A < limit < maximum', code: 'construct-not-allowed'},
 ];
@@ -50,8 +56,8 @@ describe('rule formulas are restricted', () => {
 		expect(compiled.ok).toBe(true);
 		if (!compiled.ok) return;
 		const scope = new Map<string, unknown>([
-			['limit', unit(1, 'A')],
-			['maximum', unit(2, 'A')],
+			['limit', quantity(1, 'A')],
+			['maximum', quantity(2, 'A')],
 		]);
 		expect(compiled.formula.evaluate(scope)).toBe(true);
 		expect([...scope.keys()]).toEqual(['limit', 'maximum']);

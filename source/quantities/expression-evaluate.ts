@@ -1,0 +1,193 @@
+import {combine, isQuantity, quantityOrNumber, scale, dimensionless, Quantity, type Exponents} from './quantity.js';
+import type {ExpressionNode} from './expression-syntax.js';
+import {findUnit} from './units.js';
+import {describeValue} from './describe-value.js';
+
+/** Why a formula could not be evaluated: a dimension clash, or another failure. */
+export class EvaluationError extends Error {
+	constructor(
+		readonly code: 'dimension-mismatch' | 'formula-failed',
+		readonly detail: string,
+	) {
+		super(detail);
+	}
+}
+
+/** A value a formula works with. */
+export type FormulaValue = number | boolean | string | Quantity;
+
+/** Relative tolerance for comparisons, so rounding in the last bits never flips a verdict. */
+export const comparisonTolerance = 1e-12;
+
+type Scope = ReadonlyMap<string, unknown>;
+
+function parts(value: FormulaValue): {value: number; exponents: Exponents} | undefined {
+	if (typeof value === 'number') return {value, exponents: dimensionless};
+	if (isQuantity(value)) return {value: value.value, exponents: value.exponents};
+	return undefined;
+}
+
+function numeric(value: FormulaValue, what: string) {
+	const found = parts(value);
+	if (!found) throw new EvaluationError('dimension-mismatch', `${what} needs a number or a quantity, got ${describeValue(value)}`);
+	return found;
+}
+
+function sameDimension(left: FormulaValue, right: FormulaValue, what: string) {
+	const a = numeric(left, what);
+	const b = numeric(right, what);
+	if (!a.exponents.every((exponent, index) => Math.abs(exponent - b.exponents[index]!) < 1e-9)) {
+		throw new EvaluationError('dimension-mismatch', `${what} ${describeValue(left)} and ${describeValue(right)}`);
+	}
+	return [a, b] as const;
+}
+
+function compare(op: string, left: FormulaValue, right: FormulaValue): boolean {
+	if (typeof left === 'string' || typeof right === 'string') {
+		if (typeof left !== 'string' || typeof right !== 'string' || (op !== '==' && op !== '!=')) throw new EvaluationError('dimension-mismatch', 'text can only be compared with text, using == or !=');
+		return op === '==' ? left === right : left !== right;
+	}
+	if (typeof left === 'boolean' || typeof right === 'boolean') {
+		if (typeof left !== 'boolean' || typeof right !== 'boolean' || (op !== '==' && op !== '!=')) throw new EvaluationError('dimension-mismatch', 'true/false can only be compared with true/false, using == or !=');
+		return op === '==' ? left === right : left !== right;
+	}
+	const [a, b] = sameDimension(left, right, 'cannot compare');
+	const tolerance = comparisonTolerance * Math.max(Math.abs(a.value), Math.abs(b.value));
+	const difference = a.value - b.value;
+	switch (op) {
+		case '<':
+			return difference < -tolerance;
+		case '<=':
+			return difference <= tolerance;
+		case '>':
+			return difference > tolerance;
+		case '>=':
+			return difference >= -tolerance;
+		case '==':
+			return Math.abs(difference) <= tolerance;
+		default:
+			return Math.abs(difference) > tolerance;
+	}
+}
+
+function truth(value: FormulaValue, what: string): boolean {
+	if (typeof value !== 'boolean') throw new EvaluationError('dimension-mismatch', `${what} needs true or false, got ${describeValue(value)}`);
+	return value;
+}
+
+function plainNumber(value: FormulaValue, name: string): number {
+	const found = numeric(value, `${name}()`);
+	if (found.exponents.some((exponent) => Math.abs(exponent) > 1e-9)) throw new EvaluationError('dimension-mismatch', `${name}() needs a plain number, got ${describeValue(value)}`);
+	return found.value;
+}
+
+const builtins: Record<string, (args: FormulaValue[]) => FormulaValue> = {
+	min: (args) => extreme(args, 'min', (a, b) => a < b),
+	max: (args) => extreme(args, 'max', (a, b) => a > b),
+	abs: ([value]) => {
+		const found = numeric(value!, 'abs()');
+		return quantityOrNumber(Math.abs(found.value), found.exponents);
+	},
+	sqrt: ([value]) => {
+		const found = numeric(value!, 'sqrt()');
+		if (found.value < 0) throw new EvaluationError('formula-failed', 'sqrt() of a negative value');
+		return quantityOrNumber(Math.sqrt(found.value), scale(found.exponents, 0.5));
+	},
+	exp: ([value]) => Math.exp(plainNumber(value!, 'exp')),
+	log: ([value]) => positiveLog(plainNumber(value!, 'log'), Math.log, 'log'),
+	log10: ([value]) => positiveLog(plainNumber(value!, 'log10'), Math.log10, 'log10'),
+};
+
+const arity: Record<string, [number, number]> = {min: [1, 99], max: [1, 99], abs: [1, 1], sqrt: [1, 1], exp: [1, 1], log: [1, 1], log10: [1, 1]};
+
+/** Names of the math functions formulas may call. */
+export const builtinFunctions: ReadonlySet<string> = new Set(Object.keys(builtins));
+
+function positiveLog(value: number, fn: (x: number) => number, name: string): number {
+	if (!(value > 0)) throw new EvaluationError('formula-failed', `${name}() of a value that is not positive`);
+	return fn(value);
+}
+
+function extreme(args: FormulaValue[], name: string, better: (a: number, b: number) => boolean): FormulaValue {
+	let best = args[0]!;
+	for (const candidate of args.slice(1)) {
+		const [a, b] = sameDimension(candidate, best, `${name}() cannot mix`);
+		if (better(a.value, b.value)) best = candidate;
+	}
+	numeric(best, `${name}()`);
+	return best;
+}
+
+function measure(value: number, unit: string): FormulaValue {
+	const definition = findUnit(unit)!;
+	return quantityOrNumber(value * definition.factor + (definition.offset ?? 0), definition.exponents);
+}
+
+/** Evaluates a parsed formula against a scope of values and functions. */
+export function evaluateExpression(node: ExpressionNode, scope: Scope): FormulaValue {
+	switch (node.kind) {
+		case 'number':
+		case 'string':
+		case 'boolean':
+			return node.value;
+		case 'measure':
+			return measure(node.value, node.unit);
+		case 'group':
+			return evaluateExpression(node.inner, scope);
+		case 'name': {
+			if (scope.has(node.name)) return scope.get(node.name) as FormulaValue;
+			if (node.name === 'pi') return Math.PI;
+			const unit = findUnit(node.name);
+			if (!unit) throw new EvaluationError('formula-failed', `"${node.name}" has no value`);
+			if (unit.offset) throw new EvaluationError('dimension-mismatch', `${node.name} has an offset and can only follow a number (25 ${node.name}); use K for differences`);
+			return quantityOrNumber(unit.factor, unit.exponents);
+		}
+		case 'call': {
+			const args = node.args.map((arg) => evaluateExpression(arg, scope));
+			const fromScope = scope.get(node.name);
+			if (typeof fromScope === 'function') return fromScope(...args) as FormulaValue;
+			const builtin = builtins[node.name];
+			if (!builtin) throw new EvaluationError('formula-failed', `no function "${node.name}"`);
+			const [least, most] = arity[node.name]!;
+			if (args.length < least || args.length > most) throw new EvaluationError('formula-failed', `${node.name}() takes ${least === most ? least : `${least} or more`} argument${most === 1 ? '' : 's'}, got ${args.length}`);
+			return builtin(args);
+		}
+		case 'unary': {
+			const value = evaluateExpression(node.arg, scope);
+			if (node.op === 'not') return !truth(value, 'not');
+			const found = numeric(value, `unary ${node.op}`);
+			return node.op === '-' ? quantityOrNumber(-found.value, found.exponents) : value;
+		}
+		case 'conditional':
+			return truth(evaluateExpression(node.condition, scope), 'the condition of a ? b : c') ? evaluateExpression(node.then, scope) : evaluateExpression(node.otherwise, scope);
+		case 'binary':
+			return binary(node.op, node.left, node.right, scope);
+	}
+}
+
+function binary(op: string, leftNode: ExpressionNode, rightNode: ExpressionNode, scope: Scope): FormulaValue {
+	if (op === 'and') return truth(evaluateExpression(leftNode, scope), 'and') ? truth(evaluateExpression(rightNode, scope), 'and') : false;
+	if (op === 'or') return truth(evaluateExpression(leftNode, scope), 'or') ? true : truth(evaluateExpression(rightNode, scope), 'or');
+	const left = evaluateExpression(leftNode, scope);
+	const right = evaluateExpression(rightNode, scope);
+	switch (op) {
+		case '+':
+		case '-': {
+			const [a, b] = sameDimension(left, right, op === '+' ? 'cannot add' : 'cannot subtract');
+			return quantityOrNumber(op === '+' ? a.value + b.value : a.value - b.value, a.exponents);
+		}
+		case '*':
+		case '/': {
+			const a = numeric(left, op === '*' ? 'multiplying' : 'dividing');
+			const b = numeric(right, op === '*' ? 'multiplying' : 'dividing');
+			return quantityOrNumber(op === '*' ? a.value * b.value : a.value / b.value, combine(a.exponents, b.exponents, op === '*' ? 1 : -1));
+		}
+		case '^': {
+			const base = numeric(left, 'a power');
+			const exponent = plainNumber(right, 'a power (^)');
+			return quantityOrNumber(base.value ** exponent, scale(base.exponents, exponent));
+		}
+		default:
+			return compare(op, left, right);
+	}
+}
