@@ -1,0 +1,335 @@
+import {describe, expect, it} from 'vitest';
+import type {Outcome, Verdict} from '../../source/rules/evaluation.js';
+import {checkResult, evaluateDocument, expectClose, readAnswers, readDemo, shippedRules, withChanges, type AnswersDocument, type Changes} from './bench-answers.js';
+
+// Every case starts from the clearing demo and changes one or two inputs. The demo in
+// hand arithmetic (policy: current_margin 10 %, power_margin 10 %, headroom_margin 0.5 V,
+// min_emission_delay 3 s, min_soft_start 10 ms):
+//   current_ceiling      = 2.5 A × (1 − 0.10)                        = 2.25 A
+//   modulation_peak      = 0.1 A/V × 2 V                             = 0.2 A
+//   supply_low / high    = 5 V × 0.95 / 5 V × 1.05                   = 4.75 V / 5.25 V
+//   forward_voltage      = 1.6 V + 0.15 Ω × 2 A                      = 1.9 V
+//   path_drop            = 2 A × (0.05 Ω + 0.1 Ω) + 0.8 V            = 1.1 V
+//   compliance_available = 4.75 V − 1.1 V                            = 3.65 V
+//   regulation_floor     = 1.9 V + 1.1 V                             = 3.0 V
+//   worst_dissipation    : I* = (5.25 − 1.6)/(2 × 0.15) = 12.17 A > 2 A, so at the limit:
+//                          (5.25 − 1.6 − 0.15 × 2) × 2              = 6.7 W
+//   fault_dissipation    = 5.25 V × 2 A                              = 10.5 W
+//   allowed_dissipation  = 10 W × (125 − 35)/(125 − 25)              = 9 W
+//   threshold_cold       = 0.45 A × exp((15 − 25)/140)  = 0.45 × 0.9310628 = 0.4189783 A
+//   power_at_limit_cold  = 1.1 W/A × (2 A − 0.4189783 A)            = 1.7391239 W
+const rules = shippedRules();
+const clear = readDemo('bench3-808nm-clear.yaml');
+
+// The same bench in constant-power mode (the inputs of the incomplete demo, with a measured
+// responsivity of 1 mA/W): monitor_current = 1 mA/W × 1.5 W = 1.5 mA;
+// power ceiling = 2 W × (1 − 0.10) = 1.8 W.
+const constantPower = withChanges(
+	clear,
+	{control_mode: 'constant_power', current_setpoint: null, modulation_gain: null, modulation_source_peak: null, power_setpoint: '1.5 W', photodiode_responsivity: '1 mA/W', monitor_input_max: '2 mA'},
+	{responsivity_measured: 'yes'},
+);
+const bases: Record<'current' | 'power', AnswersDocument> = {current: clear, power: constantPower};
+
+type Kind = 'pass' | 'fail' | 'advise' | 'boundary';
+type Comparison = {check: string; kind: Kind; name: string; base?: 'current' | 'power'; inputs?: Changes; value: number; limit: number; margin: number; fraction: number};
+type Condition = {check: string; kind: Kind; name: string; base?: 'current' | 'power'; inputs?: Changes};
+
+// Checks with a value and a limit. Boundary cases put the value exactly on the limit: it must pass.
+const comparisons: Comparison[] = [
+	// 2 A vs 2.25 A: margin 0.25 A, 0.25/2.25 = 0.1111111
+	{check: 'limit_below_diode_maximum', kind: 'pass', name: 'demo limit', value: 2, limit: 2.25, margin: 0.25, fraction: 0.25 / 2.25},
+	// 2.4 A vs 2.25 A: margin −0.15 A, −0.15/2.25 = −0.0666667
+	{check: 'limit_below_diode_maximum', kind: 'fail', name: 'limit above the ceiling', inputs: {current_limit: '2.4 A'}, value: 2.4, limit: 2.25, margin: -0.15, fraction: -0.15 / 2.25},
+	{check: 'limit_below_diode_maximum', kind: 'boundary', name: 'limit equal to 2.5 A less 10 %', inputs: {current_limit: '2.25 A'}, value: 2.25, limit: 2.25, margin: 0, fraction: 0},
+	{check: 'limit_below_diode_maximum', kind: 'boundary', name: 'limit entered in milliamperes', inputs: {current_limit: '2250 mA'}, value: 2.25, limit: 2.25, margin: 0, fraction: 0},
+
+	// 2 A vs 5 A: margin 3 A, 3/5 = 0.6
+	{check: 'limit_within_driver', kind: 'pass', name: 'demo limit', value: 2, limit: 5, margin: 3, fraction: 0.6},
+	// 2 A vs 1.5 A: margin −0.5 A, −0.5/1.5 = −0.3333333
+	{check: 'limit_within_driver', kind: 'fail', name: 'driver smaller than the limit', inputs: {driver_max_current: '1.5 A'}, value: 2, limit: 1.5, margin: -0.5, fraction: -0.5 / 1.5},
+	{check: 'limit_within_driver', kind: 'boundary', name: 'driver maximum equal to the limit', inputs: {driver_max_current: '2 A'}, value: 2, limit: 2, margin: 0, fraction: 0},
+
+	// 1.6 A vs 2 A: margin 0.4 A, 0.4/2 = 0.2
+	{check: 'setpoint_below_limit', kind: 'pass', name: 'demo setpoint', value: 1.6, limit: 2, margin: 0.4, fraction: 0.2},
+	// 2.1 A vs 2 A: margin −0.1 A, −0.1/2 = −0.05
+	{check: 'setpoint_below_limit', kind: 'fail', name: 'setpoint above the limit', inputs: {current_setpoint: '2.1 A'}, value: 2.1, limit: 2, margin: -0.1, fraction: -0.05},
+	{check: 'setpoint_below_limit', kind: 'boundary', name: 'setpoint equal to the limit', inputs: {current_setpoint: '2 A'}, value: 2, limit: 2, margin: 0, fraction: 0},
+
+	// 1.6 A + 0.1 A/V × 2 V = 1.8 A vs 2 A: margin 0.2 A, 0.2/2 = 0.1
+	{check: 'setpoint_plus_modulation_below_limit', kind: 'pass', name: 'demo modulation', value: 1.8, limit: 2, margin: 0.2, fraction: 0.1},
+	// 1.6 A + 0.1 A/V × 5 V = 2.1 A: margin −0.1 A, −0.05
+	{check: 'setpoint_plus_modulation_below_limit', kind: 'fail', name: 'open-circuit peak of 5 V', inputs: {modulation_source_peak: '5 V'}, value: 2.1, limit: 2, margin: -0.1, fraction: -0.05},
+	// 1.6 A + 0.1 A/V × 4 V = 2.0 A
+	{check: 'setpoint_plus_modulation_below_limit', kind: 'boundary', name: 'setpoint plus modulation equal to the limit', inputs: {modulation_source_peak: '4 V'}, value: 2, limit: 2, margin: 0, fraction: 0},
+
+	// 1.5 W vs 1.8 W: margin 0.3 W, 0.3/1.8 = 0.1666667
+	{check: 'power_setpoint_below_maximum', kind: 'pass', name: 'constant-power setpoint', base: 'power', value: 1.5, limit: 1.8, margin: 0.3, fraction: 0.3 / 1.8},
+	// 1.9 W vs 1.8 W: margin −0.1 W, −0.1/1.8 = −0.0555556
+	{check: 'power_setpoint_below_maximum', kind: 'fail', name: 'setpoint above 2 W less 10 %', base: 'power', inputs: {power_setpoint: '1.9 W'}, value: 1.9, limit: 1.8, margin: -0.1, fraction: -0.1 / 1.8},
+	{check: 'power_setpoint_below_maximum', kind: 'boundary', name: 'setpoint equal to 2 W less 10 %', base: 'power', inputs: {power_setpoint: '1.8 W'}, value: 1.8, limit: 1.8, margin: 0, fraction: 0},
+
+	// 1 mA/W × 1.5 W = 1.5 mA vs 2 mA: margin 0.5 mA, 0.5/2 = 0.25
+	{check: 'monitor_current_within_input', kind: 'pass', name: 'monitor current at the setpoint', base: 'power', value: 1.5e-3, limit: 2e-3, margin: 0.5e-3, fraction: 0.25},
+	// 2 mA/W × 1.5 W = 3 mA vs 2 mA: margin −1 mA, −1/2 = −0.5
+	{check: 'monitor_current_within_input', kind: 'fail', name: 'a more sensitive monitor saturates the input', base: 'power', inputs: {photodiode_responsivity: '2 mA/W'}, value: 3e-3, limit: 2e-3, margin: -1e-3, fraction: -0.5},
+	{check: 'monitor_current_within_input', kind: 'boundary', name: 'input maximum equal to the monitor current', base: 'power', inputs: {monitor_input_max: '1.5 mA'}, value: 1.5e-3, limit: 1.5e-3, margin: 0, fraction: 0},
+
+	// 1.1 × (2 − 0.45 × exp(−10/140)) = 1.7391239 W vs 2 W: margin 0.2608761 W, 0.1304380
+	{check: 'cold_power_at_limit', kind: 'pass', name: 'demo diode at 15 degC', value: 1.1 * (2 - 0.45 * Math.exp(-10 / 140)), limit: 2, margin: 2 - 1.1 * (2 - 0.45 * Math.exp(-10 / 140)), fraction: (2 - 1.1 * (2 - 0.45 * Math.exp(-10 / 140))) / 2},
+	// 288.15 K is 15 degC: the same 1.7391239 W
+	{check: 'cold_power_at_limit', kind: 'pass', name: 'coldest case entered in kelvin', inputs: {diode_temperature_min: '288.15 K'}, value: 1.1 * (2 - 0.45 * Math.exp(-10 / 140)), limit: 2, margin: 2 - 1.1 * (2 - 0.45 * Math.exp(-10 / 140)), fraction: (2 - 1.1 * (2 - 0.45 * Math.exp(-10 / 140))) / 2},
+	// 1.3 × (2 − 0.4189783) = 2.0553283 W: margin −0.0553283 W, −0.0276641
+	{check: 'cold_power_at_limit', kind: 'fail', name: 'steeper slope efficiency', inputs: {diode_slope_efficiency: '1.3 W/A'}, value: 1.3 * (2 - 0.45 * Math.exp(-10 / 140)), limit: 2, margin: 2 - 1.3 * (2 - 0.45 * Math.exp(-10 / 140)), fraction: (2 - 1.3 * (2 - 0.45 * Math.exp(-10 / 140))) / 2},
+	// at the reference temperature exp(0) = 1: 1.25 W/A × (2 A − 0.4 A) = 2 W
+	{check: 'cold_power_at_limit', kind: 'boundary', name: 'coldest case at the reference temperature', inputs: {diode_temperature_min: '25 degC', diode_threshold: '400 mA', diode_slope_efficiency: '1.25 W/A'}, value: 2, limit: 2, margin: 0, fraction: 0},
+
+	// 3.65 V vs 1.9 V + 0.5 V = 2.4 V: margin 1.25 V, 1.25/2.4 = 0.5208333
+	{check: 'compliance_headroom', kind: 'pass', name: 'demo supply', value: 3.65, limit: 2.4, margin: 1.25, fraction: 1.25 / 2.4},
+	// 3 V × 0.95 − 1.1 V = 1.75 V vs 2.4 V: margin −0.65 V, −0.2708333
+	{check: 'compliance_headroom', kind: 'fail', name: '3 V supply', inputs: {supply_nominal: '3 V'}, value: 1.75, limit: 2.4, margin: -0.65, fraction: -0.65 / 2.4},
+	// 4.75 V − (0.3 V + 2.05 V) = 2.4 V
+	{check: 'compliance_headroom', kind: 'boundary', name: 'dropout leaving exactly the headroom', inputs: {driver_dropout: '2.05 V'}, value: 2.4, limit: 2.4, margin: 0, fraction: 0},
+
+	// 3.8 V vs 3.0 V: margin 0.8 V, 0.8/3 = 0.2666667
+	{check: 'brownout_before_control_lost', kind: 'pass', name: 'demo trip', value: 3.8, limit: 3, margin: 0.8, fraction: 0.8 / 3},
+	// 2.5 V vs 3.0 V: margin −0.5 V, −0.5/3 = −0.1666667
+	{check: 'brownout_before_control_lost', kind: 'fail', name: 'trip below the regulation floor', inputs: {brownout_trip: '2.5 V'}, value: 2.5, limit: 3, margin: -0.5, fraction: -0.5 / 3},
+	{check: 'brownout_before_control_lost', kind: 'boundary', name: 'trip at the regulation floor', inputs: {brownout_trip: '3 V'}, value: 3, limit: 3, margin: 0, fraction: 0},
+
+	// 3.8 V vs 4.75 V: margin 0.95 V, 0.95/4.75 = 0.2
+	{check: 'brownout_clear_of_service_supply', kind: 'pass', name: 'demo trip', value: 3.8, limit: 4.75, margin: 0.95, fraction: 0.2},
+	// 4.9 V vs 4.75 V: margin −0.15 V, −0.15/4.75 = −0.0315789
+	{check: 'brownout_clear_of_service_supply', kind: 'advise', name: 'trip above the low supply', inputs: {brownout_trip: '4.9 V'}, value: 4.9, limit: 4.75, margin: -0.15, fraction: -0.15 / 4.75},
+	{check: 'brownout_clear_of_service_supply', kind: 'boundary', name: 'trip at the low supply', inputs: {brownout_trip: '4.75 V'}, value: 4.75, limit: 4.75, margin: 0, fraction: 0},
+
+	// 6.7 W vs 9 W: margin 2.3 W, 2.3/9 = 0.2555556
+	{check: 'dissipation_within_rating', kind: 'pass', name: 'demo, worst case at the limit', value: 6.7, limit: 9, margin: 2.3, fraction: 2.3 / 9},
+	// R = 1 Ω: I* = (5.25 − 1.6)/(2 × 1) = 1.825 A < 2 A; (3.65 − 1.825) × 1.825 = 3.330625 W
+	// (more than the 3.3 W at the limit); margin 5.669375 W, 0.6299306
+	{check: 'dissipation_within_rating', kind: 'pass', name: 'worst case inside the range', inputs: {diode_series_resistance: '1 ohm'}, value: 3.330625, limit: 9, margin: 5.669375, fraction: 5.669375 / 9},
+	// 12.6 V: I* = 11/0.3 > 2 A, so (12.6 − 1.6 − 0.3) × 2 = 21.4 W: margin −12.4 W, −1.3777778
+	{check: 'dissipation_within_rating', kind: 'fail', name: '12 V supply', inputs: {supply_nominal: '12 V'}, value: 21.4, limit: 9, margin: -12.4, fraction: -12.4 / 9},
+	// ambient at the rated ambient: no derating, 6.7 W allowed
+	{check: 'dissipation_within_rating', kind: 'boundary', name: 'rating equal to the worst case', inputs: {ambient_max: '25 degC', driver_rated_dissipation: '6.7 W'}, value: 6.7, limit: 6.7, margin: 0, fraction: 0},
+
+	// 5.25 V × 2 A = 10.5 W vs 9 W: margin −1.5 W, −1.5/9 = −0.1666667
+	{check: 'short_circuit_dissipation', kind: 'advise', name: 'demo short circuit', value: 10.5, limit: 9, margin: -1.5, fraction: -1.5 / 9},
+	// 5.25 V × 1.5 A = 7.875 W: margin 1.125 W, 1.125/9 = 0.125
+	{check: 'short_circuit_dissipation', kind: 'pass', name: 'lower limit', inputs: {current_limit: '1.5 A'}, value: 7.875, limit: 9, margin: 1.125, fraction: 0.125},
+	{check: 'short_circuit_dissipation', kind: 'boundary', name: 'rating equal to the short-circuit power', inputs: {ambient_max: '25 degC', driver_rated_dissipation: '10.5 W'}, value: 10.5, limit: 10.5, margin: 0, fraction: 0},
+
+	// 5 s vs 3 s: margin 2 s, 2/3
+	{check: 'emission_delay_long_enough', kind: 'pass', name: 'longer delay', inputs: {emission_delay: '5 s'}, value: 5, limit: 3, margin: 2, fraction: 2 / 3},
+	// 2 s vs 3 s: margin −1 s, −1/3
+	{check: 'emission_delay_long_enough', kind: 'fail', name: 'short delay', inputs: {emission_delay: '2 s'}, value: 2, limit: 3, margin: -1, fraction: -1 / 3},
+	{check: 'emission_delay_long_enough', kind: 'boundary', name: 'demo delay equal to the minimum', value: 3, limit: 3, margin: 0, fraction: 0},
+
+	// 50 ms vs 10 ms: margin 40 ms, 40/10 = 4
+	{check: 'soft_start_long_enough', kind: 'pass', name: 'demo ramp', value: 0.05, limit: 0.01, margin: 0.04, fraction: 4},
+	// 5 ms vs 10 ms: margin −5 ms, −0.5
+	{check: 'soft_start_long_enough', kind: 'fail', name: 'fast ramp', inputs: {soft_start_time: '5 ms'}, value: 0.005, limit: 0.01, margin: -0.005, fraction: -0.5},
+	{check: 'soft_start_long_enough', kind: 'boundary', name: 'ramp equal to the minimum', inputs: {soft_start_time: '10 ms'}, value: 0.01, limit: 0.01, margin: 0, fraction: 0},
+
+	// 5 V vs 15 V: margin 10 V, 10/15 = 0.6666667
+	{check: 'photodiode_bias_within_rating', kind: 'pass', name: 'demo bias', value: 5, limit: 15, margin: 10, fraction: 10 / 15},
+	// 20 V vs 15 V: margin −5 V, −1/3
+	{check: 'photodiode_bias_within_rating', kind: 'fail', name: 'bias above the rating', inputs: {photodiode_bias: '20 V'}, value: 20, limit: 15, margin: -5, fraction: -5 / 15},
+	{check: 'photodiode_bias_within_rating', kind: 'boundary', name: 'bias equal to the rating', inputs: {photodiode_bias: '15 V'}, value: 15, limit: 15, margin: 0, fraction: 0},
+];
+
+// Checks that are a true/false condition: no value, limit or margin.
+const conditions: Condition[] = [
+	// 2 A ≤ 2.5 A and 1.7391 W ≤ 2 W
+	{check: 'monitor_loss_contained', kind: 'pass', name: 'limit and cold power within ratings', base: 'power'},
+	{check: 'monitor_loss_contained', kind: 'fail', name: 'limit above the absolute maximum', base: 'power', inputs: {current_limit: '2.6 A'}},
+	// 1.7391 W > 1.7 W (the setpoint 1.5 W is still below 1.7 W × 0.9 = 1.53 W)
+	{check: 'monitor_loss_contained', kind: 'fail', name: 'cold power at the limit above the maximum power', base: 'power', inputs: {diode_max_power: '1.7 W'}},
+	// limit = absolute maximum 2.5 A; 0.5 W/A × (2.5 − 0.4189783) A = 1.0405 W ≤ 2 W
+	{check: 'monitor_loss_contained', kind: 'boundary', name: 'limit equal to the absolute maximum', base: 'power', inputs: {current_limit: '2.5 A', diode_slope_efficiency: '0.5 W/A'}},
+
+	{check: 'reverse_protection_fitted', kind: 'pass', name: 'protection fitted', inputs: {reverse_protection: 'yes'}},
+	{check: 'reverse_protection_fitted', kind: 'fail', name: 'no protection', inputs: {reverse_protection: 'no'}},
+
+	{check: 'pin_configuration_supported', kind: 'pass', name: 'common cathode on the ground side'},
+	{check: 'pin_configuration_supported', kind: 'pass', name: 'common anode on the supply side', inputs: {pin_configuration: 'common_anode', mounting: 'supply_side'}},
+	{check: 'pin_configuration_supported', kind: 'fail', name: 'common anode on the ground side', inputs: {pin_configuration: 'common_anode'}},
+	{check: 'pin_configuration_supported', kind: 'fail', name: 'common cathode on the supply side', inputs: {mounting: 'supply_side'}},
+	// a floating package is the one row both mountings list
+	{check: 'pin_configuration_supported', kind: 'boundary', name: 'floating on the ground side', inputs: {pin_configuration: 'floating'}},
+	{check: 'pin_configuration_supported', kind: 'boundary', name: 'floating on the supply side', inputs: {pin_configuration: 'floating', mounting: 'supply_side'}},
+];
+
+/** Checks with no boundary to test, and why. */
+const withoutBoundary: Record<string, string> = {reverse_protection_fitted: 'a yes/no input has no boundary'};
+
+// An input each check needs is left out: the check is open and names it.
+const opens: Array<{check: string; base?: 'current' | 'power'; remove: string[]; needs: string[]}> = [
+	{check: 'limit_below_diode_maximum', remove: ['diode_max_current'], needs: ['diode_max_current']},
+	{check: 'limit_within_driver', remove: ['driver_max_current'], needs: ['driver_max_current']},
+	{check: 'setpoint_below_limit', remove: ['current_setpoint'], needs: ['current_setpoint']},
+	{check: 'setpoint_below_limit', remove: ['control_mode'], needs: ['control_mode']},
+	{check: 'setpoint_plus_modulation_below_limit', remove: ['modulation_gain'], needs: ['modulation_gain']},
+	{check: 'power_setpoint_below_maximum', base: 'power', remove: ['diode_max_power'], needs: ['diode_max_power']},
+	{check: 'monitor_current_within_input', base: 'power', remove: ['photodiode_responsivity'], needs: ['photodiode_responsivity']},
+	{check: 'monitor_loss_contained', base: 'power', remove: ['diode_slope_efficiency'], needs: ['diode_slope_efficiency']},
+	{check: 'cold_power_at_limit', remove: ['diode_t0'], needs: ['diode_t0']},
+	{check: 'compliance_headroom', remove: ['cable_resistance'], needs: ['cable_resistance']},
+	{check: 'brownout_before_control_lost', remove: ['brownout_trip'], needs: ['brownout_trip']},
+	{check: 'brownout_clear_of_service_supply', remove: ['supply_tolerance'], needs: ['supply_tolerance']},
+	{check: 'dissipation_within_rating', remove: ['diode_series_resistance'], needs: ['diode_series_resistance']},
+	{check: 'dissipation_within_rating', remove: ['driver_rated_dissipation', 'ambient_max'], needs: ['ambient_max', 'driver_rated_dissipation']},
+	{check: 'short_circuit_dissipation', remove: ['supply_nominal'], needs: ['supply_nominal']},
+	{check: 'emission_delay_long_enough', remove: ['emission_delay'], needs: ['emission_delay']},
+	{check: 'soft_start_long_enough', remove: ['soft_start_time'], needs: ['soft_start_time']},
+	{check: 'photodiode_bias_within_rating', remove: ['photodiode_reverse_max'], needs: ['photodiode_reverse_max']},
+	{check: 'reverse_protection_fitted', remove: ['reverse_protection'], needs: ['reverse_protection']},
+	{check: 'pin_configuration_supported', remove: ['pin_configuration'], needs: ['pin_configuration']},
+];
+
+// A check whose `when` is false is skipped: constant-current checks in constant-power mode and back.
+const skips: Array<{check: string; base: 'current' | 'power'}> = [
+	{check: 'setpoint_below_limit', base: 'power'},
+	{check: 'setpoint_plus_modulation_below_limit', base: 'power'},
+	{check: 'power_setpoint_below_maximum', base: 'current'},
+	{check: 'monitor_current_within_input', base: 'current'},
+	{check: 'monitor_loss_contained', base: 'current'},
+];
+
+const removing = (names: string[]): Changes => Object.fromEntries(names.map((name) => [name, null]));
+const expectedVerdict = (kind: Kind): Verdict => (kind === 'boundary' ? 'pass' : kind);
+
+describe('the shipped policy, check by check', () => {
+	it.each(comparisons)('$check: $name ($kind)', ({check, kind, base, inputs, value, limit, margin, fraction}) => {
+		const evaluation = evaluateDocument(rules, withChanges(bases[base ?? 'current'], inputs));
+		const result = checkResult(evaluation, check);
+		expect(result.verdict).toBe(expectedVerdict(kind));
+		expectClose(result.value?.si, value, 'value');
+		expectClose(result.limit?.si, limit, 'limit');
+		expectClose(result.margin?.si, margin, 'margin');
+		expectClose(result.margin?.fraction, fraction, 'margin fraction');
+		if (kind === 'fail') expect(evaluation.outcome).toBe('do_not_energize');
+	});
+
+	it.each(conditions)('$check: $name ($kind)', ({check, kind, base, inputs}) => {
+		const evaluation = evaluateDocument(rules, withChanges(bases[base ?? 'current'], inputs));
+		const result = checkResult(evaluation, check);
+		expect(result.verdict).toBe(expectedVerdict(kind));
+		expect(result.value).toBeUndefined();
+		expect(result.margin).toBeUndefined();
+		if (kind === 'fail') expect(evaluation.outcome).toBe('do_not_energize');
+	});
+
+	it.each(opens)('$check is open without $remove', ({check, base, remove, needs}) => {
+		const evaluation = evaluateDocument(rules, withChanges(bases[base ?? 'current'], removing(remove)));
+		const result = checkResult(evaluation, check);
+		expect(result.verdict).toBe('open');
+		expect([...(result.needs ?? [])].sort()).toEqual(needs);
+		expect(result.value).toBeUndefined();
+		expect(evaluation.outcome).toBe('incomplete');
+	});
+
+	it.each(skips)('$check is skipped when its condition is false', ({check, base}) => {
+		const evaluation = evaluateDocument(rules, bases[base]);
+		const result = checkResult(evaluation, check);
+		expect(result.verdict).toBe('skip');
+		expect(result.value).toBeUndefined();
+		expect(result.needs).toBeUndefined();
+	});
+
+	it('fills every placeholder of a message when a check does not hold', () => {
+		const notHolding = [...comparisons, ...conditions].filter(({kind}) => kind === 'fail' || kind === 'advise');
+		for (const {check, base, inputs} of notHolding) {
+			const result = checkResult(evaluateDocument(rules, withChanges(bases[base ?? 'current'], inputs)), check);
+			if (result.message !== undefined) expect(result.message, check).not.toMatch(/\{\{|\}\}/);
+		}
+	});
+
+	it('shows the ceiling and margin in the message of the current-limit check', () => {
+		// 2.4 A against 2.5 A × 0.9 = 2.25 A
+		const result = checkResult(evaluateDocument(rules, withChanges(clear, {current_limit: '2.4 A'})), 'limit_below_diode_maximum');
+		expect(result.message).toContain('2.4');
+		expect(result.message).toContain('2.25');
+		expect(result.message).toContain('2.5');
+	});
+
+	it('has a pass, a fail or advise, a boundary, an open case and (with a when) a skip case for every check', () => {
+		const cases = [...comparisons, ...conditions];
+		for (const {id, when} of rules.rules.checks) {
+			const kinds = new Set(cases.filter(({check}) => check === id).map(({kind}) => kind));
+			expect(kinds.has('pass'), `${id}: pass`).toBe(true);
+			expect(kinds.has('fail') || kinds.has('advise'), `${id}: fail or advise`).toBe(true);
+			expect(kinds.has('boundary') || id in withoutBoundary, `${id}: boundary`).toBe(true);
+			expect(opens.some(({check}) => check === id), `${id}: open`).toBe(true);
+			if (when) expect(skips.some(({check}) => check === id), `${id}: skip`).toBe(true);
+		}
+		const known = new Set(rules.rules.checks.map(({id}) => id));
+		for (const {check} of [...cases, ...opens, ...skips]) expect(known.has(check), `unknown check ${check}`).toBe(true);
+	});
+
+	it('marks an advisory check that does not hold as advise, never fail', () => {
+		const advisory = rules.rules.checks.filter(({severity}) => severity === 'advise').map(({id}) => id);
+		expect(advisory.sort()).toEqual(['brownout_clear_of_service_supply', 'short_circuit_dissipation']);
+		for (const id of advisory) expect(comparisons.some(({check, kind}) => check === id && kind === 'advise'), id).toBe(true);
+	});
+});
+
+describe('the shipped policy, outcome', () => {
+	const outcomes: Array<{name: string; base?: 'current' | 'power'; inputs?: Changes; confirmations?: Changes; outcome: Outcome}> = [
+		{name: 'the clearing demo, whose short-circuit check only advises', outcome: 'clear_to_energize'},
+		{name: 'the constant-power bench with a measured responsivity', base: 'power', outcome: 'clear_to_energize'},
+		{name: 'a stop check fails', inputs: {current_limit: '2.4 A'}, outcome: 'do_not_energize'},
+		{name: 'an advisory check does not hold', inputs: {brownout_trip: '4.9 V'}, outcome: 'clear_to_energize'},
+		{name: 'a confirmation answered no', confirmations: {use_authorised: 'no'}, outcome: 'do_not_energize'},
+		{name: 'a confirmation unanswered', confirmations: {interlock_loop_tested: null}, outcome: 'incomplete'},
+		{name: 'a required input missing that no check uses', inputs: {diode_serial: null}, outcome: 'incomplete'},
+		{name: 'a stop check open', inputs: {emission_delay: null}, outcome: 'incomplete'},
+		{name: 'a fail outweighs an open check', inputs: {current_limit: '2.4 A', brownout_trip: null}, outcome: 'do_not_energize'},
+		{name: 'a no outweighs an unanswered confirmation', confirmations: {use_authorised: 'no', interlock_loop_tested: null}, outcome: 'do_not_energize'},
+		{name: 'the responsivity not confirmed as measured in constant power', base: 'power', confirmations: {responsivity_measured: null}, outcome: 'incomplete'},
+		{name: 'key control skipped below class 3B', inputs: {laser_class: 'class_2'}, confirmations: {key_control: null}, outcome: 'clear_to_energize'},
+		{name: 'key control open while the class is unknown', inputs: {laser_class: null}, outcome: 'incomplete'},
+	];
+
+	it.each(outcomes)('$name: $outcome', ({base, inputs, confirmations, outcome}) => {
+		expect(evaluateDocument(rules, withChanges(bases[base ?? 'current'], inputs, confirmations)).outcome).toBe(outcome);
+	});
+
+	it('keeps a not-applicable answer and its note, and still clears', () => {
+		const evaluation = evaluateDocument(rules, clear);
+		const bypass = evaluation.confirmations.find(({id}) => id === 'bypass_recorded');
+		expect(bypass).toMatchObject({status: 'not_applicable', note: 'No bypass is fitted on bench 3.'});
+		expect(evaluation.outcome).toBe('clear_to_energize');
+	});
+
+	it('lists an asked but unanswered input as missing, and no check as open for it', () => {
+		const evaluation = evaluateDocument(rules, withChanges(clear, {diode_serial: null}));
+		expect(evaluation.missingInputs).toEqual(['diode_serial']);
+		expect(evaluation.checks.filter(({verdict}) => verdict === 'open')).toEqual([]);
+	});
+
+	it('does not ask for inputs whose condition is false', () => {
+		// constant power: current_setpoint, modulation_gain and modulation_source_peak are not asked
+		expect(evaluateDocument(rules, constantPower).missingInputs).toEqual([]);
+	});
+
+	it('marks a confirmation skipped when its condition is false and open when its input is missing', () => {
+		const skipped = evaluateDocument(rules, withChanges(clear, {laser_class: 'class_3r'}, {key_control: null}));
+		expect(skipped.confirmations.find(({id}) => id === 'key_control')?.status).toBe('skip');
+		const open = evaluateDocument(rules, withChanges(clear, {laser_class: null}));
+		expect(open.confirmations.find(({id}) => id === 'key_control')).toMatchObject({status: 'open', needs: ['laser_class']});
+		expect(evaluateDocument(rules, clear).confirmations.find(({id}) => id === 'responsivity_measured')?.status).toBe('skip');
+	});
+
+	const refused: Array<{name: string; confirmations: Changes; code: string}> = [
+		{name: 'not applicable without a note', confirmations: {bypass_recorded: 'not applicable'}, code: 'answers-note-required'},
+		{name: 'not applicable where the rules forbid it', confirmations: {interlock_loop_tested: {answer: 'not applicable', note: 'no loop on this bench'}}, code: 'answers-not-applicable-forbidden'},
+		{name: 'an answer that is not yes, no or not applicable', confirmations: {leads_shorted: 'maybe'}, code: 'answers-bad-answer'},
+	];
+
+	it.each(refused)('refuses $name', ({confirmations, code}) => {
+		const answers = readAnswers(rules, withChanges(clear, {}, confirmations));
+		expect(answers.ok).toBe(false);
+		if (!answers.ok) expect(answers.errors.map((found) => found.code)).toEqual([code]);
+	});
+});
