@@ -3,6 +3,7 @@ import {runCheck, type Io} from './commands/check.js';
 import {helpTexts} from './commands/help.js';
 import {runRules} from './commands/rules.js';
 import {formatProblem} from './problems.js';
+import {didYouMean} from './rules/names.js';
 import {UsageError} from './usage-error.js';
 import {version} from './version.js';
 
@@ -20,12 +21,29 @@ export function main(argv: string[], io: Io): number {
 			io.stdout.write(`${version}\n`);
 			return 0;
 		}
-		const command = commands[first];
-		if (!command) throw new UsageError(`unknown command "${first}"; commands are ${Object.keys(commands).join(', ')} (prelase --help)`);
-		return command(rest, io);
+		if (first.startsWith('-')) throw new UsageError(`unknown option ${first}; options go after a command (prelase --help)`);
+		const command = Object.hasOwn(commands, first) ? commands[first] : undefined;
+		if (!command) throw new UsageError(`unknown command "${first}"${didYouMean(first, Object.keys(commands))}; commands are ${Object.keys(commands).join(', ')} (prelase --help)`);
+		try {
+			return command(rest, io);
+		} catch (error) {
+			if (isArgumentError(error)) throw new UsageError(argumentMessage(error, first));
+			throw error;
+		}
 	} catch (error) {
 		return report(error, io);
 	}
+}
+
+/** Node's parseArgs message, shortened, with a "did you mean" from the command's own help text. */
+function argumentMessage(error: Error & {code: string}, command: string): string {
+	const help = (helpTexts as Record<string, string>)[command] ?? '';
+	const unknown = /Unknown option '([^']+)'/.exec(error.message)?.[1];
+	if (error.code === 'ERR_PARSE_ARGS_UNKNOWN_OPTION' && unknown) {
+		const known = [...new Set(help.match(/--[a-z][a-z-]*/g) ?? [])];
+		return `unknown option ${unknown}${didYouMean(unknown, known)} for prelase ${command} (prelase ${command} --help)`;
+	}
+	return `${error.message.split('. To specify')[0]} (prelase ${command} --help)`;
 }
 
 function isArgumentError(error: unknown): error is Error & {code: string} {

@@ -1,5 +1,5 @@
 import {readFileSync} from 'node:fs';
-import {isMap, isScalar, LineCounter, parseDocument, type Document} from 'yaml';
+import {isAlias, isMap, isPair, isScalar, isSeq, LineCounter, parseDocument, visit, type Document} from 'yaml';
 import {problem, warning, type Problem} from './problems.js';
 import {failure, success, type Result} from './result.js';
 
@@ -44,8 +44,9 @@ export function parseYamlSource(text: string, file: string, expected: string): R
 			document.errors.map((error) => {
 				const where = {file, ...at(error.pos[0])};
 				if (error.code === 'DUPLICATE_KEY') {
-					const key = /"([^"]*)"|'([^']*)'/.exec(text.slice(error.pos[0], error.pos[1]))?.[0] ?? text.slice(error.pos[0], error.pos[1]).split(':')[0];
-					return problem('yaml-duplicate-key', {key: (key ?? '').replaceAll(/^["']|["']$/g, '')}, where);
+					const found = pairAt(document, error.pos[0]);
+					const key = found?.key ?? /^\s*(?:"([^"]*)"|'([^']*)'|([^:\n]*))/.exec(text.slice(error.pos[0]))?.slice(1).find((part) => part !== undefined) ?? '';
+					return problem('yaml-duplicate-key', {key: key.trim()}, found ? {...where, field: found.path.join('.')} : where);
 				}
 				return problem('yaml-syntax', {detail: error.message.split('\n')[0] ?? error.code}, where);
 			}),
@@ -63,11 +64,17 @@ export function parseYamlSource(text: string, file: string, expected: string): R
 		}
 		return undefined;
 	};
+	let data: unknown;
+	try {
+		data = document.toJS({maxAliasCount: 100});
+	} catch (error) {
+		return failure([aliasProblem(document, error, file, at)]);
+	}
 	return success(
 		{
 			file,
 			text,
-			data: document.toJS({maxAliasCount: 100}) as unknown,
+			data,
 			document,
 			locate(path) {
 				const node = nodeAt(path);
@@ -107,4 +114,41 @@ export function preparsedYamlSource(text: string, file: string, data: unknown): 
 		locate: (path) => full().locate(path),
 		trailingComment: () => undefined,
 	};
+}
+
+/** The key and path of the mapping entry whose key starts at an offset (for duplicate keys). */
+function pairAt(document: Document.Parsed, offset: number): {key: string; path: Array<string | number>} | undefined {
+	const search = (node: unknown, path: Array<string | number>): {key: string; path: Array<string | number>} | undefined => {
+		if (isMap(node)) {
+			for (const pair of node.items) {
+				if (!isPair(pair)) continue;
+				const key = isScalar(pair.key) ? String(pair.key.value) : '';
+				const range = isScalar(pair.key) ? pair.key.range : undefined;
+				if (range && range[0] <= offset && offset < Math.max(range[1], range[0] + 1)) return {key, path: [...path, key]};
+				const inner = search(pair.value, [...path, key]);
+				if (inner) return inner;
+			}
+		} else if (isSeq(node)) {
+			for (const [index, item] of node.items.entries()) {
+				const inner = search(item, [...path, index]);
+				if (inner) return inner;
+			}
+		}
+		return undefined;
+	};
+	return search(document.contents, []);
+}
+
+/** A problem for an alias that cannot be expanded: an anchor never set, or too many expansions. */
+function aliasProblem(document: Document.Parsed, error: unknown, file: string, at: (offset: number) => {line: number; column: number}): Problem {
+	let dangling: {source: string; offset: number} | undefined;
+	visit(document, {
+		Alias(_key, node) {
+			if (!dangling && isAlias(node) && node.resolve(document) === undefined) dangling = {source: node.source, offset: node.range?.[0] ?? 0};
+		},
+	});
+	if (dangling) return problem('yaml-alias-missing', {name: dangling.source}, {file, ...at(dangling.offset)});
+	const detail = error instanceof Error ? error.message : String(error);
+	if (/alias count/i.test(detail)) return problem('yaml-alias-excess', {max: 100}, {file, line: 1, column: 1});
+	return problem('yaml-syntax', {detail}, {file, line: 1, column: 1});
 }

@@ -37,7 +37,9 @@ export function loadAnswersFromText(text: string, file: string, rules: CompiledR
 			continue;
 		}
 		if (raw === null || raw === undefined || raw === '') continue;
-		const entry = parseInputEntry(compiled, raw);
+		// .inf and .nan read as numbers; echo what the operator wrote, not JavaScript's spelling.
+		const written = typeof raw === 'number' && !Number.isFinite(raw) ? scalarSource(source, ['inputs', id]) ?? raw : raw;
+		const entry = parseInputEntry(compiled, written);
 		if (entry.ok) inputs.set(id, entry.value);
 		else problems.push(problem(entry.problem.code, entry.problem.data, at(['inputs', id])));
 	}
@@ -69,4 +71,9 @@ function entries(value: unknown, key: string, source: YamlSource, problems: Prob
 		return [];
 	}
 	return Object.entries(value as Record<string, unknown>);
+}
+
+function scalarSource(source: YamlSource, path: Array<string | number>): string | undefined {
+	const node = source.document.getIn(path, true) as {source?: unknown} | undefined;
+	return typeof node?.source === 'string' ? node.source : undefined;
 }
