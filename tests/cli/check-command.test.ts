@@ -263,7 +263,7 @@ describe('help and version', () => {
 describe('bad usage exits 2 and says what to do', () => {
 	it.each([
 		{name: 'unknown command', argv: ['chek'], says: ['unknown command "chek"', 'check', 'rules', '--help']},
-		{name: 'unknown option', argv: ['check', '--answer', clearDemo], says: ["'--answer'", '--help']},
+		{name: 'unknown option', argv: ['check', '--answer', clearDemo], says: ['unknown option --answer', 'did you mean "--answers"', '--help']},
 		{name: 'missing --answers', argv: ['check'], says: ['--answers FILE', 'does not prompt']},
 		{name: '--answers without a value', argv: ['check', '--answers'], says: ['--answers', '--help']},
 		{name: 'a stray positional', argv: ['check', '--answers', clearDemo, 'extra'], says: ["'extra'"]},
