@@ -25,7 +25,10 @@ export function lintWithSamples(rules: CompiledRules, where: Where): Problem[] {
 	}
 	for (const id of rules.tables.keys()) scope.set(id, true);
 
+	// A derived value that failed is reported once; formulas using it are not reported again.
+	const failed = new Set<string>();
 	const run = (formula: CompiledFormula, path: Array<string | number>): {ok: true; value: unknown} | {ok: false} => {
+		if ([...formula.names].some((name) => failed.has(name))) return {ok: false};
 		const results: unknown[] = [];
 		for (const part of formula.parts) {
 			try {
@@ -59,9 +62,13 @@ export function lintWithSamples(rules: CompiledRules, where: Where): Problem[] {
 	for (const {derived, formula} of rules.derived) {
 		const path = ['derived', rules.rules.derived.indexOf(derived), 'formula'];
 		const result = run(formula, path);
-		if (!result.ok) continue;
+		if (!result.ok) {
+			failed.add(derived.id);
+			continue;
+		}
 		const info = dimensions[derived.dimension];
 		const fits = hasDimension(result.value, derived.dimension);
+		if (!fits) failed.add(derived.id);
 		if (!fits) problems.push(problem('wrong-dimension', {what: `derived value "${derived.id}"`, expected: info.noun, received: describeResult(result.value)}, where(path, undefined, formula.text)));
 		else scope.set(derived.id, result.value);
 	}

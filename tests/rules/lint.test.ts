@@ -138,6 +138,12 @@ describe('rule file lint', () => {
 		expect(line.slice(loaded.errors[0]!.column! - 1)).toMatch(/^bogus_name/);
 	});
 
+	it('reports a broken derived value once, not again in every check that uses it', () => {
+		const loaded = loadRulesFromText(base.replace('formula: maximum * (1 - margin)', 'formula: maximum + supply'), 'fixture.yaml');
+		expect(loaded.ok).toBe(false);
+		if (!loaded.ok) expect(loaded.errors.map((entry) => entry.code)).toEqual(['dimension-mismatch']);
+	});
+
 	it('warns when a # comment follows a formula on the same line', () => {
 		const loaded = loadRulesFromText(base.replace('at_most: ceiling', 'at_most: ceiling # keep a margin'), 'fixture.yaml');
 		expect(loaded.ok).toBe(true);
