@@ -34,7 +34,7 @@ export function readTextFile(file: string, expected: string): Result<string, Pro
 export function parseYamlSource(text: string, file: string, expected: string): Result<YamlSource, Problem> {
 	if (text.trim() === '') return failure([problem('file-empty', {expected}, {file})]);
 	const lineCounter = new LineCounter();
-	const document = parseDocument(text, {lineCounter, prettyErrors: false, uniqueKeys: true, strict: true});
+	const document = parseDocument(text, {lineCounter, prettyErrors: false, uniqueKeys: true, strict: true, logLevel: 'error'});
 	const at = (offset: number) => {
 		const position = lineCounter.linePos(offset);
 		return {line: position.line, column: position.col};
