@@ -1,19 +1,36 @@
 import {existsSync, readFileSync} from 'node:fs';
 import {join} from 'node:path';
 import {describe, expect, it} from 'vitest';
-import {formulaName} from '../../source/calculations/calculation.js';
+import {calculationsMarkdown} from '../../source/calculations/document.js';
 import {calculations} from '../../source/calculations/registry.js';
-import {shippedRulesPath} from '../../source/rules/load.js';
 
-const policyText = readFileSync(shippedRulesPath(), 'utf8');
-const usedByPolicy = calculations.filter((calculation) => new RegExp(`\\b${formulaName(calculation)}\\(`).test(policyText)).map(({name}) => ({name}));
+/** A comment that names where a check value comes from. */
+const sourced = /\/\/.*(\(\d{4}\)|ed\.|§|Table|Handbook|IEC|ANSI|NEC|NBS|ASTM|RFC|Horowitz|Pozar|Sedra|Coldren|Saleh|Johnson|Motchenbacher|worked example|glossary|textbook exercise|common practice|from memory)/;
 
-describe('reference tests for the calculations the shipped policy calls', () => {
-	it('finds the calculations the policy calls', () => {
-		expect(usedByPolicy.map(({name}) => name).sort()).toEqual(expect.arrayContaining(['derating', 'dissipation', 'forward-voltage', 'light-current', 'photodiode', 'threshold']));
+describe('every calculation in the registry', () => {
+	it.each(calculations.map(({name}) => ({name})))('$name has a reference test with at least three sourced values', ({name}) => {
+		const file = join('tests', 'references', `${name}.test.ts`);
+		expect(existsSync(file), file).toBe(true);
+		const lines = readFileSync(file, 'utf8').split('\n').filter((line) => sourced.test(line));
+		expect(lines.length, `${file}: lines naming a source`).toBeGreaterThanOrEqual(3);
 	});
 
-	it.each(usedByPolicy)('$name has a reference test file', ({name}) => {
-		expect(existsSync(join('tests', 'references', `${name}.test.ts`))).toBe(true);
+	it.each(calculations.map(({name}) => ({name})))('$name has a section in docs/calculations.md', ({name}) => {
+		expect(readFileSync('docs/calculations.md', 'utf8')).toContain(`## ${name}\n`);
+	});
+
+	it.each(calculations)('$name describes itself fully', (calculation) => {
+		expect(calculation.summary.length).toBeGreaterThan(10);
+		expect(calculation.basis.length).toBeGreaterThan(0);
+		expect(Object.keys(calculation.outputs)).toContain(calculation.main);
+		expect(calculation.name).toMatch(/^[a-z]+(-[a-z]+)*$/);
+	});
+
+	it('has names that are unique', () => {
+		expect(new Set(calculations.map(({name}) => name)).size).toBe(calculations.length);
+	});
+
+	it('matches docs/calculations.md exactly (run npm run docs after changing a calculation)', () => {
+		expect(readFileSync('docs/calculations.md', 'utf8')).toBe(calculationsMarkdown());
 	});
 });

@@ -8,10 +8,10 @@ import {headroom} from '../../source/calculations/headroom.js';
 type Case = {name: string; supply: number; tolerance: number; cable_resistance: number; sense_resistance: number; driver_drop: number; forward_voltage: number; current: number; supply_low: number; available: number; margin: number};
 
 const cases: Case[] = [
-	{name: '808 nm bench at 2 A', supply: 5, tolerance: 0.05, cable_resistance: 0.05, sense_resistance: 0.1, driver_drop: 0.8, forward_voltage: 1.9, current: 2, supply_low: 4.75, available: 3.65, margin: 1.75}, // hand arithmetic: 4.75 − 2 × 0.15 − 0.8 = 3.65 V; 3.65 − 1.9 = 1.75 V
-	{name: 'no tolerance', supply: 12, tolerance: 0, cable_resistance: 0.5, sense_resistance: 0.5, driver_drop: 1, forward_voltage: 2, current: 2, supply_low: 12, available: 9, margin: 7}, // hand arithmetic: 12 − 2 × 1 − 1 = 9 V; 9 − 2 = 7 V
-	{name: 'out of compliance', supply: 3, tolerance: 0.05, cable_resistance: 0.05, sense_resistance: 0.1, driver_drop: 0.8, forward_voltage: 1.9, current: 2, supply_low: 2.85, available: 1.75, margin: -0.15}, // hand arithmetic: 2.85 − 1.1 = 1.75 V; 1.75 − 1.9 = −0.15 V
-	{name: 'no current', supply: 5, tolerance: 0.1, cable_resistance: 1, sense_resistance: 1, driver_drop: 0.5, forward_voltage: 1.6, current: 0, supply_low: 4.5, available: 4, margin: 2.4}, // hand arithmetic: 4.5 − 0 − 0.5 = 4 V; 4 − 1.6 = 2.4 V
+	{name: '808 nm bench at 2 A', supply: 5, tolerance: 0.05, cable_resistance: 0.05, sense_resistance: 0.1, driver_drop: 0.8, forward_voltage: 1.9, current: 2, supply_low: 4.75, available: 3.65, margin: 1.75}, // common practice (Kirchhoff's voltage law), worked by hand: 4.75 − 2 × 0.15 − 0.8 = 3.65 V; 3.65 − 1.9 = 1.75 V
+	{name: 'no tolerance', supply: 12, tolerance: 0, cable_resistance: 0.5, sense_resistance: 0.5, driver_drop: 1, forward_voltage: 2, current: 2, supply_low: 12, available: 9, margin: 7}, // common practice (Kirchhoff's voltage law), worked by hand: 12 − 2 × 1 − 1 = 9 V; 9 − 2 = 7 V
+	{name: 'out of compliance', supply: 3, tolerance: 0.05, cable_resistance: 0.05, sense_resistance: 0.1, driver_drop: 0.8, forward_voltage: 1.9, current: 2, supply_low: 2.85, available: 1.75, margin: -0.15}, // common practice (Kirchhoff's voltage law), worked by hand: 2.85 − 1.1 = 1.75 V; 1.75 − 1.9 = −0.15 V
+	{name: 'no current', supply: 5, tolerance: 0.1, cable_resistance: 1, sense_resistance: 1, driver_drop: 0.5, forward_voltage: 1.6, current: 0, supply_low: 4.5, available: 4, margin: 2.4}, // common practice (Kirchhoff's voltage law), worked by hand: 4.5 − 0 − 0.5 = 4 V; 4 − 1.6 = 2.4 V
 ];
 
 describe('headroom reference values', () => {

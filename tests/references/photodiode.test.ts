@@ -6,10 +6,10 @@ import {photodiode} from '../../source/calculations/photodiode.js';
 type Case = {name: string; responsivity: number; power: number; monitor_current: number};
 
 const cases: Case[] = [
-	{name: 'no light', responsivity: 1e-3, power: 0, monitor_current: 0}, // responsivity definition: no light, no photocurrent
-	{name: '1 mA/W at 1.5 W', responsivity: 1e-3, power: 1.5, monitor_current: 1.5e-3}, // hand arithmetic: 1 mA/W × 1.5 W = 1.5 mA
+	{name: 'no light', responsivity: 1e-3, power: 0, monitor_current: 0}, // responsivity definition (Saleh & Teich, from memory): no light, no photocurrent
+	{name: '1 mA/W at 1.5 W', responsivity: 1e-3, power: 1.5, monitor_current: 1.5e-3}, // responsivity definition (Saleh & Teich, from memory), worked by hand: 1 mA/W × 1.5 W = 1.5 mA
 	{name: 'ideal detector at 808 nm, 1 mW', responsivity: 808 / 1239.842, power: 1e-3, monitor_current: 0.6516959e-3}, // Saleh & Teich (from memory): η = 1, R = 808/1239.842 = 0.6516959 A/W
-	{name: '2 mA/W at 1.5 W', responsivity: 2e-3, power: 1.5, monitor_current: 3e-3}, // hand arithmetic: 2 mA/W × 1.5 W = 3 mA
+	{name: '2 mA/W at 1.5 W', responsivity: 2e-3, power: 1.5, monitor_current: 3e-3}, // responsivity definition (Saleh & Teich, from memory), worked by hand: 2 mA/W × 1.5 W = 3 mA
 ];
 
 describe('photodiode reference values', () => {
@@ -21,6 +21,6 @@ describe('photodiode reference values', () => {
 
 	it('finds the optical power from a monitor current (the inverse)', () => {
 		const result = photodiode.compute({responsivity: 1e-3, monitor_current: 1.5e-3});
-		expect(result['power_at_current']).toBeCloseTo(1.5, 9); // hand arithmetic: 1.5 mA / (1 mA/W) = 1.5 W
+		expect(result['power_at_current']).toBeCloseTo(1.5, 9); // responsivity definition (Saleh & Teich, from memory), worked by hand: 1.5 mA / (1 mA/W) = 1.5 W
 	});
 });

@@ -1,0 +1,81 @@
+import {describe, expect, it} from 'vitest';
+import {main} from '../../source/cli.js';
+import {calculations} from '../../source/calculations/registry.js';
+import {fakeIo} from '../helpers/fake-io.js';
+
+function run(...argv: string[]) {
+	const io = fakeIo();
+	const code = main(argv, io);
+	return {code, stdout: io.stdout.text, stderr: io.stderr.text};
+}
+
+describe('prelase calc', () => {
+	it('lists every calculation with its summary', () => {
+		const {code, stdout} = run('calc');
+		expect(code).toBe(0);
+		for (const calculation of calculations) expect(stdout).toContain(`${calculation.name}  `);
+	});
+
+	it.each(calculations.map(({name}) => ({name})))('$name --help lists inputs, outputs and basis', ({name}) => {
+		const calculation = calculations.find((entry) => entry.name === name)!;
+		const {code, stdout} = run('calc', name, '--help');
+		expect(code).toBe(0);
+		for (const key of [...Object.keys(calculation.inputs), ...Object.keys(calculation.outputs)]) expect(stdout).toContain(key);
+		expect(stdout).toContain('Basis:');
+	});
+
+	it('prints the JSON contract: outputs in SI with unit and text', () => {
+		// common practice: a 2 V diode at 1 A from 28 V puts 26 W in a linear driver
+		const {code, stdout} = run('calc', 'dissipation', 'supply=28V', 'knee=2 V', 'series_resistance=0ohm', 'limit=1000mA', '--json');
+		expect(code).toBe(0);
+		const result = JSON.parse(stdout) as {calc: string; inputs: Record<string, {si: number}>; outputs: Record<string, {si: number; unit: string; text: string}>; basis: string[]};
+		expect(result.calc).toBe('dissipation');
+		expect(result.inputs['limit']!.si).toBe(1);
+		expect(result.outputs['worst_power']).toEqual({si: 26, unit: 'W', text: '26 W'});
+		expect(result.outputs['fault_power']!.si).toBe(28);
+		expect(result.basis.length).toBeGreaterThan(0);
+	});
+
+	it('reads temperatures in degC as kelvin and uses defaults', () => {
+		const {code, stdout} = run('calc', 'wire', 'awg=18', 'length=1000ft', '--json');
+		expect(code).toBe(0);
+		const result = JSON.parse(stdout) as {inputs: Record<string, {si: number}>; outputs: Record<string, {si: number}>};
+		expect(result.inputs['temperature']!.si).toBeCloseTo(293.15, 9);
+		// NBS Handbook 100 (from memory): 18 AWG at 20 °C ≈ 6.39 Ω/kft
+		expect(result.outputs['resistance']!.si).toBeCloseTo(6.385, 2);
+	});
+
+	it('shows a note when no heat sink can do it', () => {
+		const {code, stdout} = run('calc', 'heatsink', 'power=20W', 'ambient=40degC', 'max_temperature=100degC', 'theta_jc=2.5K/W', 'theta_cs=1K/W');
+		expect(code).toBe(0);
+		expect(stdout).toMatch(/No heat sink can do it/);
+	});
+
+	it.each([
+		{name: 'an unknown calculation', argv: ['calc', 'dissipaton'], says: ['no calculation named "dissipaton"', 'did you mean "dissipation"']},
+		{name: 'an unknown key', argv: ['calc', 'risetime', 'bandwith=1MHz'], says: ['risetime has no input "bandwith"', 'did you mean "bandwidth"']},
+		{name: 'a wrong dimension', argv: ['calc', 'risetime', 'bandwidth=1 ms'], says: ['bandwidth', 'is a time', 'a frequency']},
+		{name: 'a missing unit', argv: ['calc', 'risetime', 'bandwidth=1000'], says: ['bandwidth', 'has no unit']},
+		{name: 'a missing input', argv: ['calc', 'dissipation', 'supply=28V', 'knee=2V', 'series_resistance=0ohm'], says: ['dissipation needs limit', 'a current']},
+		{name: 'a value outside validity', argv: ['calc', 'risetime', 'bandwidth=0Hz'], says: ['bandwidth must be greater than zero']},
+		{name: 'a negative current', argv: ['calc', 'forward-voltage', 'knee=1.6V', 'series_resistance=0.1ohm', 'current=-1A'], says: ['current must be zero or more']},
+		{name: 'not key=value', argv: ['calc', 'risetime', '1MHz'], says: ['"1MHz" is not key=value']},
+		{name: 'a repeated key', argv: ['calc', 'risetime', 'bandwidth=1MHz', 'bandwidth=2MHz'], says: ['"bandwidth" is given twice']},
+		{name: 'neither input of an inverse', argv: ['calc', 'photodiode', 'responsivity=0.5A/W'], says: ['power or monitor_current must be given']},
+		{name: 'a prototype key', argv: ['calc', 'risetime', 'constructor=1'], says: ['risetime has no input "constructor"']},
+	])('refuses $name with exit 2', ({argv, says}) => {
+		const {code, stderr} = run(...argv);
+		expect(code).toBe(2);
+		for (const words of says) expect(stderr).toContain(words);
+		expect(stderr).not.toContain('internal error');
+	});
+
+	it('gives the same number as the rule formula that calls the same calculation', () => {
+		const check = run('check', '--answers', 'docs/examples/bench3-808nm-clear.yaml', '--json');
+		const evaluation = JSON.parse(check.stdout) as {derived: Record<string, {si: number}>};
+		// the clear demo: supply 5 V + 5 %, knee 1.6 V, 0.15 Ω, limit 2 A
+		const calc = run('calc', 'dissipation', 'supply=5.25V', 'knee=1.6V', 'series_resistance=0.15ohm', 'limit=2A', '--json');
+		const result = JSON.parse(calc.stdout) as {outputs: Record<string, {si: number}>};
+		expect(result.outputs['worst_power']!.si).toBeCloseTo(evaluation.derived['worst_dissipation']!.si, 12);
+	});
+});
