@@ -54,7 +54,7 @@ export const messages = {
 	'calc-unknown-key': '{{calc}} has no input "{{key}}"{{hint}}; its inputs are {{allowed}}',
 	'calc-repeated-key': '"{{key}}" is given twice',
 	'calc-missing-input': '{{calc}} needs {{key}}, {{noun}} (for example {{key}}={{example}})',
-	'calc-outside-validity': '{{calc}}: {{key}} must be {{allowed}}',
+	'calc-outside-validity': '{{key}} must be {{allowed}}',
 	'calc-not-finite': '{{calc}}: {{key}} comes out infinite or not a number for these inputs',
 	'entry-empty': 'no value was given',
 	'entry-not-a-number': '"{{entered}}" is not a number with a unit; {{label}} is {{noun}}, for example "{{example}}"',

@@ -37,6 +37,8 @@ export type Calculation = {
 	basis: string[];
 	/** Pure: SI numbers in, SI numbers out. Outputs that need a left-out optional input are absent. */
 	compute(inputs: Record<string, number>): Record<string, number>;
+	/** A caution shown with every result (the optical-hazard calculations defer to the laser safety officer). */
+	caution?: string;
 	/** Plain-words remarks on a result (e.g. "no heat sink can do it"), shown by `calc`. */
 	notes?(inputs: Record<string, number>, outputs: Record<string, number>): string[];
 };

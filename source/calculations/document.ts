@@ -38,6 +38,7 @@ export function calculationsMarkdown(): string {
 			out.push(`| \`${key}\`${key === calculation.main ? ' (main)' : ''} | ${output.dimension} (${dimensions[output.dimension].si || '1'}) | ${escape(output.description)} |`);
 		}
 		out.push('', 'Basis:', '', ...calculation.basis.map((source) => `- ${source}`));
+		if (calculation.caution) out.push('', `> **Caution.** ${calculation.caution}`);
 	}
 	return `${out.join('\n')}\n`;
 }

@@ -3,11 +3,15 @@ import type {Calculation} from './calculation.js';
 import {derating} from './derating.js';
 import {dissipation} from './dissipation.js';
 import {forwardVoltage} from './forward-voltage.js';
+import {hazardClass} from './hazard-class.js';
 import {headroom} from './headroom.js';
 import {heatsink} from './heatsink.js';
 import {lightCurrent} from './light-current.js';
 import {modulation} from './modulation.js';
+import {mpe} from './mpe.js';
+import {nohd} from './nohd.js';
 import {noise} from './noise.js';
+import {od} from './od.js';
 import {photodiode} from './photodiode.js';
 import {risetime} from './risetime.js';
 import {threshold} from './threshold.js';
@@ -28,6 +32,10 @@ export const calculations: readonly Calculation[] = [
 	noise,
 	wire,
 	brownout,
+	mpe,
+	nohd,
+	od,
+	hazardClass,
 ];
 
 /** Finds a calculation by its kebab-case name. */

@@ -17,6 +17,8 @@ export type CalculationRun = {
 	outputs: Record<string, CalculatedValue>;
 	notes: string[];
 	basis: string[];
+	/** Present for calculations whose results need a caution (the optical-hazard ones). */
+	caution?: string;
 };
 
 function value(si: number, dimension: keyof typeof dimensions): CalculatedValue {
@@ -84,10 +86,14 @@ export function runCalculation(calculation: Calculation, entries: ReadonlyArray<
 		outputs: Object.fromEntries(Object.entries(outputs).map(([key, number]) => [key, value(number, calculation.outputs[key]!.dimension)])),
 		notes: calculation.notes?.(si, outputs) ?? [],
 		basis: calculation.basis,
+		...(calculation.caution ? {caution: calculation.caution} : {}),
 	});
 }
 
 /** The message of a calc problem, prefixed by the key it concerns. */
 export function describeCalcProblem(found: Problem): string {
-	return `${found.field ? `${found.field}: ` : ''}${describeProblem(found)}`;
+	const message = describeProblem(found);
+	// Messages that already name the key read better without it in front again.
+	const named = found.field !== undefined && new RegExp(`\\b${found.field}\\b`).test(message);
+	return `${found.field && !named ? `${found.field}: ` : ''}${message}`;
 }

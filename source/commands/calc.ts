@@ -33,6 +33,7 @@ export function calculationHelp(calculation: Calculation, width = 100): string {
 	for (const [key, output] of Object.entries(calculation.outputs)) lines.push(...definitionRow(key, output.description, keyWidth, width));
 	lines.push('', ...wrap(`Formula: ${calculation.formula}`, width), '', 'Basis:');
 	for (const source of calculation.basis) lines.push(...wrap(`- ${source}`, width, '  '));
+	if (calculation.caution) lines.push('', ...wrap(`CAUTION: ${calculation.caution}`, width));
 	lines.push('', `In rule formulas: ${formulaName(calculation)}(${Object.keys(calculation.inputs).join(', ')}) gives ${calculation.main}.`);
 	return lines.join('\n');
 }
@@ -72,6 +73,7 @@ export function runCalc(args: string[], io: Io): number {
 	for (const [key, output] of Object.entries(result.outputs)) lines.push(`  ${key.padEnd(keyWidth)}  ${output.text}`);
 	for (const note of result.notes) lines.push(...wrap(`Note: ${note}`, 100, '  '));
 	lines.push(...wrap(`Basis: ${result.basis.join('; ')}`, io.stdout.columns ?? 100));
+	if (result.caution) lines.push('', ...wrap(`CAUTION: ${result.caution}`, io.stdout.columns ?? 100));
 	io.stdout.write(`${lines.join('\n')}\n`);
 	return 0;
 }

@@ -51,7 +51,9 @@ Usage:
 Values carry units: prelase calc dissipation supply=28V knee=2V series_resistance=0ohm limit=1A
 Temperatures in degC; percentages as 5%. Rule formulas call the same calculations.
 
---json prints {"calc", "inputs", "outputs": {KEY: {"si", "unit", "text"}}, "notes", "basis"}.
+--json prints {"calc", "inputs", "outputs": {KEY: {"si", "unit", "text"}}, "notes", "basis"}
+and, for mpe, nohd, od and hazard-class, "caution": these are for planning and do not replace
+the laser safety officer's hazard evaluation or the standards in force.
 Exit status: 0 done, 2 unknown name or key, wrong dimension, missing input, or a value
 outside the calculation's validity.`,
 	rules: `prelase rules — rule files

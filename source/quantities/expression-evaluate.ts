@@ -13,6 +13,13 @@ export class EvaluationError extends Error {
 	}
 }
 
+/** A name with no value in the scope (an input not given): the caller decides what that means. */
+export class MissingValueError extends Error {
+	constructor(readonly missingName: string) {
+		super(`"${missingName}" has no value`);
+	}
+}
+
 /** A value a formula works with. */
 export type FormulaValue = number | boolean | string | Quantity;
 
@@ -138,7 +145,7 @@ export function evaluateExpression(node: ExpressionNode, scope: Scope): FormulaV
 			if (scope.has(node.name)) return scope.get(node.name) as FormulaValue;
 			if (node.name === 'pi') return Math.PI;
 			const unit = findUnit(node.name);
-			if (!unit) throw new EvaluationError('formula-failed', `"${node.name}" has no value`);
+			if (!unit) throw new MissingValueError(node.name);
 			if (unit.offset) throw new EvaluationError('dimension-mismatch', `${node.name} has an offset and can only follow a number (25 ${node.name}); use K for differences`);
 			return quantityOrNumber(unit.factor, unit.exponents);
 		}

@@ -50,7 +50,8 @@ export function formatQuantity(si: number, dimension: Dimension, digits = 3): st
 		case 'ratio':
 			return `${roundedText(si * 100, digits)} %`;
 		case 'number':
-			return roundedText(si, digits);
+			// Whole numbers (a gauge, an edition year, a count) are shown as they are.
+			return Number.isInteger(si) && Math.abs(si) < 1e6 ? String(si) : roundedText(si, digits);
 		default:
 			break;
 	}

@@ -1,5 +1,6 @@
 import {fillPlaceholders} from '../problems.js';
 import {isQuantity} from '../quantities/engine.js';
+import {MissingValueError} from '../quantities/expression-evaluate.js';
 import type {Answers} from './answers.js';
 import type {CompiledCheck, CompiledRules} from './compiled-rules.js';
 import type {CheckResult, ConfirmationResult, DerivedResult, Evaluation, Outcome} from './evaluation.js';
@@ -22,12 +23,18 @@ export function evaluate(rules: CompiledRules, answers: Answers): Evaluation {
 	const missing = new Map<string, string[]>();
 	for (const [id, value] of rules.policy) scope.set(id, toFormulaValue(value));
 
+	// A formula is evaluated even when some of its names have no value: `a and b` with a false
+	// needs no b. Only when evaluation reaches a missing name is the result open, and then it
+	// lists every missing input the formula could need.
 	const compute = (formula: CompiledFormula): Computed => {
-		const needs = [...new Set([...formula.names].flatMap((name) => missing.get(name) ?? []))];
-		if (needs.length > 0) return {ok: false, needs};
 		try {
 			return {ok: true, value: formula.evaluate(scope)};
 		} catch (error) {
+			if (error instanceof MissingValueError) {
+				const needs = [...new Set([...formula.names].flatMap((name) => missing.get(name) ?? []))];
+				// No input is missing: the name is a derived value that could not be computed.
+				return needs.length > 0 ? {ok: false, needs} : {ok: false, error: `"${error.missingName}" could not be computed`};
+			}
 			return {ok: false, error: classifyError(error).detail};
 		}
 	};

@@ -2,6 +2,7 @@ import {dimensions} from '../quantities/dimensions.js';
 import {isQuantity} from '../quantities/engine.js';
 import {hasDimension} from '../quantities/parse-quantity.js';
 import {problem, type Problem} from '../problems.js';
+import {CalculationInputError} from '../calculations/calculation.js';
 import type {CompiledRules} from './compiled-rules.js';
 import type {CompiledFormula} from './formula.js';
 import {sampleWithin, toFormulaValue} from './sample-values.js';
@@ -27,13 +28,15 @@ export function lintWithSamples(rules: CompiledRules, where: Where): Problem[] {
 
 	// A derived value that failed is reported once; formulas using it are not reported again.
 	const failed = new Set<string>();
-	const run = (formula: CompiledFormula, path: Array<string | number>): {ok: true; value: unknown} | {ok: false} => {
+	const run = (formula: CompiledFormula, path: Array<string | number>): {ok: true; value: unknown} | {ok: false; outsideValidity?: boolean} => {
 		if ([...formula.names].some((name) => failed.has(name))) return {ok: false};
 		const results: unknown[] = [];
 		for (const part of formula.parts) {
 			try {
 				results.push(part.evaluate(scope));
 			} catch (error) {
+				// A sample value outside a calculation's validity says nothing about the formula.
+				if (error instanceof CalculationInputError) return {ok: false, outsideValidity: true};
 				const {code, detail} = classifyError(error);
 				problems.push(problem(code, {detail: `${detail} (in ${part.text})`}, where(path, undefined, formula.text)));
 				return {ok: false};
@@ -48,6 +51,7 @@ export function lintWithSamples(rules: CompiledRules, where: Where): Problem[] {
 		try {
 			return {ok: true, value: formula.evaluate(scope)};
 		} catch (error) {
+			if (error instanceof CalculationInputError) return {ok: false, outsideValidity: true};
 			const {code, detail} = classifyError(error);
 			problems.push(problem(code, {detail}, where(path, undefined, formula.text)));
 			return {ok: false};
@@ -62,6 +66,11 @@ export function lintWithSamples(rules: CompiledRules, where: Where): Problem[] {
 	for (const {derived, formula} of rules.derived) {
 		const path = ['derived', rules.rules.derived.indexOf(derived), 'formula'];
 		const result = run(formula, path);
+		if (!result.ok && result.outsideValidity) {
+			// Lint what uses it with a stand-in of the declared dimension.
+			scope.set(derived.id, toFormulaValue({si: 1, dimension: derived.dimension}));
+			continue;
+		}
 		if (!result.ok) {
 			failed.add(derived.id);
 			continue;

@@ -1,0 +1,37 @@
+import type {Calculation} from './calculation.js';
+import {covered, editionInput, readEdition} from './optical/edition-input.js';
+import {ocularMpe} from './optical/ocular-mpe.js';
+import {opticalCaution} from './optical/optical-caution.js';
+
+const nanometres = (metres: number) => metres * 1e9;
+
+/** Maximum permissible exposure of the eye to a point source. */
+export const mpe: Calculation = {
+	name: 'mpe',
+	summary: 'Maximum permissible exposure of the eye to a point source, by wavelength and exposure duration',
+	inputs: {
+		wavelength: {dimension: 'length', description: 'Wavelength, 180 nm to 1 mm', allowed: 'positive'},
+		duration: {dimension: 'time', description: 'Exposure duration (pulse duration for a single pulse): 0.25 s for an accidental visible exposure, 10 s otherwise', allowed: 'positive'},
+		edition: editionInput,
+	},
+	outputs: {
+		irradiance: {dimension: 'irradiance', description: 'Irradiance limit, averaged over the duration'},
+		radiant_exposure: {dimension: 'radiant_exposure', description: 'Radiant exposure limit over the duration'},
+	},
+	main: 'irradiance',
+	formula: 'IEC 60825-1 / ICNIRP table rows for a point source (C_E = 1): H = 18·C_A·t^0.75 J/m², E = 10·C_A·C_C W/m², photochemical 100·C_B J/m² or C_B W/m² (the lower applies), UV and far-IR rows; see the notes for the row used',
+	basis: [
+		'ICNIRP 2013 guidelines (Health Phys. 105(3)) = IEC 60825-1:2014 Annex A = ANSI Z136.1-2014 Tables 5a/5b (2014 values from memory where they differ from 2007)',
+		'IEC 60825-1:2007 Table A.1 and its correction factors (as reproduced in a university MPE handout)',
+		'Directive 2006/25/EC Annex II, Tables 2.2–2.6 (correction factors C_A, C_B, C_C, T1)',
+	],
+	caution: opticalCaution,
+	compute: ({wavelength, duration, edition}) => {
+		const found = covered('mpe', () => ocularMpe(nanometres(wavelength!), duration!, readEdition('mpe', edition)));
+		return {irradiance: found.irradiance, radiant_exposure: found.radiantExposure};
+	},
+	notes: ({wavelength, duration, edition}) => {
+		const found = ocularMpe(nanometres(wavelength!), duration!, readEdition('mpe', edition));
+		return [`Limit applied: ${found.limit} (${found.edition}).`];
+	},
+};

@@ -1,0 +1,26 @@
+import {CalculationInputError, type CalculationInput} from '../calculation.js';
+import {NotCoveredError, type Edition} from './ocular-mpe.js';
+
+/** The `edition` input shared by the optical calculations: 2014 (default) or 2007. */
+export const editionInput: CalculationInput = {
+	dimension: 'number',
+	description: 'Edition of the exposure limits: 2014 (IEC 60825-1:2014 = ICNIRP 2013 = ANSI Z136.1-2014) or 2007',
+	allowed: 'any',
+	default: 2014,
+};
+
+/** Reads the edition number, refusing anything but 2007 and 2014. */
+export function readEdition(calculation: string, value: number | undefined): Edition {
+	if (value === 2007 || value === 2014 || value === undefined) return value ?? 2014;
+	throw new CalculationInputError(calculation, 'edition', '2014 or 2007');
+}
+
+/** Runs an exposure-limit lookup, turning "not covered" into the calculation's input error. */
+export function covered<T>(calculation: string, run: () => T): T {
+	try {
+		return run();
+	} catch (error) {
+		if (error instanceof NotCoveredError) throw new CalculationInputError(calculation, error.key, error.allowed);
+		throw error;
+	}
+}
