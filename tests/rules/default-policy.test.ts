@@ -29,11 +29,16 @@ const constantPower = withChanges(
 	{control_mode: 'constant_power', current_setpoint: null, modulation_gain: null, modulation_source_peak: null, power_setpoint: '1.5 W', photodiode_responsivity: '1 mA/W', monitor_input_max: '2 mA'},
 	{responsivity_measured: 'yes'},
 );
-const bases: Record<'current' | 'power', AnswersDocument> = {current: clear, power: constantPower};
+// The demo with only the output beam, and with a third beam (a 1064 nm pump leak: 0.5 W, no
+// exit diameter, 10 mrad, eyewear OD 4).
+const singleBeam = withChanges(clear, {second_beam: 'no', beam2_wavelength: null, beam2_power: null, beam2_diameter: null, beam2_divergence: null, beam2_eyewear_od: null, third_beam: null});
+const threeBeams = withChanges(clear, {third_beam: 'yes', beam3_wavelength: '1064 nm', beam3_power: '0.5 W', beam3_diameter: '0 mm', beam3_divergence: '10 mrad', beam3_eyewear_od: '4'});
+type Base = 'current' | 'power' | 'single' | 'three';
+const bases: Record<Base, AnswersDocument> = {current: clear, power: constantPower, single: singleBeam, three: threeBeams};
 
 type Kind = 'pass' | 'fail' | 'advise' | 'boundary';
-type Comparison = {check: string; kind: Kind; name: string; base?: 'current' | 'power'; inputs?: Changes; value: number; limit: number; margin: number; fraction: number};
-type Condition = {check: string; kind: Kind; name: string; base?: 'current' | 'power'; inputs?: Changes};
+type Comparison = {check: string; kind: Kind; name: string; base?: Base; inputs?: Changes; value: number; limit: number; margin: number; fraction: number};
+type Condition = {check: string; kind: Kind; name: string; base?: Base; inputs?: Changes};
 
 // Checks with a value and a limit. Boundary cases put the value exactly on the limit: it must pass.
 const comparisons: Comparison[] = [
@@ -136,6 +141,40 @@ const comparisons: Comparison[] = [
 	// 20 V vs 15 V: margin −5 V, −1/3
 	{check: 'photodiode_bias_within_rating', kind: 'fail', name: 'bias above the rating', inputs: {photodiode_bias: '20 V'}, value: 20, limit: 15, margin: -5, fraction: -5 / 15},
 	{check: 'photodiode_bias_within_rating', kind: 'boundary', name: 'bias equal to the rating', inputs: {photodiode_bias: '15 V'}, value: 15, limit: 15, margin: 0, fraction: 0},
+
+	// People around the bench. Limiting aperture 7 mm: A = π × 3.5² mm² = 3.848451e-5 m².
+	// Beam 1, 808 nm, invisible so 10 s: MPE = 10·C_A = 10 × 10^(0.002 × 108) = 16.443717 W/m²;
+	// E₀ = 2 W / A = 51 968.9 W/m²; OD = log10(E₀/MPE) = 3.499744.
+	{check: 'beam1_eyewear_sufficient', kind: 'pass', name: 'OD 5 eyewear', value: 5, limit: 3.499744034, margin: 1.500255966, fraction: 1.500255966 / 3.499744034},
+	{check: 'beam1_eyewear_sufficient', kind: 'fail', name: 'OD 3 eyewear', inputs: {beam1_eyewear_od: '3'}, value: 3, limit: 3.499744034, margin: -0.499744034, fraction: -0.499744034 / 3.499744034},
+	{check: 'beam1_eyewear_sufficient', kind: 'boundary', name: 'eyewear exactly at the required OD', inputs: {beam1_eyewear_od: '3.499744034269296'}, value: 3.499744034, limit: 3.499744034, margin: 0, fraction: 0},
+	// NOHD = (√(4 × 2 W/(π × 16.443717 W/m²)) − 3 mm)/0.15 rad = (0.393524 − 0.003)/0.15 = 2.603486 m
+	{check: 'beam1_hazard_distance', kind: 'pass', name: 'uncontrolled position 4 m away', value: 2.603486285, limit: 4, margin: 1.396513715, fraction: 1.396513715 / 4},
+	{check: 'beam1_hazard_distance', kind: 'advise', name: 'uncontrolled position 2 m away', inputs: {uncontrolled_distance: '2 m'}, value: 2.603486285, limit: 2, margin: -0.603486285, fraction: -0.603486285 / 2},
+	{check: 'beam1_hazard_distance', kind: 'boundary', name: 'uncontrolled position at the NOHD', inputs: {uncontrolled_distance: '2.603486284682414 m'}, value: 2.603486285, limit: 2.603486285, margin: 0, fraction: 0},
+	// Beam 2, 650 nm aiming beam, visible so 0.25 s: MPE = 18 × 0.25^0.75 / 0.25 = 25.455844 W/m²;
+	// E₀ = 1 mW / A = 25.984481 W/m²; OD = log10(1.020768) = 0.0089265.
+	{check: 'beam2_eyewear_sufficient', kind: 'pass', name: 'OD 0.5 at the aiming wavelength', value: 0.5, limit: 0.00892653567, margin: 0.49107346433, fraction: 0.49107346433 / 0.00892653567},
+	// 10 mW: OD = log10(10.20768) = 1.0089265
+	{check: 'beam2_eyewear_sufficient', kind: 'fail', name: 'a 10 mW aiming beam', inputs: {beam2_power: '10 mW'}, value: 0.5, limit: 1.00892653567, margin: -0.50892653567, fraction: -0.50892653567 / 1.00892653567},
+	{check: 'beam2_eyewear_sufficient', kind: 'boundary', name: 'eyewear exactly at the required OD', inputs: {beam2_eyewear_od: '0.008926535670018101'}, value: 0.00892653567, limit: 0.00892653567, margin: 0, fraction: 0},
+	// NOHD = (√(4 × 1 mW/(π × 25.455844)) − 2 mm)/1 mrad = (7.072310 − 2) mm / 1 mrad = 5.072310 m
+	{check: 'beam2_hazard_distance', kind: 'advise', name: 'the aiming beam reaches past 4 m', value: 5.07231031, limit: 4, margin: -1.07231031, fraction: -1.07231031 / 4},
+	{check: 'beam2_hazard_distance', kind: 'pass', name: 'uncontrolled position 6 m away', inputs: {uncontrolled_distance: '6 m'}, value: 5.07231031, limit: 6, margin: 0.92768969, fraction: 0.92768969 / 6},
+	{check: 'beam2_hazard_distance', kind: 'boundary', name: 'uncontrolled position at the NOHD', inputs: {uncontrolled_distance: '5.072310309922722 m'}, value: 5.07231031, limit: 5.07231031, margin: 0, fraction: 0},
+	// Beam 3, 1064 nm, 10 s: MPE = 10·C_A = 50 W/m²; E₀ = 0.5 W / A = 12 992.2 W/m²; OD = 2.414714
+	{check: 'beam3_eyewear_sufficient', kind: 'pass', name: 'OD 4 at 1064 nm', base: 'three', value: 4, limit: 2.414714039, margin: 1.585285961, fraction: 1.585285961 / 2.414714039},
+	{check: 'beam3_eyewear_sufficient', kind: 'fail', name: 'OD 2 at 1064 nm', base: 'three', inputs: {beam3_eyewear_od: '2'}, value: 2, limit: 2.414714039, margin: -0.414714039, fraction: -0.414714039 / 2.414714039},
+	{check: 'beam3_eyewear_sufficient', kind: 'boundary', name: 'eyewear exactly at the required OD', base: 'three', inputs: {beam3_eyewear_od: '2.414714038605315'}, value: 2.414714039, limit: 2.414714039, margin: 0, fraction: 0},
+	// NOHD = √(4 × 0.5/(π × 50))/0.01 rad = 0.112838 m / 0.01 = 11.283792 m
+	{check: 'beam3_hazard_distance', kind: 'advise', name: 'the pump leak reaches past 4 m', base: 'three', value: 11.28379167, limit: 4, margin: -7.28379167, fraction: -7.28379167 / 4},
+	{check: 'beam3_hazard_distance', kind: 'pass', name: 'uncontrolled position 20 m away', base: 'three', inputs: {uncontrolled_distance: '20 m'}, value: 11.28379167, limit: 20, margin: 8.71620833, fraction: 8.71620833 / 20},
+	{check: 'beam3_hazard_distance', kind: 'boundary', name: 'uncontrolled position at the NOHD', base: 'three', inputs: {uncontrolled_distance: '11.283791670955125 m'}, value: 11.28379167, limit: 11.28379167, margin: 0, fraction: 0},
+	// 2 W at 808 nm is above the 0.5 W Class 3B limit: rank 5 (Class 4), the label's rank
+	{check: 'label_class_covers_output', kind: 'boundary', name: 'Class 4 label on a 2 W beam', value: 5, limit: 5, margin: 0, fraction: 0},
+	// 0.4 W: above 5 × 3.9e-4 × 1.644372 W = 3.2 mW (3R) and at most 0.5 W: rank 4 (Class 3B)
+	{check: 'label_class_covers_output', kind: 'pass', name: '0.4 W under a Class 4 label', inputs: {beam1_power: '0.4 W'}, value: 4, limit: 5, margin: 1, fraction: 0.2},
+	{check: 'label_class_covers_output', kind: 'advise', name: 'Class 3B label on a 2 W beam', inputs: {laser_class: 'class_3b'}, value: 5, limit: 4, margin: -1, fraction: -0.25},
 ];
 
 // Checks that are a true/false condition: no value, limit or margin.
@@ -164,7 +203,7 @@ const conditions: Condition[] = [
 const withoutBoundary: Record<string, string> = {reverse_protection_fitted: 'a yes/no input has no boundary'};
 
 // An input each check needs is left out: the check is open and names it.
-const opens: Array<{check: string; base?: 'current' | 'power'; remove: string[]; needs: string[]}> = [
+const opens: Array<{check: string; base?: Base; remove: string[]; needs: string[]}> = [
 	{check: 'limit_below_diode_maximum', remove: ['diode_max_current'], needs: ['diode_max_current']},
 	{check: 'limit_within_driver', remove: ['driver_max_current'], needs: ['driver_max_current']},
 	{check: 'setpoint_below_limit', remove: ['current_setpoint'], needs: ['current_setpoint']},
@@ -185,15 +224,27 @@ const opens: Array<{check: string; base?: 'current' | 'power'; remove: string[];
 	{check: 'photodiode_bias_within_rating', remove: ['photodiode_reverse_max'], needs: ['photodiode_reverse_max']},
 	{check: 'reverse_protection_fitted', remove: ['reverse_protection'], needs: ['reverse_protection']},
 	{check: 'pin_configuration_supported', remove: ['pin_configuration'], needs: ['pin_configuration']},
+	{check: 'beam1_eyewear_sufficient', remove: ['beam1_eyewear_od'], needs: ['beam1_eyewear_od']},
+	{check: 'beam1_hazard_distance', remove: ['uncontrolled_distance'], needs: ['uncontrolled_distance']},
+	{check: 'beam2_eyewear_sufficient', remove: ['beam2_eyewear_od'], needs: ['beam2_eyewear_od']},
+	{check: 'beam2_hazard_distance', remove: ['beam2_divergence'], needs: ['beam2_divergence']},
+	{check: 'beam3_eyewear_sufficient', base: 'three', remove: ['beam3_power'], needs: ['beam3_power']},
+	{check: 'beam3_hazard_distance', base: 'three', remove: ['beam3_divergence'], needs: ['beam3_divergence']},
+	{check: 'label_class_covers_output', remove: ['beam1_power'], needs: ['beam1_power']},
 ];
 
 // A check whose `when` is false is skipped: constant-current checks in constant-power mode and back.
-const skips: Array<{check: string; base: 'current' | 'power'}> = [
+const skips: Array<{check: string; base: Base}> = [
 	{check: 'setpoint_below_limit', base: 'power'},
 	{check: 'setpoint_plus_modulation_below_limit', base: 'power'},
 	{check: 'power_setpoint_below_maximum', base: 'current'},
 	{check: 'monitor_current_within_input', base: 'current'},
 	{check: 'monitor_loss_contained', base: 'current'},
+	{check: 'beam2_eyewear_sufficient', base: 'single'},
+	{check: 'beam2_hazard_distance', base: 'single'},
+	{check: 'beam3_eyewear_sufficient', base: 'current'},
+	{check: 'beam3_hazard_distance', base: 'current'},
+	{check: 'beam3_eyewear_sufficient', base: 'single'},
 ];
 
 const removing = (names: string[]): Changes => Object.fromEntries(names.map((name) => [name, null]));
@@ -269,13 +320,20 @@ describe('the shipped policy, check by check', () => {
 
 	it('marks an advisory check that does not hold as advise, never fail', () => {
 		const advisory = rules.rules.checks.filter(({severity}) => severity === 'advise').map(({id}) => id);
-		expect(advisory.sort()).toEqual(['brownout_clear_of_service_supply', 'short_circuit_dissipation']);
+		expect(advisory.sort()).toEqual([
+			'beam1_hazard_distance',
+			'beam2_hazard_distance',
+			'beam3_hazard_distance',
+			'brownout_clear_of_service_supply',
+			'label_class_covers_output',
+			'short_circuit_dissipation',
+		]);
 		for (const id of advisory) expect(comparisons.some(({check, kind}) => check === id && kind === 'advise'), id).toBe(true);
 	});
 });
 
 describe('the shipped policy, outcome', () => {
-	const outcomes: Array<{name: string; base?: 'current' | 'power'; inputs?: Changes; confirmations?: Changes; outcome: Outcome}> = [
+	const outcomes: Array<{name: string; base?: Base; inputs?: Changes; confirmations?: Changes; outcome: Outcome}> = [
 		{name: 'the clearing demo, whose short-circuit check only advises', outcome: 'clear_to_energize'},
 		{name: 'the constant-power bench with a measured responsivity', base: 'power', outcome: 'clear_to_energize'},
 		{name: 'a stop check fails', inputs: {current_limit: '2.4 A'}, outcome: 'do_not_energize'},

@@ -37,12 +37,13 @@ describe('the demo answers files', () => {
 		expect(evaluateDemo(name).outcome).toBe(outcome);
 	});
 
-	it('clears the 808 nm bench with every stop check holding and the short circuit advising', () => {
+	it('clears the 808 nm bench with every stop check holding; the short circuit and the aiming beam advise', () => {
 		const evaluation = evaluateDemo('bench3-808nm-clear.yaml');
 		expect(ids(evaluation, 'fail')).toEqual([]);
 		expect(ids(evaluation, 'open')).toEqual([]);
-		expect(ids(evaluation, 'advise')).toEqual(['short_circuit_dissipation']);
-		expect(ids(evaluation, 'skip').sort()).toEqual(['monitor_current_within_input', 'monitor_loss_contained', 'power_setpoint_below_maximum']);
+		// the aiming beam (1 mW, 2 mm, 1 mrad) stays above the MPE for 5.07 m, past 4 m
+		expect(ids(evaluation, 'advise')).toEqual(['short_circuit_dissipation', 'beam2_hazard_distance']);
+		expect(ids(evaluation, 'skip').sort()).toEqual(['beam3_eyewear_sufficient', 'beam3_hazard_distance', 'monitor_current_within_input', 'monitor_loss_contained', 'power_setpoint_below_maximum']);
 		expect(evaluation.missingInputs).toEqual([]);
 	});
 
@@ -64,8 +65,8 @@ describe('the demo answers files', () => {
 	it('leaves the constant-power bench incomplete with nothing failing', () => {
 		const evaluation = evaluateDemo('bench3-808nm-incomplete.yaml');
 		expect(ids(evaluation, 'fail')).toEqual([]);
-		expect(evaluation.missingInputs.sort()).toEqual(['brownout_trip', 'photodiode_responsivity']);
-		expect(ids(evaluation, 'open').sort()).toEqual(['brownout_before_control_lost', 'brownout_clear_of_service_supply', 'monitor_current_within_input']);
+		expect(evaluation.missingInputs.sort()).toEqual(['beam1_eyewear_od', 'brownout_trip', 'photodiode_responsivity']);
+		expect(ids(evaluation, 'open').sort()).toEqual(['beam1_eyewear_sufficient', 'brownout_before_control_lost', 'brownout_clear_of_service_supply', 'monitor_current_within_input']);
 		const unanswered = evaluation.confirmations.filter(({status}) => status === 'unanswered').map(({id}) => id);
 		expect(unanswered.sort()).toEqual(['interlock_loop_tested', 'responsivity_measured']);
 	});

@@ -37,7 +37,10 @@ type Row = {radiantExposure?: number; irradiance?: number; limit: string};
  * wavelength (nm) for an exposure duration (s), 180 nm to 1 mm and 10⁻¹³ s (400–1400 nm) or
  * 10⁻⁹ s (elsewhere) to 3×10⁴ s. Between 400 and 600 nm from 10 s on, the thermal and the
  * photochemical limits are both evaluated and the lower applies. A duration exactly on a
- * breakpoint belongs to the longer-duration row.
+ * breakpoint belongs to the longer-duration row, except at T1 for 302.5–315 nm, where the table
+ * itself writes t ≤ T1. For 1200–1400 nm the 2014 factor C_C grows to 10⁶; the lens limit that
+ * bounds it there is not implemented, so the retinal limit is capped by the 1400–1500 nm
+ * corneal row (never a higher limit than just past 1400 nm).
  */
 export function ocularMpe(wavelength: number, duration: number, edition: Edition = 2014): OcularMpe {
 	if (!(wavelength >= 180 && wavelength <= 1e6)) throw new NotCoveredError('wavelength', 'between 180 nm and 1 mm (outside that prelase has no exposure limit)');
@@ -45,10 +48,19 @@ export function ocularMpe(wavelength: number, duration: number, edition: Edition
 	const retinal = wavelength >= 400 && wavelength <= 1400;
 	const shortest = retinal ? 1e-13 : 1e-9;
 	if (!(duration >= shortest)) throw new NotCoveredError('duration', `at least ${retinal ? '10⁻¹³ s' : '10⁻⁹ s'} at this wavelength (shorter pulses are not covered)`);
-	const row = retinal ? retinalRow(wavelength, duration, edition) : wavelength < 400 ? ultravioletRow(wavelength, duration) : infraredRow(wavelength, duration);
+	const row = retinal ? cappedRetinalRow(wavelength, duration, edition) : wavelength < 400 ? ultravioletRow(wavelength, duration) : infraredRow(wavelength, duration);
 	const radiantExposure = row.radiantExposure ?? row.irradiance! * duration;
 	const irradiance = row.irradiance ?? row.radiantExposure! / duration;
 	return {radiantExposure, irradiance, limit: row.limit, edition: editionNames[edition]};
+}
+
+function cappedRetinalRow(wavelength: number, t: number, edition: Edition): Row {
+	const retinal = retinalRow(wavelength, t, edition);
+	if (edition !== 2014 || wavelength < 1200) return retinal;
+	const corneal = infraredRow(1450, t);
+	const exposure = (row: Row) => row.radiantExposure ?? row.irradiance! * t;
+	if (exposure(retinal) <= exposure(corneal)) return retinal;
+	return {...corneal, limit: `${corneal.limit}, used as a cautious cap: the 2014 retinal limit with C_C = 8 + 10^(0.04(λ − 1250)) is higher here, and the lens limit is not implemented`};
 }
 
 function retinalRow(wavelength: number, t: number, edition: Edition): Row {
@@ -104,10 +116,15 @@ function formatTime(seconds: number): string {
 	return `${Number((seconds * 1e6).toPrecision(3))} µs`;
 }
 
-/** Diameter (m) of the limiting aperture for the eye at a wavelength (nm) and duration (s). */
+/**
+ * Diameter (m) of the limiting aperture for the eye at a wavelength (nm) and duration (s):
+ * 7 mm for 400–1400 nm, 1 mm in the UV, 1 mm / 1.5·t^(3/8) mm / 3.5 mm from 1400 nm to 0.1 mm,
+ * 11 mm from 0.1 mm to 1 mm (IEC 60825-1, ANSI Z136.1 Table 8; from memory).
+ */
 export function limitingAperture(wavelength: number, duration: number): number {
 	if (wavelength >= 400 && wavelength <= 1400) return 7e-3;
 	if (wavelength < 400) return 1e-3;
+	if (wavelength >= 1e5) return 11e-3;
 	if (duration <= 0.35) return 1e-3;
 	if (duration < 10) return 1.5e-3 * duration ** (3 / 8);
 	return 3.5e-3;
