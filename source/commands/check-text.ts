@@ -76,6 +76,7 @@ export function checkText(rules: CompiledRules, answers: Answers, evaluation: Ev
 
 	rules.rules.steps.forEach((step, index) => {
 		out.push('', paint.bold(`${index + 1}. ${stripControl(step.title)}`));
+		if (step.summary) out.push(...wrap(stripControl(step.summary), width, '   ').map((line) => paint.dim(line)));
 		for (const input of step.inputs) {
 			const answer = answers.inputs.get(input.id);
 			const asked = Boolean(answer) || evaluation.missingInputs.includes(input.id) || input.optional;

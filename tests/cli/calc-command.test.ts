@@ -70,6 +70,24 @@ describe('prelase calc', () => {
 		expect(stderr).not.toContain('internal error');
 	});
 
+	it('prints the caution with every exposure figure, in text and JSON', () => {
+		const text = run('calc', 'od', 'power=2W', 'diameter=3mm', 'wavelength=808nm', 'duration=10s');
+		expect(text.code).toBe(0);
+		expect(text.stdout).toMatch(/CAUTION: For planning only/);
+		const json = JSON.parse(run('calc', 'mpe', 'wavelength=532nm', 'duration=0.25s', '--json').stdout) as {caution?: string; notes: string[]; outputs: Record<string, {si: number}>};
+		expect(json.caution).toMatch(/laser safety officer/);
+		expect(json.notes.join(' ')).toMatch(/Limit applied: retinal thermal/);
+		// FoS-2015 (seen): 18·t^0.75 J/m² at 0.25 s = 25.456 W/m²
+		expect(json.outputs['irradiance']!.si).toBeCloseTo(25.4558, 3);
+	});
+
+	it('says "not covered" and exits 2 outside the tables', () => {
+		const {code, stderr} = run('calc', 'mpe', 'wavelength=100nm', 'duration=1s');
+		expect(code).toBe(2);
+		expect(stderr).toContain('wavelength must be between 180 nm and 1 mm');
+		expect(run('calc', 'hazard-class', 'power=1mW', 'wavelength=1550nm').code).toBe(2);
+	});
+
 	it('gives the same number as the rule formula that calls the same calculation', () => {
 		const check = run('check', '--answers', 'docs/examples/bench3-808nm-clear.yaml', '--json');
 		const evaluation = JSON.parse(check.stdout) as {derived: Record<string, {si: number}>};
