@@ -1,5 +1,5 @@
 import type {Calculation} from './calculation.js';
-import {covered, editionInput, readEdition} from './optical/edition-input.js';
+import {covered, editionInput, readEdition, refuseRepetition, repetitionInput} from './optical/edition-input.js';
 import {ocularMpe} from './optical/ocular-mpe.js';
 import {opticalCaution} from './optical/optical-caution.js';
 
@@ -13,6 +13,7 @@ export const mpe: Calculation = {
 		wavelength: {dimension: 'length', description: 'Wavelength, 180 nm to 1 mm', allowed: 'positive'},
 		duration: {dimension: 'time', description: 'Exposure duration (pulse duration for a single pulse): 0.25 s for an accidental visible exposure, 10 s otherwise', allowed: 'positive'},
 		edition: editionInput,
+		repetition_rate: repetitionInput,
 	},
 	outputs: {
 		irradiance: {dimension: 'irradiance', description: 'Irradiance limit, averaged over the duration'},
@@ -26,7 +27,8 @@ export const mpe: Calculation = {
 		'Directive 2006/25/EC Annex II, Tables 2.2–2.6 (correction factors C_A, C_B, C_C, T1)',
 	],
 	caution: opticalCaution,
-	compute: ({wavelength, duration, edition}) => {
+	compute: ({wavelength, duration, edition, repetition_rate}) => {
+		refuseRepetition('mpe', repetition_rate);
 		const found = covered('mpe', () => ocularMpe(nanometres(wavelength!), duration!, readEdition('mpe', edition)));
 		return {irradiance: found.irradiance, radiant_exposure: found.radiantExposure};
 	},

@@ -1,5 +1,5 @@
 import type {Calculation} from './calculation.js';
-import {covered, editionInput, readEdition} from './optical/edition-input.js';
+import {covered, editionInput, readEdition, refuseRepetition, repetitionInput} from './optical/edition-input.js';
 import {limitingAperture, ocularMpe} from './optical/ocular-mpe.js';
 import {opticalCaution} from './optical/optical-caution.js';
 
@@ -13,6 +13,7 @@ export const od: Calculation = {
 		wavelength: {dimension: 'length', description: 'Wavelength', allowed: 'positive'},
 		duration: {dimension: 'time', description: 'Exposure duration (pulse duration for a single pulse)', allowed: 'positive'},
 		edition: editionInput,
+		repetition_rate: repetitionInput,
 	},
 	outputs: {
 		od: {dimension: 'number', description: 'Required optical density (0 when the exposure is already below the MPE); round up to the next step the eyewear is marked with'},
@@ -27,7 +28,8 @@ export const od: Calculation = {
 		'Limiting apertures: 7 mm for 400–1400 nm, 1 mm in the UV, 1 mm to 3.5 mm in the far IR (IEC 60825-1 / ANSI Z136.1, from memory)',
 	],
 	caution: opticalCaution,
-	compute: ({power, diameter, wavelength, duration, edition}) => {
+	compute: ({power, diameter, wavelength, duration, edition, repetition_rate}) => {
+		refuseRepetition('od', repetition_rate);
 		const nanometres = wavelength! * 1e9;
 		const limit = covered('od', () => ocularMpe(nanometres, duration!, readEdition('od', edition)));
 		const aperture = limitingAperture(nanometres, duration!);

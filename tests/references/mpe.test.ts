@@ -32,6 +32,7 @@ describe('mpe reference values', () => {
 		{name: 'beyond 1 mm', inputs: {wavelength: 2e-3, duration: 1, edition: 2014}, key: 'wavelength'},
 		{name: 'longer than 3×10⁴ s', inputs: {wavelength: 532 * nm, duration: 4e4, edition: 2014}, key: 'duration'},
 		{name: 'an edition that is not implemented', inputs: {wavelength: 532 * nm, duration: 1, edition: 2010}, key: 'edition'},
+		{name: 'for a pulse train (repetitive pulses are not covered)', inputs: {wavelength: 1064 * nm, duration: 1e-8, edition: 2014, repetition_rate: 1e4}, key: 'repetition_rate'},
 	])('refuses a value $name rather than guessing', ({inputs, key}) => {
 		expect(() => mpe.compute(inputs)).toThrow(CalculationInputError);
 		try {

@@ -9,6 +9,18 @@ export const editionInput: CalculationInput = {
 	default: 2014,
 };
 
+/** The `repetition_rate` input: repetitive pulses are refused as not covered, never approximated. */
+export const repetitionInput: CalculationInput = {
+	dimension: 'frequency',
+	description: 'Pulse repetition rate. Repetitive pulses (the single-pulse, average-power and pulse-train rules) are not covered: give one pulse as the duration, and ask the laser safety officer for the pulse train',
+	optional: true,
+};
+
+/** Refuses a repetition rate: the three-rule evaluation of pulse trains is not implemented. */
+export function refuseRepetition(calculation: string, value: number | undefined): void {
+	if (value !== undefined) throw new CalculationInputError(calculation, 'repetition_rate', 'left out: repetitive pulses are not covered (the pulse-train rules are not implemented); evaluate one pulse and ask the laser safety officer');
+}
+
 /** Reads the edition number, refusing anything but 2007 and 2014. */
 export function readEdition(calculation: string, value: number | undefined): Edition {
 	if (value === 2007 || value === 2014 || value === undefined) return value ?? 2014;
