@@ -27,7 +27,7 @@ describe('mpe reference values', () => {
 		expect(notes).toMatch(/IEC 60825-1:2014/);
 	});
 
-	it.each([
+	it.each<{name: string; inputs: Record<string, number>; key: string}>([
 		{name: 'below 180 nm', inputs: {wavelength: 100 * nm, duration: 1, edition: 2014}, key: 'wavelength'},
 		{name: 'beyond 1 mm', inputs: {wavelength: 2e-3, duration: 1, edition: 2014}, key: 'wavelength'},
 		{name: 'longer than 3×10⁴ s', inputs: {wavelength: 532 * nm, duration: 4e4, edition: 2014}, key: 'duration'},

@@ -1,0 +1,86 @@
+import {chmodSync, existsSync, mkdirSync, readFileSync, statSync, writeFileSync} from 'node:fs';
+import {createPrivateKey, createPublicKey, type KeyObject} from 'node:crypto';
+import {join} from 'node:path';
+import {z} from 'zod';
+import {UsageError} from '../usage-error.js';
+import {fingerprint, generateKeyPair, rawPublicKey} from './keys.js';
+
+/** A colleague's public key that this operator trusts. */
+export type TrustedKey = {name: string; publicKey: string; fingerprint: string; addedAt: string};
+
+const trustedSchema = z.array(z.object({name: z.string(), publicKey: z.string(), fingerprint: z.string(), addedAt: z.string()}).strict());
+
+/** Where the operator's keys and trusted keys live: a `keys` folder beside the settings. */
+export function keyFolder(settingsFolder: string): string {
+	return join(settingsFolder, 'keys');
+}
+
+/** Refuses a private key file that someone other than its owner can read or write. */
+function assertPrivate(path: string): void {
+	if (process.platform === 'win32') return;
+	const mode = statSync(path).mode & 0o777;
+	if (mode & 0o077) throw new UsageError(`the key file ${path} can be read by others (mode ${mode.toString(8)}); run: chmod 600 ${path}`);
+}
+
+/** The operator's private key, created on first use with owner-only permissions. */
+export function operatorKey(settingsFolder: string, create: boolean): {privateKey: KeyObject; created: boolean; path: string} {
+	const folder = keyFolder(settingsFolder);
+	const path = join(folder, 'operator.key');
+	if (!existsSync(path)) {
+		if (!create) throw new UsageError(`no signing key yet; create one with: prelase keys`);
+		mkdirSync(folder, {recursive: true, mode: 0o700});
+		const {privateKey} = generateKeyPair();
+		writeFileSync(path, privateKey.export({format: 'pem', type: 'pkcs8'}), {mode: 0o600, flag: 'wx'});
+		chmodSync(path, 0o600);
+		writeFileSync(join(folder, 'operator.pub'), publicKeyPem(privateKey), {mode: 0o644});
+		return {privateKey, created: true, path};
+	}
+	assertPrivate(path);
+	try {
+		return {privateKey: createPrivateKey(readFileSync(path)), created: false, path};
+	} catch (error) {
+		throw new UsageError(`the key file ${path} cannot be read as a private key (${(error as Error).message})`);
+	}
+}
+
+/** A private key from a file another person gave (a second signer's key on this machine). */
+export function keyFromFile(path: string): KeyObject {
+	if (!existsSync(path)) throw new UsageError(`no key file at ${path}`);
+	assertPrivate(path);
+	try {
+		return createPrivateKey(readFileSync(path));
+	} catch (error) {
+		throw new UsageError(`${path} is not a private key (${(error as Error).message})`);
+	}
+}
+
+/** The PEM form of the public half of a key. */
+export function publicKeyPem(key: KeyObject): string {
+	return String((key.type === 'private' ? createPublicKey(key) : key).export({format: 'pem', type: 'spki'}));
+}
+
+function trustedPath(settingsFolder: string): string {
+	return join(keyFolder(settingsFolder), 'trusted.json');
+}
+
+/** The colleagues' public keys this operator trusts. */
+export function readTrusted(settingsFolder: string): TrustedKey[] {
+	const path = trustedPath(settingsFolder);
+	if (!existsSync(path)) return [];
+	const parsed = trustedSchema.safeParse(JSON.parse(readFileSync(path, 'utf8')));
+	if (!parsed.success) throw new UsageError(`the trusted keys file ${path} is not valid; fix or remove it`);
+	return parsed.data;
+}
+
+/** Replaces the list of trusted keys. */
+export function writeTrusted(settingsFolder: string, keys: TrustedKey[]): void {
+	mkdirSync(keyFolder(settingsFolder), {recursive: true, mode: 0o700});
+	writeFileSync(trustedPath(settingsFolder), `${JSON.stringify(keys, null, 2)}\n`, {mode: 0o644});
+}
+
+/** The fingerprint of the operator's own key, when there is one. */
+export function ownFingerprint(settingsFolder: string): string | undefined {
+	const path = join(keyFolder(settingsFolder), 'operator.key');
+	if (!existsSync(path)) return undefined;
+	return fingerprint(rawPublicKey(createPrivateKey(readFileSync(path))));
+}

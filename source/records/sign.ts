@@ -1,0 +1,47 @@
+import {sign, verify, type KeyObject} from 'node:crypto';
+import {canonicalBytes} from './canonical.js';
+import {fingerprint, publicKeyFromRaw, rawPublicKey} from './keys.js';
+import type {RecordBody, Signature} from './record-schema.js';
+
+/** Who is signing and what the signature means. */
+export type Signer = {name: string; role: string; meaning: Signature['meaning']};
+
+/**
+ * The bytes a signature covers: the RFC 8785 canonical form of the body together with the
+ * signature's own statement (who, role, meaning, when, which key), so none can be swapped.
+ */
+export function signedBytes(body: RecordBody, statement: Omit<Signature, 'value' | 'fingerprint'>): Buffer {
+	return canonicalBytes({body, signature: statement});
+}
+
+/** Signs a record body with a private key, as a person in a role, with a meaning. */
+export function signBody(body: RecordBody, signer: Signer, privateKey: KeyObject, now: Date = new Date()): Signature {
+	const raw = rawPublicKey(privateKey);
+	const statement = {signer: {name: signer.name, role: signer.role}, meaning: signer.meaning, signedAt: isoWithOffset(now), algorithm: 'Ed25519' as const, publicKey: raw.toString('base64')};
+	const value = sign(null, signedBytes(body, statement), privateKey).toString('base64');
+	return {...statement, fingerprint: fingerprint(raw), value};
+}
+
+/** Checks one signature over a body: the key matches its fingerprint and the signature verifies. */
+export function verifySignature(body: RecordBody, signature: Signature): {ok: true} | {ok: false; reason: string} {
+	const {value, fingerprint: stated, ...statement} = signature;
+	let raw: Buffer;
+	let key: KeyObject;
+	try {
+		raw = Buffer.from(signature.publicKey, 'base64');
+		key = publicKeyFromRaw(raw);
+	} catch {
+		return {ok: false, reason: 'the public key is not a valid Ed25519 key'};
+	}
+	if (fingerprint(raw) !== stated) return {ok: false, reason: 'the fingerprint does not match the public key'};
+	const valid = verify(null, signedBytes(body, statement), key, Buffer.from(value, 'base64'));
+	return valid ? {ok: true} : {ok: false, reason: 'the signature does not match the content (the record or its signature was altered)'};
+}
+
+/** An ISO 8601 timestamp with the local offset: 2026-12-01T18:49:07+01:00. */
+export function isoWithOffset(date: Date): string {
+	const pad = (value: number, width = 2) => String(Math.abs(value)).padStart(width, '0');
+	const offset = -date.getTimezoneOffset();
+	const sign = offset >= 0 ? '+' : '-';
+	return `${date.getFullYear()}-${pad(date.getMonth() + 1)}-${pad(date.getDate())}T${pad(date.getHours())}:${pad(date.getMinutes())}:${pad(date.getSeconds())}${sign}${pad(Math.floor(Math.abs(offset) / 60))}:${pad(Math.abs(offset) % 60)}`;
+}

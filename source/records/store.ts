@@ -1,0 +1,71 @@
+import {closeSync, fsyncSync, linkSync, mkdirSync, openSync, unlinkSync, writeSync} from 'node:fs';
+import {join} from 'node:path';
+import {randomBytes} from 'node:crypto';
+import type {BenchRecord} from './record-schema.js';
+import {bodySha256} from './build-body.js';
+
+/** A short, file-name-safe form of a setup name. */
+function slug(text: string | null): string {
+	const cleaned = (text ?? 'setup')
+		.normalize('NFKD')
+		.replaceAll(/[^A-Za-z0-9]+/g, '-')
+		.replaceAll(/^-+|-+$/g, '')
+		.toLowerCase()
+		.slice(0, 40)
+		.replace(/-+$/, '');
+	return cleaned || 'setup';
+}
+
+/** The file name of a record: date, time, setup and a short hash of its body. */
+export function recordFileName(record: BenchRecord): string {
+	const stamp = record.body.createdAt.slice(0, 19).replaceAll(':', '').replace('T', '-');
+	return `${stamp}-${slug(record.body.setup.name)}-${bodySha256(record.body).slice(0, 8)}.json`;
+}
+
+function fsyncFolder(folder: string): void {
+	try {
+		const handle = openSync(folder, 'r');
+		try {
+			fsyncSync(handle);
+		} finally {
+			closeSync(handle);
+		}
+	} catch {
+		// Some file systems cannot fsync a folder; the record itself is already synced.
+	}
+}
+
+/**
+ * Writes a record so that it is either wholly there or not at all, and never replaces
+ * another: a temporary file in the same folder is written and synced, then linked to the
+ * final name (which fails if the name is taken), then removed; the folder is synced.
+ * Returns the path written.
+ */
+export function writeRecord(folder: string, record: BenchRecord): string {
+	mkdirSync(folder, {recursive: true});
+	const data = `${JSON.stringify(record, null, 2)}\n`;
+	const temporary = join(folder, `.${process.pid}-${randomBytes(6).toString('hex')}.tmp`);
+	const handle = openSync(temporary, 'wx', 0o644);
+	try {
+		writeSync(handle, data);
+		fsyncSync(handle);
+	} finally {
+		closeSync(handle);
+	}
+	try {
+		const base = recordFileName(record).replace(/\.json$/, '');
+		for (let attempt = 0; attempt < 100; attempt += 1) {
+			const path = join(folder, attempt === 0 ? `${base}.json` : `${base}-${attempt + 1}.json`);
+			try {
+				linkSync(temporary, path);
+				fsyncFolder(folder);
+				return path;
+			} catch (error) {
+				if ((error as NodeJS.ErrnoException).code !== 'EEXIST') throw error;
+			}
+		}
+		throw new Error(`no free record name in ${folder} after 100 tries`);
+	} finally {
+		unlinkSync(temporary);
+	}
+}

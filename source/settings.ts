@@ -1,0 +1,49 @@
+import Conf from 'conf';
+import {dirname} from 'node:path';
+import {z} from 'zod';
+import {UsageError} from './usage-error.js';
+
+/** What prelase remembers between runs. */
+export type Settings = {
+	/** Operator's name, prefilled when signing. */
+	operator?: string;
+	/** Operator's role, prefilled when signing. */
+	role?: string;
+	/** Folder records are written to. */
+	recordsFolder?: string;
+	/** Rule file in force (site policy); the shipped policy when absent. */
+	rulesFile?: string;
+};
+
+const settingsSchema = z
+	.object({operator: z.string().optional(), role: z.string().optional(), recordsFolder: z.string().optional(), rulesFile: z.string().optional()})
+	.strip();
+
+/** The settings store and the folder it lives in (keys live beside it). */
+export type SettingsStore = {folder: string; path: string; read(): Settings; write(changes: Settings): void};
+
+/**
+ * Opens the settings (conf, owner-only file). PRELASE_HOME overrides the folder, for tests and
+ * for keeping a bench's settings on removable media; otherwise the platform's config folder.
+ */
+export function openSettings(env: NodeJS.ProcessEnv = process.env): SettingsStore {
+	const home = env['PRELASE_HOME'];
+	let store: Conf<Settings>;
+	try {
+		store = new Conf<Settings>({projectName: 'prelase', projectSuffix: '', configFileMode: 0o600, clearInvalidConfig: false, ...(home ? {cwd: home} : {})});
+	} catch (error) {
+		throw new UsageError(`the settings file cannot be read (${(error as Error).message}); fix or remove it`);
+	}
+	return {
+		folder: dirname(store.path),
+		path: store.path,
+		read() {
+			const parsed = settingsSchema.safeParse(store.store);
+			if (!parsed.success) throw new UsageError(`the settings file ${store.path} is not valid: ${parsed.error.issues[0]?.message ?? 'unknown problem'}; fix or remove it`);
+			return parsed.data as Settings;
+		},
+		write(changes) {
+			for (const [key, value] of Object.entries(changes)) if (value !== undefined) store.set(key, value);
+		},
+	};
+}
