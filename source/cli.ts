@@ -1,13 +1,14 @@
 import {runCalc} from './commands/calc.js';
 import {runCheck, type Io} from './commands/check.js';
 import {helpTexts} from './commands/help.js';
+import {runKeys} from './commands/keys.js';
 import {runRules} from './commands/rules.js';
 import {formatProblem} from './problems.js';
 import {didYouMean} from './rules/names.js';
 import {UsageError} from './usage-error.js';
 import {version} from './version.js';
 
-const commands: Record<string, (args: string[], io: Io) => number> = {check: runCheck, calc: runCalc, rules: runRules};
+const commands: Record<string, (args: string[], io: Io) => number> = {check: runCheck, calc: runCalc, rules: runRules, keys: runKeys};
 
 /** Runs the program with its arguments; returns the exit status. Never throws. */
 export function main(argv: string[], io: Io): number {

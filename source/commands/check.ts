@@ -8,6 +8,7 @@ import {loadRules, shippedRulesPath} from '../rules/load.js';
 import {UsageError} from '../usage-error.js';
 import {checkText} from './check-text.js';
 import {helpTexts} from './help.js';
+import {signAndWrite} from './sign-check.js';
 
 /** Where a command writes; tests pass their own. */
 export type Io = {stdout: NodeJS.WriteStream; stderr: NodeJS.WriteStream; env: NodeJS.ProcessEnv};
@@ -16,7 +17,21 @@ export type Io = {stdout: NodeJS.WriteStream; stderr: NodeJS.WriteStream; env: N
 export function runCheck(args: string[], io: Io): number {
 	const {values} = parseArgs({
 		args,
-		options: {answers: {type: 'string'}, rules: {type: 'string'}, json: {type: 'boolean'}, help: {type: 'boolean', short: 'h'}},
+		options: {
+			answers: {type: 'string'},
+			rules: {type: 'string'},
+			json: {type: 'boolean'},
+			sign: {type: 'string'},
+			role: {type: 'string'},
+			records: {type: 'string'},
+			amends: {type: 'string'},
+			reason: {type: 'string'},
+			cosign: {type: 'string'},
+			'cosign-role': {type: 'string'},
+			'cosign-key': {type: 'string'},
+			'cosign-meaning': {type: 'string'},
+			help: {type: 'boolean', short: 'h'},
+		},
 		allowPositionals: false,
 		strict: true,
 	});
@@ -34,8 +49,38 @@ export function runCheck(args: string[], io: Io): number {
 	if (!answers.ok) throw new UsageError('the answers file has problems', answers.errors);
 	for (const found of [...rules.warnings, ...answers.warnings]) io.stderr.write(`${formatProblem(found)}\n`);
 
+	for (const flag of ['role', 'records', 'amends', 'reason', 'cosign'] as const) {
+		if (values[flag] !== undefined && values.sign === undefined) throw new UsageError(`--${flag} goes with --sign NAME (a record is written only when someone signs)`);
+	}
+	if ((values['cosign-key'] !== undefined || values['cosign-role'] !== undefined || values['cosign-meaning'] !== undefined) && values.cosign === undefined) throw new UsageError('--cosign-key, --cosign-role and --cosign-meaning go with --cosign NAME');
+	if (values.cosign !== undefined && values['cosign-key'] === undefined) throw new UsageError('--cosign NAME needs --cosign-key FILE (the second signer\'s private key)');
+
 	const evaluation = evaluate(rules.value, answers.value);
-	if (values.json) io.stdout.write(`${JSON.stringify(evaluationToJson(rules.value, answers.value, evaluation), null, 2)}\n`);
-	else io.stdout.write(`${checkText(rules.value, answers.value, evaluation, paintFor(io.stdout, io.env), io.stdout.columns ?? 100)}\n`);
+	const written =
+		values.sign === undefined
+			? undefined
+			: signAndWrite(
+					rules.value,
+					answers.value,
+					evaluation,
+					{
+						name: values.sign,
+						...(values.role === undefined ? {} : {role: values.role}),
+						...(values.records === undefined ? {} : {records: values.records}),
+						...(values.amends === undefined ? {} : {amends: values.amends}),
+						...(values.reason === undefined ? {} : {reason: values.reason}),
+						...(values.cosign === undefined
+							? {}
+							: {cosign: {name: values.cosign, key: values['cosign-key']!, meaning: values['cosign-meaning'] ?? 'verified', ...(values['cosign-role'] === undefined ? {} : {role: values['cosign-role']})}}),
+					},
+					io.env,
+				);
+	if (values.json) {
+		const json = {...evaluationToJson(rules.value, answers.value, evaluation), ...(written ? {record: {path: written.path, fingerprint: written.fingerprint}} : {})};
+		io.stdout.write(`${JSON.stringify(json, null, 2)}\n`);
+	} else {
+		io.stdout.write(`${checkText(rules.value, answers.value, evaluation, paintFor(io.stdout, io.env), io.stdout.columns ?? 100)}\n`);
+		if (written) io.stdout.write(`\nRecord written: ${written.path}\nSigned with key ${written.fingerprint}${written.keyCreated ? ' (a new key, created now; share it with: prelase keys export)' : ''}\n`);
+	}
 	return evaluation.outcome === 'clear_to_energize' ? 0 : 1;
 }

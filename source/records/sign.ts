@@ -14,11 +14,21 @@ export function signedBytes(body: RecordBody, statement: Omit<Signature, 'value'
 	return canonicalBytes({body, signature: statement});
 }
 
+/** Ed25519 signature of bytes (the one place prelase signs anything). */
+export function signBytes(bytes: Buffer, privateKey: KeyObject): Buffer {
+	return sign(null, bytes, privateKey);
+}
+
+/** Ed25519 verification of bytes (the one place prelase verifies anything). */
+export function verifyBytes(bytes: Buffer, publicKey: KeyObject, signature: Buffer): boolean {
+	return verify(null, bytes, publicKey, signature);
+}
+
 /** Signs a record body with a private key, as a person in a role, with a meaning. */
 export function signBody(body: RecordBody, signer: Signer, privateKey: KeyObject, now: Date = new Date()): Signature {
 	const raw = rawPublicKey(privateKey);
 	const statement = {signer: {name: signer.name, role: signer.role}, meaning: signer.meaning, signedAt: isoWithOffset(now), algorithm: 'Ed25519' as const, publicKey: raw.toString('base64')};
-	const value = sign(null, signedBytes(body, statement), privateKey).toString('base64');
+	const value = signBytes(signedBytes(body, statement), privateKey).toString('base64');
 	return {...statement, fingerprint: fingerprint(raw), value};
 }
 
@@ -34,7 +44,7 @@ export function verifySignature(body: RecordBody, signature: Signature): {ok: tr
 		return {ok: false, reason: 'the public key is not a valid Ed25519 key'};
 	}
 	if (fingerprint(raw) !== stated) return {ok: false, reason: 'the fingerprint does not match the public key'};
-	const valid = verify(null, signedBytes(body, statement), key, Buffer.from(value, 'base64'));
+	const valid = verifyBytes(signedBytes(body, statement), key, Buffer.from(value, 'base64'));
 	return valid ? {ok: true} : {ok: false, reason: 'the signature does not match the content (the record or its signature was altered)'};
 }
 

@@ -1,0 +1,60 @@
+import {basename, join} from 'node:path';
+import {bodySha256, buildRecordBody} from '../records/build-body.js';
+import {keyFromFile, operatorKey} from '../records/key-store.js';
+import {fingerprint, rawPublicKey, shortFingerprint} from '../records/keys.js';
+import {readRecord} from '../records/read-record.js';
+import {signRecord} from '../records/sign-record.js';
+import type {Signer} from '../records/sign.js';
+import {writeRecord} from '../records/store.js';
+import type {Answers} from '../rules/answers.js';
+import type {CompiledRules} from '../rules/compiled-rules.js';
+import type {Evaluation} from '../rules/evaluation.js';
+import {openSettings} from '../settings.js';
+import {stripControl} from '../text.js';
+import {UsageError} from '../usage-error.js';
+
+/** What `check --sign` was asked to do. */
+export type SignOptions = {
+	name: string;
+	role?: string;
+	records?: string;
+	amends?: string;
+	reason?: string;
+	cosign?: {name: string; role?: string; key: string; meaning: string};
+};
+
+/** Where a record was written and with which key. */
+export type WrittenRecord = {path: string; fingerprint: string; keyCreated: boolean; folder: string};
+
+const meanings = new Set(['verified', 'approved']);
+
+/** Builds, signs and writes the record of a bench check (in every outcome). */
+export function signAndWrite(rules: CompiledRules, answers: Answers, evaluation: Evaluation, options: SignOptions, env: NodeJS.ProcessEnv): WrittenRecord {
+	const name = stripControl(options.name).trim();
+	if (!name) throw new UsageError('--sign needs the name of the person signing');
+	const settings = openSettings(env);
+	const saved = settings.read();
+	const folder = options.records ?? saved.recordsFolder ?? join(settings.folder, 'records');
+	let amends;
+	if (options.amends !== undefined) {
+		if (!options.reason?.trim()) throw new UsageError('--amends needs --reason saying what the correction is and why');
+		const original = readRecord(options.amends);
+		if (!original.ok) throw new UsageError(`the record to amend, ${options.amends}, fails its integrity check: ${original.reason}`);
+		amends = {record: basename(options.amends), bodySha256: bodySha256(original.record.body), reason: stripControl(options.reason).trim()};
+	} else if (options.reason !== undefined) {
+		throw new UsageError('--reason goes with --amends RECORD');
+	}
+	const {privateKey, created} = operatorKey(settings.folder, true);
+	const signers: Array<{signer: Signer; key: typeof privateKey}> = [{signer: {name, role: stripControl(options.role ?? saved.role ?? '').trim(), meaning: 'performed'}, key: privateKey}];
+	if (options.cosign) {
+		if (!meanings.has(options.cosign.meaning)) throw new UsageError(`--cosign-meaning must be verified or approved, not "${options.cosign.meaning}"`);
+		signers.push({
+			signer: {name: stripControl(options.cosign.name).trim(), role: stripControl(options.cosign.role ?? '').trim(), meaning: options.cosign.meaning as Signer['meaning']},
+			key: keyFromFile(options.cosign.key),
+		});
+	}
+	const body = buildRecordBody({rules, answers, evaluation, operator: {name, role: signers[0]!.signer.role}, ...(amends ? {amends} : {})});
+	const record = signRecord(body, signers);
+	const path = writeRecord(folder, record);
+	return {path, fingerprint: shortFingerprint(fingerprint(rawPublicKey(privateKey))), keyCreated: created, folder};
+}
