@@ -1,21 +1,26 @@
+import {runAudit} from './commands/audit.js';
 import {runCalc} from './commands/calc.js';
 import {runCheck, type Io} from './commands/check.js';
 import {helpTexts} from './commands/help.js';
 import {runKeys} from './commands/keys.js';
+import {runReport} from './commands/report.js';
 import {runRules} from './commands/rules.js';
 import {formatProblem} from './problems.js';
+import {isInteractive, startScreens} from './screens.js';
 import {didYouMean} from './rules/names.js';
 import {UsageError} from './usage-error.js';
 import {version} from './version.js';
 
-const commands: Record<string, (args: string[], io: Io) => number> = {check: runCheck, calc: runCalc, rules: runRules, keys: runKeys};
+const commands: Record<string, (args: string[], io: Io) => number | Promise<number>> = {check: runCheck, calc: runCalc, rules: runRules, keys: runKeys, report: runReport, audit: runAudit};
 
 /** Runs the program with its arguments; returns the exit status. Never throws. */
-export function main(argv: string[], io: Io): number {
+export function main(argv: string[], io: Io): number | Promise<number> {
 	try {
 		const [first, ...rest] = argv;
+		if (first === undefined && isInteractive(io)) return startScreens(io, {});
 		if (first === undefined || first === '--help' || first === '-h' || first === 'help') {
 			io.stdout.write(`${helpTexts.main}\n`);
+			if (first === undefined) io.stderr.write('prelase: the home screen needs a terminal; for scripts use prelase check --answers FILE\n');
 			return first === undefined ? 2 : 0;
 		}
 		if (first === '--version' || first === '-v') {
@@ -26,7 +31,8 @@ export function main(argv: string[], io: Io): number {
 		const command = Object.hasOwn(commands, first) ? commands[first] : undefined;
 		if (!command) throw new UsageError(`unknown command "${first}"${didYouMean(first, Object.keys(commands))}; commands are ${Object.keys(commands).join(', ')} (prelase --help)`);
 		try {
-			return command(rest, io);
+			const result = command(rest, io);
+			return typeof result === 'number' ? result : result.catch((error: unknown) => report(error, io));
 		} catch (error) {
 			if (isArgumentError(error)) throw new UsageError(argumentMessage(error, first));
 			throw error;

@@ -10,4 +10,4 @@ process.stdout.on('error', (error: NodeJS.ErrnoException) => {
 	throw error;
 });
 
-process.exitCode = main(process.argv.slice(2), {stdout: process.stdout, stderr: process.stderr, env: process.env});
+process.exitCode = await main(process.argv.slice(2), {stdout: process.stdout, stderr: process.stderr, env: process.env, stdin: process.stdin});

@@ -9,12 +9,13 @@ import {UsageError} from '../usage-error.js';
 import {checkText} from './check-text.js';
 import {helpTexts} from './help.js';
 import {signAndWrite} from './sign-check.js';
+import {isInteractive, startScreens} from '../screens.js';
 
 /** Where a command writes; tests pass their own. */
-export type Io = {stdout: NodeJS.WriteStream; stderr: NodeJS.WriteStream; env: NodeJS.ProcessEnv};
+export type Io = {stdout: NodeJS.WriteStream; stderr: NodeJS.WriteStream; env: NodeJS.ProcessEnv; stdin?: {isTTY?: boolean}};
 
 /** `prelase check --answers FILE [--rules FILE] [--json]`: returns the exit status. */
-export function runCheck(args: string[], io: Io): number {
+export function runCheck(args: string[], io: Io): number | Promise<number> {
 	const {values} = parseArgs({
 		args,
 		options: {
@@ -30,6 +31,7 @@ export function runCheck(args: string[], io: Io): number {
 			'cosign-role': {type: 'string'},
 			'cosign-key': {type: 'string'},
 			'cosign-meaning': {type: 'string'},
+			setup: {type: 'string'},
 			help: {type: 'boolean', short: 'h'},
 		},
 		allowPositionals: false,
@@ -40,9 +42,10 @@ export function runCheck(args: string[], io: Io): number {
 		return 0;
 	}
 	if (!values.answers) {
-		const where = io.stdout.isTTY && process.stdin.isTTY ? 'The on-screen bench check is not in this version.' : 'stdin is not a terminal, so prelase does not prompt.';
-		throw new UsageError(`${where} Give the setup as a file: prelase check --answers FILE (see docs/examples/).`);
+		if (isInteractive(io)) return startScreens(io, {...(values.rules ? {rules: values.rules} : {}), startCheck: values.setup ? {setup: values.setup} : {}});
+		throw new UsageError('the on-screen check needs a terminal (stdin and stdout), so prelase does not prompt here. Give the setup as a file: prelase check --answers FILE (see docs/examples/).');
 	}
+	if (values.setup !== undefined) throw new UsageError('--setup NAME is for the on-screen check; with --answers FILE the file names the setup');
 	const rules = loadRules(values.rules ?? shippedRulesPath());
 	if (!rules.ok) throw new UsageError('the rule file has problems', rules.errors);
 	const answers = loadAnswers(values.answers, rules.value);

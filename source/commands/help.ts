@@ -8,6 +8,8 @@ Usage:
   prelase rules schema
   prelase rules validate FILE...
   prelase keys [export | trust FILE --name NAME | list | forget NAME]
+  prelase report RECORD [--format md|html] [--out FILE]
+  prelase audit PATH... [--rules FILE] [--json]
   prelase --help | --version
 
 Commands:
@@ -15,6 +17,9 @@ Commands:
   calc     Run one bench calculation (dissipation, headroom, wire, ...) on values with units
   rules    Print the rule file JSON Schema, or validate rule files
   keys     Your signing key, and the colleagues' keys you trust
+  report   A printable page (Markdown or HTML) of a signed record
+  audit    Check signed records: authentic, consistent with their numbers, and what the
+           current rules would change
 
 Every command takes --help. NO_COLOR turns colour off.
 The shipped bench policy is rules/default.yaml; --rules FILE uses a site policy instead.
@@ -54,6 +59,40 @@ Exit status:
   2  bad usage or bad input (the message names the file, line and field)
 
 The on-screen check is not in this version; use --answers FILE.`,
+	audit: `prelase audit — check signed records
+
+Usage:
+  prelase audit PATH... [--rules FILE] [--json]
+
+PATH is a record file or a folder of records (searched recursively; dotfiles and *.tmp are
+left out). For each record the audit checks:
+  integrity      it parses and every signature verifies over its body; who signed, in what
+                 role and meaning, and whether each key is yours or one you trust
+                 (prelase keys trust); an untrusted key is a finding
+  consistency    its inputs, re-evaluated under the rule file embedded in it, give every
+                 recorded value, verdict and the outcome (a difference is a finding: the
+                 record's conclusions do not follow from its numbers)
+  current rules  what would change under the site's current rules: verdicts, the outcome,
+                 inputs and confirmations the record lacks (a changed verdict is a finding)
+  history        amendments and the records they correct, a later record for the same
+                 setup fingerprint, a setup whose fingerprint changed since its last record
+Record age and interlock test dates are reported as not checked: rule files set no
+validity period or test interval yet.
+
+Options:
+  --rules FILE   The current rules (default: the rulesFile setting, else the shipped
+                 rules/default.yaml)
+  --json         Print everything the audit found as JSON
+  -h, --help     Show this help
+
+Exit status:
+  0  every record is authentic and consistent, with no findings
+  1  every record is authentic, with findings
+  2  bad usage (no PATH, a PATH that does not exist, a current rule file with problems)
+  3  integrity failure in a record (altered, unsigned or unreadable)
+
+The audit says whether a record is authentic and whether its conclusions follow from its
+numbers; it never says a setup is safe. The laser safety officer has the final word.`,
 	keys: `prelase keys — signing keys
 
 Usage:
@@ -87,4 +126,26 @@ Usage:
   prelase rules validate FILE...    Load, lint and report every problem with file:line:column
 
 Exit status for validate: 0 no problems, 1 problems found, 2 bad usage.`,
+	report: `prelase report — a printable page of a record
+
+Usage:
+  prelase report RECORD [--format md|html] [--out FILE]
+
+Checks the record's integrity, then prints it: the outcome, the caution and the deferral,
+failures first in a summary, the setup and its fingerprint, operator and time, the rule
+file's name and SHA-256, every input, every check by step with verdict, value, limit and
+margin, confirmations with notes, and each signature with whether it verifies and whether
+its key is yours or one you trust (prelase keys).
+
+Options:
+  --format md|html  Markdown (default), or one self-contained HTML file that prints on A4
+                    and Letter (default html when --out ends in .html)
+  --out FILE        Write the page to FILE instead of printing it; an existing FILE is
+                    never overwritten
+  -h, --help        Show this help
+
+Exit status:
+  0  the report was printed or written
+  2  bad usage (no RECORD, unknown format, FILE exists)
+  3  the record fails its integrity check (altered, unsigned, unreadable); nothing is printed`,
 } as const;

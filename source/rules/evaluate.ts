@@ -46,9 +46,11 @@ export function evaluate(rules: CompiledRules, answers: Answers): Evaluation {
 	}
 	for (const id of rules.inputs.keys()) if (!answers.inputs.has(id)) missing.set(id, [id]);
 	const missingInputs: string[] = [];
+	const askedInputs: string[] = [];
 	for (const [id, compiled] of rules.inputs) {
 		const condition = compiled.when ? compute(compiled.when) : {ok: true as const, value: true};
 		if (condition.ok && condition.value === true) {
+			askedInputs.push(id);
 			if (!answers.inputs.has(id) && !compiled.input.optional) missingInputs.push(id);
 			continue;
 		}
@@ -95,7 +97,7 @@ export function evaluate(rules: CompiledRules, answers: Answers): Evaluation {
 			return {...base, status: answer.answer, ...(answer.note ? {note: answer.note} : {})};
 		}),
 	);
-	return {outcome: decideOutcome(checks, confirmations, missingInputs), checks, confirmations, derived, missingInputs};
+	return {outcome: decideOutcome(checks, confirmations, missingInputs), checks, confirmations, derived, missingInputs, askedInputs};
 }
 
 /**

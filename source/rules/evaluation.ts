@@ -55,4 +55,6 @@ export type Evaluation = {
 	derived: DerivedResult[];
 	/** Inputs that are asked (their condition holds) but not answered. */
 	missingInputs: string[];
+	/** Every input that is asked: no condition, or its condition holds. */
+	askedInputs: string[];
 };

@@ -1,0 +1,66 @@
+import {closeSync, existsSync, fsyncSync, mkdirSync, openSync, readFileSync, renameSync, rmSync, writeSync} from 'node:fs';
+import {join} from 'node:path';
+import {z} from 'zod';
+
+/** A check in progress: enough to resume it exactly where it was left. */
+export type Draft = {
+	rulesFile: string;
+	rulesSha256: string;
+	setup: string;
+	entries: Record<string, string>;
+	confirmations: Record<string, {answer: 'yes' | 'no' | 'not_applicable'; note?: string}>;
+	step: number;
+	savedAt: string;
+};
+
+const draftSchema = z
+	.object({
+		rulesFile: z.string(),
+		rulesSha256: z.string(),
+		setup: z.string(),
+		entries: z.record(z.string(), z.string()),
+		confirmations: z.record(z.string(), z.object({answer: z.enum(['yes', 'no', 'not_applicable']), note: z.string().optional()}).strict()),
+		step: z.number().int().min(0),
+		savedAt: z.string(),
+	})
+	.strict();
+
+/** Where the draft lives: one per settings folder. */
+export function draftPath(settingsFolder: string): string {
+	return join(settingsFolder, 'drafts', 'current.json');
+}
+
+/**
+ * Saves the draft so that a crash, a closed terminal or kill -9 loses at most the field being
+ * edited: write and sync a temporary file, then rename it over the draft.
+ */
+export function saveDraft(settingsFolder: string, draft: Draft): void {
+	const path = draftPath(settingsFolder);
+	mkdirSync(join(settingsFolder, 'drafts'), {recursive: true, mode: 0o700});
+	const temporary = `${path}.${process.pid}.tmp`;
+	const handle = openSync(temporary, 'w', 0o600);
+	try {
+		writeSync(handle, JSON.stringify(draft));
+		fsyncSync(handle);
+	} finally {
+		closeSync(handle);
+	}
+	renameSync(temporary, path);
+}
+
+/** The saved draft, or undefined when there is none or it cannot be read. */
+export function loadDraft(settingsFolder: string): Draft | undefined {
+	const path = draftPath(settingsFolder);
+	if (!existsSync(path)) return undefined;
+	try {
+		const parsed = draftSchema.safeParse(JSON.parse(readFileSync(path, 'utf8')));
+		return parsed.success ? (parsed.data as Draft) : undefined;
+	} catch {
+		return undefined;
+	}
+}
+
+/** Removes the draft once its check is finished. */
+export function removeDraft(settingsFolder: string): void {
+	rmSync(draftPath(settingsFolder), {force: true});
+}

@@ -1,0 +1,47 @@
+import {lstatSync, readdirSync, realpathSync, statSync} from 'node:fs';
+import {join, resolve} from 'node:path';
+
+/** Record files found under the paths given, and the paths that do not exist. */
+export type RecordFiles = {files: string[]; missing: string[]};
+
+function skipped(name: string): boolean {
+	return name.startsWith('.') || name.endsWith('.tmp');
+}
+
+/**
+ * Expands record files and folders into the files to audit: folders recursively, in name
+ * order, leaving out dotfiles, dot-folders and `*.tmp` (a write in progress). A file named
+ * on its own is always audited. Each file is listed once, however it was reached.
+ */
+export function listRecordFiles(paths: readonly string[]): RecordFiles {
+	const files: string[] = [];
+	const missing: string[] = [];
+	const seenFiles = new Set<string>();
+	const seenFolders = new Set<string>();
+	const add = (path: string) => {
+		const key = resolve(path);
+		if (seenFiles.has(key)) return;
+		seenFiles.add(key);
+		files.push(path);
+	};
+	const walk = (folder: string) => {
+		const real = realpathSync(folder);
+		if (seenFolders.has(real)) return;
+		seenFolders.add(real);
+		const names = readdirSync(folder).filter((name) => !skipped(name)).sort();
+		for (const name of names) {
+			const path = join(folder, name);
+			const stat = statSync(path, {throwIfNoEntry: false});
+			if (stat?.isDirectory()) walk(path);
+			// A dangling link is audited too, so that it is reported as unreadable rather than passed over.
+			else if (stat || lstatSync(path, {throwIfNoEntry: false})) add(path);
+		}
+	};
+	for (const path of paths) {
+		const stat = statSync(path, {throwIfNoEntry: false});
+		if (!stat) missing.push(path);
+		else if (stat.isDirectory()) walk(path);
+		else add(path);
+	}
+	return {files, missing};
+}

@@ -1,0 +1,102 @@
+import {createHash, type KeyObject} from 'node:crypto';
+import {readFileSync} from 'node:fs';
+import canonicalize from 'canonicalize';
+import {finding, type Finding} from './audit-findings.js';
+import {fingerprint, publicKeyFromRaw} from './keys.js';
+import {recordSchema, type BenchRecord, type Signature} from './record-schema.js';
+import {verifyBytes} from './sign.js';
+
+/** Whether one signature verified, and if not, why (a message code). */
+export type SignatureCheck = {index: number; valid: boolean; code?: Finding['code']};
+
+/** A record that passed integrity checking, with the SHA-256 of its canonical body; or why it did not. */
+export type IntegrityCheck =
+	| {ok: true; record: BenchRecord; bodySha256: string; signatures: SignatureCheck[]}
+	| {ok: false; finding: Finding; record?: BenchRecord; signatures?: SignatureCheck[]};
+
+/**
+ * Public keys parsed once each, by their base64 text: a folder of records is signed by a
+ * few keys, and parsing a key for every verification costs a third of the throughput.
+ */
+export class KeyCache {
+	readonly #keys = new Map<string, {key: KeyObject; fingerprint: string} | null>();
+
+	/** The key object and the fingerprint of a base64 raw public key; undefined when it is not a valid key. */
+	get(base64: string): {key: KeyObject; fingerprint: string} | undefined {
+		let entry = this.#keys.get(base64);
+		if (entry === undefined) {
+			try {
+				const raw = Buffer.from(base64, 'base64');
+				entry = {key: publicKeyFromRaw(raw), fingerprint: fingerprint(raw)};
+			} catch {
+				entry = null;
+			}
+			this.#keys.set(base64, entry);
+		}
+		return entry ?? undefined;
+	}
+}
+
+/** Reads a record file and checks its integrity (see checkIntegrity). */
+export function readIntegrity(path: string, keys: KeyCache): IntegrityCheck {
+	let text: string;
+	try {
+		text = readFileSync(path, 'utf8');
+	} catch (error) {
+		return {ok: false, finding: finding('integrity', 'audit-unreadable', {reason: (error as NodeJS.ErrnoException).code ?? (error as Error).message})};
+	}
+	return checkIntegrity(text, keys);
+}
+
+/**
+ * Checks a record's text: it parses as JSON, has the record shape, and every signature
+ * verifies with the key it names over the canonical form of the body and its statement.
+ *
+ * The same bytes as signedBytes() in sign.ts, built so that the body is put in canonical
+ * form once for every signature and for its SHA-256: RFC 8785 sorts the keys "body" before
+ * "signature", so `{"body":B,"signature":S}` is the canonical form of {body, signature}.
+ * Data from JSON.parse is plain by construction, so canonicalize needs no plainness check.
+ */
+export function checkIntegrity(text: string, keys: KeyCache): IntegrityCheck {
+	let data: unknown;
+	try {
+		data = JSON.parse(text);
+	} catch (error) {
+		return {ok: false, finding: finding('integrity', 'audit-not-json', {detail: (error as Error).message})};
+	}
+	const parsed = recordSchema.safeParse(data);
+	if (!parsed.success) {
+		const issue = parsed.error.issues[0];
+		const field = issue?.path.map(String).join('.') || 'top level';
+		if (field === 'signatures') return {ok: false, finding: finding('integrity', 'audit-unsigned')};
+		return {ok: false, finding: finding('integrity', 'audit-not-record', {field, detail: issue?.message ?? 'invalid'})};
+	}
+	const record = parsed.data;
+	let body: string;
+	try {
+		body = canonicalize(record.body) ?? '';
+	} catch (error) {
+		return {ok: false, record, finding: finding('integrity', 'audit-not-record', {field: 'body', detail: `it has no canonical form (${(error as Error).message})`})};
+	}
+	const signatures = record.signatures.map((signature, index) => ({index, ...verifyOne(body, signature, keys)}));
+	const bad = signatures.find((entry) => !entry.valid);
+	if (bad) {
+		const signer = record.signatures[bad.index]!.signer.name;
+		return {ok: false, record, signatures, finding: finding('integrity', bad.code!, {index: bad.index + 1, signer})};
+	}
+	return {ok: true, record, signatures, bodySha256: createHash('sha256').update(body).digest('hex')};
+}
+
+function verifyOne(body: string, signature: Signature, keys: KeyCache): {valid: boolean; code?: Finding['code']} {
+	const {value, fingerprint: stated, ...statement} = signature;
+	const key = keys.get(signature.publicKey);
+	if (!key) return {valid: false, code: 'audit-bad-key'};
+	if (key.fingerprint !== stated) return {valid: false, code: 'audit-fingerprint-mismatch'};
+	let bytes: Buffer;
+	try {
+		bytes = Buffer.from(`{"body":${body},"signature":${canonicalize(statement)}}`, 'utf8');
+	} catch {
+		return {valid: false, code: 'audit-signature-invalid'};
+	}
+	return verifyBytes(bytes, key.key, Buffer.from(value, 'base64')) ? {valid: true} : {valid: false, code: 'audit-signature-invalid'};
+}

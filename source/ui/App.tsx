@@ -1,0 +1,196 @@
+import {Box, Text, useApp, useInput, useStdout} from 'ink';
+import {useEffect, useRef, useState} from 'react';
+import {signAndWrite} from '../commands/sign-check.js';
+import {loadDraft, removeDraft, saveDraft, type Draft} from '../drafts/draft-store.js';
+import {listSetups, loadSetup, saveSetup} from '../drafts/setup-store.js';
+import {displayPath} from '../display-path.js';
+import type {CompiledRules} from '../rules/compiled-rules.js';
+import type {SettingsStore} from '../settings.js';
+import {stripControl} from '../text.js';
+import {DoneScreen} from './DoneScreen.js';
+import {HelpOverlay} from './HelpOverlay.js';
+import {HomeScreen, type HomeChoice} from './HomeScreen.js';
+import {InfoScreen} from './InfoScreen.js';
+import {nameSetup, startSession, type Session} from './session.js';
+import {SettingsScreen} from './SettingsScreen.js';
+import {SignOffScreen, type SignOffForm} from './SignOffScreen.js';
+import {StepScreen} from './StepScreen.js';
+import {SummaryScreen} from './SummaryScreen.js';
+
+type Screen = 'home' | 'step' | 'summary' | 'signoff' | 'done' | 'settings' | 'info';
+
+/** Props of the whole interface. */
+export type AppProps = {
+	rules: CompiledRules;
+	settings: SettingsStore;
+	env: NodeJS.ProcessEnv;
+	/** Start straight in the bench check (`prelase check`), optionally from a saved setup. */
+	startCheck?: {setup?: string};
+	/** Audits the records folder and returns lines to show (kept outside so the core stays out of the screens). */
+	audit?: (folder: string) => string[];
+	onExit(code: number): void;
+};
+
+/** The bench-check interface: home, steps, summary, sign-off, and the pages around them. */
+export function App({rules, settings, env, startCheck, audit, onExit}: AppProps) {
+	const {exit} = useApp();
+	const {stdout} = useStdout();
+	const rows = stdout.rows ?? 24;
+	const width = stdout.columns ?? 80;
+	const [screen, setScreen] = useState<Screen>(startCheck ? 'step' : 'home');
+	const [stepIndex, setStepIndex] = useState(0);
+	const [session, setSessionState] = useState<Session>(() => {
+		const saved = startCheck?.setup ? loadSetup(settings.folder, startCheck.setup) : undefined;
+		return startSession(rules, {setup: startCheck?.setup ?? '', ...(saved ? {entries: saved.entries} : {})});
+	});
+	// The latest session for key handlers, which may run several times before the next frame.
+	const sessionRef = useRef(session);
+	const setSession = (next: Session) => {
+		sessionRef.current = next;
+		setSessionState(next);
+	};
+	const [help, setHelp] = useState(false);
+	const [info, setInfo] = useState<{title: string; lines: string[]}>({title: '', lines: []});
+	const [signError, setSignError] = useState<string | undefined>();
+	const [written, setWritten] = useState<{path: string; fingerprint: string} | undefined>();
+	const [draft, setDraft] = useState<Draft | undefined>(() => loadDraft(settings.folder));
+
+	const quit = (code: number) => {
+		onExit(code);
+		exit();
+	};
+	useInput((input, key) => {
+		if (key.ctrl && input === 'c') quit(130);
+	});
+
+	// Never lose an answer: the draft is saved after every change while a check is open.
+	useEffect(() => {
+		if (screen !== 'step' && screen !== 'summary' && screen !== 'signoff') return;
+		const confirmations = Object.fromEntries(Object.entries(session.confirmations).map(([id, answer]) => [id, answer.note ? {answer: answer.answer, note: answer.note} : {answer: answer.answer}]));
+		saveDraft(settings.folder, {rulesFile: rules.file, rulesSha256: rules.sha256, setup: session.setup, entries: {...session.entries}, confirmations, step: stepIndex, savedAt: new Date().toISOString()});
+	}, [session, stepIndex, screen]);
+
+	const choose = (choice: HomeChoice) => {
+		switch (choice.action) {
+			case 'start':
+				setSession(startSession(rules));
+				setStepIndex(0);
+				return setScreen('step');
+			case 'resume':
+				if (draft) {
+					setSession(startSession(rules, {setup: draft.setup, entries: draft.entries, confirmations: draft.confirmations}));
+					setStepIndex(Math.min(draft.step, rules.rules.steps.length - 1));
+				}
+				return setScreen('step');
+			case 'setup': {
+				const saved = loadSetup(settings.folder, choice.name);
+				setSession(startSession(rules, {setup: choice.name, ...(saved ? {entries: saved.entries} : {})}));
+				setStepIndex(0);
+				return setScreen('step');
+			}
+			case 'rules':
+				setInfo({
+					title: 'Rules in force',
+					lines: [rules.rules.name, displayPath(rules.file), `SHA-256 ${rules.sha256}`, `${rules.rules.steps.length} steps, ${rules.inputs.size} inputs, ${rules.confirmations.size} confirmations, ${rules.checks.length} checks`, '', rules.rules.caution],
+				});
+				return setScreen('info');
+			case 'audit': {
+				const folder = settings.read().recordsFolder ?? `${settings.folder}/records`;
+				setInfo({title: `Audit of ${folder}`, lines: audit ? audit(folder) : [`Run: prelase audit ${folder}`]});
+				return setScreen('info');
+			}
+			case 'settings':
+				return setScreen('settings');
+			case 'quit':
+				return quit(0);
+		}
+	};
+
+	const sign = (form: SignOffForm) => {
+		try {
+			const named = nameSetup(session, form.setup);
+			setSession(named);
+			const result = signAndWrite(
+				rules,
+				named.answers,
+				named.evaluation,
+				{
+					name: form.name,
+					role: form.role,
+					...(form.cosignName.trim() ? {cosign: {name: form.cosignName, role: form.cosignRole, key: form.cosignKey.trim(), meaning: 'verified'}} : {}),
+				},
+				env,
+			);
+			settings.write({operator: form.name.trim(), role: form.role.trim()});
+			removeDraft(settings.folder);
+			setDraft(undefined);
+			setWritten({path: result.path, fingerprint: result.fingerprint});
+			setSignError(undefined);
+			setScreen('done');
+		} catch (error) {
+			setSignError((error as Error).message);
+		}
+	};
+
+	const header = (
+		<Box borderStyle="single" borderLeft={false} borderRight={false} borderTop={false} justifyContent="space-between">
+			<Text bold>prelase · bench check</Text>
+			<Text dimColor>{stripControl(session.setup || rules.rules.name)}</Text>
+		</Box>
+	);
+	const footer: Record<Screen, string> = {
+		home: '↑ ↓ choose · Enter open · Ctrl-C quit',
+		step: 'Enter accept · ↑ ↓ field · PgDn PgUp step · Esc back · ? help',
+		summary: 'Enter sign-off · ↑ ↓ scroll · Esc back · ? help',
+		signoff: 'Enter next · ↑ ↓ field · Esc back',
+		done: 's save setup · Enter home',
+		settings: 'Enter save · Esc back',
+		info: 'Enter or Esc back',
+	};
+
+	let body;
+	if (help) body = <HelpOverlay screen={screen} onClose={() => setHelp(false)} />;
+	else if (screen === 'home') body = <HomeScreen rulesName={rules.rules.name} caution={rules.rules.caution} {...(draft ? {draft: {setup: draft.setup, savedAt: draft.savedAt}} : {})} setups={listSetups(settings.folder)} onChoose={choose} />;
+	else if (screen === 'step')
+		body = (
+			<StepScreen
+				key={stepIndex}
+				session={session}
+				getSession={() => sessionRef.current}
+				stepIndex={stepIndex}
+				rows={rows - 3}
+				width={width}
+				onSession={setSession}
+				onStep={(index) => (index >= rules.rules.steps.length ? setScreen('summary') : setStepIndex(Math.max(0, index)))}
+				onBack={() => (stepIndex > 0 ? setStepIndex(stepIndex - 1) : setScreen('home'))}
+				onHelp={() => setHelp(true)}
+			/>
+		);
+	else if (screen === 'summary') body = <SummaryScreen session={session} rows={rows - 3} onSign={() => setScreen('signoff')} onBack={() => setScreen('step')} onHelp={() => setHelp(true)} />;
+	else if (screen === 'signoff') {
+		const saved = settings.read();
+		body = <SignOffScreen session={session} initial={{setup: session.setup, name: saved.operator ?? '', role: saved.role ?? '', cosignName: '', cosignRole: '', cosignKey: ''}} {...(signError ? {error: signError} : {})} onSign={sign} onBack={() => setScreen('summary')} />;
+	} else if (screen === 'done' && written)
+		body = (
+			<DoneScreen
+				path={written.path}
+				fingerprint={written.fingerprint}
+				outcome={session.evaluation.outcome}
+				setup={session.setup}
+				onSaveSetup={() => saveSetup(settings.folder, {name: session.setup || 'unnamed setup', entries: {...session.entries}, savedAt: new Date().toISOString()})}
+				onHome={() => setScreen('home')}
+			/>
+		);
+	else if (screen === 'settings') body = <SettingsScreen initial={settings.read()} path={settings.path} onSave={(changes) => settings.write(changes)} onBack={() => setScreen('home')} />;
+	else body = <InfoScreen title={info.title} lines={info.lines} onBack={() => setScreen('home')} />;
+
+	return (
+		<Box flexDirection="column" width={width}>
+			{header}
+			{body}
+			<Text dimColor wrap="truncate">
+				{footer[screen]}
+			</Text>
+		</Box>
+	);
+}

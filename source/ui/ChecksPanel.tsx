@@ -1,0 +1,34 @@
+import {Box, Text} from 'ink';
+import {checkFigures} from '../commands/check-text.js';
+import type {CheckResult} from '../rules/evaluation.js';
+import {stripControl} from '../text.js';
+import {verdictStyle} from './verdict-style.js';
+
+/** The checks of the current step, as the core evaluated them: verdict, figures, what is missing. */
+export function ChecksPanel({checks, rows}: {checks: CheckResult[]; rows: number}) {
+	if (checks.length === 0) return <Text dimColor>No checks in this step; its confirmations are listed above.</Text>;
+	const shown = checks.slice(0, Math.max(1, Math.floor(rows / 2)));
+	return (
+		<Box flexDirection="column">
+			{shown.map((check) => {
+				const style = verdictStyle[check.verdict];
+				const detail = checkFigures(check) ?? (check.needs?.length ? `needs ${check.needs.join(', ')}` : check.error ?? '');
+				return (
+					<Box key={check.id} flexDirection="column">
+						<Text wrap="truncate">
+							<Text color={style.color}>{style.label.padEnd(10)}</Text>
+							{stripControl(check.title)}
+						</Text>
+						{detail ? (
+							<Text dimColor wrap="truncate">
+								{'          '}
+								{stripControl(detail)}
+							</Text>
+						) : null}
+					</Box>
+				);
+			})}
+			{checks.length > shown.length ? <Text dimColor>          … {checks.length - shown.length} more in the summary</Text> : null}
+		</Box>
+	);
+}

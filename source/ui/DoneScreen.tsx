@@ -1,0 +1,36 @@
+import {Box, Text, useInput} from 'ink';
+import {useState} from 'react';
+import {deferral} from '../deferral.js';
+import {stripControl} from '../text.js';
+import {outcomeStyle} from './verdict-style.js';
+
+/** After signing: where the record is, and saving the inputs as a named setup. */
+export function DoneScreen(props: {path: string; fingerprint: string; outcome: keyof typeof outcomeStyle; setup: string; onSaveSetup(): string; onHome(): void}) {
+	const [saved, setSaved] = useState<string | undefined>();
+	useInput((input, key) => {
+		if (input === 's' && !saved) setSaved(props.onSaveSetup());
+		else if (key.return || key.escape) props.onHome();
+	});
+	const outcome = outcomeStyle[props.outcome];
+	return (
+		<Box flexDirection="column">
+			<Text bold color="green">
+				✓ Signed record written
+			</Text>
+			<Text wrap="wrap">{props.path}</Text>
+			<Text>Key {props.fingerprint}</Text>
+			<Text>
+				Outcome: <Text color={outcome.color}>{outcome.label}</Text>
+			</Text>
+			<Box marginTop={1} flexDirection="column">
+				{saved ? <Text color="green">✓ Setup saved: {saved}</Text> : <Text>s: save these inputs as the setup “{stripControl(props.setup || 'unnamed')}” for the next check</Text>}
+				<Text>Enter: home</Text>
+			</Box>
+			<Box marginTop={1}>
+				<Text dimColor wrap="wrap">
+					{deferral}
+				</Text>
+			</Box>
+		</Box>
+	);
+}

@@ -1,0 +1,110 @@
+import {Box, Text} from 'ink';
+import type {Session, Field} from './session.js';
+import {fieldHint} from './field-hint.js';
+import {confirmationStyle} from './verdict-style.js';
+import {stripControl} from '../text.js';
+
+/** Props of the list of a step's fields. */
+export type FieldListProps = {
+	session: Session;
+	fields: Field[];
+	focus: number;
+	/** Text being typed in the focused field. */
+	buffer: string;
+	/** The option highlighted in a focused choice. */
+	choice: number;
+	/** Why the last entry was refused, shown under the focused field. */
+	message?: string;
+	/** True while a note for a confirmation is being typed. */
+	noteMode: boolean;
+	/** How many rows the list may use. */
+	rows: number;
+	width: number;
+};
+
+function currentValue(session: Session, field: Field): string {
+	if (field.kind === 'confirmation') {
+		const status = session.evaluation.confirmations.find(({id}) => id === field.id)?.status ?? 'unanswered';
+		const note = session.confirmations[field.id]?.note;
+		return `${confirmationStyle[status].label}${note ? ` (${stripControl(note)})` : ''}`;
+	}
+	const entry = session.entries[field.id];
+	if (entry === undefined) return '—';
+	if (field.input.kind === 'choice') return stripControl(field.input.options[entry] ?? entry);
+	return stripControl(entry);
+}
+
+function truncate(text: string, width: number): string {
+	return text.length <= width ? text : `${text.slice(0, Math.max(1, width - 1))}…`;
+}
+
+/** The fields of one step: the focused one open for editing, the others one line each. */
+export function FieldList({session, fields, focus, buffer, choice, message, noteMode, rows, width}: FieldListProps) {
+	const focusedHeight = 4;
+	const room = Math.max(1, rows - focusedHeight);
+	const start = Math.max(0, Math.min(focus - Math.floor(room / 2), fields.length - room - 1));
+	const visible = fields.slice(start, start + room + 1);
+	const valueWidth = Math.max(12, Math.floor(width * 0.35));
+	const labelWidth = Math.max(10, width - valueWidth - 4);
+	return (
+		<Box flexDirection="column">
+			{start > 0 ? <Text dimColor>  ↑ {start} more</Text> : null}
+			{visible.map((field, offset) => {
+				const index = start + offset;
+				const label = field.kind === 'input' ? field.input.label : field.confirmation.statement;
+				if (index !== focus) {
+					return (
+						<Text key={field.id} wrap="truncate">
+							{'  '}
+							{truncate(stripControl(label), labelWidth).padEnd(labelWidth)} {currentValue(session, field)}
+						</Text>
+					);
+				}
+				return (
+					<Box key={field.id} flexDirection="column">
+						<Text bold wrap="wrap">
+							› {stripControl(label)}
+						</Text>
+						<Text dimColor wrap="truncate">
+							{'  '}
+							{noteMode ? 'note (required for not applicable) · Enter save · Esc cancel' : fieldHint(session.rules, field)}
+						</Text>
+						<FocusedValue session={session} field={field} buffer={buffer} choice={choice} noteMode={noteMode} />
+						{message ? (
+							<Text color="red" wrap="wrap">
+								{'  '}✗ {message}
+							</Text>
+						) : null}
+					</Box>
+				);
+			})}
+			{start + room + 1 < fields.length ? <Text dimColor>  ↓ {fields.length - start - room - 1} more</Text> : null}
+		</Box>
+	);
+}
+
+function FocusedValue({session, field, buffer, choice, noteMode}: {session: Session; field: Field; buffer: string; choice: number; noteMode: boolean}) {
+	if (noteMode || field.kind === 'confirmation') {
+		return (
+			<Text>
+				{'  '}
+				{noteMode ? `${buffer}▌` : currentValue(session, field)}
+			</Text>
+		);
+	}
+	if (field.input.kind === 'choice') {
+		const options = Object.entries(field.input.options);
+		return (
+			<Text wrap="wrap">
+				{'  '}
+				{options.map(([id, text], index) => (
+					<Text key={id} inverse={index === choice}>
+						{index === choice ? `[${stripControl(text)}]` : ` ${stripControl(text)} `}{' '}
+					</Text>
+				))}
+			</Text>
+		);
+	}
+	if (field.input.kind === 'yes_no') return <Text>  {currentValue(session, field)}</Text>;
+	return <Text>  {buffer}▌</Text>;
+}

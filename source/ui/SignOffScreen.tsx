@@ -1,0 +1,73 @@
+import {Box, Text, useInput, type Key} from 'ink';
+import {useState} from 'react';
+import {outcomeWords} from '../rules/evaluation.js';
+import {stripControl} from '../text.js';
+import type {Session} from './session.js';
+import {eachLine, typeInto} from './text-buffer.js';
+
+/** What the sign-off form collects. */
+export type SignOffForm = {setup: string; name: string; role: string; cosignName: string; cosignRole: string; cosignKey: string};
+
+const fields: Array<{key: keyof SignOffForm; label: string}> = [
+	{key: 'setup', label: 'Setup name'},
+	{key: 'name', label: 'Your name'},
+	{key: 'role', label: 'Your role'},
+	{key: 'cosignName', label: 'Second signer (optional): name'},
+	{key: 'cosignRole', label: 'Second signer: role'},
+	{key: 'cosignKey', label: "Second signer: path to their private key file"},
+];
+
+/** The sign-off: who signs, what they are signing, then the signed record is written. */
+export function SignOffScreen({session, initial, error, onSign, onBack}: {session: Session; initial: SignOffForm; error?: string; onSign(form: SignOffForm): void; onBack(): void}) {
+	const [form, setForm] = useState(initial);
+	const [focus, setFocus] = useState(0);
+	const [message, setMessage] = useState<string | undefined>();
+	const onButton = focus === fields.length;
+	useInput((chunk, chunkKey) => eachLine(chunk, chunkKey, handleKey));
+	function handleKey(input: string, key: Key) {
+		if (key.ctrl) return;
+		if (key.escape) return onBack();
+		if (key.upArrow) return setFocus(Math.max(0, focus - 1));
+		if (key.downArrow) return setFocus(Math.min(fields.length, focus + 1));
+		if (onButton) {
+			if (!key.return) return;
+			if (!form.name.trim()) return setMessage('Your name is needed to sign.');
+			if (form.cosignName.trim() && !form.cosignKey.trim()) return setMessage("A second signer needs their private key file.");
+			setMessage(undefined);
+			return onSign(form);
+		}
+		const field = fields[focus]!;
+		const change = typeInto(form[field.key], input, key);
+		setForm({...form, [field.key]: change.text});
+		if (change.submit) setFocus(focus + 1);
+	}
+	const rulesName = stripControl(session.rules.rules.name);
+	const who = form.name.trim() || '(your name)';
+	return (
+		<Box flexDirection="column">
+			<Text bold>Sign-off</Text>
+			<Box flexDirection="column" marginTop={1}>
+				{fields.map((field, index) => (
+					<Text key={field.key} wrap="truncate">
+						{index === focus ? '› ' : '  '}
+						{field.label.padEnd(46)} {form[field.key]}
+						{index === focus ? '▌' : ''}
+					</Text>
+				))}
+			</Box>
+			<Box marginTop={1} flexDirection="column">
+				<Text wrap="wrap">
+					I, {stripControl(who)}
+					{form.role.trim() ? ` (${stripControl(form.role.trim())})` : ''}, performed this bench check of {stripControl(form.setup.trim() || 'this setup')} under {rulesName}. Its outcome is{' '}
+					{outcomeWords[session.evaluation.outcome]}. The answers are true to the best of my knowledge. This record shows which checks held; it does not say the setup is safe.
+				</Text>
+			</Box>
+			<Box marginTop={1}>
+				<Text inverse={onButton} bold>
+					{onButton ? '[ Sign and write the record ]' : '  Sign and write the record  '}
+				</Text>
+			</Box>
+			{message || error ? <Text color="red">✗ {message ?? error}</Text> : null}
+		</Box>
+	);
+}

@@ -1,0 +1,187 @@
+import {Box, Text, useInput, type Key} from 'ink';
+import {useReducer, useRef} from 'react';
+import {stripControl} from '../text.js';
+import {ChecksPanel} from './ChecksPanel.js';
+import {FieldList} from './FieldList.js';
+import {answerConfirmation, enterInput, stepFields, type Field, type Session} from './session.js';
+import {eachLine, typeInto} from './text-buffer.js';
+
+/** Props of one step of the bench check. */
+export type StepScreenProps = {
+	session: Session;
+	/** The latest session, even before React has re-rendered (keys can arrive faster than frames). */
+	getSession(): Session;
+	stepIndex: number;
+	rows: number;
+	width: number;
+	onSession(session: Session): void;
+	/** Go to another step; past the last one means the summary. */
+	onStep(index: number): void;
+	onBack(): void;
+	onHelp(): void;
+};
+
+type Editor = {focus: number; buffer: string; choice: number; message?: string; noteMode: boolean};
+
+function initialBuffer(session: Session, field: Field | undefined): string {
+	if (!field || field.kind !== 'input') return '';
+	const entry = session.entries[field.id];
+	if (entry !== undefined) return entry;
+	const fallback = field.input.kind === 'quantity' ? field.input.default : undefined;
+	return fallback === undefined ? '' : String(fallback);
+}
+
+function initialChoice(session: Session, field: Field | undefined): number {
+	if (!field || field.kind !== 'input' || field.input.kind !== 'choice') return 0;
+	const options = Object.keys(field.input.options);
+	const current = session.entries[field.id] ?? field.input.default;
+	return Math.max(0, current === undefined ? 0 : options.indexOf(current));
+}
+
+function editorFor(session: Session, field: Field | undefined, focus: number): Editor {
+	return {focus, buffer: initialBuffer(session, field), choice: initialChoice(session, field), noteMode: false};
+}
+
+/** One step: its fields, typed into with the keyboard, and its checks updating as answers change. */
+export function StepScreen({session, getSession, stepIndex, rows, width, onSession, onStep, onBack, onHelp}: StepScreenProps) {
+	// Keys are handled against a ref, not render state: several keys can arrive before the next frame.
+	const editor = useRef<Editor | undefined>(undefined);
+	const [, rerender] = useReducer((count: number) => count + 1, 0);
+	if (!editor.current) editor.current = editorFor(session, stepFields(session, stepIndex)[0], 0);
+
+	const update = (changes: Partial<Editor>) => {
+		editor.current = {...editor.current!, ...changes};
+		rerender();
+	};
+	const fieldsNow = () => stepFields(getSession(), stepIndex);
+	const focusTo = (index: number) => {
+		const current = getSession();
+		editor.current = editorFor(current, stepFields(current, stepIndex)[index], index);
+		rerender();
+	};
+	const move = (delta: number) => {
+		const next = editor.current!.focus + delta;
+		const count = fieldsNow().length;
+		if (next >= count) onStep(stepIndex + 1);
+		else if (next < 0) {
+			if (stepIndex > 0) onStep(stepIndex - 1);
+		} else focusTo(next);
+	};
+	const apply = (result: ReturnType<typeof enterInput>): boolean => {
+		if (!result.ok) {
+			update({message: result.message});
+			return false;
+		}
+		editor.current = {...editor.current!, message: undefined};
+		onSession(result.session);
+		return true;
+	};
+	/** Commits what was typed; false when it was refused (the cursor stays). */
+	const commit = (field: Field, text: string): boolean => {
+		if (field.kind !== 'input') return true;
+		const current = getSession();
+		if ((current.entries[field.id] ?? '') === text.trim()) return true;
+		return apply(enterInput(current, field.id, text));
+	};
+	const confirm = (field: Field, answer: 'yes' | 'no' | 'not_applicable', note?: string): boolean => {
+		if (field.kind !== 'confirmation') return false;
+		const current = getSession();
+		return apply(answerConfirmation(current, field.id, answer, note ?? current.confirmations[field.id]?.note));
+	};
+
+	useInput((chunk, chunkKey) => eachLine(chunk, chunkKey, handleKey));
+	function handleKey(input: string, key: Key) {
+		if (key.ctrl) return;
+		const state = editor.current!;
+		const fields = fieldsNow();
+		const field = fields[Math.min(state.focus, fields.length - 1)];
+		if (state.noteMode && field) {
+			if (key.escape) return update({noteMode: false});
+			const change = typeInto(state.buffer, input, key);
+			update({buffer: change.text});
+			if (!change.submit) return;
+			const answered = field.kind === 'confirmation' ? getSession().confirmations[field.id]?.answer : undefined;
+			if (confirm(field, answered ?? 'not_applicable', change.text)) move(1);
+			return;
+		}
+		if (key.pageDown) return onStep(stepIndex + 1);
+		if (key.pageUp) return stepIndex > 0 ? onStep(stepIndex - 1) : undefined;
+		if (key.escape) return onBack();
+		if (!field) {
+			if (key.return) onStep(stepIndex + 1);
+			return;
+		}
+		const typing = field.kind === 'input' && (field.input.kind === 'quantity' || field.input.kind === 'text');
+		if (input === '?' && (!typing || state.buffer === '')) return onHelp();
+		if (key.upArrow || key.downArrow) {
+			if (typing && !commit(field, state.buffer)) return;
+			return move(key.upArrow ? -1 : 1);
+		}
+		if (field.kind === 'confirmation') {
+			const answer = ({y: 'yes', n: 'no', a: 'not_applicable'} as const)[input.toLowerCase() as 'y' | 'n' | 'a'];
+			if (answer === 'not_applicable' && field.confirmation.not_applicable !== 'forbidden' && !getSession().confirmations[field.id]?.note) {
+				return update({buffer: '', noteMode: true});
+			}
+			if (answer) {
+				if (confirm(field, answer)) move(1);
+				return;
+			}
+			if (key.tab) return update({buffer: getSession().confirmations[field.id]?.note ?? '', noteMode: true});
+			if (key.return) move(1);
+			return;
+		}
+		if (field.input.kind === 'choice') {
+			const options = Object.keys(field.input.options);
+			if (key.leftArrow || key.rightArrow) return update({choice: (state.choice + (key.rightArrow ? 1 : options.length - 1)) % options.length});
+			const digit = Number(input);
+			if (digit >= 1 && digit <= options.length) return update({choice: digit - 1});
+			if (key.return && commit(field, options[state.choice]!)) move(1);
+			return;
+		}
+		if (field.input.kind === 'yes_no') {
+			const word = input.toLowerCase() === 'y' ? 'yes' : input.toLowerCase() === 'n' ? 'no' : undefined;
+			if (word && commit(field, word)) return move(1);
+			if (key.return) move(1);
+			return;
+		}
+		const change = typeInto(state.buffer, input, key);
+		editor.current = {...state, buffer: change.text};
+		if (change.submit && commit(field, change.text)) return move(1);
+		rerender();
+	}
+
+	const fields = stepFields(session, stepIndex);
+	const step = session.rules.rules.steps[stepIndex]!;
+	const state = editor.current;
+	const checks = session.evaluation.checks.filter((check) => check.step === step.id);
+	const panelRows = Math.min(8, Math.max(2, checks.length * 2));
+	return (
+		<Box flexDirection="column">
+			<Text bold>
+				Step {stepIndex + 1} of {session.rules.rules.steps.length}: {stripControl(step.title)}
+			</Text>
+			{step.summary ? (
+				<Text dimColor wrap="wrap">
+					{stripControl(step.summary)}
+				</Text>
+			) : null}
+			<Box marginTop={1} flexDirection="column">
+				{fields.length === 0 ? <Text dimColor>Nothing to answer in this step for this setup. Enter or PgDn to go on.</Text> : null}
+				<FieldList
+					session={session}
+					fields={fields}
+					focus={Math.min(state.focus, Math.max(0, fields.length - 1))}
+					buffer={state.buffer}
+					choice={state.choice}
+					{...(state.message ? {message: state.message} : {})}
+					noteMode={state.noteMode}
+					rows={Math.max(4, rows - panelRows - 8)}
+					width={width}
+				/>
+			</Box>
+			<Box marginTop={1} flexDirection="column">
+				<ChecksPanel checks={checks} rows={panelRows} />
+			</Box>
+		</Box>
+	);
+}
