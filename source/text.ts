@@ -1,7 +1,7 @@
 /**
- * Removes control characters (C0, DEL, C1, and the bidirectional overrides) so text from a
+ * Removes control characters (C0, DEL, C1, the bidirectional overrides and marks) so text from a
  * file cannot move the cursor, recolour or rewrite what a terminal shows. Tabs and newlines stay.
  */
 export function stripControl(text: string): string {
-	return text.replaceAll(/[\u0000-\u0008\u000B-\u001F\u007F-\u009F\u202A-\u202E\u2066-\u2069]/g, '');
+	return text.replaceAll(/[\u0000-\u0008\u000B-\u001F\u007F-\u009F\u061C\u200E\u200F\u202A-\u202E\u2066-\u2069]/g, '');
 }

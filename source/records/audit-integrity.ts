@@ -87,6 +87,14 @@ export function checkIntegrity(text: string, keys: KeyCache): IntegrityCheck {
 	return {ok: true, record, signatures, bodySha256: createHash('sha256').update(body).digest('hex')};
 }
 
+/**
+ * The bytes a signature covers, from the body already in canonical form: the same bytes as
+ * signedBytes() in sign.ts, because RFC 8785 orders "body" before "signature".
+ */
+export function bytesToVerify(canonicalBody: string, statement: Omit<Signature, 'value' | 'fingerprint'>): Buffer {
+	return Buffer.from(`{"body":${canonicalBody},"signature":${canonicalize(statement)}}`, 'utf8');
+}
+
 function verifyOne(body: string, signature: Signature, keys: KeyCache): {valid: boolean; code?: Finding['code']} {
 	const {value, fingerprint: stated, ...statement} = signature;
 	const key = keys.get(signature.publicKey);
@@ -94,7 +102,7 @@ function verifyOne(body: string, signature: Signature, keys: KeyCache): {valid: 
 	if (key.fingerprint !== stated) return {valid: false, code: 'audit-fingerprint-mismatch'};
 	let bytes: Buffer;
 	try {
-		bytes = Buffer.from(`{"body":${body},"signature":${canonicalize(statement)}}`, 'utf8');
+		bytes = bytesToVerify(body, statement);
 	} catch {
 		return {valid: false, code: 'audit-signature-invalid'};
 	}

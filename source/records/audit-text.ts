@@ -91,7 +91,7 @@ export function recordText(audit: RecordAudit, paint: Paint, width = 100): strin
 		out.push(...row('Setup', `${inline(record.setup.name ?? '(no name)')}${unverified} · fingerprint ${record.setup.fingerprint.replace(/^sha256:/, '').slice(0, 16)}`, width));
 		out.push(...row('Operator', `${inline(record.operator.name, 80)}${record.operator.role ? `, ${inline(record.operator.role, 60)}` : ''}${unverified}`, width));
 		out.push(...row('Created', `${inline(record.createdAt, 40)} with ${inline(record.tool.name, 20)} ${inline(record.tool.version, 20)}`, width));
-		out.push(...row('Outcome', `${outcomeWords[record.outcome]} (as recorded${unverified})`, width));
+		out.push(...row('Outcome', `${outcomeWords[record.outcome]} (as recorded${audit.authentic ? '' : ', unverified'})`, width));
 		out.push(...signatureLines(audit, paint, width));
 	}
 	const integrity = audit.findings.find((found) => found.kind === 'integrity');

@@ -6,6 +6,7 @@ import {evaluationToJson} from '../rules/evaluation-json.js';
 import {canonicalBytes} from './canonical.js';
 import {recordBodySchema, type RecordBody} from './record-schema.js';
 import {isoWithOffset} from './sign.js';
+import {displayPath} from '../display-path.js';
 
 /** A correction: the record it corrects (file name and body hash) and why. */
 export type Amendment = {record: string; bodySha256: string; reason: string};
@@ -41,7 +42,7 @@ export function buildRecordBody(input: {rules: CompiledRules; answers: Answers; 
 		operator,
 		setup: {name: setup, ...setupFingerprint(rules, answers)},
 		...(amends ? {amends} : {}),
-		rules: {name: rules.rules.name, file: rules.file, sha256: rules.sha256, text: rules.text},
+		rules: {name: rules.rules.name, file: displayPath(rules.file), sha256: rules.sha256, text: rules.text},
 		...evaluated,
 	};
 	return recordBodySchema.parse(JSON.parse(JSON.stringify(body)));

@@ -38,7 +38,7 @@ tr.detail p { margin: 0 0 0.5mm; }
 .number { white-space: nowrap; overflow-wrap: normal; }
 code { font: 8pt "DejaVu Sans Mono", Menlo, Consolas, monospace; overflow-wrap: anywhere; }
 .hash { font-size: 7pt; word-break: break-all; }
-.verdict { font-weight: bold; }
+.verdict { font-weight: bold; overflow-wrap: normal; }
 td.verdict { border-left: 1px solid #888; }
 .verdict-fail td.verdict, .answer-no td.verdict, tbody.not-verified td.verdict { border-left: 4px solid #000; text-transform: uppercase; }
 .verdict-advise td.verdict { border-left: 3px dashed #000; }
@@ -46,7 +46,7 @@ td.verdict { border-left: 1px solid #888; }
 .verdict-fail td, .answer-no td, tbody.not-verified td { background: #eee; }
 .verdict-pass td.verdict, .verdict-skip td.verdict { font-weight: normal; }
 .verdict-skip td { color: #444; }
-col.c-verdict { width: 17mm; } col.c-title { width: auto; } col.c-value, col.c-limit { width: 19mm; } col.c-margin { width: 26mm; } col.c-fraction { width: 15mm; }
+col.c-verdict { width: 21mm; } col.c-title { width: auto; } col.c-value, col.c-limit { width: 19mm; } col.c-margin { width: 26mm; } col.c-fraction { width: 15mm; }
 col.c-statement { width: 55%; } col.c-label { width: 40%; } col.c-derived { width: 62%; } col.c-si { width: 24mm; }
 col.c-number { width: 6mm; } col.c-meaning { width: 20mm; } col.c-when { width: 44mm; } col.c-verified { width: 30mm; } col.c-trust { width: 36mm; }
 table.details th { width: 36mm; border-bottom: 0.5px solid #888; font-size: 9pt; vertical-align: top; }

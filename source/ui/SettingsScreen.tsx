@@ -1,5 +1,5 @@
 import {Box, Text, useInput, type Key} from 'ink';
-import {useState} from 'react';
+import {useReducer, useRef} from 'react';
 import type {Settings} from '../settings.js';
 import {eachLine, typeInto} from './text-buffer.js';
 
@@ -12,11 +12,17 @@ const fields: Array<{key: keyof Settings; label: string}> = [
 
 /** Edits the settings; each field is saved when Enter is pressed on it. */
 export function SettingsScreen({initial, path, onSave, onBack}: {initial: Settings; path: string; onSave(settings: Settings): void; onBack(): void}) {
-	const [values, setValues] = useState<Settings>(initial);
-	const [focus, setFocus] = useState(0);
-	const [saved, setSaved] = useState<string | undefined>();
+	// Kept in a ref: a burst of keys is handled before React draws the next frame.
+	const state = useRef({values: initial, focus: 0, saved: undefined as string | undefined});
+	const [, rerender] = useReducer((count: number) => count + 1, 0);
+	const set = (changes: Partial<typeof state.current>) => {
+		state.current = {...state.current, ...changes};
+		rerender();
+	};
+	const setFocus = (focus: number) => set({focus});
 	useInput((chunk, chunkKey) => eachLine(chunk, chunkKey, handleKey));
 	function handleKey(input: string, key: Key) {
+		const {values, focus} = state.current;
 		if (key.ctrl) return;
 		if (key.escape) return onBack();
 		if (key.upArrow) return setFocus(Math.max(0, focus - 1));
@@ -24,13 +30,11 @@ export function SettingsScreen({initial, path, onSave, onBack}: {initial: Settin
 		const field = fields[focus]!;
 		const change = typeInto(values[field.key] ?? '', input, key);
 		const next = {...values, [field.key]: change.text};
-		setValues(next);
-		if (change.submit) {
-			onSave({[field.key]: change.text.trim()});
-			setSaved(`${field.label} saved.`);
-			setFocus(Math.min(fields.length - 1, focus + 1));
-		}
+		if (!change.submit) return set({values: next});
+		onSave({[field.key]: change.text.trim()});
+		set({values: next, saved: `${field.label} saved.`, focus: Math.min(fields.length - 1, focus + 1)});
 	}
+	const {values, focus, saved} = state.current;
 	return (
 		<Box flexDirection="column">
 			<Text bold>Settings</Text>

@@ -1,5 +1,5 @@
 import {Box, Text, useInput, type Key} from 'ink';
-import {useState} from 'react';
+import {useReducer, useRef} from 'react';
 import {outcomeWords} from '../rules/evaluation.js';
 import {stripControl} from '../text.js';
 import type {Session} from './session.js';
@@ -19,12 +19,19 @@ const fields: Array<{key: keyof SignOffForm; label: string}> = [
 
 /** The sign-off: who signs, what they are signing, then the signed record is written. */
 export function SignOffScreen({session, initial, error, onSign, onBack}: {session: Session; initial: SignOffForm; error?: string; onSign(form: SignOffForm): void; onBack(): void}) {
-	const [form, setForm] = useState(initial);
-	const [focus, setFocus] = useState(0);
-	const [message, setMessage] = useState<string | undefined>();
-	const onButton = focus === fields.length;
+	// Kept in a ref: a burst of keys is handled before React draws the next frame.
+	const state = useRef({form: initial, focus: 0, message: undefined as string | undefined});
+	const [, rerender] = useReducer((count: number) => count + 1, 0);
+	const set = (changes: Partial<typeof state.current>) => {
+		state.current = {...state.current, ...changes};
+		rerender();
+	};
+	const setFocus = (focus: number) => set({focus});
+	const setMessage = (message: string | undefined) => set({message});
 	useInput((chunk, chunkKey) => eachLine(chunk, chunkKey, handleKey));
 	function handleKey(input: string, key: Key) {
+		const {form, focus} = state.current;
+		const onButton = focus === fields.length;
 		if (key.ctrl) return;
 		if (key.escape) return onBack();
 		if (key.upArrow) return setFocus(Math.max(0, focus - 1));
@@ -38,9 +45,10 @@ export function SignOffScreen({session, initial, error, onSign, onBack}: {sessio
 		}
 		const field = fields[focus]!;
 		const change = typeInto(form[field.key], input, key);
-		setForm({...form, [field.key]: change.text});
-		if (change.submit) setFocus(focus + 1);
+		set({form: {...form, [field.key]: change.text}, ...(change.submit ? {focus: focus + 1} : {})});
 	}
+	const {form, focus, message} = state.current;
+	const onButton = focus === fields.length;
 	const rulesName = stripControl(session.rules.rules.name);
 	const who = form.name.trim() || '(your name)';
 	return (
