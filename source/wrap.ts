@@ -4,7 +4,9 @@ export function wrap(text: string, width: number, indent = ''): string[] {
 	const lines: string[] = [];
 	for (const paragraph of text.split('\n')) {
 		let line = '';
-		for (const word of paragraph.split(/\s+/).filter(Boolean)) {
+		// A word longer than the line (a pasted hash, a hostile note) is cut into line-sized pieces.
+		const words = paragraph.split(/\s+/).filter(Boolean).flatMap((word) => (word.length <= room ? [word] : word.match(new RegExp(`.{1,${room}}`, 'gu')) ?? [word]));
+		for (const word of words) {
 			if (line && line.length + 1 + word.length > room) {
 				lines.push(indent + line);
 				line = word;

@@ -7,6 +7,7 @@ import {formatQuantity} from '../quantities/format.js';
 import {problem} from '../problems.js';
 import {didYouMean} from '../rules/names.js';
 import {UsageError} from '../usage-error.js';
+import {terminalSafeJson} from '../text.js';
 import {definitionRow, wrap} from '../wrap.js';
 import type {Io} from './check.js';
 import {helpTexts} from './help.js';
@@ -63,7 +64,7 @@ export function runCalc(args: string[], io: Io): number {
 	}
 	const result = run.value;
 	if (values.json) {
-		io.stdout.write(`${JSON.stringify(result, null, 2)}\n`);
+		io.stdout.write(`${terminalSafeJson(result)}\n`);
 		return 0;
 	}
 	const keyWidth = Math.max(...[...Object.keys(result.inputs), ...Object.keys(result.outputs)].map((key) => key.length));

@@ -9,6 +9,7 @@ import {UsageError} from '../usage-error.js';
 import {checkText} from './check-text.js';
 import {helpTexts} from './help.js';
 import {signAndWrite} from './sign-check.js';
+import {terminalSafeJson} from '../text.js';
 import {isInteractive, startScreens} from '../screens.js';
 
 /** Where a command writes; tests pass their own. */
@@ -80,7 +81,7 @@ export function runCheck(args: string[], io: Io): number | Promise<number> {
 				);
 	if (values.json) {
 		const json = {...evaluationToJson(rules.value, answers.value, evaluation), ...(written ? {record: {path: written.path, fingerprint: written.fingerprint}} : {})};
-		io.stdout.write(`${JSON.stringify(json, null, 2)}\n`);
+		io.stdout.write(`${terminalSafeJson(json)}\n`);
 	} else {
 		io.stdout.write(`${checkText(rules.value, answers.value, evaluation, paintFor(io.stdout, io.env), io.stdout.columns ?? 100)}\n`);
 		if (written) io.stdout.write(`\nRecord written: ${written.path}\nSigned with key ${written.fingerprint}${written.keyCreated ? ' (a new key, created now; share it with: prelase keys export)' : ''}\n`);

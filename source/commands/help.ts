@@ -18,8 +18,7 @@ Commands:
   rules    Print the rule file JSON Schema, or validate rule files
   keys     Your signing key, and the colleagues' keys you trust
   report   A printable page (Markdown or HTML) of a signed record
-  audit    Check signed records: authentic, consistent with their numbers, and what the
-           current rules would change
+  audit    Check signed records: authentic, consistent, and what the current rules change
 
 Every command takes --help. NO_COLOR turns colour off.
 The shipped bench policy is rules/default.yaml; --rules FILE uses a site policy instead.

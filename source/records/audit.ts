@@ -149,19 +149,21 @@ export function auditRecords(files: readonly string[], options: AuditOptions): A
 		const checked = readIntegrity(file, keys);
 		const record = checked.record ? summarise(checked.record.body) : null;
 		const trust = checked.record ? signatureReports(checked.record, checked.signatures, options.trust) : {signatures: [], findings: []};
-		const base = {file, record, signatures: trust.signatures, notChecked: [], history: null};
 		if (!checked.ok) {
-			audits.push({...base, authentic: false, bodySha256: null, consistency: null, currentPolicy: null, findings: [checked.finding]});
+			audits.push({file, authentic: false, bodySha256: null, record, signatures: trust.signatures, consistency: null, currentPolicy: null, history: null, notChecked: [], findings: [checked.finding]});
 		} else {
 			const contents = auditContents(checked.record.body, rules, options.current);
 			entryOf[entries.length] = audits.length;
 			entries.push(historyEntry(file, checked.bodySha256, checked.record.body));
 			audits.push({
-				...base,
+				file,
 				authentic: true,
 				bodySha256: checked.bodySha256,
+				record,
+				signatures: trust.signatures,
 				consistency: contents.consistency,
 				currentPolicy: contents.policy,
+				history: null,
 				notChecked: notChecked.map(({item, code}) => ({item, text: describeFinding({code, data: {}})})),
 				findings: [...trust.findings, ...contents.findings],
 			});

@@ -1,5 +1,6 @@
 import {readFileSync} from 'node:fs';
 import {recordSchema, type BenchRecord} from './record-schema.js';
+import {unsafeJsonKey} from './json-keys.js';
 import {verifySignature} from './sign.js';
 
 /** What integrity checking found: the record, or why it cannot be trusted at all. */
@@ -29,6 +30,8 @@ export function checkRecordText(text: string): IntegrityResult {
 	} catch (error) {
 		return {ok: false, reason: `not valid JSON (${(error as Error).message})`};
 	}
+	const unsafe = unsafeJsonKey(text);
+	if (unsafe) return {ok: false, reason: unsafe.kind === 'duplicate' ? `the name "${unsafe.name}" appears twice in one object, so the file holds a value the signature does not cover` : 'the record has a "__proto__" name, which is refused'};
 	const parsed = recordSchema.safeParse(data);
 	if (!parsed.success) {
 		const issue = parsed.error.issues[0];

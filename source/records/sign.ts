@@ -35,6 +35,9 @@ export function signBody(body: RecordBody, signer: Signer, privateKey: KeyObject
 /** Checks one signature over a body: the key matches its fingerprint and the signature verifies. */
 export function verifySignature(body: RecordBody, signature: Signature): {ok: true} | {ok: false; reason: string} {
 	const {value, fingerprint: stated, ...statement} = signature;
+	// Base64 has spare bits: only the one canonical spelling of a key or signature is accepted.
+	if (Buffer.from(value, 'base64').toString('base64') !== value) return {ok: false, reason: 'the signature is not in canonical base64'};
+	if (Buffer.from(signature.publicKey, 'base64').toString('base64') !== signature.publicKey) return {ok: false, reason: 'the public key is not in canonical base64'};
 	let raw: Buffer;
 	let key: KeyObject;
 	try {

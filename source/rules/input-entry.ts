@@ -1,6 +1,5 @@
 import {formatQuantity} from '../quantities/format.js';
 import {parseQuantity} from '../quantities/parse-quantity.js';
-import {stripControl} from '../text.js';
 import type {ConfirmationAnswer, InputAnswer} from './answers.js';
 import {dimensionWords} from './collect-names.js';
 import type {CompiledConfirmation, CompiledInput} from './compiled-rules.js';
@@ -58,7 +57,8 @@ export function parseInputEntry(compiled: CompiledInput, raw: unknown): Entry<In
 		}
 		case 'text': {
 			if (typeof raw !== 'string' && typeof raw !== 'number') return {ok: false, problem: {code: 'answers-not-text', data: {label, received: describeRaw(raw)}}};
-			const value = stripControl(String(raw)).trim();
+			// Kept as written; the screens and text output strip control characters when they show it.
+			const value = String(raw);
 			if (value.length > input.max_length) return {ok: false, problem: {code: 'answers-text-too-long', data: {label, length: value.length, max: input.max_length}}};
 			return {ok: true, value: {kind: 'text', entered: value, value}};
 		}
@@ -68,7 +68,8 @@ export function parseInputEntry(compiled: CompiledInput, raw: unknown): Entry<In
 /** Reads an answer to a confirmation: yes, no or not applicable (the last needs a note). */
 export function parseConfirmationEntry(compiled: CompiledConfirmation, rawAnswer: unknown, rawNote: unknown): Entry<ConfirmationAnswer> {
 	const word = typeof rawAnswer === 'boolean' ? String(rawAnswer) : typeof rawAnswer === 'string' ? rawAnswer.trim().toLowerCase() : '';
-	const note = typeof rawNote === 'string' || typeof rawNote === 'number' ? stripControl(String(rawNote)).trim() : undefined;
+	const written = typeof rawNote === 'string' || typeof rawNote === 'number' ? String(rawNote) : undefined;
+	const note = written !== undefined && written.trim() !== '' ? written : undefined;
 	const withNote = (answer: ConfirmationAnswer['answer']): ConfirmationAnswer => (note ? {answer, note} : {answer});
 	if (yesWords.has(word)) return {ok: true, value: withNote('yes')};
 	if (noWords.has(word)) return {ok: true, value: withNote('no')};

@@ -1,6 +1,5 @@
 import {problem, type Problem} from '../problems.js';
 import {failure, success, type Result} from '../result.js';
-import {stripControl} from '../text.js';
 import {parseYamlSource, readTextFile, type YamlSource} from '../yaml-source.js';
 import type {Answers, ConfirmationAnswer, InputAnswer} from './answers.js';
 import type {CompiledRules} from './compiled-rules.js';
@@ -60,7 +59,8 @@ export function loadAnswersFromText(text: string, file: string, rules: CompiledR
 	}
 
 	if (problems.length > 0) return failure(problems);
-	const setup = typeof data['setup'] === 'string' ? stripControl(data['setup']).trim() : undefined;
+	// Kept as written (the record holds it byte for byte); anything shown on a terminal is stripped there.
+	const setup = typeof data['setup'] === 'string' && data['setup'].trim() !== '' ? data['setup'] : undefined;
 	return success({...(setup ? {setup} : {}), inputs, confirmations}, parsed.warnings);
 }
 

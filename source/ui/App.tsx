@@ -149,8 +149,7 @@ export function App({rules, settings, env, startCheck, audit, onExit}: AppProps)
 	};
 
 	let body;
-	if (help) body = <HelpOverlay screen={screen} onClose={() => setHelp(false)} />;
-	else if (screen === 'home') body = <HomeScreen rulesName={rules.rules.name} caution={rules.rules.caution} {...(draft ? {draft: {setup: draft.setup, savedAt: draft.savedAt}} : {})} setups={listSetups(settings.folder)} onChoose={choose} />;
+	if (screen === 'home') body = <HomeScreen rulesName={rules.rules.name} caution={rules.rules.caution} {...(draft ? {draft: {setup: draft.setup, savedAt: draft.savedAt}} : {})} setups={listSetups(settings.folder)} onChoose={choose} />;
 	else if (screen === 'step')
 		body = (
 			<StepScreen
@@ -164,9 +163,10 @@ export function App({rules, settings, env, startCheck, audit, onExit}: AppProps)
 				onStep={(index) => (index >= rules.rules.steps.length ? setScreen('summary') : setStepIndex(Math.max(0, index)))}
 				onBack={() => (stepIndex > 0 ? setStepIndex(stepIndex - 1) : setScreen('home'))}
 				onHelp={() => setHelp(true)}
+				active={!help}
 			/>
 		);
-	else if (screen === 'summary') body = <SummaryScreen session={session} rows={rows - 3} onSign={() => setScreen('signoff')} onBack={() => setScreen('step')} onHelp={() => setHelp(true)} />;
+	else if (screen === 'summary') body = <SummaryScreen session={session} rows={rows - 3} onSign={() => setScreen('signoff')} onBack={() => setScreen('step')} onHelp={() => setHelp(true)} active={!help} />;
 	else if (screen === 'signoff') {
 		const saved = settings.read();
 		body = <SignOffScreen session={session} initial={{setup: session.setup, name: saved.operator ?? '', role: saved.role ?? '', cosignName: '', cosignRole: '', cosignKey: ''}} {...(signError ? {error: signError} : {})} onSign={sign} onBack={() => setScreen('summary')} />;
@@ -187,7 +187,11 @@ export function App({rules, settings, env, startCheck, audit, onExit}: AppProps)
 	return (
 		<Box flexDirection="column" width={width}>
 			{header}
-			{body}
+			{help ? <HelpOverlay screen={screen} onClose={() => setHelp(false)} /> : null}
+			{/* Hidden, not unmounted, under the help: the step keeps its focus and what was typed. */}
+			<Box display={help ? 'none' : 'flex'} flexDirection="column">
+				{body}
+			</Box>
 			<Text dimColor wrap="truncate">
 				{footer[screen]}
 			</Text>

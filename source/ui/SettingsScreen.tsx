@@ -41,7 +41,8 @@ export function SettingsScreen({initial, path, onSave, onBack}: {initial: Settin
 			<Text dimColor>{path}</Text>
 			<Box marginTop={1} flexDirection="column">
 				{fields.map((field, index) => (
-					<Text key={field.key} wrap="truncate">
+					// The field being typed in wraps, so the end of a long value and the cursor stay in sight.
+					<Text key={field.key} wrap={index === focus ? 'wrap' : 'truncate'}>
 						{index === focus ? '› ' : '  '}
 						{field.label.padEnd(40)} {values[field.key] ?? ''}
 						{index === focus ? '▌' : ''}

@@ -56,7 +56,8 @@ export function SignOffScreen({session, initial, error, onSign, onBack}: {sessio
 			<Text bold>Sign-off</Text>
 			<Box flexDirection="column" marginTop={1}>
 				{fields.map((field, index) => (
-					<Text key={field.key} wrap="truncate">
+					// The field being typed in wraps, so the end of a long value and the cursor stay in sight.
+					<Text key={field.key} wrap={index === focus ? 'wrap' : 'truncate'}>
 						{index === focus ? '› ' : '  '}
 						{field.label.padEnd(46)} {form[field.key]}
 						{index === focus ? '▌' : ''}

@@ -19,6 +19,8 @@ export type StepScreenProps = {
 	onStep(index: number): void;
 	onBack(): void;
 	onHelp(): void;
+	/** False while the help overlay covers the step: keys go to the overlay, and the field in focus is kept. @default true */
+	active?: boolean;
 };
 
 type Editor = {focus: number; buffer: string; choice: number; message?: string; noteMode: boolean};
@@ -43,7 +45,7 @@ function editorFor(session: Session, field: Field | undefined, focus: number): E
 }
 
 /** One step: its fields, typed into with the keyboard, and its checks updating as answers change. */
-export function StepScreen({session, getSession, stepIndex, rows, width, onSession, onStep, onBack, onHelp}: StepScreenProps) {
+export function StepScreen({session, getSession, stepIndex, rows, width, onSession, onStep, onBack, onHelp, active = true}: StepScreenProps) {
 	// Keys are handled against a ref, not render state: several keys can arrive before the next frame.
 	const editor = useRef<Editor | undefined>(undefined);
 	const [, rerender] = useReducer((count: number) => count + 1, 0);
@@ -89,7 +91,7 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 		return apply(answerConfirmation(current, field.id, answer, note ?? current.confirmations[field.id]?.note));
 	};
 
-	useInput((chunk, chunkKey) => eachLine(chunk, chunkKey, handleKey));
+	useInput((chunk, chunkKey) => eachLine(chunk, chunkKey, handleKey), {isActive: active});
 	function handleKey(input: string, key: Key) {
 		if (key.ctrl) return;
 		const state = editor.current!;
@@ -126,7 +128,12 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 				if (confirm(field, answer)) move(1);
 				return;
 			}
-			if (key.tab) return update({buffer: getSession().confirmations[field.id]?.note ?? '', noteMode: true});
+			if (key.tab) {
+				const answered = getSession().confirmations[field.id];
+				// A note belongs to an answer: saving one must not answer the confirmation on the operator's behalf.
+				if (!answered) return update({message: 'answer first (y, n or a); Tab adds a note to the answer'});
+				return update({buffer: answered.note ?? '', noteMode: true, message: undefined});
+			}
 			if (key.return) move(1);
 			return;
 		}

@@ -21,7 +21,7 @@ function checkLines(check: CheckResult): Line[] {
 }
 
 /** Every check, failures first, then advice, open checks and passes; confirmations; the outcome and the caution. */
-export function SummaryScreen({session, rows, onSign, onBack, onHelp}: {session: Session; rows: number; onSign(): void; onBack(): void; onHelp(): void}) {
+export function SummaryScreen({session, rows, onSign, onBack, onHelp, active = true}: {session: Session; rows: number; onSign(): void; onBack(): void; onHelp(): void; active?: boolean}) {
 	const [offset, setOffset] = useState(0);
 	const {evaluation} = session;
 	const sorted = [...evaluation.checks].filter((check) => check.verdict !== 'skip').sort((a, b) => order[a.verdict] - order[b.verdict]);
@@ -41,7 +41,7 @@ export function SummaryScreen({session, rows, onSign, onBack, onHelp}: {session:
 		else if (key.return) onSign();
 		else if (key.escape) onBack();
 		else if (input === '?') onHelp();
-	});
+	}, {isActive: active});
 	const counts = {fail: 0, advise: 0, open: 0, pass: 0, skip: 0};
 	for (const check of evaluation.checks) counts[check.verdict] += 1;
 	const outcome = outcomeStyle[evaluation.outcome];
