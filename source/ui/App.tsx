@@ -166,7 +166,7 @@ export function App({rules, settings, env, startCheck, audit, onExit}: AppProps)
 				active={!help}
 			/>
 		);
-	else if (screen === 'summary') body = <SummaryScreen session={session} rows={rows - 3} onSign={() => setScreen('signoff')} onBack={() => setScreen('step')} onHelp={() => setHelp(true)} active={!help} />;
+	else if (screen === 'summary') body = <SummaryScreen session={session} rows={rows - 3} width={width} onSign={() => setScreen('signoff')} onBack={() => setScreen('step')} onHelp={() => setHelp(true)} active={!help} />;
 	else if (screen === 'signoff') {
 		const saved = settings.read();
 		body = <SignOffScreen session={session} initial={{setup: session.setup, name: saved.operator ?? '', role: saved.role ?? '', cosignName: '', cosignRole: '', cosignKey: ''}} {...(signError ? {error: signError} : {})} onSign={sign} onBack={() => setScreen('summary')} />;

@@ -8,7 +8,7 @@ export type HomeChoice = {action: 'start'} | {action: 'resume'} | {action: 'setu
 
 /** The home screen: start, resume or audit, the rules in force and settings; the caution always shown. */
 export function HomeScreen(props: {rulesName: string; caution: string; draft?: {setup: string; savedAt: string}; setups: string[]; onChoose(choice: HomeChoice): void}) {
-	const items: Array<{key: string; label: string; value: HomeChoice}> = [{key: 'start', label: 'Start a bench check', value: {action: 'start'}}];
+	const items: Array<{key: string; label: string; value: HomeChoice}> = [{key: 'start', label: props.draft ? 'Start a new bench check (replaces the draft)' : 'Start a bench check', value: {action: 'start'}}];
 	if (props.draft) items.unshift({key: 'resume', label: `Resume the draft: ${stripControl(props.draft.setup || 'unnamed setup')} (saved ${props.draft.savedAt.slice(0, 16).replace('T', ' ')})`, value: {action: 'resume'}});
 	for (const name of props.setups) items.push({key: `setup-${name}`, label: `Start from the saved setup ${stripControl(name)}`, value: {action: 'setup', name}});
 	items.push(

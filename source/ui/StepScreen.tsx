@@ -23,7 +23,8 @@ export type StepScreenProps = {
 	active?: boolean;
 };
 
-type Editor = {focus: number; buffer: string; choice: number; message?: string; noteMode: boolean};
+/** `suggested`: the buffer holds a default not typed by the operator; the first key replaces it. */
+type Editor = {focus: number; buffer: string; choice: number; message?: string; noteMode: boolean; suggested?: boolean};
 
 function initialBuffer(session: Session, field: Field | undefined): string {
 	if (!field || field.kind !== 'input') return '';
@@ -41,7 +42,8 @@ function initialChoice(session: Session, field: Field | undefined): number {
 }
 
 function editorFor(session: Session, field: Field | undefined, focus: number): Editor {
-	return {focus, buffer: initialBuffer(session, field), choice: initialChoice(session, field), noteMode: false};
+	const suggested = field?.kind === 'input' && session.entries[field.id] === undefined && initialBuffer(session, field) !== '';
+	return {focus, buffer: initialBuffer(session, field), choice: initialChoice(session, field), noteMode: false, suggested};
 }
 
 /** One step: its fields, typed into with the keyboard, and its checks updating as answers change. */
@@ -151,8 +153,10 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 			if (key.return) move(1);
 			return;
 		}
-		const change = typeInto(state.buffer, input, key);
-		editor.current = {...state, buffer: change.text};
+		// A suggested default is accepted with Enter, or replaced by the first key typed.
+		const start = state.suggested && !key.return && (input !== '' || key.backspace || key.delete) ? '' : state.buffer;
+		const change = typeInto(start, input, key);
+		editor.current = {...state, buffer: change.text, suggested: false};
 		if (change.submit && commit(field, change.text)) return move(1);
 		rerender();
 	}
@@ -161,7 +165,8 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 	const step = session.rules.rules.steps[stepIndex]!;
 	const state = editor.current;
 	const checks = session.evaluation.checks.filter((check) => check.step === step.id);
-	const panelRows = Math.min(8, Math.max(2, checks.length * 2));
+	// On a short terminal the checks panel gives way so that more fields stay in view.
+	const panelRows = Math.min(rows < 30 ? 6 : 8, Math.max(2, checks.length * 2));
 	return (
 		<Box flexDirection="column">
 			<Text bold>
@@ -182,7 +187,7 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 					choice={state.choice}
 					{...(state.message ? {message: state.message} : {})}
 					noteMode={state.noteMode}
-					rows={Math.max(4, rows - panelRows - 8)}
+					rows={Math.max(5, rows - panelRows - (step.summary ? 7 : 5))}
 					width={width}
 				/>
 			</Box>

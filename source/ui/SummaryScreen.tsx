@@ -4,6 +4,7 @@ import {checkFigures} from '../commands/check-text.js';
 import {deferral} from '../deferral.js';
 import type {CheckResult} from '../rules/evaluation.js';
 import {stripControl} from '../text.js';
+import {wrap} from '../wrap.js';
 import type {Session} from './session.js';
 import {confirmationStyle, outcomeStyle, verdictStyle} from './verdict-style.js';
 
@@ -21,17 +22,25 @@ function checkLines(check: CheckResult): Line[] {
 }
 
 /** Every check, failures first, then advice, open checks and passes; confirmations; the outcome and the caution. */
-export function SummaryScreen({session, rows, onSign, onBack, onHelp, active = true}: {session: Session; rows: number; onSign(): void; onBack(): void; onHelp(): void; active?: boolean}) {
+export function SummaryScreen({session, rows, width = 80, onSign, onBack, onHelp, active = true}: {session: Session; rows: number; width?: number; onSign(): void; onBack(): void; onHelp(): void; active?: boolean}) {
 	const [offset, setOffset] = useState(0);
 	const {evaluation} = session;
 	const sorted = [...evaluation.checks].filter((check) => check.verdict !== 'skip').sort((a, b) => order[a.verdict] - order[b.verdict]);
-	const lines: Line[] = sorted.flatMap(checkLines);
+	const unwrapped: Line[] = sorted.flatMap(checkLines);
 	for (const entry of evaluation.confirmations.filter(({status}) => status !== 'yes' && status !== 'skip')) {
 		const style = confirmationStyle[entry.status];
-		lines.push({key: `c-${entry.id}`, text: `${style.label.padEnd(13)}${stripControl(entry.statement)}${entry.note ? ` (${stripControl(entry.note)})` : ''}`, color: style.color});
+		unwrapped.push({key: `c-${entry.id}`, text: `${style.label.padEnd(13)}${stripControl(entry.statement)}${entry.note ? ` (${stripControl(entry.note)})` : ''}`, color: style.color});
 	}
-	if (evaluation.missingInputs.length > 0) lines.push({key: 'missing', text: `Inputs not given: ${evaluation.missingInputs.join(', ')}`, color: 'cyan'});
+	if (evaluation.missingInputs.length > 0) unwrapped.push({key: 'missing', text: `Inputs not given: ${evaluation.missingInputs.join(', ')}`, color: 'cyan'});
+	// Long lines wrap (under their own indent) rather than being cut, so every note and message can be read.
+	const wrapped: Line[] = unwrapped.flatMap((line) => {
+		const indent = /^\s*(?:\S+ \S+\s+|\S+\s+)?/.exec(line.text)?.[0].length ?? 0;
+		const pieces = wrap(line.text.slice(indent), Math.max(20, width - 1), ' '.repeat(Math.min(indent, 14)));
+		pieces[0] = line.text.slice(0, indent) + pieces[0]!.trimStart();
+		return pieces.map((text, index) => ({...line, key: `${line.key}-${index}`, text}));
+	});
 	const room = Math.max(3, rows - 12);
+	const lines = wrapped;
 	const maxOffset = Math.max(0, lines.length - room);
 	useInput((input, key) => {
 		if (key.upArrow) setOffset(Math.max(0, offset - 1));

@@ -1,0 +1,54 @@
+import type {KeyObject} from 'node:crypto';
+import {resolve} from 'node:path';
+import {buildRecordBody} from '../../source/records/build-body.js';
+import {generateKeyPair} from '../../source/records/keys.js';
+import type {BenchRecord} from '../../source/records/record-schema.js';
+import {signRecord} from '../../source/records/sign-record.js';
+import type {Signer} from '../../source/records/sign.js';
+import type {Answers} from '../../source/rules/answers.js';
+import type {CompiledRules} from '../../source/rules/compiled-rules.js';
+import {evaluate} from '../../source/rules/evaluate.js';
+import {loadAnswers} from '../../source/rules/load-answers.js';
+import {loadRules, shippedRulesPath} from '../../source/rules/load.js';
+
+/** The demo answers whose every stop check holds. */
+export const clearDemoPath = resolve('docs', 'examples', 'bench3-808nm-clear.yaml');
+
+/** The shipped rules, loaded and compiled; a failure here fails every test that uses them. */
+export function sampleRules(): CompiledRules {
+	const loaded = loadRules(shippedRulesPath());
+	if (!loaded.ok) throw new Error(`test setup: the shipped rules did not load (${loaded.errors.map((found) => found.code).join(', ')})`);
+	return loaded.value;
+}
+
+/** The clear demo's answers, read against the rules. */
+export function sampleAnswers(rules: CompiledRules): Answers {
+	const loaded = loadAnswers(clearDemoPath, rules);
+	if (!loaded.ok) throw new Error(`test setup: the clear demo did not load (${loaded.errors.map((found) => found.code).join(', ')})`);
+	return loaded.value;
+}
+
+/** One signer with a fresh key, or the key given. */
+export function signerWith(name: string, meaning: Signer['meaning'], key: KeyObject = generateKeyPair().privateKey, role = 'bench operator'): {signer: Signer; key: KeyObject} {
+	return {signer: {name, role, meaning}, key};
+}
+
+/**
+ * A real signed record of the clear demo: shipped rules, evaluated answers, a body built and
+ * signed by prelase's own code. Signers default to one operator with a fresh key.
+ */
+export function sampleRecord(
+	options: {rules?: CompiledRules; answers?: Answers; signers?: ReadonlyArray<{signer: Signer; key: KeyObject}>; now?: Date; operator?: {name: string; role: string}} = {},
+): BenchRecord {
+	const rules = options.rules ?? sampleRules();
+	const answers = options.answers ?? sampleAnswers(rules);
+	const signers = options.signers ?? [signerWith('Ada Operator', 'performed')];
+	const operator = options.operator ?? {name: signers[0]!.signer.name, role: signers[0]!.signer.role};
+	const body = buildRecordBody({rules, answers, evaluation: evaluate(rules, answers), operator, ...(options.now ? {now: options.now} : {})});
+	return signRecord(body, signers, options.now);
+}
+
+/** A record as the store writes it to disk. */
+export function serialise(record: unknown): string {
+	return `${JSON.stringify(record, null, 2)}\n`;
+}
