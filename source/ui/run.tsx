@@ -3,6 +3,11 @@ import {loadRules, shippedRulesPath} from '../rules/load.js';
 import {formatProblem} from '../problems.js';
 import {openSettings} from '../settings.js';
 import {App} from './App.js';
+import {plain} from '../paint.js';
+import {auditRecords} from '../records/audit.js';
+import {listRecordFiles} from '../records/audit-files.js';
+import {auditText} from '../records/audit-text.js';
+import {ownFingerprint, readTrusted} from '../records/key-store.js';
 
 /** Options of the screens: where they start. */
 export type ScreenOptions = {env: NodeJS.ProcessEnv; rules?: string; startCheck?: {setup?: string}; audit?: (folder: string) => string[]; stderr: NodeJS.WriteStream};
@@ -17,8 +22,16 @@ export async function runScreens(options: ScreenOptions): Promise<number> {
 		options.stderr.write('prelase: the rule file has problems; fix them before starting a check\n');
 		return 2;
 	}
+	const audit =
+		options.audit ??
+		((folder: string) => {
+			const {files} = listRecordFiles([folder]);
+			if (files.length === 0) return [`No records in ${folder} yet.`];
+			const report = auditRecords(files, {current: rules.value, trust: {own: ownFingerprint(settings.folder), trusted: readTrusted(settings.folder)}});
+			return auditText(report, plain, process.stdout.columns ?? 80).split('\n');
+		});
 	let code = 0;
-	const instance = render(<App rules={rules.value} settings={settings} env={options.env} {...(options.startCheck ? {startCheck: options.startCheck} : {})} {...(options.audit ? {audit: options.audit} : {})} onExit={(value) => (code = value)} />, {exitOnCtrlC: false});
+	const instance = render(<App rules={rules.value} settings={settings} env={options.env} {...(options.startCheck ? {startCheck: options.startCheck} : {})} audit={audit} onExit={(value) => (code = value)} />, {exitOnCtrlC: false});
 	await instance.waitUntilExit();
 	return code;
 }
