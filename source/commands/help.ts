@@ -5,8 +5,7 @@ export const helpTexts = {
 Usage:
   prelase check --answers FILE [--rules FILE] [--json]
   prelase calc [NAME key=value ... [--json]]
-  prelase rules schema
-  prelase rules validate FILE...
+  prelase rules init FILE | validate FILE... | show [FILE] | diff A B | schema
   prelase keys [export | trust FILE --name NAME | list | forget NAME]
   prelase report RECORD [--format md|html] [--out FILE]
   prelase audit PATH... [--rules FILE] [--json]
@@ -15,7 +14,7 @@ Usage:
 Commands:
   check    Run the bench check over the rule file and report each check's verdict and margin
   calc     Run one bench calculation (dissipation, headroom, wire, ...) on values with units
-  rules    Print the rule file JSON Schema, or validate rule files
+  rules    Site policy: derive, validate, show and compare rule files; the JSON Schema
   keys     Your signing key, and the colleagues' keys you trust
   report   A printable page (Markdown or HTML) of a signed record
   audit    Check signed records: authentic, consistent, and what the current rules change
@@ -121,10 +120,31 @@ outside the calculation's validity.`,
 	rules: `prelase rules — rule files
 
 Usage:
-  prelase rules schema              Print the JSON Schema of rule files (for editors)
-  prelase rules validate FILE...    Load, lint and report every problem with file:line:column
+  prelase rules init FILE           Write a site rule file that extends the shipped policy, with
+                                    every policy value, its default, unit and meaning commented
+                                    out; never overwrites a file
+  prelase rules validate FILE...    Load, resolve extends, lint and report every problem with
+                                    file:line:column
+  prelase rules show [FILE] [--json]
+                                    The effective rules step by step: inputs, confirmations,
+                                    checks with their condition, severity and basis, policy
+                                    values, switched-off checks with reasons, and the file each
+                                    part came from (default: the rule file in force, from
+                                    settings, else the shipped policy)
+  prelase rules diff A B [--json]   What differs in meaning from A to B: policy values (old →
+                                    new), checks added, removed, switched off or changed,
+                                    inputs and confirmations added or removed
+  prelase rules schema [--site]     Print the JSON Schema of rule files (--site: of site rule
+                                    files, those with extends), for editors
 
-Exit status for validate: 0 no problems, 1 problems found, 2 bad usage.`,
+FILE may be "shipped" for the shipped policy. A site rule file names its base with
+extends: shipped (or a path relative to itself) and lists only what it changes; see
+docs/rule-file.md. The laser safety officer decides the site policy.
+
+Exit status:
+  validate  0 no problems, 1 problems found, 2 bad usage
+  diff      0 no differences in meaning, 1 differences, 2 bad usage or a file with problems
+  init, show, schema  0 done, 2 bad usage (init: the file exists)`,
 	report: `prelase report — a printable page of a record
 
 Usage:

@@ -44,11 +44,25 @@ function changedInputs(before: HistoryEntry, after: HistoryEntry): string[] {
  */
 export function relateRecords(entries: readonly HistoryEntry[]): Array<{history: History; findings: Finding[]}> {
 	const results = entries.map(() => ({history: {amendedBy: []} as History, findings: [] as Finding[]}));
-	const order = entries.map((_, index) => index).sort((a, b) => time(entries[a]!) - time(entries[b]!) || entries[a]!.createdAt.localeCompare(entries[b]!.createdAt) || entries[a]!.file.localeCompare(entries[b]!.file));
 	const ref = (index: number): RecordRef => ({file: entries[index]!.file, createdAt: entries[index]!.createdAt});
-
 	const bySha = new Map<string, number>();
-	for (const index of order) if (!bySha.has(entries[index]!.bodySha256)) bySha.set(entries[index]!.bodySha256, index);
+	entries.forEach((entry, index) => {
+		if (!bySha.has(entry.bodySha256)) bySha.set(entry.bodySha256, index);
+	});
+	// An amendment comes after what it corrects, even when both were made in the same second.
+	const depths = new Map<number, number>();
+	const depth = (index: number, seen = new Set<number>()): number => {
+		const known = depths.get(index);
+		if (known !== undefined) return known;
+		const original = entries[index]!.amends ? bySha.get(entries[index]!.amends!.bodySha256) : undefined;
+		seen.add(index);
+		const value = original === undefined || seen.has(original) ? 0 : depth(original, seen) + 1;
+		depths.set(index, value);
+		return value;
+	};
+	const order = entries
+		.map((_, index) => index)
+		.sort((a, b) => time(entries[a]!) - time(entries[b]!) || depth(a) - depth(b) || entries[a]!.createdAt.localeCompare(entries[b]!.createdAt) || entries[a]!.file.localeCompare(entries[b]!.file));
 	entries.forEach((entry, index) => {
 		if (!entry.amends) return;
 		const original = bySha.get(entry.amends.bodySha256);

@@ -2,12 +2,13 @@ import {createHash, type KeyObject} from 'node:crypto';
 import {readFileSync} from 'node:fs';
 import canonicalize from 'canonicalize';
 import {finding, type Finding} from './audit-findings.js';
+import {unsafeJsonKey} from './json-keys.js';
 import {fingerprint, publicKeyFromRaw} from './keys.js';
 import {recordSchema, type BenchRecord, type Signature} from './record-schema.js';
 import {verifyBytes} from './sign.js';
 
 /** Whether one signature verified, and if not, why (a message code). */
-export type SignatureCheck = {index: number; valid: boolean; code?: Finding['code']};
+export type SignatureCheck = {index: number; valid: boolean; code?: Finding['code']; what?: string};
 
 /** A record that passed integrity checking, with the SHA-256 of its canonical body; or why it did not. */
 export type IntegrityCheck =
@@ -49,8 +50,10 @@ export function readIntegrity(path: string, keys: KeyCache): IntegrityCheck {
 }
 
 /**
- * Checks a record's text: it parses as JSON, has the record shape, and every signature
- * verifies with the key it names over the canonical form of the body and its statement.
+ * Checks a record's text as readRecord() does (it parses as JSON, repeats no name and has no
+ * `__proto__` name, has the record shape, and every signature, in canonical base64, verifies
+ * with the key it names over the canonical form of the body and its statement), with each
+ * key parsed once and the body put in canonical form once.
  *
  * The same bytes as signedBytes() in sign.ts, built so that the body is put in canonical
  * form once for every signature and for its SHA-256: RFC 8785 sorts the keys "body" before
@@ -64,6 +67,8 @@ export function checkIntegrity(text: string, keys: KeyCache): IntegrityCheck {
 	} catch (error) {
 		return {ok: false, finding: finding('integrity', 'audit-not-json', {detail: (error as Error).message})};
 	}
+	const unsafe = unsafeJsonKey(text);
+	if (unsafe) return {ok: false, finding: unsafe.kind === 'duplicate' ? finding('integrity', 'audit-duplicate-name', {name: unsafe.name}) : finding('integrity', 'audit-prototype-name')};
 	const parsed = recordSchema.safeParse(data);
 	if (!parsed.success) {
 		const issue = parsed.error.issues[0];
@@ -82,7 +87,7 @@ export function checkIntegrity(text: string, keys: KeyCache): IntegrityCheck {
 	const bad = signatures.find((entry) => !entry.valid);
 	if (bad) {
 		const signer = record.signatures[bad.index]!.signer.name;
-		return {ok: false, record, signatures, finding: finding('integrity', bad.code!, {index: bad.index + 1, signer})};
+		return {ok: false, record, signatures, finding: finding('integrity', bad.code!, {index: bad.index + 1, signer, ...(bad.what ? {what: bad.what} : {})})};
 	}
 	return {ok: true, record, signatures, bodySha256: createHash('sha256').update(body).digest('hex')};
 }
@@ -95,8 +100,11 @@ export function bytesToVerify(canonicalBody: string, statement: Omit<Signature, 
 	return Buffer.from(`{"body":${canonicalBody},"signature":${canonicalize(statement)}}`, 'utf8');
 }
 
-function verifyOne(body: string, signature: Signature, keys: KeyCache): {valid: boolean; code?: Finding['code']} {
+function verifyOne(body: string, signature: Signature, keys: KeyCache): {valid: boolean; code?: Finding['code']; what?: string} {
 	const {value, fingerprint: stated, ...statement} = signature;
+	// Base64 has spare bits: only the one canonical spelling of a key or signature is accepted.
+	if (Buffer.from(value, 'base64').toString('base64') !== value) return {valid: false, code: 'audit-base64-not-canonical', what: 'signature'};
+	if (Buffer.from(signature.publicKey, 'base64').toString('base64') !== signature.publicKey) return {valid: false, code: 'audit-base64-not-canonical', what: 'public key'};
 	const key = keys.get(signature.publicKey);
 	if (!key) return {valid: false, code: 'audit-bad-key'};
 	if (key.fingerprint !== stated) return {valid: false, code: 'audit-fingerprint-mismatch'};

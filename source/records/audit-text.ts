@@ -18,15 +18,6 @@ export function inline(text: string, max = 160): string {
 	return flat.length > max ? `${flat.slice(0, max - 1)}…` : flat;
 }
 
-/**
- * JSON for a terminal or a pipe: the same data, with the characters JSON.stringify leaves raw
- * that a terminal acts on (DEL, C1 controls, bidirectional overrides, line separators)
- * written as \u escapes. A JSON reader gets the exact text back.
- */
-export function terminalSafeJson(value: unknown): string {
-	return JSON.stringify(value, null, 2).replaceAll(/[\u007F-\u009F\u2028\u2029\u202A-\u202E\u2066-\u2069]/g, (char) => `\\u${char.charCodeAt(0).toString(16).padStart(4, '0')}`);
-}
-
 function count(n: number, noun: string): string {
 	return `${n} ${noun}${n === 1 ? '' : 's'}`;
 }

@@ -12,6 +12,7 @@ import {compileFormula, type CompiledFormula} from './formula.js';
 import {lintWithSamples} from './lint-samples.js';
 import {locateInField} from './locate.js';
 import type {NameTable} from './names.js';
+import {wholeFileProvenance, type Place, type Provenance} from './provenance.js';
 import type {RuleFile} from './schema.js';
 
 type Path = Array<string | number>;
@@ -24,10 +25,20 @@ export const formulaFunctionNames: ReadonlySet<string> = new Set([...mathFunctio
  * formula once, orders derived values, then lints with sample values. Reports every
  * problem found, each with file:line:column.
  */
-export function compileRules(rules: RuleFile, source: YamlSource, sha256 = createHash('sha256').update(source.text).digest('hex')): Result<CompiledRules, Problem> {
+export function compileRules(
+	rules: RuleFile,
+	source: YamlSource & {origin?(path: Path): Place},
+	sha256 = createHash('sha256').update(source.text).digest('hex'),
+	provenance: Provenance = wholeFileProvenance(rules, source),
+): Result<CompiledRules, Problem> {
 	const {names, problems} = collectNames(rules, source);
 	const warnings: Problem[] = [];
-	const where = (path: Path, name?: string, text = '') => ({file: source.file, ...locateInField(source, path, name, text), field: path.join('.')});
+	// Merged rules (a site file and its base) locate each part in the file where it was written.
+	const origin = (path: Path): Place => source.origin?.(path) ?? {source, path};
+	const where = (path: Path, name?: string, text = '') => {
+		const at = origin(path);
+		return {file: at.source.file, ...locateInField(at.source, at.path, name, text), field: at.path.join('.')};
+	};
 
 	const quantity = (text: string | number, dimension: Dimension) => parseQuantity(String(text), dimension);
 	const policy = new Map<string, SiValue>();
@@ -38,7 +49,7 @@ export function compileRules(rules: RuleFile, source: YamlSource, sha256 = creat
 	}
 
 	const formula = (text: string, path: Path): CompiledFormula | undefined => {
-		const comment = source.trailingComment(path);
+		const comment = origin(path).source.trailingComment(origin(path).path);
 		if (comment !== undefined) warnings.push(warning('formula-comment', {}, where(path)));
 		const compiled = compileFormula(text, names, formulaFunctionNames);
 		if (compiled.ok) return compiled.formula;
@@ -107,6 +118,7 @@ export function compileRules(rules: RuleFile, source: YamlSource, sha256 = creat
 
 	const stepIds = rules.steps.map((step) => step.id);
 	const checks: CompiledCheck[] = [];
+	const switchedOff: CompiledCheck[] = [];
 	rules.checks.forEach((check, index) => {
 		const path: Path = ['checks', index];
 		if (!stepIds.includes(check.step)) problems.push(problem('missing-step', {step: check.step, allowed: stepIds.join(', ')}, where([...path, 'step'])));
@@ -122,7 +134,8 @@ export function compileRules(rules: RuleFile, source: YamlSource, sha256 = creat
 		for (const placeholder of placeholdersOf(check.message ?? '')) {
 			if (!['value', 'limit', 'margin'].includes(placeholder) && !names.has(placeholder)) problems.push(problem('unknown-placeholder', {placeholder: `{{${placeholder}}}`}, where([...path, 'message'])));
 		}
-		checks.push(compiled);
+		// A switched-off check is compiled (its formulas must still make sense) but never evaluated.
+		(check.switched_off === undefined ? checks : switchedOff).push(compiled);
 	});
 
 	if (problems.length > 0) return failure(problems);
@@ -138,6 +151,8 @@ export function compileRules(rules: RuleFile, source: YamlSource, sha256 = creat
 		confirmations,
 		derived: ordered,
 		checks,
+		switchedOff,
+		provenance,
 	};
 	const lint = lintWithSamples(compiled, (path, name, text) => where(path, name, text));
 	if (lint.length > 0) return failure(lint);

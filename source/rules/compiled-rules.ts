@@ -1,6 +1,7 @@
 import type {Dimension} from '../quantities/dimensions.js';
 import type {CompiledFormula} from './formula.js';
 import type {NameTable} from './names.js';
+import type {Provenance} from './provenance.js';
 import type {Check, Confirmation, Derived, Input, RuleFile, Step, Table} from './schema.js';
 
 /** A quantity held as an SI number with its dimension. */
@@ -38,5 +39,10 @@ export type CompiledRules = {
 	confirmations: ReadonlyMap<string, CompiledConfirmation>;
 	/** In dependency order: each derived value comes after those it uses. */
 	derived: readonly CompiledDerived[];
+	/** The checks that are evaluated, in the order of the file. */
 	checks: readonly CompiledCheck[];
+	/** Checks a site file switched off (each with `check.switched_off`, the reason): kept, never evaluated. */
+	switchedOff: readonly CompiledCheck[];
+	/** Which file each policy value, step, input, confirmation and check came from. */
+	provenance: Provenance;
 };

@@ -15,7 +15,9 @@ function json(value: Shown): JsonValue {
 
 /**
  * The evaluation as plain JSON data, the shape `prelase check --json` prints and records
- * build on. Values carry SI numbers with their unit and the text shown to people.
+ * build on. Values carry SI numbers with their unit and the text shown to people. Checks a
+ * site file switched off are not evaluated; `rules.switchedOff` lists them with their reasons
+ * (a record keeps them in its embedded rule text).
  */
 export function evaluationToJson(rules: CompiledRules, answers: Answers, evaluation: Evaluation) {
 	const counts: Record<Verdict, number> = {pass: 0, fail: 0, advise: 0, open: 0, skip: 0};
@@ -28,7 +30,13 @@ export function evaluationToJson(rules: CompiledRules, answers: Answers, evaluat
 	}
 	return {
 		tool: {name: 'prelase', version},
-		rules: {name: rules.rules.name, file: rules.file, sha256: rules.sha256},
+		rules: {
+			name: rules.rules.name,
+			file: rules.file,
+			sha256: rules.sha256,
+			// Listed only when there are some, so the shape for the shipped policy stays as it was.
+			...(rules.switchedOff.length > 0 ? {switchedOff: rules.switchedOff.map(({check}) => ({id: check.id, title: check.title, reason: check.switched_off ?? ''}))} : {}),
+		},
 		setup: answers.setup ?? null,
 		outcome: evaluation.outcome,
 		outcomeText: outcomeWords[evaluation.outcome],

@@ -110,6 +110,7 @@ export const checkSchema = object({
 		explanation: words.describe('One line: why this check exists'),
 		message: string().optional().describe('Shown when the check does not hold; {{value}}, {{limit}}, {{margin}} and names are filled in'),
 		basis: words,
+		switched_off: words.optional().describe('Why this check is switched off: it is kept for the record but not evaluated (set by a site file\'s switched_off)'),
 	})
 	.strict()
 	.superRefine((check, context) => {

@@ -149,7 +149,7 @@ export function App({rules, settings, env, startCheck, audit, onExit}: AppProps)
 	};
 
 	let body;
-	if (screen === 'home') body = <HomeScreen rulesName={rules.rules.name} caution={rules.rules.caution} {...(draft ? {draft: {setup: draft.setup, savedAt: draft.savedAt}} : {})} setups={listSetups(settings.folder)} onChoose={choose} />;
+	if (screen === 'home') body = <HomeScreen rulesName={rules.rules.name} rulesFile={displayPath(rules.file)} rulesSha256={rules.sha256} caution={rules.rules.caution} {...(draft ? {draft: {setup: draft.setup, savedAt: draft.savedAt}} : {})} setups={listSetups(settings.folder)} onChoose={choose} />;
 	else if (screen === 'step')
 		body = (
 			<StepScreen

@@ -5,6 +5,7 @@ import {afterAll, beforeAll, describe, expect, it} from 'vitest';
 import {main} from '../../source/cli.js';
 import {auditRecords, type AuditReport, type RecordAudit} from '../../source/records/audit.js';
 import {listRecordFiles} from '../../source/records/audit-files.js';
+import {relateRecords} from '../../source/records/audit-history.js';
 import {KeyCache, bytesToVerify, checkIntegrity} from '../../source/records/audit-integrity.js';
 import {canonicalBytes} from '../../source/records/canonical.js';
 import {bodySha256} from '../../source/records/build-body.js';
@@ -129,6 +130,21 @@ describe('integrity failures (exit 3)', () => {
 			code: 'audit-signature-invalid',
 		},
 		{name: 'the signer renamed', make: () => JSON.stringify({...clean, signatures: [{...clean.signatures[0]!, signer: {name: 'Someone Else', role: 'test engineer'}}]}), code: 'audit-signature-invalid'},
+		{name: 'a name repeated in the body (JSON.parse keeps the last)', make: () => cleanText.replace('"kind": "bench-check",', '"kind": "bench-check",\n    "outcome": "do_not_energize",'), code: 'audit-duplicate-name'},
+		{name: 'a "__proto__" name', make: () => cleanText.replace('"kind": "bench-check",', '"kind": "bench-check",\n    "__proto__": {},'), code: 'audit-prototype-name'},
+		{
+			name: 'a signature in non-canonical base64 (spare bits set)',
+			make: () => {
+				const value = clean.signatures[0]!.value;
+				const last = value.at(-3)!;
+				const alphabet = 'ABCDEFGHIJKLMNOPQRSTUVWXYZabcdefghijklmnopqrstuvwxyz0123456789+/';
+				// The last character before "==" carries 4 spare bits; setting one keeps the bytes the same.
+				const spelled = `${value.slice(0, -3)}${alphabet[alphabet.indexOf(last) | 1]}==`;
+				if (spelled === value) return JSON.stringify({...clean, signatures: [{...clean.signatures[0]!, value: `${value.slice(0, -3)}${alphabet[alphabet.indexOf(last) | 2]}==`}]});
+				return JSON.stringify({...clean, signatures: [{...clean.signatures[0]!, value: spelled}]});
+			},
+			code: 'audit-base64-not-canonical',
+		},
 		{name: 'cut short', make: () => cleanText.slice(0, 5000), code: 'audit-not-json'},
 		{name: 'JSON that is not a record', make: () => '{"hello": "world"}', code: 'audit-not-record'},
 	];
@@ -313,6 +329,20 @@ describe('across records', () => {
 		expect(codes(byFile.get(second)!)).toEqual([]);
 		expect(byFile.get(third)!.history?.setupChangedFrom).toMatchObject({file: second, changed: ['location']});
 		expect(byFile.get(third)!.findings).toEqual([expect.objectContaining({kind: 'history', code: 'audit-setup-changed', data: expect.objectContaining({changed: 'location'})})]);
+	});
+});
+
+describe('relating records', () => {
+	it('puts an amendment after its original even when both carry the same second', () => {
+		const at = '2026-12-01T10:00:00+00:00';
+		const identifying = {location: 'Room B.112, bench 3'};
+		const original = {file: 'b-original.json', bodySha256: 'a'.repeat(64), createdAt: at, setupName: 'bench 3', fingerprint: 'sha256:1', identifying};
+		const amendment = {...original, file: 'a-amendment.json', bodySha256: 'b'.repeat(64), amends: {record: 'b-original.json', bodySha256: 'a'.repeat(64), reason: 'typo'}};
+		const [forAmendment, forOriginal] = relateRecords([amendment, original]);
+		expect(forOriginal!.history.supersededBy).toEqual({file: 'a-amendment.json', createdAt: at});
+		expect(forOriginal!.findings.map((found) => found.code)).toEqual(['audit-amended-by']);
+		expect(forAmendment!.history.supersededBy).toBeUndefined();
+		expect(forAmendment!.findings).toEqual([]);
 	});
 });
 
