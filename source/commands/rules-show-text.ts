@@ -25,8 +25,9 @@ export function showText(show: RulesShow): string {
 	if (show.chain.length > 1) lines.push(`        ${show.chain.map((file, index) => (index === 0 ? file : `extends ${file}`)).join(', ')}`);
 	lines.push('', 'CAUTION', `  ${show.caution}`, `  ${deferral}`, '', 'Policy values');
 	for (const entry of show.policy) {
-		const previous = entry.previous ? ` (was ${entry.previous.value} in ${entry.previous.file})` : '';
-		lines.push(`  ${entry.id} = ${entry.value} (${entry.dimension})  from ${at(entry.from)}${previous}`, `      ${entry.meaning}`, `      basis: ${entry.basis}`);
+		lines.push(`  ${entry.id} = ${entry.value} (${entry.dimension})  from ${at(entry.from)}`);
+		if (entry.previous) lines.push(`      was ${entry.previous.value} in ${entry.previous.file}`);
+		lines.push(`      ${entry.meaning}`, `      basis: ${entry.basis}`);
 	}
 	if (show.tables.length > 0) {
 		lines.push('', 'Tables');

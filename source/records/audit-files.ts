@@ -8,10 +8,15 @@ function skipped(name: string): boolean {
 	return name.startsWith('.') || name.endsWith('.tmp');
 }
 
+/** In a folder, only `.json` files are taken as records; other files (a README, notes) are left alone. */
+function recordName(name: string): boolean {
+	return name.endsWith('.json');
+}
+
 /**
  * Expands record files and folders into the files to audit: folders recursively, in name
- * order, leaving out dotfiles, dot-folders and `*.tmp` (a write in progress). A file named
- * on its own is always audited. Each file is listed once, however it was reached.
+ * order, taking `.json` files and leaving out dotfiles, dot-folders and `*.tmp` (a write in
+ * progress). A file named on its own is always audited. Each file is listed once, however it was reached.
  */
 export function listRecordFiles(paths: readonly string[]): RecordFiles {
 	const files: string[] = [];
@@ -34,7 +39,7 @@ export function listRecordFiles(paths: readonly string[]): RecordFiles {
 			const stat = statSync(path, {throwIfNoEntry: false});
 			if (stat?.isDirectory()) walk(path);
 			// A dangling link is audited too, so that it is reported as unreadable rather than passed over.
-			else if (stat || lstatSync(path, {throwIfNoEntry: false})) add(path);
+			else if (recordName(name) && (stat || lstatSync(path, {throwIfNoEntry: false}))) add(path);
 		}
 	};
 	for (const path of paths) {

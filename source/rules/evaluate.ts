@@ -140,7 +140,7 @@ function judge(compiled: CompiledCheck, compute: (formula: CompiledFormula) => C
 	if (needs.length > 0) return {...base, verdict: 'open', needs};
 	for (const {result} of results) if (!result.ok && !result.needs) return failWith(result.error);
 
-	const fill = (extra: Record<string, string>) => (check.message ? fillPlaceholders(check.message, {...placeholderValues(scope), ...extra}) : undefined);
+	const fill = (extra: Record<string, string>) => (check.message ? fillPlaceholders(check.message, {...placeholderValues(scope, check.message), ...extra}) : undefined);
 	if (compiled.holds) {
 		const held = (results[0]!.result as {value: unknown}).value;
 		if (held === true) return {...base, verdict: 'pass'};
@@ -163,9 +163,13 @@ function judge(compiled: CompiledCheck, compute: (formula: CompiledFormula) => C
 	return {...base, verdict: notHeld, ...shown, ...(message ? {message} : {})};
 }
 
-function placeholderValues(scope: Map<string, unknown>): Record<string, string> {
+/** The text of each name a message's placeholders use (only those: formatting every value is slow). */
+function placeholderValues(scope: Map<string, unknown>, message: string): Record<string, string> {
 	const values: Record<string, string> = {};
-	for (const [name, value] of scope) {
+	for (const match of message.matchAll(/\{\{\s*([a-zA-Z_]\w*)\s*\}\}/g)) {
+		const name = match[1]!;
+		if (!scope.has(name)) continue;
+		const value = scope.get(name);
 		if (typeof value === 'function') continue;
 		const dimension = inferDimension(value);
 		values[name] = dimension && (typeof value === 'number' || isQuantity(value)) ? toShown(value, dimension).text : String(value);
