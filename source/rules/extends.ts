@@ -137,7 +137,7 @@ function mergeSite(base: ResolvedRules, site: SiteFile, source: YamlSource, sha2
 		severityChanges.set(id, {from: check.severity, to: change.severity, reason: change.reason});
 		check.severity = change.severity;
 		mapTo(['checks', index, 'severity'], ['checks_changed', id, 'severity']);
-		book.set(`check.${id}.severity`, source, ['checks_changed', id]);
+		book.set(`check.${id}.severity`, source, ['checks_changed', id, 'severity']);
 	}
 	for (const [id, reason] of Object.entries(site.switched_off)) {
 		const index = findCheck('switched_off', id);
