@@ -1,5 +1,7 @@
 import Conf from 'conf';
-import {dirname} from 'node:path';
+import envPaths from 'env-paths';
+import {existsSync, readFileSync} from 'node:fs';
+import {dirname, join} from 'node:path';
 import {z} from 'zod';
 import {UsageError} from './usage-error.js';
 
@@ -18,6 +20,30 @@ export type Settings = {
 const settingsSchema = z
 	.object({operator: z.string().optional(), role: z.string().optional(), recordsFolder: z.string().optional(), rulesFile: z.string().optional()})
 	.strip();
+
+/** Where the settings file is: the same place conf uses (PRELASE_HOME, else the platform's config folder). */
+export function settingsFile(env: NodeJS.ProcessEnv = process.env): string {
+	const home = env['PRELASE_HOME'];
+	return join(home ?? envPaths('prelase', {suffix: ''}).config, 'config.json');
+}
+
+/**
+ * Reads the settings without opening the store: the non-interactive check needs only the rule
+ * file in force, and start-up time is a feature. Writing always goes through openSettings.
+ */
+export function readSettings(env: NodeJS.ProcessEnv = process.env): Settings {
+	const path = settingsFile(env);
+	if (!existsSync(path)) return {};
+	let data: unknown;
+	try {
+		data = JSON.parse(readFileSync(path, 'utf8'));
+	} catch (error) {
+		throw new UsageError(`the settings file ${path} cannot be read (${(error as Error).message}); fix or remove it`);
+	}
+	const parsed = settingsSchema.safeParse(data);
+	if (!parsed.success) throw new UsageError(`the settings file ${path} is not valid: ${parsed.error.issues[0]?.message ?? 'unknown problem'}; fix or remove it`);
+	return parsed.data as Settings;
+}
 
 /** The settings store and the folder it lives in (keys live beside it). */
 export type SettingsStore = {folder: string; path: string; read(): Settings; write(changes: Settings): void};

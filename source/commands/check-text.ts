@@ -87,6 +87,11 @@ export function checkText(rules: CompiledRules, answers: Answers, evaluation: Ev
 		for (const entry of evaluation.confirmations.filter((item) => item.step === step.id)) out.push(...confirmationLines(entry, paint, width));
 	});
 
+	if (rules.switchedOff.length > 0) {
+		out.push('', paint.bold('Switched off by the rule file'));
+		for (const {check} of rules.switchedOff) out.push(...wrap(`- off      ${stripControl(check.title)}: ${stripControl(check.switched_off ?? '')}`, width, '             ').map((line, index) => (index === 0 ? `   ${line.trimStart()}` : line)));
+	}
+
 	const counts = {fail: 0, advise: 0, open: 0, pass: 0, skip: 0};
 	for (const check of evaluation.checks) counts[check.verdict] += 1;
 	out.push('', paint.bold(`Summary: ${counts.fail} fail · ${counts.advise} advise · ${counts.open} open · ${counts.pass} pass · ${counts.skip} skip`));
