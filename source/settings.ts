@@ -2,7 +2,8 @@ import Conf from 'conf';
 import envPaths from 'env-paths';
 import {existsSync, readFileSync} from 'node:fs';
 import {dirname, join} from 'node:path';
-import {z} from 'zod';
+// Named imports (not the z namespace) let the bundler leave out the parts of zod not used.
+import {object, string} from 'zod';
 import {UsageError} from './usage-error.js';
 
 /** What prelase remembers between runs. */
@@ -17,8 +18,7 @@ export type Settings = {
 	rulesFile?: string;
 };
 
-const settingsSchema = z
-	.object({operator: z.string().optional(), role: z.string().optional(), recordsFolder: z.string().optional(), rulesFile: z.string().optional()})
+const settingsSchema = object({operator: string().optional(), role: string().optional(), recordsFolder: string().optional(), rulesFile: string().optional()})
 	.strip();
 
 /** Where the settings file is: the same place conf uses (PRELASE_HOME, else the platform's config folder). */

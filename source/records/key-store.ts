@@ -1,14 +1,15 @@
 import {chmodSync, existsSync, mkdirSync, readFileSync, statSync, writeFileSync} from 'node:fs';
 import {createPrivateKey, createPublicKey, type KeyObject} from 'node:crypto';
 import {join} from 'node:path';
-import {z} from 'zod';
+// Named imports (not the z namespace) let the bundler leave out the parts of zod not used.
+import {array, object, string} from 'zod';
 import {UsageError} from '../usage-error.js';
 import {fingerprint, generateKeyPair, rawPublicKey} from './keys.js';
 
 /** A colleague's public key that this operator trusts. */
 export type TrustedKey = {name: string; publicKey: string; fingerprint: string; addedAt: string};
 
-const trustedSchema = z.array(z.object({name: z.string(), publicKey: z.string(), fingerprint: z.string(), addedAt: z.string()}).strict());
+const trustedSchema = array(object({name: string(), publicKey: string(), fingerprint: string(), addedAt: string()}).strict());
 
 /** Where the operator's keys and trusted keys live: a `keys` folder beside the settings. */
 export function keyFolder(settingsFolder: string): string {
