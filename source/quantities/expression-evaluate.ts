@@ -13,10 +13,15 @@ export class EvaluationError extends Error {
 	}
 }
 
-/** A name with no value in the scope (an input not given): the caller decides what that means. */
-export class MissingValueError extends Error {
+/**
+ * A name with no value in the scope (an input not given): the caller decides what that means.
+ * Not an Error: it is thrown often while a check is open, and capturing a stack each time is slow.
+ */
+export class MissingValueError {
+	readonly message: string;
+
 	constructor(readonly missingName: string) {
-		super(`"${missingName}" has no value`);
+		this.message = `"${missingName}" has no value`;
 	}
 }
 
