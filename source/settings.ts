@@ -54,22 +54,25 @@ export type SettingsStore = {folder: string; path: string; read(): Settings; wri
  */
 export function openSettings(env: NodeJS.ProcessEnv = process.env): SettingsStore {
 	const home = env['PRELASE_HOME'];
-	let store: Conf<Settings>;
-	try {
-		store = new Conf<Settings>({projectName: 'prelase', projectSuffix: '', configFileMode: 0o600, clearInvalidConfig: false, ...(home ? {cwd: home} : {})});
-	} catch (error) {
-		throw new UsageError(`the settings file cannot be read (${(error as Error).message}); fix or remove it`);
-	}
+	const path = settingsFile(env);
+	// The conf store is built only when something is written: reading is a plain file read.
+	let store: Conf<Settings> | undefined;
+	const open = (): Conf<Settings> => {
+		if (store) return store;
+		try {
+			store = new Conf<Settings>({projectName: 'prelase', projectSuffix: '', configFileMode: 0o600, clearInvalidConfig: false, ...(home ? {cwd: home} : {})});
+		} catch (error) {
+			throw new UsageError(`the settings file cannot be read (${(error as Error).message}); fix or remove it`);
+		}
+		return store;
+	};
 	return {
-		folder: dirname(store.path),
-		path: store.path,
-		read() {
-			const parsed = settingsSchema.safeParse(store.store);
-			if (!parsed.success) throw new UsageError(`the settings file ${store.path} is not valid: ${parsed.error.issues[0]?.message ?? 'unknown problem'}; fix or remove it`);
-			return parsed.data as Settings;
-		},
+		folder: dirname(path),
+		path,
+		read: () => readSettings(env),
 		write(changes) {
-			for (const [key, value] of Object.entries(changes)) if (value !== undefined) store.set(key, value);
+			const target = open();
+			for (const [key, value] of Object.entries(changes)) if (value !== undefined) target.set(key, value);
 		},
 	};
 }

@@ -27,7 +27,7 @@ export type AppProps = {
 	/** Start straight in the bench check (`prelase check`), optionally from a saved setup. */
 	startCheck?: {setup?: string};
 	/** Audits the records folder and returns lines to show (kept outside so the core stays out of the screens). */
-	audit?: (folder: string) => string[];
+	audit?: (folder: string) => Promise<string[]>;
 	onExit(code: number): void;
 };
 
@@ -96,7 +96,11 @@ export function App({rules, settings, env, startCheck, audit, onExit}: AppProps)
 				return setScreen('info');
 			case 'audit': {
 				const folder = settings.read().recordsFolder ?? `${settings.folder}/records`;
-				setInfo({title: `Audit of ${folder}`, lines: audit ? audit(folder) : [`Run: prelase audit ${folder}`]});
+				setInfo({title: `Audit of ${folder}`, lines: audit ? ['Auditing…'] : [`Run: prelase audit ${folder}`]});
+				audit?.(folder).then(
+					(lines) => setInfo({title: `Audit of ${folder}`, lines}),
+					(error: unknown) => setInfo({title: `Audit of ${folder}`, lines: [`The audit stopped: ${(error as Error).message}`]}),
+				);
 				return setScreen('info');
 			}
 			case 'settings':

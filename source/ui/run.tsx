@@ -4,13 +4,10 @@ import {formatProblem} from '../problems.js';
 import {openSettings} from '../settings.js';
 import {App} from './App.js';
 import {plain} from '../paint.js';
-import {auditRecords} from '../records/audit.js';
-import {listRecordFiles} from '../records/audit-files.js';
-import {auditText} from '../records/audit-text.js';
-import {ownFingerprint, readTrusted} from '../records/key-store.js';
+
 
 /** Options of the screens: where they start. */
-export type ScreenOptions = {env: NodeJS.ProcessEnv; rules?: string; startCheck?: {setup?: string}; audit?: (folder: string) => string[]; stderr: NodeJS.WriteStream};
+export type ScreenOptions = {env: NodeJS.ProcessEnv; rules?: string; startCheck?: {setup?: string}; audit?: (folder: string) => Promise<string[]>; stderr: NodeJS.WriteStream};
 
 /** Runs the interactive screens until the operator leaves; returns the exit status. */
 export async function runScreens(options: ScreenOptions): Promise<number> {
@@ -24,7 +21,14 @@ export async function runScreens(options: ScreenOptions): Promise<number> {
 	}
 	const audit =
 		options.audit ??
-		((folder: string) => {
+		(async (folder: string) => {
+			// The audit is loaded when asked for, not before the home screen's first frame.
+			const [{listRecordFiles}, {auditRecords}, {auditText}, {ownFingerprint, readTrusted}] = await Promise.all([
+				import('../records/audit-files.js'),
+				import('../records/audit.js'),
+				import('../records/audit-text.js'),
+				import('../records/key-store.js'),
+			]);
 			const {files} = listRecordFiles([folder]);
 			if (files.length === 0) return [`No records in ${folder} yet.`];
 			const report = auditRecords(files, {current: rules.value, trust: {own: ownFingerprint(settings.folder), trusted: readTrusted(settings.folder)}});
