@@ -3,6 +3,7 @@ import {runCalc} from './commands/calc.js';
 import {runCheck, type Io} from './commands/check.js';
 import {helpTexts} from './commands/help.js';
 import {runKeys} from './commands/keys.js';
+import {runPlan} from './commands/plan.js';
 import {runReport} from './commands/report.js';
 import {runRules} from './commands/rules.js';
 import {formatProblem} from './problems.js';
@@ -11,7 +12,7 @@ import {didYouMean} from './rules/names.js';
 import {UsageError} from './usage-error.js';
 import {version} from './version.js';
 
-const commands: Record<string, (args: string[], io: Io) => number | Promise<number>> = {check: runCheck, calc: runCalc, rules: runRules, keys: runKeys, report: runReport, audit: runAudit};
+const commands: Record<string, (args: string[], io: Io) => number | Promise<number>> = {check: runCheck, calc: runCalc, rules: runRules, keys: runKeys, report: runReport, audit: runAudit, plan: runPlan};
 
 /** Runs the program with its arguments; returns the exit status. Never throws. */
 export function main(argv: string[], io: Io): number | Promise<number> {

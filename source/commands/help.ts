@@ -9,6 +9,7 @@ Usage:
   prelase keys [export | trust FILE --name NAME | list | forget NAME]
   prelase report RECORD [--format md|html] [--out FILE]
   prelase audit PATH... [--rules FILE] [--json]
+  prelase plan FILE [--json | --test-sheet md]
   prelase --help | --version
 
 Commands:
@@ -18,6 +19,7 @@ Commands:
   keys     Your signing key, and the colleagues' keys you trust
   report   A printable page (Markdown or HTML) of a signed record
   audit    Check signed records: authentic, consistent, and what the current rules change
+  plan     Analyse an interlock loop plan and print its functional test sheet
 
 Every command takes --help. NO_COLOR turns colour off.
 The shipped bench policy is rules/default.yaml; --rules FILE uses a site policy instead.
@@ -167,4 +169,36 @@ Exit status:
   0  the report was printed or written
   2  bad usage (no RECORD, unknown format, FILE exists)
   3  the record fails its integrity check (altered, unsigned, unreadable); nothing is printed`,
+	plan: `prelase plan — the interlock planner
+
+Usage:
+  prelase plan FILE [--json]
+  prelase plan FILE --test-sheet md
+
+Reads an interlock plan (YAML: the driver's interlock input, the access points, the devices of
+the loop in wiring order, and the interlock policy; see docs/interlock.md) and prints the loop
+figures and every finding with its severity and the device or access point it concerns:
+  loop        contacts plus every wire run (copper at the stated temperature) against the
+              input's closed threshold less the policy margin; loop current and voltage
+              against every contact's rating
+  fail-safe   every device normally closed and in series; emergency stops positive-opening;
+              a bypass key or shorting plug allowed by policy, with owner, reason and time limit
+  coverage    every access point a beam can be reached through is interlocked or tool-secured,
+              by a device that exists
+  response    each device's opening time + input response + driver disable and fall time
+              within the policy's largest response time; manual reset for class 4
+
+Options:
+  --json            Print the figures, findings and verdict as JSON
+  --test-sheet md   Print the functional test sheet (Markdown) with blanks for the result,
+                    initials and date of every step
+  -h, --help        Show this help
+
+Exit status:
+  0  no stop finding (or the test sheet was printed)
+  1  one or more stop findings
+  2  bad usage or a bad plan file (the message names the file, line and field)
+
+The planner says which findings it has; it never says a loop is safe. The laser safety
+officer and the codes in force (IEC 60825 series, ANSI Z136 series, local law) decide.`,
 } as const;

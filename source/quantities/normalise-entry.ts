@@ -6,7 +6,7 @@ export function normaliseEntry(text: string): string {
 	return text
 		.trim()
 		.replaceAll(/[µμ]/g, 'u')
-		.replaceAll(/\s*[ΩΩ]/g, ' ohm')
+		.replaceAll(/[ΩΩ]/g, 'ohm')
 		.replaceAll(/\s*°\s*C\b/g, ' degC')
 		.replaceAll(/\s*°\s*F\b/g, ' degF')
 		.replaceAll('−', '-')

@@ -12,6 +12,8 @@ const valid: Array<{name: string; entry: string; dimension: Dimension; si: numbe
 	{name: 'ohm spelled out', entry: '1.2 ohm', dimension: 'resistance', si: 1.2},
 	{name: 'ohm sign', entry: '1.2 Ω', dimension: 'resistance', si: 1.2},
 	{name: 'milliohm', entry: '50 mohm', dimension: 'resistance', si: 0.05},
+	{name: 'milliohm with the ohm sign', entry: '50 mΩ', dimension: 'resistance', si: 0.05},
+	{name: 'kilohm with the ohm sign, no space', entry: '4.7kΩ', dimension: 'resistance', si: 4700},
 	{name: 'percent', entry: '10 %', dimension: 'ratio', si: 0.1},
 	{name: 'percent without space', entry: '5%', dimension: 'ratio', si: 0.05},
 	{name: 'plain fraction', entry: '0.1', dimension: 'ratio', si: 0.1},

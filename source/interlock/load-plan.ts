@@ -1,0 +1,40 @@
+import {problem, type Problem} from '../problems.js';
+import {failure, success, type Result} from '../result.js';
+import {schemaProblems} from '../rules/schema-problems.js';
+import {parseYamlSource, readTextFile, type YamlSource} from '../yaml-source.js';
+import {planSchema, type Plan} from './plan-schema.js';
+
+/** What a plan file is, for messages about the wrong kind of file. */
+export const planFileExpected = 'a prelase interlock plan (YAML)';
+
+/** Reads and validates an interlock plan; every problem names file:line:column. */
+export function loadPlan(file: string): Result<Plan, Problem> {
+	const text = readTextFile(file, planFileExpected);
+	if (!text.ok) return text;
+	return loadPlanFromText(text.value, file);
+}
+
+/** The same as loadPlan, for text already in hand. */
+export function loadPlanFromText(text: string, file: string): Result<Plan, Problem> {
+	const parsed = parseYamlSource(text, file, planFileExpected);
+	if (!parsed.ok) return parsed;
+	const source = parsed.value;
+	const validated = planSchema.safeParse(source.data);
+	if (!validated.success) return failure(schemaProblems(validated.error.issues, source));
+	const duplicates = duplicateIds(validated.data, source);
+	if (duplicates.length > 0) return failure(duplicates);
+	return success(validated.data, parsed.warnings);
+}
+
+/** Device and access point ids share one name space, so a finding's subject is never ambiguous. */
+function duplicateIds(plan: Plan, source: YamlSource): Problem[] {
+	const seen = new Map<string, string>();
+	const problems: Problem[] = [];
+	const entries = [...plan.access_points.map((point, index) => ({id: point.id, path: ['access_points', index, 'id']})), ...plan.devices.map((device, index) => ({id: device.id, path: ['devices', index, 'id']}))];
+	for (const {id, path} of entries) {
+		const first = seen.get(id);
+		if (first === undefined) seen.set(id, path.slice(0, 2).join('.'));
+		else problems.push(problem('interlock-duplicate-id', {id, first}, {file: source.file, ...source.locate(path), field: path.join('.')}));
+	}
+	return problems;
+}

@@ -1,0 +1,84 @@
+import {mkdtempSync, readFileSync, writeFileSync} from 'node:fs';
+import {tmpdir} from 'node:os';
+import {join} from 'node:path';
+import {describe, expect, it} from 'vitest';
+import {main} from '../../source/cli.js';
+import {fakeIo} from '../helpers/fake-io.js';
+
+const demoFile = 'docs/examples/interlock/bench3-interlock-plan.yaml';
+
+function run(...argv: string[]) {
+	const io = fakeIo();
+	const code = main(argv, io);
+	if (typeof code !== 'number') throw new Error('plan is synchronous');
+	return {code, stdout: io.stdout.text, stderr: io.stderr.text};
+}
+
+/** The demo with the emergency stop wired normally open and the side panel left unsecured. */
+function faultyPlan(): string {
+	const text = readFileSync(demoFile, 'utf8')
+		.replace('FH-ES1 mushroom emergency stop on the bench front\n    contact: normally_closed', 'FH-ES1 mushroom emergency stop on the bench front\n    contact: normally_open')
+		.replace('beam_reachable: true\n    secured_by: tool', 'beam_reachable: true\n    secured_by: none');
+	const file = join(mkdtempSync(join(tmpdir(), 'prelase-plan-')), 'faulty.yaml');
+	writeFileSync(file, text);
+	return file;
+}
+
+describe('prelase plan', () => {
+	it('prints the loop figures, no findings and the verdict for the demo, exit 0', () => {
+		const {code, stdout, stderr} = run('plan', demoFile);
+		expect(stderr).toBe('');
+		expect(code).toBe(0);
+		expect(stdout).toContain('resistance  3.42 Ω (contacts 480 mΩ + wire 2.94 Ω at 30 °C)');
+		expect(stdout).toContain('allowed     75 Ω (input reads 100 Ω as closed, less 25 %)');
+		expect(stdout).toContain('response    16.5 ms at the slowest, chiller_flow; policy allows 20 ms');
+		expect(stdout).toContain('Verdict: No stop findings, 0 advise findings');
+		expect(stdout).toContain('laser safety officer');
+	});
+
+	it('lists every stop finding with what it concerns, exit 1', () => {
+		const {code, stdout} = run('plan', faultyPlan());
+		expect(code).toBe(1);
+		expect(stdout).toContain('STOP    device estop_bench: a normally-open contact in the loop');
+		expect(stdout).toContain('STOP    access point side_panel: a beam can be reached through this access point');
+		expect(stdout).toContain('Verdict: 2 stop findings, 0 advise findings');
+	});
+
+	it('prints the JSON contract', () => {
+		const {code, stdout} = run('plan', faultyPlan(), '--json');
+		expect(code).toBe(1);
+		const result = JSON.parse(stdout) as {loop: Record<string, {si: number; text: string}>; findings: Array<{severity: string; code: string; subject: unknown; message: string}>; verdict: {stops: number; advises: number}};
+		expect(result.loop['contacts']).toEqual({si: expect.closeTo(0.48, 12) as number, text: '480 mΩ'});
+		expect(result.loop['current']).toEqual({si: 0.01, text: '10 mA'});
+		expect(result.findings.map((entry) => [entry.severity, entry.code, entry.subject])).toEqual([
+			['stop', 'interlock-normally-open', {kind: 'device', id: 'estop_bench'}],
+			['stop', 'interlock-access-unsecured', {kind: 'access_point', id: 'side_panel'}],
+		]);
+		expect(result.verdict).toMatchObject({stops: 2, advises: 0});
+	});
+
+	it('prints the test sheet in Markdown, exit 0', () => {
+		const {code, stdout} = run('plan', demoFile, '--test-sheet', 'md');
+		expect(code).toBe(0);
+		expect(stdout).toMatch(/^# Interlock functional test — Fenwick Hollow/);
+		expect(stdout.split('\n').filter((line) => /^\| \d+ \|/.test(line))).toHaveLength(11);
+	});
+
+	it.each([
+		{name: 'no FILE', argv: ['plan'], says: 'plan needs a plan FILE'},
+		{name: 'a missing file', argv: ['plan', 'no-such-plan.yaml'], says: 'no-such-plan.yaml: error: cannot read the file (no such file)'},
+		{name: 'an unknown sheet format', argv: ['plan', demoFile, '--test-sheet', 'pdf'], says: 'unknown test sheet format "pdf"'},
+		{name: 'an unknown option', argv: ['plan', demoFile, '--jsn'], says: 'did you mean "--json"'},
+		{name: 'a rule file instead of a plan', argv: ['plan', 'rules/default.yaml'], says: 'error: policy: unknown fields "current_margin"'},
+	])('refuses $name with exit 2', ({argv, says}) => {
+		const {code, stderr} = run(...argv);
+		expect(code).toBe(2);
+		expect(stderr).toContain(says);
+		expect(stderr).not.toContain('internal error');
+	});
+
+	it('has help, and a line in the main usage', () => {
+		expect(run('plan', '--help').stdout).toContain('prelase plan FILE --test-sheet md');
+		expect(run('--help').stdout).toContain('prelase plan FILE [--json | --test-sheet md]');
+	});
+});
