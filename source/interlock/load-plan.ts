@@ -20,7 +20,7 @@ export function loadPlanFromText(text: string, file: string): Result<Plan, Probl
 	if (!parsed.ok) return parsed;
 	const source = parsed.value;
 	const validated = planSchema.safeParse(source.data);
-	if (!validated.success) return failure(schemaProblems(validated.error.issues, source));
+	if (!validated.success) return failure(schemaProblems(validated.error.issues, source, 'docs/interlock.md'));
 	const duplicates = duplicateIds(validated.data, source);
 	if (duplicates.length > 0) return failure(duplicates);
 	return success(validated.data, parsed.warnings);

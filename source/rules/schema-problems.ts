@@ -3,20 +3,20 @@ import {problem, type Problem} from '../problems.js';
 import type {YamlSource} from '../yaml-source.js';
 
 /** Turns zod issues into problems located in the YAML source. */
-export function schemaProblems(issues: readonly z.core.$ZodIssue[], source: YamlSource): Problem[] {
+export function schemaProblems(issues: readonly z.core.$ZodIssue[], source: YamlSource, reference = 'prelase rules schema'): Problem[] {
 	return issues.map((issue) => {
 		const path = issue.path.filter((part): part is string | number => typeof part !== 'symbol');
 		// An unknown field is best shown where it is written, not where its mapping starts.
 		const at = issue.code === 'unrecognized_keys' && issue.keys[0] !== undefined ? [...path, issue.keys[0]] : path;
 		const where = {file: source.file, ...source.locate(at), field: path.join('.') || '(top level)'};
-		return problem('schema', {detail: schemaDetail(issue, source, path)}, where);
+		return problem('schema', {detail: schemaDetail(issue, source, path, reference)}, where);
 	});
 }
 
-function schemaDetail(issue: z.core.$ZodIssue, source: YamlSource, path: Array<string | number>): string {
+function schemaDetail(issue: z.core.$ZodIssue, source: YamlSource, path: Array<string | number>, reference: string): string {
 	switch (issue.code) {
 		case 'unrecognized_keys':
-			return `unknown field${issue.keys.length > 1 ? 's' : ''} ${issue.keys.map((key) => `"${key}"`).join(', ')}; check the spelling (see prelase rules schema)`;
+			return `unknown field${issue.keys.length > 1 ? 's' : ''} ${issue.keys.map((key) => `"${key}"`).join(', ')}; check the spelling (see ${reference})`;
 		case 'invalid_type': {
 			const present = path.reduce<unknown>((value, key) => (value && typeof value === 'object' ? (value as Record<string | number, unknown>)[key] : undefined), source.data);
 			if (present === undefined) return `required field missing: expected ${issue.expected}`;
