@@ -17,7 +17,7 @@ export const heatsink: Calculation = {
 	},
 	main: 'theta_sa',
 	formula: 'θ_sa = (T_max − T_ambient)/P − θ_jc − θ_cs',
-	basis: ['T_j = T_a + P·(θ_jc + θ_cs + θ_sa): Sedra & Smith, Microelectronic Circuits, power-amplifier chapter (from memory); lecture notes on transistor heat sinking'],
+	basis: ['T_j = T_a + P·(θ_jc + θ_cs + θ_sa): Sedra & Smith, Microelectronic Circuits, power-amplifier chapter (from memory); a published worked example of transistor heat sinking'],
 	compute: ({power, ambient, max_temperature, theta_jc, theta_cs}) => {
 		const total = (max_temperature! - ambient!) / power!;
 		return {theta_sa: total - theta_jc! - theta_cs!, theta_total: total};

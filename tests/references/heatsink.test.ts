@@ -3,8 +3,7 @@ import {heatsink} from '../../source/calculations/heatsink.js';
 
 const kelvin = (celsius: number) => celsius + 273.15;
 
-// Published worked example (lecture notes on transistor heat sinking, section 10 of the
-// project's reference sheet): θ_jc = 3.125 °C/W, θ_cs + θ_sa = 13 °C/W, T_A = 25 °C;
+// A published worked example of transistor heat sinking: θ_jc = 3.125 °C/W, θ_cs + θ_sa = 13 °C/W, T_A = 25 °C;
 // P_D = 3.9 W gives T_C = 76 °C and T_J = 88 °C; P_D = 6 W gives T_C = 103 °C.
 const cases = [
 	{name: 'case at 76 °C with 3.9 W: θ_cs + θ_sa = 13 °C/W', power: 3.9, ambient: kelvin(25), max_temperature: kelvin(76), theta_jc: 0, theta_cs: 0, theta_sa: 13, tolerance: 0.13}, // worked example: T_C = 76 °C at 3.9 W (rounded to 1 °C: ±0.5 K / 3.9 W = ±0.13 K/W)

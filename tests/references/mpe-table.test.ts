@@ -32,7 +32,7 @@ const exact = 1e-9;
 // prettier-ignore
 const references: Reference[] = [
 	// Visible, 400–700 nm
-	{name: '532 nm, 0.25 s: 18·0.25^0.75 = 6.36396 J/m², E = 25.4558 W/m²', wavelength: 532, duration: 0.25, editions: both, E: 25.455844, tolerance: 1e-7, row: 'H = 18·t^0.75'}, // IEC-2007 handout (seen) 18·t^0.75 row; IEC-2014 "same" (REFERENCES 1.2); FoS-2015 (seen)
+	{name: '532 nm, 0.25 s: 18·0.25^0.75 = 6.36396 J/m², E = 25.4558 W/m²', wavelength: 532, duration: 0.25, editions: both, E: 25.455844, tolerance: 1e-7, row: 'H = 18·t^0.75'}, // IEC-2007 handout (seen) 18·t^0.75 row; IEC-2014 the same row (from memory, high); FoS-2015 (seen)
 	{name: '532 nm, 1 ps: 1.5×10⁻⁴ J/m² (2007)', wavelength: 532, duration: 1e-12, editions: [2007], H: 1.5e-4, tolerance: exact, row: '10⁻¹³–10⁻¹¹ s'}, // IEC-2007 handout (seen): 400–700 nm, 10⁻¹³–10⁻¹¹ s
 	{name: '532 nm, 1 ps: 1.5×10⁻⁴ J/m² (2014, from memory, medium)', wavelength: 532, duration: 1e-12, editions: [2014], H: 1.5e-4, tolerance: exact, row: '10⁻¹³–10⁻¹¹ s'}, // IEC-2014 (from memory, medium): "same" as 2007
 	{name: '532 nm, 100 ps: 2.7×10⁴·(10⁻¹⁰)^0.75 = 8.5381×10⁻⁴ J/m² (2007)', wavelength: 532, duration: 1e-10, editions: [2007], H: 2.7e4 * 10 ** -7.5, tolerance: exact, row: '2.7×10⁴·t^0.75'}, // IEC-2007 handout (seen): 10⁻¹¹–10⁻⁹ s row
@@ -62,7 +62,7 @@ const references: Reference[] = [
 	// 1400–1500 nm corneal 1000 W/m² (from memory, high), which prelase uses as a cautious cap while the lens limit is not implemented
 	{name: '1300 nm, 100 s: capped at the corneal 1000 W/m² (2014)', wavelength: 1300, duration: 100, editions: [2014], E: 1000, tolerance: exact, row: 'cautious cap'}, // cap by the 1400–1500 nm row (from memory, high)
 	// Far IR (cornea)
-	{name: '1550 nm, 100 s: E = 1000 W/m² (100 mW/cm²)', wavelength: 1550, duration: 100, editions: both, E: 1000, tolerance: exact, row: '10 s–3×10⁴ s: E = 1000 W/m²'}, // REFERENCES 1.3 (from memory, high)
+	{name: '1550 nm, 100 s: E = 1000 W/m² (100 mW/cm²)', wavelength: 1550, duration: 100, editions: both, E: 1000, tolerance: exact, row: '10 s–3×10⁴ s: E = 1000 W/m²'}, // IEC 60825-1 far-infrared row, 10 s–3×10⁴ s (from memory, high)
 	{name: '1550 nm, 1 ns: H = 10⁴ J/m² (1 J/cm²)', wavelength: 1550, duration: 1e-9, editions: both, H: 1e4, tolerance: exact, row: '1500–1800 nm, up to 10 s'}, // IEC-2007 handout (seen): 1500–1800 nm, 10⁻⁹–10 s
 	{name: '1450 nm, 10 µs: H = 10³ J/m²', wavelength: 1450, duration: 1e-5, editions: both, H: 1e3, tolerance: exact, row: '1400–1500 nm, up to 1 ms'}, // IEC-2007 handout (seen)
 	{name: '2000 nm, 10 ms: 5600·0.01^0.25 = 1770.88 J/m²', wavelength: 2000, duration: 0.01, editions: both, H: 5600 * 0.1 ** 0.5, tolerance: exact, row: '1800–2600 nm, 1 ms–10 s'}, // IEC-2007 handout (seen)
@@ -193,7 +193,7 @@ const boundaries: Boundary[] = [
 		lower: {wavelength: 1064, duration: below(1.3e-5), row: 'up to 13 µs', H: 2e-2}, upper: {wavelength: 1064, duration: above(1.3e-5), row: '13 µs–10 s', H: 90 * 1.3e-5 ** 0.75}, step: 0.027},
 	{name: '1064 nm at 50 µs (2007): 5×10⁻² → 90·(5×10⁻⁵)^0.75 = 5.3514×10⁻² J/m² (7.0 %, the table\'s rounding)', editions: [2007], // IEC-2007 handout (seen)
 		lower: {wavelength: 1064, duration: below(5e-5), row: 'up to 50 µs', H: 5e-2}, upper: {wavelength: 1064, duration: above(5e-5), row: '50 µs–10 s', H: 90 * 5e-5 ** 0.75}, step: 0.071},
-	{name: '532 nm at 10 s: 18·10^0.75 = 101.22 → 10 W/m²·10 s = 100 J/m² (1.2 %)', editions: both, // IEC-2007 handout (seen); REFERENCES "things not to assume" 2
+	{name: '532 nm at 10 s: 18·10^0.75 = 101.22 → 10 W/m²·10 s = 100 J/m² (1.2 %)', editions: both, // IEC-2007 handout (seen); the two rows meet at 10 s with a 1.2 % step
 		lower: {wavelength: 532, duration: below(10), row: 'H = 18·t^0.75', H: 18 * 10 ** 0.75}, upper: {wavelength: 532, duration: above(10), row: '10 s–3×10⁴ s', H: 100}, step: 0.013},
 	{name: '808 nm at 10 s: 18·C_A·10^0.75 → 10·C_A·10 (1.2 %)', editions: both, // IEC-2007 handout (seen) + from memory (high)
 		lower: {wavelength: 808, duration: below(10), row: '18·C_A·t^0.75', H: 18 * 10 ** 0.75 * 10 ** 0.216}, upper: {wavelength: 808, duration: above(10), row: '10 s–3×10⁴ s', H: 100 * 10 ** 0.216}, step: 0.013},
@@ -251,7 +251,7 @@ describe('ocular MPE on each side of every table edge', () => {
 
 describe('a duration exactly on a breakpoint belongs to the longer-duration row', () => {
 	it('532 nm at exactly 10 s is 10 W/m², not 18·10^0.75/10 = 10.122 W/m²', () => {
-		// REFERENCES "things not to assume" 2: 1.0 mW/cm² (long-duration row) vs 1.0122 mW/cm²
+		// the rows meet at 10 s: 1.0 mW/cm² (long-duration row) vs 1.0122 mW/cm²
 		const result = ocularMpe(532, 10);
 		expect(result.irradiance).toBe(10);
 		expect(result.limit).toContain('10 s–3×10⁴ s');
