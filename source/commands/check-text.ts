@@ -3,18 +3,17 @@ import type {Paint} from '../paint.js';
 import type {Answers, InputAnswer} from '../rules/answers.js';
 import type {Input} from '../rules/schema.js';
 import type {CompiledRules} from '../rules/compiled-rules.js';
-import {outcomeWords, type CheckResult, type ConfirmationResult, type Evaluation} from '../rules/evaluation.js';
+import {outcomeWords, type CheckResult, type ConfirmationResult, type Evaluation, type Verdict} from '../rules/evaluation.js';
 import {formatQuantity} from '../quantities/format.js';
 import {stripControl} from '../text.js';
+import {confirmationWords, countVerdicts, verdictWords} from '../rules/verdict-words.js';
 import {version} from '../version.js';
 import {wrap} from '../wrap.js';
 import {displayPath} from '../display-path.js';
 
-const verdictLabel = {pass: '✓ pass', fail: '✗ FAIL', advise: '! advise', open: '? open', skip: '- skip'} as const;
-const confirmationLabel = {yes: '✓ yes', no: '✗ NO', not_applicable: '- n/a', unanswered: '? unanswered', skip: '- skip', open: '? open'} as const;
 const order = {fail: 0, advise: 1, open: 2, pass: 3, skip: 4} as const;
 
-function paintVerdict(paint: Paint, verdict: keyof typeof verdictLabel, text: string): string {
+function paintVerdict(paint: Paint, verdict: Verdict, text: string): string {
 	if (verdict === 'pass') return paint.pass(text);
 	if (verdict === 'fail') return paint.fail(text);
 	if (verdict === 'advise') return paint.advise(text);
@@ -34,7 +33,7 @@ export function checkFigures(check: CheckResult): string | undefined {
 }
 
 function checkLines(check: CheckResult, paint: Paint, width: number, withMessage: boolean): string[] {
-	const label = paintVerdict(paint, check.verdict, verdictLabel[check.verdict].padEnd(12));
+	const label = paintVerdict(paint, check.verdict, verdictWords[check.verdict].padEnd(12));
 	const lines = wrap(check.title, width, '                ');
 	lines[0] = `   ${label} ${lines[0]!.trimStart()}`;
 	const figures = checkFigures(check);
@@ -47,7 +46,7 @@ function checkLines(check: CheckResult, paint: Paint, width: number, withMessage
 
 function confirmationLines(entry: ConfirmationResult, paint: Paint, width: number): string[] {
 	const status = entry.status;
-	const text = confirmationLabel[status].padEnd(12);
+	const text = confirmationWords[status].padEnd(12);
 	const painted = status === 'yes' ? paint.pass(text) : status === 'no' ? paint.fail(text) : status === 'unanswered' || status === 'open' ? paint.open(text) : paint.dim(text);
 	const lines = wrap(entry.statement, width, '                ');
 	lines[0] = `   ${painted} ${lines[0]!.trimStart()}`;
@@ -92,8 +91,7 @@ export function checkText(rules: CompiledRules, answers: Answers, evaluation: Ev
 		for (const {check} of rules.switchedOff) out.push(...wrap(`- off      ${stripControl(check.title)}: ${stripControl(check.switched_off ?? '')}`, width, '             ').map((line, index) => (index === 0 ? `   ${line.trimStart()}` : line)));
 	}
 
-	const counts = {fail: 0, advise: 0, open: 0, pass: 0, skip: 0};
-	for (const check of evaluation.checks) counts[check.verdict] += 1;
+	const counts = countVerdicts(evaluation.checks);
 	out.push('', paint.bold(`Summary: ${counts.fail} fail · ${counts.advise} advise · ${counts.open} open · ${counts.pass} pass · ${counts.skip} skip`));
 	const notable = evaluation.checks.filter((check) => check.verdict !== 'pass' && check.verdict !== 'skip').sort((a, b) => order[a.verdict] - order[b.verdict]);
 	for (const check of notable) out.push(...checkLines(check, paint, width, true));

@@ -1,3 +1,4 @@
+import {countVerdicts} from '../rules/verdict-words.js';
 import {formatQuantity} from '../quantities/format.js';
 import type {CompiledRules} from '../rules/compiled-rules.js';
 import {outcomeWords, type Evaluation, type Shown, type Verdict} from '../rules/evaluation.js';
@@ -85,8 +86,7 @@ function checkFindings(body: RecordBody, evaluation: Evaluation): Finding[] {
 	for (const id of recorded.keys()) found.push(finding('consistency', 'audit-check-extra', {id}));
 
 	// The counts summarise the record's own list of checks (whose verdicts are compared above).
-	const counts: Record<Verdict, number> = {pass: 0, fail: 0, advise: 0, open: 0, skip: 0};
-	for (const check of body.checks) counts[check.verdict] += 1;
+	const counts = countVerdicts(body.checks);
 	const countsDiffer = Object.keys({...counts, ...body.counts}).some((key) => (body.counts[key] ?? 0) !== (counts[key as Verdict] ?? 0));
 	if (countsDiffer) found.push(finding('consistency', 'audit-counts-mismatch', {recorded: describeCounts(body.counts), computed: describeCounts(counts)}));
 	return found;

@@ -1,3 +1,4 @@
+import {verdictWords} from '../rules/verdict-words.js';
 import {deferral} from '../deferral.js';
 import {displayPath} from '../display-path.js';
 import type {Paint} from '../paint.js';
@@ -22,7 +23,6 @@ function count(n: number, noun: string): string {
 	return `${n} ${noun}${n === 1 ? '' : 's'}`;
 }
 
-const verdictWords = {pass: '✓ pass', fail: '✗ FAIL', advise: '! advise', open: '? open', skip: '- skip'} as const;
 
 function row(term: string, text: string, width: number): string[] {
 	const lines = wrap(text, width, ' '.repeat(17));

@@ -1,3 +1,4 @@
+import {verdictWords} from '../rules/verdict-words.js';
 import {formatQuantity, roundedText} from '../quantities/format.js';
 import {outcomeWords} from '../rules/evaluation.js';
 import {stripControl} from '../text.js';
@@ -16,7 +17,6 @@ export type SignatureStatus = {index: number; valid: boolean; reason?: string};
 export type TrustInfo = {own?: string; trusted: readonly TrustedKey[]};
 
 /** Verdicts and answers as a word with a symbol, so they read without colour. */
-export const verdictWords = {pass: '✓ pass', fail: '✗ FAIL', advise: '! advise', open: '? open', skip: '– skip'} as const;
 /** Confirmation answers as a word with a symbol. */
 export const answerWords = {yes: '✓ yes', no: '✗ NO', not_applicable: '– not applicable', unanswered: '? unanswered', skip: '– skip', open: '? open'} as const;
 

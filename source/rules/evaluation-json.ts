@@ -5,6 +5,7 @@ import type {Answers} from './answers.js';
 import type {CompiledRules} from './compiled-rules.js';
 import {outcomeWords, type Evaluation, type Shown, type Verdict} from './evaluation.js';
 import {shownSi} from './shown.js';
+import {countVerdicts} from './verdict-words.js';
 
 /** A value in the JSON output: SI number, its SI unit, and the text a person reads. */
 export type JsonValue = {si: number; unit: string; text: string};
@@ -20,8 +21,7 @@ function json(value: Shown): JsonValue {
  * (a record keeps them in its embedded rule text).
  */
 export function evaluationToJson(rules: CompiledRules, answers: Answers, evaluation: Evaluation) {
-	const counts: Record<Verdict, number> = {pass: 0, fail: 0, advise: 0, open: 0, skip: 0};
-	for (const check of evaluation.checks) counts[check.verdict] += 1;
+	const counts = countVerdicts(evaluation.checks);
 	const inputs: Record<string, {entered: string} & Partial<JsonValue> & {option?: string; value?: boolean | string}> = {};
 	for (const [id, answer] of answers.inputs) {
 		if (answer.kind === 'quantity') inputs[id] = {entered: answer.entered, ...json(shownSi(answer.si, answer.dimension))};

@@ -5,6 +5,7 @@ import {deferral} from '../deferral.js';
 import type {CheckResult} from '../rules/evaluation.js';
 import {stripControl} from '../text.js';
 import {wrap} from '../wrap.js';
+import {countVerdicts} from '../rules/verdict-words.js';
 import type {Session} from './session.js';
 import {confirmationStyle, outcomeStyle, verdictStyle} from './verdict-style.js';
 
@@ -51,8 +52,7 @@ export function SummaryScreen({session, rows, width = 80, onSign, onBack, onHelp
 		else if (key.escape) onBack();
 		else if (input === '?') onHelp();
 	}, {isActive: active});
-	const counts = {fail: 0, advise: 0, open: 0, pass: 0, skip: 0};
-	for (const check of evaluation.checks) counts[check.verdict] += 1;
+	const counts = countVerdicts(evaluation.checks);
 	const outcome = outcomeStyle[evaluation.outcome];
 	return (
 		<Box flexDirection="column">
