@@ -1,4 +1,5 @@
-import {Box, Text, useInput} from 'ink';
+import {Box, Text} from 'ink';
+import {useKeystrokes} from './use-keystrokes.js';
 import {useState} from 'react';
 import {deferral} from '../deferral.js';
 import {stripControl} from '../text.js';
@@ -7,7 +8,7 @@ import {outcomeStyle} from './verdict-style.js';
 /** After signing: where the record is, and saving the inputs as a named setup. */
 export function DoneScreen(props: {path: string; fingerprint: string; outcome: keyof typeof outcomeStyle; setup: string; onSaveSetup(): string; onHome(): void}) {
 	const [saved, setSaved] = useState<string | undefined>();
-	useInput((input, key) => {
+	useKeystrokes((input, key) => {
 		if (input === 's' && !saved) setSaved(props.onSaveSetup());
 		else if (key.return || key.escape) props.onHome();
 	});

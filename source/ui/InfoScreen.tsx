@@ -1,9 +1,10 @@
-import {Box, Text, useInput} from 'ink';
+import {Box, Text} from 'ink';
+import {useKeystrokes} from './use-keystrokes.js';
 import {stripControl} from '../text.js';
 
 /** A page of lines (rules in force, audit results, messages); Esc or Enter goes back. */
 export function InfoScreen({title, lines, onBack}: {title: string; lines: string[]; onBack(): void}) {
-	useInput((_input, key) => {
+	useKeystrokes((_input, key) => {
 		if (key.escape || key.return) onBack();
 	});
 	return (

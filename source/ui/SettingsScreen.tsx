@@ -1,7 +1,8 @@
-import {Box, Text, useInput, type Key} from 'ink';
+import {Box, Text, type Key} from 'ink';
+import {useKeystrokes} from './use-keystrokes.js';
 import {useReducer, useRef} from 'react';
 import type {Settings} from '../settings.js';
-import {eachLine, typeInto} from './text-buffer.js';
+import {typeInto} from './text-buffer.js';
 
 const fields: Array<{key: keyof Settings; label: string}> = [
 	{key: 'operator', label: 'Operator name'},
@@ -20,7 +21,7 @@ export function SettingsScreen({initial, path, onSave, onBack}: {initial: Settin
 		rerender();
 	};
 	const setFocus = (focus: number) => set({focus});
-	useInput((chunk, chunkKey) => eachLine(chunk, chunkKey, handleKey));
+	useKeystrokes(handleKey);
 	function handleKey(input: string, key: Key) {
 		const {values, focus} = state.current;
 		if (key.ctrl) return;

@@ -1,9 +1,10 @@
-import {Box, Text, useInput, type Key} from 'ink';
+import {Box, Text, type Key} from 'ink';
+import {useKeystrokes} from './use-keystrokes.js';
 import {useReducer, useRef} from 'react';
 import {outcomeWords} from '../rules/evaluation.js';
 import {stripControl} from '../text.js';
 import type {Session} from './session.js';
-import {eachLine, typeInto} from './text-buffer.js';
+import {typeInto} from './text-buffer.js';
 
 /** What the sign-off form collects. */
 export type SignOffForm = {setup: string; name: string; role: string; cosignName: string; cosignRole: string; cosignKey: string};
@@ -28,7 +29,7 @@ export function SignOffScreen({session, initial, error, onSign, onBack}: {sessio
 	};
 	const setFocus = (focus: number) => set({focus});
 	const setMessage = (message: string | undefined) => set({message});
-	useInput((chunk, chunkKey) => eachLine(chunk, chunkKey, handleKey));
+	useKeystrokes(handleKey);
 	function handleKey(input: string, key: Key) {
 		const {form, focus} = state.current;
 		const onButton = focus === fields.length;

@@ -1,10 +1,11 @@
-import {Box, Text, useInput, type Key} from 'ink';
+import {Box, Text, type Key} from 'ink';
+import {useKeystrokes} from './use-keystrokes.js';
 import {useReducer, useRef} from 'react';
 import {stripControl} from '../text.js';
 import {ChecksPanel} from './ChecksPanel.js';
 import {FieldList} from './FieldList.js';
 import {answerConfirmation, enterInput, stepFields, type Field, type Session} from './session.js';
-import {eachLine, typeInto} from './text-buffer.js';
+import {typeInto} from './text-buffer.js';
 
 /** Props of one step of the bench check. */
 export type StepScreenProps = {
@@ -93,7 +94,7 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 		return apply(answerConfirmation(current, field.id, answer, note ?? current.confirmations[field.id]?.note));
 	};
 
-	useInput((chunk, chunkKey) => eachLine(chunk, chunkKey, handleKey), {isActive: active});
+	useKeystrokes(handleKey, {isActive: active});
 	function handleKey(input: string, key: Key) {
 		if (key.ctrl) return;
 		const state = editor.current!;

@@ -1,4 +1,5 @@
-import {Box, Text, useInput} from 'ink';
+import {Box, Text} from 'ink';
+import {useKeystrokes} from './use-keystrokes.js';
 import {useState} from 'react';
 import {checkFigures} from '../commands/check-text.js';
 import {deferral} from '../deferral.js';
@@ -43,7 +44,7 @@ export function SummaryScreen({session, rows, width = 80, onSign, onBack, onHelp
 	const room = Math.max(3, rows - 12);
 	const lines = wrapped;
 	const maxOffset = Math.max(0, lines.length - room);
-	useInput((input, key) => {
+	useKeystrokes((input, key) => {
 		if (key.upArrow) setOffset(Math.max(0, offset - 1));
 		else if (key.downArrow) setOffset(Math.min(maxOffset, offset + 1));
 		else if (key.pageDown) setOffset(Math.min(maxOffset, offset + room));
