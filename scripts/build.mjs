@@ -1,5 +1,6 @@
 // Bundles prelase into one ESM file started with plain node (start-up time is a feature).
 import {build} from 'esbuild';
+import {bundleOptions} from './bundle-options.mjs';
 import {createHash} from 'node:crypto';
 import {readFileSync} from 'node:fs';
 import {parseDocument} from 'yaml';
@@ -14,18 +15,8 @@ if (shippedDocument.errors.length > 0) throw new Error(`rules/default.yaml: ${sh
 const shipped = {sha256: createHash('sha256').update(shippedText).digest('hex'), data: shippedDocument.toJS()};
 
 await build({
+	...bundleOptions,
 	entryPoints: ['source/main.ts'],
 	outfile: 'dist/prelase.js',
-	bundle: true,
-	platform: 'node',
-	format: 'esm',
-	target: 'node20',
-	// Whitespace and syntax only: names stay, so a bug report's stack trace still reads.
-	minifyWhitespace: true,
-	minifySyntax: true,
-	legalComments: 'none',
-	banner: {js: "#!/usr/bin/env node\nimport {createRequire as __cr} from 'node:module'; const require = __cr(import.meta.url);"},
 	define: {'process.env.NODE_ENV': '"production"', PRELASE_VERSION: JSON.stringify(version), PRELASE_SHIPPED_RULES: JSON.stringify(JSON.stringify(shipped))},
-	alias: {'react-devtools-core': './scripts/react-devtools-stub.mjs'},
-	logLevel: 'warning',
 });
