@@ -1,5 +1,5 @@
 import {Box, Text, useApp, useInput, useStdout} from 'ink';
-import {useEffect, useRef, useState} from 'react';
+import {useEffect, useMemo, useRef, useState} from 'react';
 import {signAndWrite} from '../commands/sign-check.js';
 import {loadDraft, removeDraft, saveDraft, type Draft} from '../drafts/draft-store.js';
 import {listSetups, loadSetup, saveSetup} from '../drafts/setup-store.js';
@@ -54,6 +54,10 @@ export function App({rules, settings, env, startCheck, audit, onExit}: AppProps)
 	const [signError, setSignError] = useState<string | undefined>();
 	const [written, setWritten] = useState<{path: string; fingerprint: string} | undefined>();
 	const [draft, setDraft] = useState<Draft | undefined>(() => loadDraft(settings.folder));
+
+	// Read from disk when a screen is entered, not on every frame drawn.
+	const setups = useMemo(() => (screen === 'home' ? listSetups(settings.folder) : []), [screen]);
+	const saved = useMemo(() => settings.read(), [screen]);
 
 	const quit = (code: number) => {
 		onExit(code);
@@ -153,7 +157,7 @@ export function App({rules, settings, env, startCheck, audit, onExit}: AppProps)
 	};
 
 	let body;
-	if (screen === 'home') body = <HomeScreen rulesName={rules.rules.name} rulesFile={displayPath(rules.file)} rulesSha256={rules.sha256} caution={rules.rules.caution} {...(draft ? {draft: {setup: draft.setup, savedAt: draft.savedAt}} : {})} setups={listSetups(settings.folder)} onChoose={choose} />;
+	if (screen === 'home') body = <HomeScreen rulesName={rules.rules.name} rulesFile={displayPath(rules.file)} rulesSha256={rules.sha256} caution={rules.rules.caution} {...(draft ? {draft: {setup: draft.setup, savedAt: draft.savedAt}} : {})} setups={setups} onChoose={choose} />;
 	else if (screen === 'step')
 		body = (
 			<StepScreen
@@ -172,7 +176,6 @@ export function App({rules, settings, env, startCheck, audit, onExit}: AppProps)
 		);
 	else if (screen === 'summary') body = <SummaryScreen session={session} rows={rows - 3} width={width} onSign={() => setScreen('signoff')} onBack={() => setScreen('step')} onHelp={() => setHelp(true)} active={!help} />;
 	else if (screen === 'signoff') {
-		const saved = settings.read();
 		body = <SignOffScreen session={session} initial={{setup: session.setup, name: saved.operator ?? '', role: saved.role ?? '', cosignName: '', cosignRole: '', cosignKey: ''}} {...(signError ? {error: signError} : {})} onSign={sign} onBack={() => setScreen('summary')} />;
 	} else if (screen === 'done' && written)
 		body = (
@@ -185,7 +188,7 @@ export function App({rules, settings, env, startCheck, audit, onExit}: AppProps)
 				onHome={() => setScreen('home')}
 			/>
 		);
-	else if (screen === 'settings') body = <SettingsScreen initial={settings.read()} path={settings.path} onSave={(changes) => settings.write(changes)} onBack={() => setScreen('home')} />;
+	else if (screen === 'settings') body = <SettingsScreen initial={saved} path={settings.path} onSave={(changes) => settings.write(changes)} onBack={() => setScreen('home')} />;
 	else body = <InfoScreen title={info.title} lines={info.lines} onBack={() => setScreen('home')} />;
 
 	return (
