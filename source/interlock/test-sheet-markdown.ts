@@ -13,7 +13,7 @@ export function testSheetMarkdown(sheet: TestSheet): string {
 		'',
 		'Follow the laser safety officer\'s procedure for interlock tests (beam power, detector, eyewear, who is present). Time each stop with a detector on the beam or the driver\'s output current.',
 		'',
-		`Largest response time (policy): ${sheet.limit}. Repeat this test at least every ${sheet.intervalDays} days (policy), and after any change to the loop.`,
+		`Largest response time (policy): ${sheet.limit}. Repeat this test at least every ${sheet.interval} (policy), and after any change to the loop.`,
 		'',
 		'Tested by: ____________________   Witness: ____________________   Date: ____________',
 		'',
