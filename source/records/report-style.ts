@@ -1,11 +1,10 @@
 /**
- * The printed report's style: black on white, system fonts only, page margins that suit both
- * A4 and Letter (the printer picks the size), check rows kept whole across page breaks, and
- * verdicts marked by words, weight and border style so they read without colour. `footer`
- * is printed at the foot of every page; it goes into a CSS string, so only plain words,
- * digits and a little punctuation are kept.
+ * The base of every printed page: black on white, system fonts only, page margins that suit
+ * both A4 and Letter (the printer picks the size), a bordered caution box, and table rows kept
+ * whole across page breaks. `footer` is printed at the foot of every page; it goes into a CSS
+ * string, so only plain words, digits and a little punctuation are kept.
  */
-export function reportStyle(footer: string): string {
+export function pageStyle(footer: string): string {
 	const safe = footer.replaceAll(/[^A-Za-z0-9 .·:-]/g, '');
 	return `
 @page { margin: 16mm 15mm 17mm 15mm; @bottom-left { content: "${safe}"; font: 8pt Arial, "Liberation Sans", "DejaVu Sans", sans-serif; } @bottom-right { content: "page " counter(page) " of " counter(pages); font: 8pt Arial, "Liberation Sans", "DejaVu Sans", sans-serif; } }
@@ -14,28 +13,37 @@ body { font: 9pt/1.3 "Helvetica Neue", Arial, "Liberation Sans", "DejaVu Sans", 
 @media print { body { max-width: none; padding: 0; } }
 h1 { font-size: 16pt; margin: 0 0 2mm; }
 h2 { font-size: 12pt; margin: 6mm 0 2mm; border-bottom: 1px solid #000; break-after: avoid; }
-.kind { margin: 0; font-size: 9pt; text-transform: uppercase; letter-spacing: 0.06em; }
-.outcome { font-size: 12pt; margin: 0 0 3mm; }
-.outcome-do_not_energize strong, .outcome-incomplete strong { border: 2px solid #000; padding: 0.5mm 2mm; }
-.outcome-clear_to_energize strong { border: 1px solid #000; padding: 0.5mm 2mm; }
 .caution { border: 2px solid #000; padding: 2mm 4mm; margin: 3mm 0; break-inside: avoid; }
 .caution h2 { border: 0; margin: 1mm 0; font-size: 10pt; text-transform: uppercase; letter-spacing: 0.06em; }
 .caution p { margin: 1mm 0; }
 .deferral { font-weight: bold; }
 table { width: 100%; border-collapse: collapse; table-layout: fixed; margin: 1mm 0 3mm; }
-caption { text-align: left; font-weight: bold; padding: 1mm 0; caption-side: top; break-after: avoid; }
 thead { display: table-header-group; }
-
 th { text-align: left; vertical-align: bottom; border-bottom: 1.5px solid #000; padding: 1mm 1.5mm; font-size: 8.5pt; }
 td { vertical-align: top; padding: 0.8mm 1.5mm; border-bottom: 0.5px solid #888; overflow-wrap: anywhere; }
-tr, tbody.check, tbody.signature { break-inside: avoid; }
+tr { break-inside: avoid; }
+.number { white-space: nowrap; overflow-wrap: normal; }
+`;
+}
+
+/**
+ * The printed report's style: the page base, check rows kept whole across page breaks, and
+ * verdicts marked by words, weight and border style so they read without colour.
+ */
+export function reportStyle(footer: string): string {
+	return `${pageStyle(footer)}
+.kind { margin: 0; font-size: 9pt; text-transform: uppercase; letter-spacing: 0.06em; }
+.outcome { font-size: 12pt; margin: 0 0 3mm; }
+.outcome-do_not_energize strong, .outcome-incomplete strong { border: 2px solid #000; padding: 0.5mm 2mm; }
+.outcome-clear_to_energize strong { border: 1px solid #000; padding: 0.5mm 2mm; }
+caption { text-align: left; font-weight: bold; padding: 1mm 0; caption-side: top; break-after: avoid; }
+tbody.check, tbody.signature { break-inside: avoid; }
 /* A caption and header never sit alone at a page foot. */
 caption, thead { break-after: avoid; }
 tbody.check tr:first-child td, tbody.signature tr:first-child td { border-bottom: 0; padding-bottom: 0; }
 tr.detail td { font-size: 8.5pt; padding-top: 0.5mm; }
 tr.detail p { margin: 0 0 0.5mm; }
 .basis { font-style: italic; }
-.number { white-space: nowrap; overflow-wrap: normal; }
 code { font: 8pt "DejaVu Sans Mono", Menlo, Consolas, monospace; overflow-wrap: anywhere; }
 .hash { font-size: 7pt; word-break: break-all; }
 .verdict { font-weight: bold; overflow-wrap: normal; }
