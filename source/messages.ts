@@ -121,8 +121,11 @@ export const messages = {
 	'interlock-access-unknown-device': 'the access point is interlocked by "{{device}}", which is not a device of the loop{{hint}}',
 	'interlock-guards-nothing': 'no access point names this {{kind}}; say which access point it interlocks',
 	'interlock-response': 'opening {{opening}} + input response {{input}} + driver disable and fall {{disable}} = {{total}}, above the policy\'s {{limit}}',
-	'interlock-manual-reset': 'the policy requires a manual reset for class 4, but the input does not latch: closing the loop again would restart emission',
+	'interlock-manual-reset': 'class 4 needs a manual reset, but the input does not latch: closing the loop again would restart emission',
 	'interlock-no-emergency-stop': 'the loop has no emergency stop',
+	'interlock-policy-missing': 'the interlock policy value {{name}} ({{noun}}) is missing from the rule file; add it under policy (a site file: add_policy)',
+	'interlock-policy-dimension': 'the interlock policy value {{name}} must be {{noun}}, not {{actual}}',
+	'interlock-plan-policy': 'the interlock policy is read from the rule file, not the plan: remove policy from the plan and set the interlock_* policy values in the rule file (prelase rules show)',
 	'interlock-run-missing': 'no wire run is given {{where}}, so the loop resistance leaves it out; add {{field}}',
 } as const;
 

@@ -4,8 +4,7 @@ import {formatProblem} from '../problems.js';
 import {evaluate} from '../rules/evaluate.js';
 import {evaluationToJson} from '../rules/evaluation-json.js';
 import {loadAnswers} from '../rules/load-answers.js';
-import {loadRules, shippedRulesPath} from '../rules/load.js';
-import {readSettings} from '../settings.js';
+import {rulesInForce} from '../rules/in-force.js';
 import {UsageError} from '../usage-error.js';
 import {checkText} from './check-text.js';
 import {helpTexts} from './help.js';
@@ -48,8 +47,7 @@ export function runCheck(args: string[], io: Io): number | Promise<number> {
 		throw new UsageError('the on-screen check needs a terminal (stdin and stdout), so prelase does not prompt here. Give the setup as a file: prelase check --answers FILE (see docs/examples/).');
 	}
 	if (values.setup !== undefined) throw new UsageError('--setup NAME is for the on-screen check; with --answers FILE the file names the setup');
-	// The rule file in force: --rules, else the setting (site policy), else the shipped policy.
-	const rules = loadRules(values.rules ?? readSettings(io.env).rulesFile ?? shippedRulesPath());
+	const rules = rulesInForce(values.rules, io.env);
 	if (!rules.ok) throw new UsageError('the rule file has problems', rules.errors);
 	const answers = loadAnswers(values.answers, rules.value);
 	if (!answers.ok) throw new UsageError('the answers file has problems', answers.errors);

@@ -41,13 +41,13 @@ export function deviceFailSafeFindings(device: Device, plan: Plan): Finding[] {
 /** A bypass (key or shorting plug) must be allowed by policy and have an owner, a reason and a time limit within the policy. */
 function bypassFindings(device: Device, plan: Plan, what: string): Finding[] {
 	const subject = {kind: 'device' as const, id: device.id};
-	if (!plan.policy.bypasses_allowed) return [finding('interlock-bypass-not-allowed', 'stop', subject, {what})];
+	if (plan.policy.longest_bypass <= 0) return [finding('interlock-bypass-not-allowed', 'stop', subject, {what})];
 	const record = device.bypass ?? {};
 	const missing = (['owner', 'reason', 'time_limit'] as const).filter((field) => record[field] === undefined);
 	const found: Finding[] = [];
 	if (missing.length > 0) found.push(finding('interlock-bypass-incomplete', 'stop', subject, {what, missing: missing.map((field) => field.replace('_', ' ')).join(', ')}));
 	const longest = plan.policy.longest_bypass;
-	if (record.time_limit !== undefined && longest !== undefined && record.time_limit > longest) {
+	if (record.time_limit !== undefined && record.time_limit > longest) {
 		found.push(finding('interlock-bypass-too-long', 'stop', subject, {limit: durationText(record.time_limit), longest: durationText(longest)}));
 	}
 	return found;
@@ -58,10 +58,10 @@ function bypassTarget(device: Device, plan: Plan): Finding[] {
 	return [finding('interlock-bypass-target-unknown', 'stop', {kind: 'device', id: device.id}, {target: device.bypasses})];
 }
 
-/** Fail-safe findings of the whole loop: every device's, a manual reset where policy asks, and an emergency stop. */
+/** Fail-safe findings of the whole loop: every device's, a manual reset for class 4, and an emergency stop. */
 export function failSafeFindings(plan: Plan): Finding[] {
 	const found = plan.devices.flatMap((device) => deviceFailSafeFindings(device, plan));
-	if (plan.laser_class === 'class_4' && plan.policy.manual_reset_for_class_4 && !plan.input.latches) found.push(finding('interlock-manual-reset', 'stop', {kind: 'input'}));
+	if (plan.laser_class === 'class_4' && !plan.input.latches) found.push(finding('interlock-manual-reset', 'stop', {kind: 'input'}));
 	if (!plan.devices.some((device) => device.kind === 'emergency_stop' && device.wiring === 'series')) found.push(finding('interlock-no-emergency-stop', 'advise', {kind: 'loop'}));
 	return found;
 }

@@ -2,23 +2,27 @@ import {problem, type Problem} from '../problems.js';
 import {failure, success, type Result} from '../result.js';
 import {schemaProblems} from '../rules/schema-problems.js';
 import {parseYamlSource, readTextFile, type YamlSource} from '../yaml-source.js';
-import {planSchema, type Plan} from './plan-schema.js';
+import {planSchema, type PlanFile} from './plan-schema.js';
 
 /** What a plan file is, for messages about the wrong kind of file. */
 export const planFileExpected = 'a prelase interlock plan (YAML)';
 
 /** Reads and validates an interlock plan; every problem names file:line:column. */
-export function loadPlan(file: string): Result<Plan, Problem> {
+export function loadPlan(file: string): Result<PlanFile, Problem> {
 	const text = readTextFile(file, planFileExpected);
 	if (!text.ok) return text;
 	return loadPlanFromText(text.value, file);
 }
 
 /** The same as loadPlan, for text already in hand. */
-export function loadPlanFromText(text: string, file: string): Result<Plan, Problem> {
+export function loadPlanFromText(text: string, file: string): Result<PlanFile, Problem> {
 	const parsed = parseYamlSource(text, file, planFileExpected);
 	if (!parsed.ok) return parsed;
 	const source = parsed.value;
+	// A plan written before the policy moved to the rule file (a rule file given as a plan has no devices).
+	if (source.data && typeof source.data === 'object' && Object.hasOwn(source.data, 'policy') && Object.hasOwn(source.data, 'devices')) {
+		return failure([problem('interlock-plan-policy', {}, {file: source.file, ...source.locate(['policy']), field: 'policy'})]);
+	}
 	const validated = planSchema.safeParse(source.data);
 	if (!validated.success) return failure(schemaProblems(validated.error.issues, source, 'docs/interlock.md'));
 	const duplicates = duplicateIds(validated.data, source);
@@ -27,7 +31,7 @@ export function loadPlanFromText(text: string, file: string): Result<Plan, Probl
 }
 
 /** Device and access point ids share one name space, so a finding's subject is never ambiguous. */
-function duplicateIds(plan: Plan, source: YamlSource): Problem[] {
+function duplicateIds(plan: PlanFile, source: YamlSource): Problem[] {
 	const seen = new Map<string, string>();
 	const problems: Problem[] = [];
 	const entries = [...plan.access_points.map((point, index) => ({id: point.id, path: ['access_points', index, 'id']})), ...plan.devices.map((device, index) => ({id: device.id, path: ['devices', index, 'id']}))];

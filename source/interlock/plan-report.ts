@@ -3,15 +3,26 @@ import {formatQuantity} from '../quantities/format.js';
 import type {Dimension} from '../quantities/dimensions.js';
 import {stripControl} from '../text.js';
 import {planVerdict, type PlanAnalysis} from './analyse.js';
+import {durationText} from './duration-text.js';
 import {describeFinding, subjectText} from './finding.js';
 import type {Plan} from './plan-schema.js';
 
 const figure = (si: number, dimension: Dimension) => ({si, text: formatQuantity(si, dimension)});
 
+/** The rule file the interlock policy came from. */
+export type PolicySource = {name: string; file: string; sha256: string};
+
 /** The analysis as the `--json` contract: loop figures, findings with subject and message, the verdict. */
-export function planJson(plan: Plan, analysis: PlanAnalysis, file: string) {
+export function planJson(plan: Plan, analysis: PlanAnalysis, file: string, policySource: PolicySource) {
 	return {
 		plan: {name: plan.name, file},
+		policy: {
+			rules: policySource,
+			max_response_time: figure(plan.policy.max_response_time, 'time'),
+			resistance_margin: figure(plan.policy.resistance_margin, 'ratio'),
+			test_interval: {si: plan.policy.test_interval, text: durationText(plan.policy.test_interval)},
+			longest_bypass: {si: plan.policy.longest_bypass, text: durationText(plan.policy.longest_bypass)},
+		},
 		loop: {
 			resistance: figure(analysis.resistance.total, 'resistance'),
 			contacts: figure(analysis.resistance.contacts, 'resistance'),
@@ -32,12 +43,13 @@ export function planJson(plan: Plan, analysis: PlanAnalysis, file: string) {
 }
 
 /** The analysis as text for a terminal. */
-export function planText(plan: Plan, analysis: PlanAnalysis, file: string): string {
+export function planText(plan: Plan, analysis: PlanAnalysis, file: string, policySource: PolicySource): string {
 	const r = analysis.resistance;
 	const margin = formatQuantity(plan.policy.resistance_margin, 'ratio');
 	const current = plan.input.sense_current === undefined ? 'loop voltage over source resistance, loop shorted' : 'sense current';
 	const lines = [
 		`Interlock plan: ${stripControl(plan.name)} (${file})`,
+		`Policy from:    ${stripControl(policySource.name)} (${policySource.file})`,
 		'',
 		'Loop',
 		`  resistance  ${formatQuantity(r.total, 'resistance')} (contacts ${formatQuantity(r.contacts, 'resistance')} + wire ${formatQuantity(r.wires, 'resistance')} at ${formatQuantity(plan.wire_temperature, 'temperature')})`,

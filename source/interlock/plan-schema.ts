@@ -4,6 +4,7 @@ import type {z} from 'zod';
 import {dimensions, type Dimension} from '../quantities/dimensions.js';
 import {parseQuantity} from '../quantities/parse-quantity.js';
 import {describeProblem, problem} from '../problems.js';
+import type {InterlockPolicy} from './policy.js';
 
 const identifier = string().regex(/^[a-z][a-z0-9_]*$/, 'an id is lower case letters, digits and underscores, starting with a letter (e.g. lid_switch)');
 const words = string().trim().min(1, 'this text cannot be empty');
@@ -100,17 +101,6 @@ export const interlockInputSchema = object({
 		if (input.sense_current === undefined && input.source_resistance === undefined) context.addIssue({code: 'custom', message: 'give sense_current or source_resistance, so the loop current can be worked out'});
 	});
 
-/** Interlock policy; kept in the plan file until the rule file carries it. */
-export const interlockPolicySchema = object({
-		max_response_time: quantityOf('time', 'positive'),
-		resistance_margin: quantityOf('ratio'),
-		manual_reset_for_class_4: boolean(),
-		test_interval_days: number().int().positive(),
-		bypasses_allowed: boolean(),
-		longest_bypass: quantityOf('time', 'positive').optional(),
-	})
-	.strict();
-
 /** An interlock plan file. */
 export const planSchema = object({
 		format: literal(1),
@@ -118,14 +108,15 @@ export const planSchema = object({
 		laser_class: oneOf(['class_1', 'class_1m', 'class_2', 'class_2m', 'class_3r', 'class_3b', 'class_4']),
 		wire_temperature: quantityOf('temperature', 'positive'),
 		input: interlockInputSchema,
-		policy: interlockPolicySchema,
 		access_points: array(accessPointSchema),
 		devices: array(deviceSchema).min(1, 'the loop needs at least one device'),
 	})
 	.strict();
 
-/** A validated plan, every quantity in SI. */
-export type Plan = z.output<typeof planSchema>;
+/** A validated plan file, every quantity in SI. */
+export type PlanFile = z.output<typeof planSchema>;
+/** A plan file with the interlock policy of the rule file in force: what the analysis works on. */
+export type Plan = PlanFile & {policy: InterlockPolicy};
 /** One device of a validated plan. */
 export type Device = Plan['devices'][number];
 /** One access point of a validated plan. */

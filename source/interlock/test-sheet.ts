@@ -78,5 +78,5 @@ export function testSheet(plan: Plan): TestSheet {
 		});
 	}
 	if (bypasses.length === 0) steps.push({subject: 'bypass time-out', action: 'The plan has no bypass: look at the loop and its connectors for a fitted jumper or shorting plug.', expect: 'None is fitted.'});
-	return {name: plan.name, limit, interval: `${plan.policy.test_interval_days} days`, steps: steps.map((step, index) => ({number: index + 1, ...step}))};
+	return {name: plan.name, limit, interval: durationText(plan.policy.test_interval), steps: steps.map((step, index) => ({number: index + 1, ...step}))};
 }

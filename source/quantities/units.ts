@@ -25,6 +25,8 @@ export const unitTable: Readonly<Record<string, UnitDefinition>> = {
 	F: {factor: 1, exponents: e(-2, -1, 4, 2, 0), prefixable: true},
 	min: {factor: 60, exponents: e(0, 0, 1, 0, 0), prefixable: false},
 	h: {factor: 3600, exponents: e(0, 0, 1, 0, 0), prefixable: false},
+	day: {factor: 86_400, exponents: e(0, 0, 1, 0, 0), prefixable: false},
+	days: {factor: 86_400, exponents: e(0, 0, 1, 0, 0), prefixable: false},
 	in: {factor: 0.0254, exponents: e(1, 0, 0, 0, 0), prefixable: false},
 	ft: {factor: 0.3048, exponents: e(1, 0, 0, 0, 0), prefixable: false},
 	mil: {factor: 2.54e-5, exponents: e(1, 0, 0, 0, 0), prefixable: false},

@@ -25,8 +25,7 @@ describe('bad plan files', () => {
 		{name: 'an unknown field', text: edited('    positive_opening: true\n    opening_time: 8 ms', '    positive_opening: true\n    debounce: 2 ms\n    opening_time: 8 ms'), field: 'devices.0', line: lineOf('    opening_time: 8 ms'), says: 'unknown field "debounce"'},
 		{name: 'a wire run with both awg and cross-section', text: edited('wire_to_next: {awg: 22, length: 1.5 m}', 'wire_to_next: {awg: 22, cross_section: 1 mm^2, length: 1.5 m}'), field: 'devices.0.wire_to_next', line: lineOf('wire_to_next: {awg: 22, length: 1.5 m}'), says: 'either awg or cross_section'},
 		{name: 'an input without sense current or source resistance', text: edited('  sense_current: 10 mA\n', ''), field: 'input', line: lineOf('  description: LD-5L'), says: 'sense_current or source_resistance'},
-		{name: 'a missing policy value', text: edited('  max_response_time: 20 ms\n', ''), field: 'policy.max_response_time', line: lineOf('  max_response_time'), // the policy mapping, which now starts with resistance_margin
-		 says: 'expected a time with its unit'},
+		{name: 'a policy section (the policy is in the rule file)', text: edited('access_points:\n', 'policy:\n  max_response_time: 20 ms\naccess_points:\n'), field: 'policy', line: lineOf('access_points:\n') + 1, says: 'read from the rule file, not the plan'},
 		{name: 'a duplicate id', text: edited('  - id: fibre_sense\n', '  - id: lid_switch\n'), field: 'devices.1.id', line: lineOf('  - id: fibre_sense'), says: 'already used by devices.0'},
 		{name: 'an id shared by an access point and a device', text: edited('  - id: side_panel\n', '  - id: key_switch\n'), field: 'devices.5.id', line: lineOf('  - id: key_switch'), says: 'already used by access_points.1'},
 	];

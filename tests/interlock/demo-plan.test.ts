@@ -1,17 +1,10 @@
 import {describe, expect, it} from 'vitest';
 import {deferral} from '../../source/deferral.js';
 import {analysePlan, planVerdict} from '../../source/interlock/analyse.js';
-import {loadPlan} from '../../source/interlock/load-plan.js';
 import {testSheet} from '../../source/interlock/test-sheet.js';
 import {testSheetMarkdown} from '../../source/interlock/test-sheet-markdown.js';
 
-const demoFile = 'docs/examples/interlock/bench3-interlock-plan.yaml';
-
-function demo() {
-	const loaded = loadPlan(demoFile);
-	if (!loaded.ok) throw new Error(JSON.stringify(loaded.errors));
-	return loaded.value;
-}
+import {loadPlanUnderShippedPolicy as demo} from './plan-fixture.js';
 
 describe('the demo plan', () => {
 	it('analyses with no finding and its loop figures', () => {

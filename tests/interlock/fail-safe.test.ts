@@ -63,9 +63,8 @@ describe('bypasses and shorting plugs', () => {
 		expect(found!.data).toEqual({limit: '9 h', longest: '8 h'});
 	});
 
-	it('a bypass where the policy allows none is a stop finding, record or not', () => {
-		const policy = {...makePlanPolicy(), bypasses_allowed: false};
-		const found = deviceFailSafeFindings(plug(complete), makePlan({policy}));
+	it('a bypass where the policy allows none (longest bypass 0 s) is a stop finding, record or not', () => {
+		const found = deviceFailSafeFindings(plug(complete), makePlan({}, {longest_bypass: 0}));
 		expect(found.map((entry) => [entry.code, entry.data['what']])).toEqual([['interlock-bypass-not-allowed', 'shorting plug']]);
 	});
 
@@ -79,12 +78,12 @@ describe('manual reset and emergency stop', () => {
 	const input = (latches: boolean) => ({description: 'in', loop_voltage: '24 V', sense_current: '10 mA', closed_below: '100 ohm', response_time: '1 ms', disable_time: '1 ms', latches});
 
 	it.each([
-		{name: 'class 4, input does not latch', laser_class: 'class_4', latches: false, required: true, stop: true},
-		{name: 'class 4, input latches', laser_class: 'class_4', latches: true, required: true, stop: false},
-		{name: 'class 3B, input does not latch', laser_class: 'class_3b', latches: false, required: true, stop: false},
-		{name: 'class 4, policy asks no reset', laser_class: 'class_4', latches: false, required: false, stop: false},
-	])('$name', ({laser_class, latches, required, stop}) => {
-		const plan = makePlan({laser_class, input: input(latches), policy: {...makePlanPolicy(), manual_reset_for_class_4: required}});
+		// IEC 60825-1: a class 4 laser needs a manual reset to resume emission after the remote interlock opens
+		{name: 'class 4, input does not latch', laser_class: 'class_4', latches: false, stop: true},
+		{name: 'class 4, input latches', laser_class: 'class_4', latches: true, stop: false},
+		{name: 'class 3B, input does not latch', laser_class: 'class_3b', latches: false, stop: false},
+	])('$name', ({laser_class, latches, stop}) => {
+		const plan = makePlan({laser_class, input: input(latches)});
 		const found = failSafeFindings(plan).filter((entry) => entry.code === 'interlock-manual-reset');
 		expect(found).toEqual(stop ? [{code: 'interlock-manual-reset', severity: 'stop', subject: {kind: 'input'}, data: {}}] : []);
 	});
@@ -96,7 +95,3 @@ describe('manual reset and emergency stop', () => {
 		expect(analysePlan(makePlan()).findings.filter((entry) => entry.code === 'interlock-no-emergency-stop')).toEqual([]);
 	});
 });
-
-function makePlanPolicy() {
-	return {max_response_time: '20 ms', resistance_margin: '20 %', manual_reset_for_class_4: true, test_interval_days: 180, bypasses_allowed: true, longest_bypass: '8 h'};
-}

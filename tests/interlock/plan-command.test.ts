@@ -69,7 +69,7 @@ describe('prelase plan', () => {
 		{name: 'a missing file', argv: ['plan', 'no-such-plan.yaml'], says: 'no-such-plan.yaml: error: cannot read the file (no such file)'},
 		{name: 'an unknown sheet format', argv: ['plan', demoFile, '--test-sheet', 'pdf'], says: 'unknown test sheet format "pdf"'},
 		{name: 'an unknown option', argv: ['plan', demoFile, '--jsn'], says: 'did you mean "--json"'},
-		{name: 'a rule file instead of a plan', argv: ['plan', 'rules/default.yaml'], says: 'error: policy: unknown fields "current_margin"'},
+		{name: 'a rule file instead of a plan', argv: ['plan', 'rules/default.yaml'], says: 'error: (top level): unknown fields "caution", "policy"'},
 	])('refuses $name with exit 2', ({argv, says}) => {
 		const {code, stderr} = run(...argv);
 		expect(code).toBe(2);

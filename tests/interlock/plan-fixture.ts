@@ -1,4 +1,26 @@
 import {planSchema, type Plan} from '../../source/interlock/plan-schema.js';
+import {loadPlan} from '../../source/interlock/load-plan.js';
+import {interlockPolicy, type InterlockPolicy} from '../../source/interlock/policy.js';
+import {loadRules, shippedRulesPath} from '../../source/rules/load.js';
+
+/** The demo plan of the invented Fenwick Hollow lab. */
+export const demoPlanFile = 'docs/examples/interlock/bench3-interlock-plan.yaml';
+
+/** The interlock policy of the shipped rule file. */
+export function shippedPolicy(): InterlockPolicy {
+	const rules = loadRules(shippedRulesPath());
+	if (!rules.ok) throw new Error(JSON.stringify(rules.errors));
+	const policy = interlockPolicy(rules.value);
+	if (!policy.ok) throw new Error(JSON.stringify(policy.errors));
+	return policy.value;
+}
+
+/** A plan file loaded under the shipped policy (the demo plan by default). */
+export function loadPlanUnderShippedPolicy(file = demoPlanFile): Plan {
+	const loaded = loadPlan(file);
+	if (!loaded.ok) throw new Error(JSON.stringify(loaded.errors));
+	return {...loaded.value, policy: shippedPolicy()};
+}
 
 /** A device as written in a plan file (values with units). */
 export type DeviceEntry = Record<string, unknown>;
@@ -27,14 +49,18 @@ export function planEntry(changes: Record<string, unknown> = {}): Record<string,
 		laser_class: 'class_4',
 		wire_temperature: '20 degC',
 		input: {description: 'test input', loop_voltage: '24 V', sense_current: '10 mA', closed_below: '100 ohm', response_time: '1 ms', disable_time: '1 ms', latches: true},
-		policy: {max_response_time: '20 ms', resistance_margin: '20 %', manual_reset_for_class_4: true, test_interval_days: 180, bypasses_allowed: true, longest_bypass: '8 h'},
 		access_points: [{id: 'door', description: 'the door', beam_reachable: true, secured_by: 'interlock', device: 'door_switch'}],
 		devices: [doorSwitch('door_switch'), {...doorSwitch('estop'), kind: 'emergency_stop'}],
 		...changes,
 	};
 }
 
-/** Validates a plan entry; throws when a test wrote an invalid one, since that is the test's mistake. */
-export function makePlan(changes: Record<string, unknown> = {}): Plan {
-	return planSchema.parse(planEntry(changes));
+/** The interlock policy the tests assume unless they study it: 20 ms, 20 %, 180 days, 8 h. */
+export function testPolicy(changes: Partial<InterlockPolicy> = {}): InterlockPolicy {
+	return {max_response_time: 0.02, resistance_margin: 0.2, test_interval: 180 * 86_400, longest_bypass: 8 * 3600, ...changes};
+}
+
+/** Validates a plan entry and gives it a policy; throws when a test wrote an invalid one, since that is the test's mistake. */
+export function makePlan(changes: Record<string, unknown> = {}, policy: Partial<InterlockPolicy> = {}): Plan {
+	return {...planSchema.parse(planEntry(changes)), policy: testPolicy(policy)};
 }

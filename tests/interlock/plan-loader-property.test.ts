@@ -3,6 +3,7 @@ import fc from 'fast-check';
 import {describe, expect, it} from 'vitest';
 import {analysePlan} from '../../source/interlock/analyse.js';
 import {loadPlanFromText} from '../../source/interlock/load-plan.js';
+import {testPolicy} from './plan-fixture.js';
 
 const demo = readFileSync('docs/examples/interlock/bench3-interlock-plan.yaml', 'utf8');
 
@@ -12,7 +13,7 @@ describe('the plan loader on mutated files', () => {
 		fc.assert(
 			fc.property(mutated, (text) => {
 				const result = loadPlanFromText(text, 'plan.yaml');
-				if (result.ok) return analysePlan(result.value).findings.every((entry) => entry.severity === 'stop' || entry.severity === 'advise');
+				if (result.ok) return analysePlan({...result.value, policy: testPolicy()}).findings.every((entry) => entry.severity === 'stop' || entry.severity === 'advise');
 				return result.errors.length > 0 && result.errors.every((found) => found.file === 'plan.yaml');
 			}),
 			{numRuns: 300},
