@@ -6,7 +6,7 @@ export function isInteractive(io: Io): boolean {
 }
 
 /** Loads the screens (and Ink) only now: the non-interactive commands never pay for them. */
-export async function startScreens(io: Io, options: {rules?: string; startCheck?: {setup?: string}}): Promise<number> {
+export async function startScreens(io: Io, options: {rules?: string; startCheck?: {setup?: string}; startPlan?: string}): Promise<number> {
 	const {runScreens} = await import('./ui/run.js');
 	return runScreens({env: io.env, stderr: io.stderr, ...options});
 }

@@ -16,9 +16,11 @@ export type Settings = {
 	recordsFolder?: string;
 	/** Rule file in force (site policy); the shipped policy when absent. */
 	rulesFile?: string;
+	/** The interlock plan last opened in the planner, offered the next time. */
+	planFile?: string;
 };
 
-const settingsSchema = object({operator: string().optional(), role: string().optional(), recordsFolder: string().optional(), rulesFile: string().optional()})
+const settingsSchema = object({operator: string().optional(), role: string().optional(), recordsFolder: string().optional(), rulesFile: string().optional(), planFile: string().optional()})
 	.strip();
 
 /** Where the settings file is: the same place conf uses (PRELASE_HOME, else the platform's config folder). */

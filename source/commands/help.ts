@@ -174,6 +174,7 @@ Exit status:
 Usage:
   prelase plan FILE [--json]
   prelase plan FILE --test-sheet md
+  prelase plan FILE --edit
 
 Reads an interlock plan (YAML: the driver's interlock input, the access points, the devices of
 the loop in wiring order, and the interlock policy; see docs/interlock.md) and prints the loop
@@ -192,6 +193,9 @@ Options:
   --json            Print the figures, findings and verdict as JSON
   --test-sheet md   Print the functional test sheet (Markdown) with blanks for the result,
                     initials and date of every step
+  --edit            Open the planner screen on FILE (needs a terminal): edit, add, remove and
+                    reorder access points and devices, the findings following each change;
+                    saving keeps the file's comments and key order
   -h, --help        Show this help
 
 Exit status:

@@ -38,9 +38,13 @@ export function runReport(args: string[], io: Io): number {
 		io.stderr.write(`prelase: ${stripControl(path)} fails its integrity check: ${stripControl(integrity.reason)}\nNo report was printed; a record that fails its integrity check cannot be relied on (prelase audit ${stripControl(path)} says more).\n`);
 		return 3;
 	}
+	if (integrity.record.body.kind !== 'bench-check') {
+		throw new UsageError(`${stripControl(path)} is an interlock test record; report prints bench-check records (prelase audit ${stripControl(path)} shows an interlock test record)`);
+	}
+	const record = {...integrity.record, body: integrity.record.body};
 	const settings = openSettings(io.env);
 	const trust = {own: ownFingerprint(settings.folder), trusted: readTrusted(settings.folder)};
-	const page = writers[format](integrity.record, integrity.signatures, trust);
+	const page = writers[format](record, integrity.signatures, trust);
 
 	if (values.out === undefined) {
 		io.stdout.write(page);

@@ -1,4 +1,4 @@
-import {basename, join} from 'node:path';
+import {basename} from 'node:path';
 import {bodySha256, buildRecordBody} from '../records/build-body.js';
 import {keyFromFile, operatorKey} from '../records/key-store.js';
 import {fingerprint, rawPublicKey, shortFingerprint} from '../records/keys.js';
@@ -6,6 +6,7 @@ import {readRecord} from '../records/read-record.js';
 import {signRecord} from '../records/sign-record.js';
 import type {Signer} from '../records/sign.js';
 import {writeRecord} from '../records/store.js';
+import {recordsFolder} from '../records/folder.js';
 import type {Answers} from '../rules/answers.js';
 import type {CompiledRules} from '../rules/compiled-rules.js';
 import type {Evaluation} from '../rules/evaluation.js';
@@ -34,12 +35,13 @@ export function signAndWrite(rules: CompiledRules, answers: Answers, evaluation:
 	if (!name) throw new UsageError('--sign needs the name of the person signing');
 	const settings = openSettings(env);
 	const saved = settings.read();
-	const folder = options.records ?? saved.recordsFolder ?? join(settings.folder, 'records');
+	const folder = recordsFolder(env, options.records);
 	let amends;
 	if (options.amends !== undefined) {
 		if (!options.reason?.trim()) throw new UsageError('--amends needs --reason saying what the correction is and why');
 		const original = readRecord(options.amends);
 		if (!original.ok) throw new UsageError(`the record to amend, ${options.amends}, fails its integrity check: ${original.reason}`);
+		if (original.record.body.kind !== 'bench-check') throw new UsageError(`${options.amends} is an interlock test record; a bench check can amend only a bench-check record`);
 		amends = {record: basename(options.amends), bodySha256: bodySha256(original.record.body), reason: stripControl(options.reason).trim()};
 	} else if (options.reason !== undefined) {
 		throw new UsageError('--reason goes with --amends RECORD');

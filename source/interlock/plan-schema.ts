@@ -13,7 +13,7 @@ const words = string().trim().min(1, 'this text cannot be empty');
  * A value with its unit (`50 mohm`, `2 ms`), read into the coherent SI unit of its
  * dimension; a wrong unit or a value below the allowed floor is a schema issue at its line.
  */
-function quantityOf(dimension: Dimension, floor: 'positive' | 'not negative' | 'any' = 'not negative') {
+export function quantityOf(dimension: Dimension, floor: 'positive' | 'not negative' | 'any' = 'not negative') {
 	const info = dimensions[dimension];
 	const text = custom<string | number>((value) => typeof value === 'string' || typeof value === 'number', `expected ${info.noun} with its unit, for example "${info.example}"`);
 	return text.transform((value, context) => {

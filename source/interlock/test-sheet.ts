@@ -6,7 +6,7 @@ import type {Device, Plan} from './plan-schema.js';
 export type TestStep = {number: number; subject: string; action: string; expect: string};
 
 /** The functional test of a plan, as data; rendered by testSheetMarkdown. */
-export type TestSheet = {name: string; limit: string; /** The test interval as text, e.g. "90 days". */ interval: string; steps: TestStep[]};
+export type TestSheet = {name: string; limit: string; /** The largest response time, s. */ limitSeconds: number; /** The test interval as text, e.g. "90 days". */ interval: string; steps: TestStep[]};
 
 function openAction(device: Device): string {
 	const name = `${device.id} (${device.description})`;
@@ -78,5 +78,5 @@ export function testSheet(plan: Plan): TestSheet {
 		});
 	}
 	if (bypasses.length === 0) steps.push({subject: 'bypass time-out', action: 'The plan has no bypass: look at the loop and its connectors for a fitted jumper or shorting plug.', expect: 'None is fitted.'});
-	return {name: plan.name, limit, interval: durationText(plan.policy.test_interval), steps: steps.map((step, index) => ({number: index + 1, ...step}))};
+	return {name: plan.name, limit, limitSeconds: plan.policy.max_response_time, interval: durationText(plan.policy.test_interval), steps: steps.map((step, index) => ({number: index + 1, ...step}))};
 }

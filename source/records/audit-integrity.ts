@@ -4,7 +4,7 @@ import canonicalize from 'canonicalize';
 import {finding, type Finding} from './audit-findings.js';
 import {unsafeJsonKey} from './json-keys.js';
 import {fingerprint, publicKeyFromRaw} from './keys.js';
-import {recordSchema, type BenchRecord, type Signature} from './record-schema.js';
+import {schemaForRecord, type AnyRecord, type Signature} from './record-schema.js';
 import {verifyBytes} from './sign.js';
 
 /** Whether one signature verified, and if not, why (a message code). */
@@ -12,8 +12,8 @@ export type SignatureCheck = {index: number; valid: boolean; code?: Finding['cod
 
 /** A record that passed integrity checking, with the SHA-256 of its canonical body; or why it did not. */
 export type IntegrityCheck =
-	| {ok: true; record: BenchRecord; bodySha256: string; signatures: SignatureCheck[]}
-	| {ok: false; finding: Finding; record?: BenchRecord; signatures?: SignatureCheck[]};
+	| {ok: true; record: AnyRecord; bodySha256: string; signatures: SignatureCheck[]}
+	| {ok: false; finding: Finding; record?: AnyRecord; signatures?: SignatureCheck[]};
 
 /**
  * Public keys parsed once each, by their base64 text: a folder of records is signed by a
@@ -69,7 +69,7 @@ export function checkIntegrity(text: string, keys: KeyCache): IntegrityCheck {
 	}
 	const unsafe = unsafeJsonKey(text);
 	if (unsafe) return {ok: false, finding: unsafe.kind === 'duplicate' ? finding('integrity', 'audit-duplicate-name', {name: unsafe.name}) : finding('integrity', 'audit-prototype-name')};
-	const parsed = recordSchema.safeParse(data);
+	const parsed = schemaForRecord(data).safeParse(data);
 	if (!parsed.success) {
 		const issue = parsed.error.issues[0];
 		const field = issue?.path.map(String).join('.') || 'top level';

@@ -73,8 +73,42 @@ function historyLines(audit: RecordAudit, width: number): string[] {
 	return items.flatMap((item, index) => row(index === 0 ? 'History' : '', item, width));
 }
 
+function findingLines(audit: RecordAudit, paint: Paint, width: number): string[] {
+	const findings = audit.findings.filter((found) => found.kind !== 'integrity');
+	if (findings.length === 0) return row('Findings', 'none', width);
+	return findings.flatMap((found, index) => row(index === 0 ? 'Findings' : '', `${paint.advise('!')} [${found.kind}] ${inline(found.text, 400)}`, width));
+}
+
+function integrityLines(audit: RecordAudit, paint: Paint, width: number): string[] {
+	const integrity = audit.findings.find((found) => found.kind === 'integrity');
+	return row('Integrity', integrity ? paint.fail(`✗ NOT AUTHENTIC: ${inline(integrity.text, 300)}`) : `${paint.pass('✓')} authentic: every signature verifies over the body`, width);
+}
+
+const person = (who: {name: string; role: string}) => `${inline(who.name, 80)}${who.role ? `, ${inline(who.role, 60)}` : ''}`;
+
+/** An interlock test record's summary: which plan, who tested, the outcome, whether it is authentic and follows from its steps. */
+function interlockTestText(audit: RecordAudit, paint: Paint, width: number): string[] {
+	const test = audit.interlockTest!;
+	const unverified = audit.authentic ? '' : ' (unverified)';
+	const out = [paint.bold(inline(displayPath(audit.file), 300))];
+	out.push(...row('Plan tested', `interlock test of ${inline(test.plan.name)}${unverified} · plan sha256 ${test.plan.sha256.slice(0, 16)}`, width));
+	out.push(...row('Tested', `${inline(test.testedOn, 20)} by ${person(test.tester)}${test.witness ? `, witnessed by ${person(test.witness)}` : ''}${unverified}`, width));
+	out.push(...row('Created', `${inline(test.createdAt, 40)} with ${inline(test.tool.name, 20)} ${inline(test.tool.version, 20)}`, width));
+	out.push(...row('Outcome', `${inline(test.outcomeText, 300)} (as recorded${audit.authentic ? '' : ', unverified'})`, width));
+	out.push(...signatureLines(audit, paint, width));
+	out.push(...integrityLines(audit, paint, width));
+	if (!audit.authentic) return out;
+	const consistency = audit.consistency!;
+	if (consistency.consistent) out.push(...row('Consistency', `${paint.pass('✓')} the plan's findings, the test steps and the outcome follow from the embedded plan under the recorded policy`, width));
+	else out.push(...row('Consistency', paint.fail(`✗ the record's conclusions do not follow from its embedded plan and steps${consistency.reevaluated ? '' : '; the plan was not re-worked'}`), width));
+	test.exceptions.forEach((entry, index) => out.push(...row(index === 0 ? 'Steps' : '', `${entry.result === 'fail' ? '✗ fail' : '- n/a'}: step ${entry.number} (${inline(entry.subject)})${entry.note ? ` — note: ${inline(entry.note, 300)}` : ''}`, width)));
+	out.push(...findingLines(audit, paint, width));
+	return out;
+}
+
 /** One record's summary: what it is, who signed it, whether it is authentic and consistent, and what would change. */
 export function recordText(audit: RecordAudit, paint: Paint, width = 100): string[] {
+	if (audit.interlockTest) return interlockTestText(audit, paint, width);
 	const out = [paint.bold(inline(displayPath(audit.file), 300))];
 	const record = audit.record;
 	const unverified = audit.authentic ? '' : ' (unverified)';
@@ -85,8 +119,7 @@ export function recordText(audit: RecordAudit, paint: Paint, width = 100): strin
 		out.push(...row('Outcome', `${outcomeWords[record.outcome]} (as recorded${audit.authentic ? '' : ', unverified'})`, width));
 		out.push(...signatureLines(audit, paint, width));
 	}
-	const integrity = audit.findings.find((found) => found.kind === 'integrity');
-	out.push(...row('Integrity', integrity ? paint.fail(`✗ NOT AUTHENTIC: ${inline(integrity.text, 300)}`) : `${paint.pass('✓')} authentic: every signature verifies over the body`, width));
+	out.push(...integrityLines(audit, paint, width));
 	if (!audit.authentic || !record) return out;
 
 	const consistency = audit.consistency!;
@@ -97,9 +130,7 @@ export function recordText(audit: RecordAudit, paint: Paint, width = 100): strin
 	record.exceptions.forEach((entry, index) => out.push(...row(index === 0 ? 'Answered' : '', `${entry.status === 'no' ? '✗ no' : '- n/a'}: ${inline(entry.statement)}${entry.note ? ` — note: ${inline(entry.note, 300)}` : ''}`, width)));
 	out.push(...historyLines(audit, width));
 	out.push(...row('Not checked', audit.notChecked.map((item) => item.text).join('; '), width));
-	const findings = audit.findings.filter((found) => found.kind !== 'integrity');
-	if (findings.length === 0) out.push(...row('Findings', 'none', width));
-	findings.forEach((found, index) => out.push(...row(index === 0 ? 'Findings' : '', `${paint.advise('!')} [${found.kind}] ${inline(found.text, 400)}`, width)));
+	out.push(...findingLines(audit, paint, width));
 	return out;
 }
 
@@ -107,8 +138,8 @@ function tableText(report: AuditReport): string[] {
 	const cells = report.records.map((audit, index) => [
 		String(index + 1),
 		inline(displayPath(audit.file), 300),
-		audit.record ? inline(audit.record.createdAt, 25) : '',
-		audit.record ? outcomeWords[audit.record.outcome] : '',
+		audit.record ? inline(audit.record.createdAt, 25) : audit.interlockTest ? inline(audit.interlockTest.createdAt, 25) : '',
+		audit.record ? outcomeWords[audit.record.outcome] : audit.interlockTest ? `interlock test ${audit.interlockTest.outcome}` : '',
 		audit.authentic ? 'authentic' : 'FAILED',
 		!audit.consistency ? '-' : audit.consistency.consistent ? 'yes' : 'NO',
 		!audit.currentPolicy ? '-' : audit.currentPolicy.checks.length > 0 || audit.currentPolicy.outcome.current !== audit.currentPolicy.outcome.recorded ? 'changes' : 'same',

@@ -1,7 +1,7 @@
 import type {SignatureCheck} from './audit-integrity.js';
 import {finding, type Finding} from './audit-findings.js';
 import type {TrustedKey} from './key-store.js';
-import type {BenchRecord, Signature} from './record-schema.js';
+import type {AnyRecord, Signature} from './record-schema.js';
 
 /** The keys an auditor trusts: their own and the colleagues' they have added. */
 export type Trust = {own?: string | undefined; trusted: readonly TrustedKey[]};
@@ -23,7 +23,7 @@ export type SignatureReport = {
  * Names each signer with their role, meaning and key, and whether the key is trusted. A valid
  * signature with an untrusted key is a finding: the record is intact, but who made it is unproven.
  */
-export function signatureReports(record: BenchRecord, checks: readonly SignatureCheck[] | undefined, trust: Trust): {signatures: SignatureReport[]; findings: Finding[]} {
+export function signatureReports(record: AnyRecord, checks: readonly SignatureCheck[] | undefined, trust: Trust): {signatures: SignatureReport[]; findings: Finding[]} {
 	const byFingerprint = new Map(trust.trusted.map((key) => [key.fingerprint, key.name]));
 	const findings: Finding[] = [];
 	const signatures = record.signatures.map((signature, index): SignatureReport => {

@@ -11,6 +11,7 @@ import {consistencyFindings} from './audit-consistency.js';
 import {describeFinding, finding, notChecked, type Finding, type FindingKind} from './audit-findings.js';
 import {relateRecords, type History, type HistoryEntry} from './audit-history.js';
 import {KeyCache, readIntegrity} from './audit-integrity.js';
+import {interlockTestConsistency, summariseInterlockTest, type InterlockTestSummary} from './audit-interlock.js';
 import {policyReport, type PolicyReport} from './audit-policy.js';
 import {signatureReports, type SignatureReport, type Trust} from './audit-trust.js';
 import type {RecordBody} from './record-schema.js';
@@ -36,8 +37,10 @@ export type RecordAudit = {
 	/** Parsed, of the record shape, and every signature verifies. */
 	authentic: boolean;
 	bodySha256: string | null;
-	/** Null when the file is not a record at all. */
+	/** The summary of a bench-check record; null for an interlock test record or a file that is not a record. */
 	record: RecordSummary | null;
+	/** The summary of an interlock test record; null otherwise. */
+	interlockTest: InterlockTestSummary | null;
 	signatures: SignatureReport[];
 	/** Re-evaluation under the embedded rules: null when the record is not authentic. */
 	consistency: {reevaluated: boolean; consistent: boolean; rulesSha256: string | null} | null;
@@ -147,10 +150,16 @@ export function auditRecords(files: readonly string[], options: AuditOptions): A
 	const entryOf: number[] = [];
 	files.forEach((file, index) => {
 		const checked = readIntegrity(file, keys);
-		const record = checked.record ? summarise(checked.record.body) : null;
+		const body = checked.record?.body;
+		const record = body?.kind === 'bench-check' ? summarise(body) : null;
+		const interlockTest = body?.kind === 'interlock-test' ? summariseInterlockTest(body) : null;
 		const trust = checked.record ? signatureReports(checked.record, checked.signatures, options.trust) : {signatures: [], findings: []};
 		if (!checked.ok) {
-			audits.push({file, authentic: false, bodySha256: null, record, signatures: trust.signatures, consistency: null, currentPolicy: null, history: null, notChecked: [], findings: [checked.finding]});
+			audits.push({file, authentic: false, bodySha256: null, record, interlockTest, signatures: trust.signatures, consistency: null, currentPolicy: null, history: null, notChecked: [], findings: [checked.finding]});
+		} else if (checked.record.body.kind === 'interlock-test') {
+			const contents = interlockTestConsistency(checked.record.body);
+			const consistency = {reevaluated: contents.reevaluated, consistent: contents.findings.length === 0, rulesSha256: checked.record.body.policy.rules.sha256};
+			audits.push({file, authentic: true, bodySha256: checked.bodySha256, record, interlockTest, signatures: trust.signatures, consistency, currentPolicy: null, history: null, notChecked: [], findings: [...trust.findings, ...contents.findings]});
 		} else {
 			const contents = auditContents(checked.record.body, rules, options.current);
 			entryOf[entries.length] = audits.length;
@@ -160,6 +169,7 @@ export function auditRecords(files: readonly string[], options: AuditOptions): A
 				authentic: true,
 				bodySha256: checked.bodySha256,
 				record,
+				interlockTest,
 				signatures: trust.signatures,
 				consistency: contents.consistency,
 				currentPolicy: contents.policy,

@@ -4,7 +4,7 @@ import type {CompiledRules} from '../rules/compiled-rules.js';
 import type {Evaluation} from '../rules/evaluation.js';
 import {evaluationToJson} from '../rules/evaluation-json.js';
 import {canonicalBytes} from './canonical.js';
-import {recordBodySchema, type RecordBody} from './record-schema.js';
+import {recordBodySchema, type AnyBody, type RecordBody} from './record-schema.js';
 import {isoWithOffset} from './sign.js';
 import {displayPath} from '../display-path.js';
 
@@ -27,7 +27,7 @@ export function setupFingerprint(rules: CompiledRules, answers: Answers): {finge
 }
 
 /** SHA-256 (hex) of the canonical form of a record body: how amendments and audits name a body. */
-export function bodySha256(body: RecordBody): string {
+export function bodySha256(body: AnyBody): string {
 	return createHash('sha256').update(canonicalBytes(body)).digest('hex');
 }
 

@@ -1,12 +1,12 @@
 import {readFileSync} from 'node:fs';
-import {recordSchema, type BenchRecord} from './record-schema.js';
+import {schemaForRecord, type AnyRecord} from './record-schema.js';
 import {unsafeJsonKey} from './json-keys.js';
 import {verifySignature} from './sign.js';
 
 /** What integrity checking found: the record, or why it cannot be trusted at all. */
 export type IntegrityResult =
-	| {ok: true; record: BenchRecord; signatures: Array<{index: number; valid: true}>}
-	| {ok: false; reason: string; record?: BenchRecord; signatures?: Array<{index: number; valid: boolean; reason?: string}>};
+	| {ok: true; record: AnyRecord; signatures: Array<{index: number; valid: true}>}
+	| {ok: false; reason: string; record?: AnyRecord; signatures?: Array<{index: number; valid: boolean; reason?: string}>};
 
 /**
  * Reads a record file and checks its integrity: it parses as JSON, has the record shape,
@@ -32,7 +32,7 @@ export function checkRecordText(text: string): IntegrityResult {
 	}
 	const unsafe = unsafeJsonKey(text);
 	if (unsafe) return {ok: false, reason: unsafe.kind === 'duplicate' ? `the name "${unsafe.name}" appears twice in one object, so the file holds a value the signature does not cover` : 'the record has a "__proto__" name, which is refused'};
-	const parsed = recordSchema.safeParse(data);
+	const parsed = schemaForRecord(data).safeParse(data);
 	if (!parsed.success) {
 		const issue = parsed.error.issues[0];
 		const unsigned = issue?.path.join('.') === 'signatures';

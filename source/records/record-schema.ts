@@ -67,6 +67,55 @@ export const recordBodySchema = object({
 	})
 	.strict();
 
+const sha256Hex = text.regex(/^[0-9a-f]{64}$/);
+const person = object({name: text.min(1), role: text}).strict();
+
+/** The signed content of an interlock functional test record. */
+export const interlockTestBodySchema = object({
+		kind: literal('interlock-test'),
+		tool: object({name: literal('prelase'), version: text}).strict(),
+		createdAt: text,
+		testedOn: text.regex(/^\d{4}-\d{2}-\d{2}$/),
+		tester: person,
+		witness: person.optional(),
+		plan: object({name: text, file: text, sha256: sha256Hex, text}).strict(),
+		policy: object({
+				rules: object({name: text, file: text, sha256: sha256Hex}).strict(),
+				maxResponseTime: shown,
+				resistanceMargin: shown,
+				testInterval: shown,
+				longestBypass: shown,
+			})
+			.strict(),
+		planFindings: object({stops: number().int().min(0), advises: number().int().min(0), codes: array(text)}).strict(),
+		outcome: oneOf(['passed', 'failed']),
+		outcomeText: text,
+		steps: array(
+			object({
+					number: number().int().positive(),
+					subject: text,
+					action: text,
+					expect: text,
+					result: oneOf(['pass', 'fail', 'not_applicable']),
+					stoppedIn: shown.optional(),
+					note: text.optional(),
+				})
+				.strict(),
+		),
+		caution: text,
+		deferral: text,
+	})
+	.strict();
+
+/** An interlock test record file: the body and the signatures over it. */
+export const interlockTestRecordSchema = object({
+		format: literal('prelase-record'),
+		version: literal(1),
+		body: interlockTestBodySchema,
+		signatures: array(signatureSchema).min(1, 'a record needs at least one signature'),
+	})
+	.strict();
+
 /** A record file: the body and the signatures over it. */
 export const recordSchema = object({
 		format: literal('prelase-record'),
@@ -79,3 +128,16 @@ export const recordSchema = object({
 export type RecordBody = z.infer<typeof recordBodySchema>;
 export type Signature = z.infer<typeof signatureSchema>;
 export type BenchRecord = z.infer<typeof recordSchema>;
+export type InterlockTestBody = z.infer<typeof interlockTestBodySchema>;
+export type InterlockTestRecord = z.infer<typeof interlockTestRecordSchema>;
+/** Any record prelase writes. */
+export type AnyRecord = BenchRecord | InterlockTestRecord;
+/** The body of any record prelase writes. */
+export type AnyBody = AnyRecord['body'];
+
+/** The schema for a record's data, chosen by the kind its body states (a bench check unless it says otherwise). */
+export function schemaForRecord(data: unknown): typeof recordSchema | typeof interlockTestRecordSchema {
+	const body = data && typeof data === 'object' ? (data as {body?: unknown}).body : undefined;
+	const kind = body && typeof body === 'object' ? (body as {kind?: unknown}).kind : undefined;
+	return kind === 'interlock-test' ? interlockTestRecordSchema : recordSchema;
+}

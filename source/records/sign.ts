@@ -1,7 +1,7 @@
 import {sign, verify, type KeyObject} from 'node:crypto';
 import {canonicalBytes} from './canonical.js';
 import {fingerprint, publicKeyFromRaw, rawPublicKey} from './keys.js';
-import type {RecordBody, Signature} from './record-schema.js';
+import type {AnyBody, Signature} from './record-schema.js';
 
 /** Who is signing and what the signature means. */
 export type Signer = {name: string; role: string; meaning: Signature['meaning']};
@@ -10,7 +10,7 @@ export type Signer = {name: string; role: string; meaning: Signature['meaning']}
  * The bytes a signature covers: the RFC 8785 canonical form of the body together with the
  * signature's own statement (who, role, meaning, when, which key), so none can be swapped.
  */
-export function signedBytes(body: RecordBody, statement: Omit<Signature, 'value' | 'fingerprint'>): Buffer {
+export function signedBytes(body: AnyBody, statement: Omit<Signature, 'value' | 'fingerprint'>): Buffer {
 	return canonicalBytes({body, signature: statement});
 }
 
@@ -25,7 +25,7 @@ export function verifyBytes(bytes: Buffer, publicKey: KeyObject, signature: Buff
 }
 
 /** Signs a record body with a private key, as a person in a role, with a meaning. */
-export function signBody(body: RecordBody, signer: Signer, privateKey: KeyObject, now: Date = new Date()): Signature {
+export function signBody(body: AnyBody, signer: Signer, privateKey: KeyObject, now: Date = new Date()): Signature {
 	const raw = rawPublicKey(privateKey);
 	const statement = {signer: {name: signer.name, role: signer.role}, meaning: signer.meaning, signedAt: isoWithOffset(now), algorithm: 'Ed25519' as const, publicKey: raw.toString('base64')};
 	const value = signBytes(signedBytes(body, statement), privateKey).toString('base64');
@@ -33,7 +33,7 @@ export function signBody(body: RecordBody, signer: Signer, privateKey: KeyObject
 }
 
 /** Checks one signature over a body: the key matches its fingerprint and the signature verifies. */
-export function verifySignature(body: RecordBody, signature: Signature): {ok: true} | {ok: false; reason: string} {
+export function verifySignature(body: AnyBody, signature: Signature): {ok: true} | {ok: false; reason: string} {
 	const {value, fingerprint: stated, ...statement} = signature;
 	// Base64 has spare bits: only the one canonical spelling of a key or signature is accepted.
 	if (Buffer.from(value, 'base64').toString('base64') !== value) return {ok: false, reason: 'the signature is not in canonical base64'};

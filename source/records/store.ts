@@ -1,7 +1,7 @@
 import {closeSync, fsyncSync, linkSync, mkdirSync, openSync, unlinkSync, writeSync} from 'node:fs';
 import {join} from 'node:path';
 import {randomBytes} from 'node:crypto';
-import type {BenchRecord} from './record-schema.js';
+import type {AnyRecord} from './record-schema.js';
 import {bodySha256} from './build-body.js';
 
 /** A short, file-name-safe form of a setup name. */
@@ -17,9 +17,10 @@ function slug(text: string | null): string {
 }
 
 /** The file name of a record: date, time, setup and a short hash of its body. */
-export function recordFileName(record: BenchRecord): string {
+export function recordFileName(record: AnyRecord): string {
 	const stamp = record.body.createdAt.slice(0, 19).replaceAll(':', '').replace('T', '-');
-	return `${stamp}-${slug(record.body.setup.name)}-${bodySha256(record.body).slice(0, 8)}.json`;
+	const what = record.body.kind === 'interlock-test' ? `interlock-test-${slug(record.body.plan.name)}` : slug(record.body.setup.name);
+	return `${stamp}-${what}-${bodySha256(record.body).slice(0, 8)}.json`;
 }
 
 function fsyncFolder(folder: string): void {
@@ -41,7 +42,7 @@ function fsyncFolder(folder: string): void {
  * final name (which fails if the name is taken), then removed; the folder is synced.
  * Returns the path written.
  */
-export function writeRecord(folder: string, record: BenchRecord): string {
+export function writeRecord(folder: string, record: AnyRecord): string {
 	mkdirSync(folder, {recursive: true});
 	const data = `${JSON.stringify(record, null, 2)}\n`;
 	const temporary = join(folder, `.${process.pid}-${randomBytes(6).toString('hex')}.tmp`);

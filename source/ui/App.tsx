@@ -1,9 +1,12 @@
 import {Box, Text, useApp, useInput, useStdout} from 'ink';
+import {resolve} from 'node:path';
 import {useEffect, useMemo, useRef, useState} from 'react';
 import {signAndWrite} from '../commands/sign-check.js';
 import {loadDraft, removeDraft, saveDraft, type Draft} from '../drafts/draft-store.js';
 import {listSetups, loadSetup, saveSetup} from '../drafts/setup-store.js';
 import {displayPath} from '../display-path.js';
+import {openPlanForEditing, type PlanEditing} from '../interlock/plan-edit.js';
+import {formatProblem} from '../problems.js';
 import type {CompiledRules} from '../rules/compiled-rules.js';
 import type {SettingsStore} from '../settings.js';
 import {stripControl} from '../text.js';
@@ -11,13 +14,15 @@ import {DoneScreen} from './DoneScreen.js';
 import {HelpOverlay} from './HelpOverlay.js';
 import {HomeScreen, type HomeChoice} from './HomeScreen.js';
 import {InfoScreen} from './InfoScreen.js';
+import {PlannerScreen} from './PlannerScreen.js';
+import {PlanOpenScreen} from './PlanOpenScreen.js';
 import {nameSetup, startSession, type Session} from './session.js';
 import {SettingsScreen} from './SettingsScreen.js';
 import {SignOffScreen, type SignOffForm} from './SignOffScreen.js';
 import {StepScreen} from './StepScreen.js';
 import {SummaryScreen} from './SummaryScreen.js';
 
-type Screen = 'home' | 'step' | 'summary' | 'signoff' | 'done' | 'settings' | 'info';
+type Screen = 'home' | 'step' | 'summary' | 'signoff' | 'done' | 'settings' | 'info' | 'plan-open' | 'planner';
 
 /** Props of the whole interface. */
 export type AppProps = {
@@ -26,18 +31,22 @@ export type AppProps = {
 	env: NodeJS.ProcessEnv;
 	/** Start straight in the bench check (`prelase check`), optionally from a saved setup. */
 	startCheck?: {setup?: string};
+	/** Start straight in the interlock planner on this plan file (`prelase plan FILE --edit`). */
+	startPlan?: string;
 	/** Audits the records folder and returns lines to show (kept outside so the core stays out of the screens). */
 	audit?: (folder: string) => Promise<string[]>;
 	onExit(code: number): void;
 };
 
 /** The bench-check interface: home, steps, summary, sign-off, and the pages around them. */
-export function App({rules, settings, env, startCheck, audit, onExit}: AppProps) {
+export function App({rules, settings, env, startCheck, startPlan, audit, onExit}: AppProps) {
 	const {exit} = useApp();
 	const {stdout} = useStdout();
 	const rows = stdout.rows ?? 24;
 	const width = stdout.columns ?? 80;
-	const [screen, setScreen] = useState<Screen>(startCheck ? 'step' : 'home');
+	// The plan is opened before the first frame, so `plan FILE --edit` starts on it (or on its problems).
+	const [plan, setPlan] = useState<{editing?: PlanEditing; problems?: string[]}>(() => (startPlan === undefined ? {} : openPlan(startPlan)));
+	const [screen, setScreen] = useState<Screen>(startPlan !== undefined ? (plan.editing ? 'planner' : 'plan-open') : startCheck ? 'step' : 'home');
 	const [stepIndex, setStepIndex] = useState(0);
 	const [session, setSessionState] = useState<Session>(() => {
 		const saved = startCheck?.setup ? loadSetup(settings.folder, startCheck.setup) : undefined;
@@ -58,6 +67,14 @@ export function App({rules, settings, env, startCheck, audit, onExit}: AppProps)
 	// Read from disk when a screen is entered, not on every frame drawn.
 	const setups = useMemo(() => (screen === 'home' ? listSetups(settings.folder) : []), [screen]);
 	const saved = useMemo(() => settings.read(), [screen]);
+
+	function openPlan(path: string): {editing?: PlanEditing; problems?: string[]} {
+		const file = resolve(path);
+		const opened = openPlanForEditing(file, rules);
+		if (!opened.ok) return {problems: opened.errors.map(formatProblem)};
+		settings.write({planFile: file});
+		return {editing: opened.value};
+	}
 
 	const quit = (code: number) => {
 		onExit(code);
@@ -107,6 +124,9 @@ export function App({rules, settings, env, startCheck, audit, onExit}: AppProps)
 				);
 				return setScreen('info');
 			}
+			case 'planner':
+				setPlan({});
+				return setScreen('plan-open');
 			case 'settings':
 				return setScreen('settings');
 			case 'quit':
@@ -142,7 +162,7 @@ export function App({rules, settings, env, startCheck, audit, onExit}: AppProps)
 
 	const header = (
 		<Box borderStyle="single" borderLeft={false} borderRight={false} borderTop={false} justifyContent="space-between">
-			<Text bold>prelase · bench check</Text>
+			<Text bold>prelase · {screen === 'planner' || screen === 'plan-open' ? 'interlock planner' : 'bench check'}</Text>
 			<Text dimColor>{stripControl(session.setup || rules.rules.name)}</Text>
 		</Box>
 	);
@@ -154,6 +174,9 @@ export function App({rules, settings, env, startCheck, audit, onExit}: AppProps)
 		done: 's save setup · Enter home',
 		settings: 'Enter save · Esc back',
 		info: 'Enter or Esc back',
+		'plan-open': 'Enter open · Esc back · ? help',
+		// The planner draws its own key line: its keys change with what it shows.
+		planner: '',
 	};
 
 	let body;
@@ -188,6 +211,16 @@ export function App({rules, settings, env, startCheck, audit, onExit}: AppProps)
 				onHome={() => setScreen('home')}
 			/>
 		);
+	else if (screen === 'plan-open') {
+		const open = (path: string) => {
+			const opened = openPlan(path);
+			if (!opened.editing) return opened.problems;
+			setPlan(opened);
+			setScreen('planner');
+			return undefined;
+		};
+		body = <PlanOpenScreen initial={plan.problems && startPlan ? startPlan : (saved.planFile ?? '')} {...(plan.problems ? {problems: plan.problems} : {})} onOpen={open} onBack={() => setScreen('home')} onHelp={() => setHelp(true)} active={!help} />;
+	} else if (screen === 'planner' && plan.editing) body = <PlannerScreen editing={plan.editing} rulesName={rules.rules.name} rows={rows - 2} width={width} onLeave={() => setScreen('home')} />;
 	else if (screen === 'settings') body = <SettingsScreen initial={saved} path={settings.path} onSave={(changes) => settings.write(changes)} onBack={() => setScreen('home')} />;
 	else body = <InfoScreen title={info.title} lines={info.lines} onBack={() => setScreen('home')} />;
 
@@ -199,9 +232,11 @@ export function App({rules, settings, env, startCheck, audit, onExit}: AppProps)
 			<Box display={help ? 'none' : 'flex'} flexDirection="column">
 				{body}
 			</Box>
-			<Text dimColor wrap="truncate">
-				{footer[screen]}
-			</Text>
+			{footer[screen] ? (
+				<Text dimColor wrap="truncate">
+					{footer[screen]}
+				</Text>
+			) : null}
 		</Box>
 	);
 }

@@ -4,7 +4,7 @@ import {deferral} from '../deferral.js';
 import {stripControl} from '../text.js';
 
 /** What the home screen can lead to. */
-export type HomeChoice = {action: 'start'} | {action: 'resume'} | {action: 'setup'; name: string} | {action: 'audit'} | {action: 'rules'} | {action: 'settings'} | {action: 'quit'};
+export type HomeChoice = {action: 'start'} | {action: 'resume'} | {action: 'setup'; name: string} | {action: 'audit'} | {action: 'planner'} | {action: 'rules'} | {action: 'settings'} | {action: 'quit'};
 
 /** The home screen: start, resume or audit, the rules in force and settings; the caution always shown. */
 export function HomeScreen(props: {rulesName: string; rulesFile: string; rulesSha256: string; caution: string; draft?: {setup: string; savedAt: string}; setups: string[]; onChoose(choice: HomeChoice): void}) {
@@ -12,6 +12,7 @@ export function HomeScreen(props: {rulesName: string; rulesFile: string; rulesSh
 	if (props.draft) items.unshift({key: 'resume', label: `Resume the draft: ${stripControl(props.draft.setup || 'unnamed setup')} (saved ${props.draft.savedAt.slice(0, 16).replace('T', ' ')})`, value: {action: 'resume'}});
 	for (const name of props.setups) items.push({key: `setup-${name}`, label: `Start from the saved setup ${stripControl(name)}`, value: {action: 'setup', name}});
 	items.push(
+		{key: 'planner', label: 'Interlock planner', value: {action: 'planner'}},
 		{key: 'audit', label: 'Audit the records folder', value: {action: 'audit'}},
 		{key: 'rules', label: 'Rules in force', value: {action: 'rules'}},
 		{key: 'settings', label: 'Settings (operator, role, records folder, rule file)', value: {action: 'settings'}},

@@ -7,7 +7,7 @@ import {plain} from '../paint.js';
 
 
 /** Options of the screens: where they start. */
-export type ScreenOptions = {env: NodeJS.ProcessEnv; rules?: string; startCheck?: {setup?: string}; audit?: (folder: string) => Promise<string[]>; stderr: NodeJS.WriteStream};
+export type ScreenOptions = {env: NodeJS.ProcessEnv; rules?: string; startCheck?: {setup?: string}; startPlan?: string; audit?: (folder: string) => Promise<string[]>; stderr: NodeJS.WriteStream};
 
 /** Runs the interactive screens until the operator leaves; returns the exit status. */
 export async function runScreens(options: ScreenOptions): Promise<number> {
@@ -35,7 +35,7 @@ export async function runScreens(options: ScreenOptions): Promise<number> {
 			return auditText(report, plain, process.stdout.columns ?? 80).split('\n');
 		});
 	let code = 0;
-	const instance = render(<App rules={rules.value} settings={settings} env={options.env} {...(options.startCheck ? {startCheck: options.startCheck} : {})} audit={audit} onExit={(value) => (code = value)} />, {exitOnCtrlC: false});
+	const instance = render(<App rules={rules.value} settings={settings} env={options.env} {...(options.startCheck ? {startCheck: options.startCheck} : {})} {...(options.startPlan === undefined ? {} : {startPlan: options.startPlan})} audit={audit} onExit={(value) => (code = value)} />, {exitOnCtrlC: false});
 	await instance.waitUntilExit();
 	return code;
 }

@@ -249,7 +249,8 @@ describe('prelase audit --json', () => {
 		expect(json['currentRules']).toEqual({name: 'prelase bench policy (shipped default)', file: shippedRulesPath(), sha256: clean.body.rules.sha256});
 		expect(json['trust']).toEqual({own: clean.signatures[0]!.fingerprint, trusted: 0});
 		const record = json['records'][0];
-		expect(Object.keys(record)).toEqual(['file', 'authentic', 'bodySha256', 'record', 'signatures', 'consistency', 'currentPolicy', 'history', 'notChecked', 'findings']);
+		expect(Object.keys(record)).toEqual(['file', 'authentic', 'bodySha256', 'record', 'interlockTest', 'signatures', 'consistency', 'currentPolicy', 'history', 'notChecked', 'findings']);
+		expect(record.interlockTest).toBeNull();
 		expect(record.file).toBe(cleanPath);
 		expect(record.record).toMatchObject({createdAt: clean.body.createdAt, operator: {name: 'Test Person', role: 'test engineer'}, outcome: 'clear_to_energize', setup: clean.body.setup && {name: clean.body.setup.name, fingerprint: clean.body.setup.fingerprint}});
 		expect(record.record.exceptions).toEqual([expect.objectContaining({status: 'not_applicable', note: 'No bypass is fitted on bench 3.'})]);

@@ -30,8 +30,8 @@ function demoBody(example: string): RecordBody {
 function signed(body: RecordBody): {record: BenchRecord; signatures: SignatureStatus[]} {
 	const record = signRecord(body, [{signer: {name: 'Test Person', role: 'test engineer', meaning: 'performed'}, key: operatorKey}], now);
 	const integrity = checkRecordText(JSON.stringify(record));
-	if (!integrity.ok) throw new Error(`test setup: the record must verify (${integrity.reason})`);
-	return {record: integrity.record, signatures: integrity.signatures};
+	if (!integrity.ok || integrity.record.body.kind !== 'bench-check') throw new Error('test setup: the record must verify as a bench check');
+	return {record: {...integrity.record, body: integrity.record.body}, signatures: integrity.signatures};
 }
 
 const ownTrust: TrustInfo = {own: operatorFingerprint, trusted: []};

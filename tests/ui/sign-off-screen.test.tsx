@@ -82,6 +82,7 @@ describe('the sign-off', () => {
 		expect(frame).toContain('Outcome: CLEAR TO ENERGIZE');
 		const read = readRecord(path);
 		if (!read.ok) throw new Error(`the record does not verify: ${read.reason}`);
+		if (read.record.body.kind !== 'bench-check') throw new Error('expected a bench-check record');
 		expect(read.record.body.operator).toEqual({name: 'Ben Okafor', role: 'lab lead'});
 		expect(read.record.body.outcome).toBe('clear_to_energize');
 		expect(read.record.body.setup.name).toBe(demo.setup);

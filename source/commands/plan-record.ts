@@ -1,0 +1,44 @@
+import {analysePlan} from '../interlock/analyse.js';
+import {loadResults} from '../interlock/load-results.js';
+import type {Plan} from '../interlock/plan-schema.js';
+import {buildTestBody} from '../interlock/test-record.js';
+import {testSheet} from '../interlock/test-sheet.js';
+import {recordsFolder} from '../records/folder.js';
+import {keyFromFile, operatorKey} from '../records/key-store.js';
+import {fingerprint, rawPublicKey, shortFingerprint} from '../records/keys.js';
+import {signRecord} from '../records/sign-record.js';
+import type {Signer} from '../records/sign.js';
+import {writeRecord} from '../records/store.js';
+import type {CompiledRules} from '../rules/compiled-rules.js';
+import {openSettings} from '../settings.js';
+import {stripControl} from '../text.js';
+import {UsageError} from '../usage-error.js';
+
+/** What `plan FILE --record-test RESULTS` was asked to do. */
+export type RecordTestOptions = {results: string; records?: string | undefined; witnessKey?: string | undefined; now?: Date};
+
+/** Where the interlock test record went and what it says. */
+export type RecordedTest = {path: string; fingerprint: string; keyCreated: boolean; outcome: 'passed' | 'failed'; outcomeText: string; testedOn: string; tester: string};
+
+/**
+ * Holds a filled-in test sheet against the plan, then builds, signs (the tester with this
+ * machine's operator key; the witness with --witness-key) and writes the interlock test
+ * record, whatever the outcome.
+ */
+export function recordTest(plan: Plan, planFile: string, planText: string, rules: CompiledRules, options: RecordTestOptions, env: NodeJS.ProcessEnv): RecordedTest {
+	const now = options.now ?? new Date();
+	const sheet = testSheet(plan);
+	const results = loadResults(options.results, sheet, now);
+	if (!results.ok) throw new UsageError(`the results file has problems; no record was written`, results.errors);
+	if (options.witnessKey !== undefined && results.value.witness === undefined) throw new UsageError('--witness-key needs a witness in the results file (witness: {name, role})');
+	const body = buildTestBody({plan, planFile, planText, rules, analysis: analysePlan(plan), sheet, results: results.value, now});
+	const settings = openSettings(env);
+	const {privateKey, created} = operatorKey(settings.folder, true);
+	const signers: Array<{signer: Signer; key: typeof privateKey}> = [{signer: {name: stripControl(body.tester.name).trim(), role: stripControl(body.tester.role).trim(), meaning: 'performed'}, key: privateKey}];
+	if (options.witnessKey !== undefined && body.witness) {
+		signers.push({signer: {name: stripControl(body.witness.name).trim(), role: stripControl(body.witness.role).trim(), meaning: 'verified'}, key: keyFromFile(options.witnessKey)});
+	}
+	const record = signRecord(body, signers, now);
+	const path = writeRecord(recordsFolder(env, options.records), record);
+	return {path, fingerprint: shortFingerprint(fingerprint(rawPublicKey(privateKey))), keyCreated: created, outcome: body.outcome, outcomeText: body.outcomeText, testedOn: body.testedOn, tester: body.tester.name};
+}

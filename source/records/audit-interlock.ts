@@ -1,0 +1,66 @@
+import {analysePlan} from '../interlock/analyse.js';
+import {loadPlanFromText} from '../interlock/load-plan.js';
+import {planSha256, policyFromRecord, testOutcome} from '../interlock/test-record.js';
+import {testSheet} from '../interlock/test-sheet.js';
+import {formatProblem} from '../problems.js';
+import {finding, type Finding} from './audit-findings.js';
+import type {InterlockTestBody} from './record-schema.js';
+
+/** The facts of an interlock test record an auditor reads first. */
+export type InterlockTestSummary = {
+	createdAt: string;
+	tool: InterlockTestBody['tool'];
+	testedOn: string;
+	tester: InterlockTestBody['tester'];
+	witness: InterlockTestBody['tester'] | null;
+	plan: {name: string; file: string; sha256: string};
+	outcome: InterlockTestBody['outcome'];
+	outcomeText: string;
+	/** Steps that failed or were accepted as not applicable, with their notes. */
+	exceptions: Array<{number: number; subject: string; result: string; note?: string}>;
+};
+
+/** The summary of an interlock test record. */
+export function summariseInterlockTest(body: InterlockTestBody): InterlockTestSummary {
+	return {
+		createdAt: body.createdAt,
+		tool: body.tool,
+		testedOn: body.testedOn,
+		tester: body.tester,
+		witness: body.witness ?? null,
+		plan: {name: body.plan.name, file: body.plan.file, sha256: body.plan.sha256},
+		outcome: body.outcome,
+		outcomeText: body.outcomeText,
+		exceptions: body.steps.filter((step) => step.result !== 'pass').map((step) => ({number: step.number, subject: step.subject, result: step.result, ...(step.note ? {note: step.note} : {})})),
+	};
+}
+
+const stopsText = (stops: number) => `${stops} stop finding${stops === 1 ? '' : 's'}`;
+
+/**
+ * Whether an interlock test record's conclusions follow from what it holds: the embedded plan
+ * text has the stated hash; re-worked under the recorded policy it gives the recorded stop
+ * findings and the recorded test sheet; and the steps and findings give the recorded outcome.
+ */
+export function interlockTestConsistency(body: InterlockTestBody): {reevaluated: boolean; findings: Finding[]} {
+	const findings: Finding[] = [];
+	const actual = planSha256(body.plan.text);
+	if (actual !== body.plan.sha256) findings.push(finding('consistency', 'audit-plan-hash-mismatch', {stated: body.plan.sha256, actual}));
+	const loaded = loadPlanFromText(body.plan.text, body.plan.file);
+	if (!loaded.ok) {
+		findings.push(finding('consistency', 'audit-plan-does-not-load', {detail: loaded.errors.map(formatProblem).join('; ')}));
+	} else {
+		const plan = {...loaded.value, policy: policyFromRecord(body.policy)};
+		const analysis = analysePlan(plan);
+		if (analysis.stops !== body.planFindings.stops) findings.push(finding('consistency', 'audit-plan-findings-mismatch', {recorded: stopsText(body.planFindings.stops), computed: stopsText(analysis.stops)}));
+		const expected = testSheet(plan).steps.map((step) => `${step.number} ${step.subject}`);
+		const recorded = body.steps.map((step) => `${step.number} ${step.subject}`);
+		if (expected.join('\n') !== recorded.join('\n')) {
+			const first = expected.findIndex((entry, index) => entry !== recorded[index]);
+			findings.push(finding('consistency', 'audit-test-steps-mismatch', {detail: `step ${first === -1 ? expected.length + 1 : first + 1}: the sheet has "${expected[first] ?? '(no step)'}", the record "${recorded[first === -1 ? expected.length : first] ?? '(no step)'}"`}));
+		}
+	}
+	const computed = testOutcome(body.planFindings.stops, body.steps);
+	if (computed !== body.outcome) findings.push(finding('consistency', 'audit-test-outcome-mismatch', {recorded: body.outcome, computed}));
+	return {reevaluated: loaded.ok, findings};
+}

@@ -1,0 +1,105 @@
+import {Box, Text, type Key} from 'ink';
+import {useReducer, useRef} from 'react';
+import {displayPath} from '../display-path.js';
+import type {PlanEditing} from '../interlock/plan-edit.js';
+import {savePlanEditing} from '../interlock/save-plan.js';
+import {stripControl} from '../text.js';
+import {HelpOverlay} from './HelpOverlay.js';
+import {PlanFindings} from './PlanFindings.js';
+import {PlanForm} from './PlanForm.js';
+import {PlanList} from './PlanList.js';
+import {formKey} from './planner-form-keys.js';
+import {leaveKey, listKey, removeKey, type ListActions} from './planner-list-keys.js';
+import {itemId, type PlannerState, type View} from './planner-state.js';
+import {useKeystrokes} from './use-keystrokes.js';
+
+/** Props of the interlock planner. */
+export type PlannerScreenProps = {
+	editing: PlanEditing;
+	/** Name of the rule file the interlock policy comes from. */
+	rulesName: string;
+	rows: number;
+	width: number;
+	/** Leave the planner (after saving or discarding, when there were changes). */
+	onLeave(): void;
+};
+
+const keyLines: Record<View['name'], string> = {
+	list: 'Enter edit · a add access point · d add device · x remove · [ ] move · s save · ? help',
+	form: 'Enter apply · ↑ ↓ field · ← → choose · Esc back to the list · ? help',
+	remove: 'y remove · any other key keeps it',
+	leave: 's save and leave · d discard changes and leave · Esc stay',
+	findings: '↑ ↓ scroll · Esc back',
+};
+
+/** Saves the plan; the notice says where, or why not. */
+function save(state: PlannerState): PlannerState {
+	const saved = savePlanEditing(state.editing);
+	if (!saved.ok) return {...state, notice: {text: `Not saved: ${saved.message}`, error: true}};
+	return {...state, editing: saved.editing, notice: {text: `Saved ${displayPath(saved.editing.file)}`}};
+}
+
+/** The interlock planner: the plan's items and findings, forms to change them, and saving. Findings follow every applied change. */
+export function PlannerScreen({editing, rulesName, rows, width, onLeave}: PlannerScreenProps) {
+	// Keys are handled against a ref, not render state: several keys can arrive before the next frame.
+	const state = useRef<PlannerState>({editing, selected: 0, view: {name: 'list'}, help: false});
+	const [, rerender] = useReducer((count: number) => count + 1, 0);
+	const actions: ListActions = {save, leave: onLeave};
+	useKeystrokes(handleKey, {isActive: !state.current.help});
+	function handleKey(input: string, key: Key) {
+		if (key.ctrl) return;
+		const current = state.current;
+		const {view} = current;
+		let next = current;
+		if (view.name === 'list') next = listKey(current, input, key, actions);
+		else if (view.name === 'form') next = formKey(current, view.form, input, key);
+		else if (view.name === 'remove') next = removeKey(current, view.ref, input);
+		else if (view.name === 'leave') next = leaveKey(current, input, key, actions);
+		else if (key.escape) next = {...current, view: {name: 'list'}};
+		else if (key.upArrow || key.downArrow) next = {...current, view: {name: 'findings', offset: Math.max(0, view.offset + (key.upArrow ? -1 : 1))}};
+		else if (input === '?') next = {...current, help: true};
+		if (next !== current) {
+			state.current = next;
+			rerender();
+		}
+	}
+
+	const {view, notice} = state.current;
+	const current = state.current.editing;
+	const body = rows - 1;
+	const noticeLine = notice ? (
+		<Text wrap="truncate" {...(notice.error ? {color: 'red'} : {})}>
+			{notice.error ? '✗ ' : '✓ '}
+			{stripControl(notice.text)}
+		</Text>
+	) : (
+		<Text> </Text>
+	);
+	let shown;
+	if (view.name === 'form') shown = <PlanForm editing={current} form={view.form} rows={body - 1} />;
+	else if (view.name === 'findings') shown = <PlanFindings editing={current} offset={view.offset} rows={body} width={width} />;
+	else {
+		let prompt = noticeLine;
+		if (view.name === 'remove') {
+			const what = view.ref.list === 'devices' ? 'device' : 'access point';
+			prompt = <Text bold wrap="truncate">Remove the {what} {itemId(current, view.ref)} from the plan?</Text>;
+		} else if (view.name === 'leave') prompt = <Text bold wrap="truncate">Unsaved changes to {displayPath(current.file)}. Save them before leaving?</Text>;
+		shown = <PlanList editing={current} rulesName={rulesName} selected={state.current.selected} rows={body} width={width} prompt={prompt} />;
+	}
+	const close = () => {
+		state.current = {...state.current, help: false};
+		rerender();
+	};
+	return (
+		<Box flexDirection="column">
+			{state.current.help ? <HelpOverlay screen={view.name === 'form' ? 'plan-form' : 'planner'} onClose={close} /> : null}
+			<Box display={state.current.help ? 'none' : 'flex'} flexDirection="column">
+				{shown}
+				{view.name === 'form' ? noticeLine : null}
+			</Box>
+			<Text dimColor wrap="truncate">
+				{keyLines[view.name]}
+			</Text>
+		</Box>
+	);
+}
