@@ -14,6 +14,8 @@ export type PlanField = {
 	/** Shown when the field is not in the file: the value the schema takes instead. */
 	fallback?: string;
 	dimension?: Dimension;
+	/** Emptied, this field removes the map it belongs to (a wire run's length: the whole run). */
+	removes?: readonly string[];
 };
 
 /** The choice that leaves an optional field out. */
@@ -43,7 +45,7 @@ export function deviceFields(plan: Plan, current?: string): PlanField[] {
 		quantity(['bypass', 'time_limit'], 'Bypass time limit', 'time', true),
 		{path: ['wire_to_next', 'awg'], label: 'Run to next: AWG', kind: 'number', optional: true},
 		quantity(['wire_to_next', 'cross_section'], 'Run to next: section', 'area', true),
-		quantity(['wire_to_next', 'length'], 'Run to next: length', 'length', true),
+		{...quantity(['wire_to_next', 'length'], 'Run to next: length', 'length', true), removes: ['wire_to_next']},
 		{path: ['wire_to_next', 'conductors'], label: 'Run to next: conductors', kind: 'number', optional: true, fallback: '2'},
 	];
 }
@@ -89,7 +91,7 @@ export function typedValue(field: PlanField, entry: string): unknown {
 
 /** One line saying what a field expects. */
 export function planFieldHint(field: PlanField): string {
-	const optional = field.optional ? ' · empty leaves it out' : '';
+	const optional = field.removes ? ` · empty removes the whole ${field.removes.join('.')}` : field.optional ? ' · empty leaves it out' : '';
 	if (field.kind === 'quantity' && field.dimension) return `${dimensions[field.dimension].noun} with its unit, e.g. ${dimensions[field.dimension].example}${optional}`;
 	if (field.kind === 'choice') return `← → choose · Enter apply${field.options?.[0] === 'yes' ? ' · y n' : ''}`;
 	if (field.kind === 'number') return `a whole number${optional}`;

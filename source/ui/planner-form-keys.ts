@@ -25,16 +25,17 @@ function commit(state: PlannerState, form: Form): {state: PlannerState; applied:
 	const entry = entered(field, form, current);
 	if (entry === undefined || entry.trim() === shownValue(field, current)) return {state: withForm(state, {...form, message: undefined}), applied: true};
 	const value = typedValue(field, entry);
+	const path = value === undefined && field.removes ? field.removes : field.path;
 	if (form.target.kind === 'add') {
-		const values = withValue(form.target.values, field.path, value);
+		const values = withValue(form.target.values, path, value);
 		const problem = draftFieldProblem(editing, form.target.list, values, field.path);
 		if (problem) return {state: withForm(state, {...form, message: problem}), applied: false};
 		return {state: withForm(state, {...form, target: {...form.target, values}, message: undefined}), applied: true};
 	}
 	const {list, index} = form.target.ref;
-	const result = setItemField(editing, list, index, field.path, value);
+	const result = setItemField(editing, list, index, path, value);
 	if (!result.ok) return {state: withForm(state, {...form, message: result.message}), applied: false};
-	const notice = {text: `${itemId(result.editing, form.target.ref)}: ${field.label.toLowerCase()} set to ${shownValue(field, value)}`};
+	const notice = {text: `${itemId(result.editing, form.target.ref)}: ${field.label.toLowerCase()} ${value === undefined ? 'left out' : `set to ${shownValue(field, value)}`}`};
 	return {state: {...state, editing: result.editing, notice, view: {name: 'form', form: {...form, message: undefined}}}, applied: true};
 }
 
