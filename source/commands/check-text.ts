@@ -1,3 +1,4 @@
+import type {InterlockLink} from '../interlock/test-link.js';
 import {deferral} from '../deferral.js';
 import type {Paint} from '../paint.js';
 import type {Answers, InputAnswer} from '../rules/answers.js';
@@ -63,9 +64,10 @@ function answerText(input: Input, answer: InputAnswer): string {
 
 /**
  * The bench check as text for a person: header, caution, each step's inputs, checks and
- * confirmations, a summary with failures first, and the outcome with the deferral.
+ * confirmations, a summary with failures first, the interlock test used (if a plan is named),
+ * and the outcome with the deferral.
  */
-export function checkText(rules: CompiledRules, answers: Answers, evaluation: Evaluation, paint: Paint, width = 100): string {
+export function checkText(rules: CompiledRules, answers: Answers, evaluation: Evaluation, paint: Paint, width = 100, interlock: InterlockLink | null = null): string {
 	const out: string[] = [];
 	out.push(paint.bold(`prelase ${version} · bench check`));
 	out.push(`Rules   ${stripControl(rules.rules.name)}`);
@@ -99,6 +101,10 @@ export function checkText(rules: CompiledRules, answers: Answers, evaluation: Ev
 	for (const entry of evaluation.confirmations.filter((item) => item.status === 'unanswered' || item.status === 'open')) out.push(...confirmationLines(entry, paint, width));
 	if (evaluation.missingInputs.length > 0) out.push(...wrap(`Inputs not given: ${evaluation.missingInputs.join(', ')}`, width, '   '));
 	if (notable.length === 0) out.push('   Every check that applies holds.');
+	if (interlock) {
+		const mark = interlock.status === 'current' ? paint.pass('✓') : paint.fail('✗');
+		out.push('', ...wrap(`${mark} Interlock test (${interlock.status}): ${stripControl(interlock.text)}`, width, '   '));
+	}
 
 	const words = outcomeWords[evaluation.outcome].toUpperCase();
 	const outcome = evaluation.outcome === 'clear_to_energize' ? paint.pass(words) : evaluation.outcome === 'do_not_energize' ? paint.fail(words) : paint.open(words);

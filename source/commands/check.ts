@@ -5,6 +5,9 @@ import {evaluate} from '../rules/evaluate.js';
 import {evaluationToJson} from '../rules/evaluation-json.js';
 import {loadAnswers} from '../rules/load-answers.js';
 import {rulesInForce} from '../rules/in-force.js';
+import {answerFromInterlockTest} from '../interlock/test-link.js';
+import {recordsFolder, trustedFingerprints} from '../records/folder.js';
+import {dirname} from 'node:path';
 import {UsageError} from '../usage-error.js';
 import {checkText} from './check-text.js';
 import {helpTexts} from './help.js';
@@ -53,19 +56,21 @@ export function runCheck(args: string[], io: Io): number | Promise<number> {
 	if (!answers.ok) throw new UsageError('the answers file has problems', answers.errors);
 	for (const found of [...rules.warnings, ...answers.warnings]) io.stderr.write(`${formatProblem(found)}\n`);
 
-	for (const flag of ['role', 'records', 'amends', 'reason', 'cosign'] as const) {
+	for (const flag of ['role', 'amends', 'reason', 'cosign'] as const) {
 		if (values[flag] !== undefined && values.sign === undefined) throw new UsageError(`--${flag} goes with --sign NAME (a record is written only when someone signs)`);
 	}
 	if ((values['cosign-key'] !== undefined || values['cosign-role'] !== undefined || values['cosign-meaning'] !== undefined) && values.cosign === undefined) throw new UsageError('--cosign-key, --cosign-role and --cosign-meaning go with --cosign NAME');
 	if (values.cosign !== undefined && values['cosign-key'] === undefined) throw new UsageError('--cosign NAME needs --cosign-key FILE (the second signer\'s private key)');
 
-	const evaluation = evaluate(rules.value, answers.value);
+	// Confirmations the rule file answers by the interlock test come from the latest test record of the named plan.
+	const linked = answerFromInterlockTest(rules.value, answers.value, {base: dirname(values.answers), folder: recordsFolder(io.env, values.records), trusted: trustedFingerprints(io.env), now: new Date()});
+	const evaluation = evaluate(rules.value, linked.answers);
 	const written =
 		values.sign === undefined
 			? undefined
 			: signAndWrite(
 					rules.value,
-					answers.value,
+					linked.answers,
 					evaluation,
 					{
 						name: values.sign,
@@ -78,12 +83,13 @@ export function runCheck(args: string[], io: Io): number | Promise<number> {
 							: {cosign: {name: values.cosign, key: values['cosign-key']!, meaning: values['cosign-meaning'] ?? 'verified', ...(values['cosign-role'] === undefined ? {} : {role: values['cosign-role']})}}),
 					},
 					io.env,
+					linked.link,
 				);
 	if (values.json) {
-		const json = {...evaluationToJson(rules.value, answers.value, evaluation), ...(written ? {record: {path: written.path, fingerprint: written.fingerprint}} : {})};
+		const json = {...evaluationToJson(rules.value, linked.answers, evaluation), ...(linked.link ? {interlockTest: linked.link} : {}), ...(written ? {record: {path: written.path, fingerprint: written.fingerprint}} : {})};
 		io.stdout.write(`${terminalSafeJson(json)}\n`);
 	} else {
-		io.stdout.write(`${checkText(rules.value, answers.value, evaluation, paintFor(io.stdout, io.env), io.stdout.columns ?? 100)}\n`);
+		io.stdout.write(`${checkText(rules.value, linked.answers, evaluation, paintFor(io.stdout, io.env), io.stdout.columns ?? 100, linked.link)}\n`);
 		if (written) io.stdout.write(`\nRecord written: ${written.path}\nSigned with key ${written.fingerprint}${written.keyCreated ? ' (a new key, created now; share it with: prelase keys export)' : ''}\n`);
 	}
 	return evaluation.outcome === 'clear_to_energize' ? 0 : 1;

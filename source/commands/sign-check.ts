@@ -7,6 +7,7 @@ import {signRecord} from '../records/sign-record.js';
 import type {Signer} from '../records/sign.js';
 import {writeRecord} from '../records/store.js';
 import {recordsFolder} from '../records/folder.js';
+import type {InterlockLink} from '../interlock/test-link.js';
 import type {Answers} from '../rules/answers.js';
 import type {CompiledRules} from '../rules/compiled-rules.js';
 import type {Evaluation} from '../rules/evaluation.js';
@@ -30,7 +31,7 @@ export type WrittenRecord = {path: string; fingerprint: string; keyCreated: bool
 const meanings = new Set(['verified', 'approved']);
 
 /** Builds, signs and writes the record of a bench check (in every outcome). */
-export function signAndWrite(rules: CompiledRules, answers: Answers, evaluation: Evaluation, options: SignOptions, env: NodeJS.ProcessEnv): WrittenRecord {
+export function signAndWrite(rules: CompiledRules, answers: Answers, evaluation: Evaluation, options: SignOptions, env: NodeJS.ProcessEnv, interlockTest: InterlockLink | null = null): WrittenRecord {
 	const name = stripControl(options.name).trim();
 	if (!name) throw new UsageError('--sign needs the name of the person signing');
 	const settings = openSettings(env);
@@ -55,7 +56,7 @@ export function signAndWrite(rules: CompiledRules, answers: Answers, evaluation:
 			key: keyFromFile(options.cosign.key),
 		});
 	}
-	const body = buildRecordBody({rules, answers, evaluation, operator: {name, role: signers[0]!.signer.role}, ...(amends ? {amends} : {})});
+	const body = buildRecordBody({rules, answers, evaluation, operator: {name, role: signers[0]!.signer.role}, interlockTest, ...(amends ? {amends} : {})});
 	const record = signRecord(body, signers);
 	const path = writeRecord(folder, record);
 	return {path, fingerprint: shortFingerprint(fingerprint(rawPublicKey(privateKey))), keyCreated: created, folder};

@@ -4,6 +4,7 @@ import type {CompiledRules} from '../rules/compiled-rules.js';
 import type {Evaluation} from '../rules/evaluation.js';
 import {evaluationToJson} from '../rules/evaluation-json.js';
 import {canonicalBytes} from './canonical.js';
+import type {InterlockLink} from '../interlock/test-link.js';
 import {recordBodySchema, type AnyBody, type RecordBody} from './record-schema.js';
 import {isoWithOffset} from './sign.js';
 import {displayPath} from '../display-path.js';
@@ -32,7 +33,7 @@ export function bodySha256(body: AnyBody): string {
 }
 
 /** Builds the body of a bench-check record, validated as plain data before anyone signs it. */
-export function buildRecordBody(input: {rules: CompiledRules; answers: Answers; evaluation: Evaluation; operator: {name: string; role: string}; amends?: Amendment; now?: Date}): RecordBody {
+export function buildRecordBody(input: {rules: CompiledRules; answers: Answers; evaluation: Evaluation; operator: {name: string; role: string}; amends?: Amendment; interlockTest?: InterlockLink | null; now?: Date}): RecordBody {
 	const {rules, answers, evaluation, operator, amends} = input;
 	const {tool, rules: _rulesSummary, setup, ...evaluated} = evaluationToJson(rules, answers, evaluation);
 	const body = {
@@ -44,6 +45,7 @@ export function buildRecordBody(input: {rules: CompiledRules; answers: Answers; 
 		...(amends ? {amends} : {}),
 		rules: {name: rules.rules.name, file: displayPath(rules.file), sha256: rules.sha256, text: rules.text},
 		...evaluated,
+		...(input.interlockTest ? {interlockTest: input.interlockTest} : {}),
 	};
 	return recordBodySchema.parse(JSON.parse(JSON.stringify(body)));
 }

@@ -4,6 +4,8 @@ import type {z} from 'zod';
 
 const text = string();
 const shown = object({si: number(), unit: string(), text: string()}).strict();
+const sha256Hex = text.regex(/^[0-9a-f]{64}$/);
+const person = object({name: text.min(1), role: text}).strict();
 
 /** Who signed, when, what the signature means, with the key that made it. */
 export const signatureSchema = object({
@@ -62,13 +64,19 @@ export const recordBodySchema = object({
 				})
 				.strict(),
 		),
+		interlockTest: object({
+				status: oneOf(['current', 'overdue', 'failed', 'untested', 'unreadable']),
+				plan: object({file: text, sha256: sha256Hex.nullable()}).strict(),
+				record: object({file: text, bodySha256: sha256Hex, testedOn: text, outcome: oneOf(['passed', 'failed']), dueBy: text}).strict().nullable(),
+				text,
+			})
+			.strict()
+			.optional(),
 		caution: text,
 		deferral: text,
 	})
 	.strict();
 
-const sha256Hex = text.regex(/^[0-9a-f]{64}$/);
-const person = object({name: text.min(1), role: text}).strict();
 
 /** The signed content of an interlock functional test record. */
 export const interlockTestBodySchema = object({

@@ -67,6 +67,9 @@ export const confirmationSchema = object({
 		statement: words,
 		when: formula.optional(),
 		not_applicable: oneOf(['allowed', 'forbidden']).default('allowed'),
+		answered_by: oneOf(['operator', 'interlock_test'])
+			.default('operator')
+			.describe('interlock_test: when the input interlock_plan names a plan, answered from its latest trusted interlock test record'),
 		basis: words,
 	})
 	.strict();
