@@ -12,10 +12,10 @@ export function HomeScreen(props: {rulesName: string; rulesFile: string; rulesSh
 	if (props.draft) items.unshift({key: 'resume', label: `Resume the draft: ${stripControl(props.draft.setup || 'unnamed setup')} (saved ${props.draft.savedAt.slice(0, 16).replace('T', ' ')})`, value: {action: 'resume'}});
 	for (const name of props.setups) items.push({key: `setup-${name}`, label: `Start from the saved setup ${stripControl(name)}`, value: {action: 'setup', name}});
 	items.push(
-		{key: 'planner', label: 'Interlock planner', value: {action: 'planner'}},
 		{key: 'audit', label: 'Audit the records folder', value: {action: 'audit'}},
 		{key: 'rules', label: 'Rules in force', value: {action: 'rules'}},
 		{key: 'settings', label: 'Settings (operator, role, records folder, rule file)', value: {action: 'settings'}},
+		{key: 'planner', label: 'Interlock planner (open a plan file)', value: {action: 'planner'}},
 		{key: 'quit', label: 'Quit', value: {action: 'quit'}},
 	);
 	return (

@@ -116,6 +116,8 @@ export type AppScreen = Screen & {env: NodeJS.ProcessEnv; home: string; settings
 export type AppOptions = {
 	/** Start in the bench check (as `prelase check`) instead of the home screen. */
 	startCheck?: AppProps['startCheck'];
+	/** Start in the interlock planner on this plan file (as `prelase plan FILE --edit`). */
+	startPlan?: string;
 	/** Settings written before the App starts. */
 	settings?: Settings;
 	/** A draft saved before the App starts, resumable from the home screen. */
@@ -136,7 +138,7 @@ export async function renderApp(options: AppOptions = {}): Promise<AppScreen> {
 		saveDraft(settings.folder, {rulesFile: rules.file, rulesSha256: rules.sha256, setup: setup ?? '', entries: {...entries}, confirmations: {...confirmations}, step: step ?? 0, savedAt: '2030-01-02T03:04:05.000Z'});
 	}
 	const exits: number[] = [];
-	const props: AppProps = {rules, settings, env, onExit: (code) => exits.push(code), ...(options.startCheck ? {startCheck: options.startCheck} : {})};
+	const props: AppProps = {rules, settings, env, onExit: (code) => exits.push(code), ...(options.startCheck ? {startCheck: options.startCheck} : {}), ...(options.startPlan === undefined ? {} : {startPlan: options.startPlan})};
 	const screen = await drive(createElement(App, props));
 	return {...screen, env, home, settings, rules, exits};
 }
