@@ -32,7 +32,7 @@ export function PlanForm({editing, form, rows}: {editing: PlanEditing; form: For
 	const subject = formList(form.target) === 'devices' ? 'device' : 'access_point';
 	const own = editing.analysis.findings.filter((found) => found.subject.kind === subject && 'id' in found.subject && found.subject.id === id);
 	const shownFindings = own.slice(0, 3);
-	const room = Math.max(3, rows - 11 - shownFindings.length - (form.message ? 2 : 0) - (adding ? 1 : 0));
+	const room = Math.max(3, rows - 9 - shownFindings.length - (form.message ? 2 : 0) - (adding ? 1 : 0));
 	const start = Math.max(0, Math.min(form.focus - Math.floor(room / 2), fields.length - room));
 	const focused = fields[form.focus];
 	return (

@@ -25,7 +25,7 @@ export type PlannerScreenProps = {
 };
 
 const keyLines: Record<View['name'], string> = {
-	list: 'Enter edit · a add access point · d add device · x remove · [ ] move · s save · ? help',
+	list: 'Enter edit · a/d add point/device · x remove · [ ] move · s save · ? help',
 	form: 'Enter apply · ↑ ↓ field · ← → choose · Esc back to the list · ? help',
 	remove: 'y remove · any other key keeps it',
 	leave: 's save and leave · d discard changes and leave · Esc stay',
