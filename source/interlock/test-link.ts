@@ -119,9 +119,37 @@ export function interlockLink(planPath: string, rules: CompiledRules, context: L
  * `interlock_plan` input the answers are returned as they are.
  */
 export function answerFromInterlockTest(rules: CompiledRules, answers: Answers, context: LinkContext): {answers: Answers; link: InterlockLink | null} {
+	const plan = namedPlan(answers);
+	return plan === undefined ? {answers, link: null} : applyLink(rules, answers, interlockLink(plan, rules, context));
+}
+
+/** The interlock plan the answers name, if any. */
+function namedPlan(answers: Answers): string | undefined {
 	const entry = answers.inputs.get(interlockPlanInput);
-	if (entry === undefined || entry.kind !== 'text' || entry.value.trim() === '') return {answers, link: null};
-	const link = interlockLink(entry.value.trim(), rules, context);
+	return entry === undefined || entry.kind !== 'text' || entry.value.trim() === '' ? undefined : entry.value.trim();
+}
+
+/**
+ * answerFromInterlockTest for the screens, where answers change at every keystroke: the link
+ * of a plan path is worked out again only when it is older than `freshMs` (a test recorded in
+ * another terminal is seen within that time).
+ */
+export function cachedLinker(rules: CompiledRules, context: () => LinkContext, freshMs = 2000): (answers: Answers) => {answers: Answers; link: InterlockLink | null} {
+	const cache = new Map<string, {at: number; link: InterlockLink}>();
+	return (answers) => {
+		const plan = namedPlan(answers);
+		if (plan === undefined) return {answers, link: null};
+		const now = Date.now();
+		let entry = cache.get(plan);
+		if (entry === undefined || now - entry.at > freshMs) {
+			entry = {at: now, link: interlockLink(plan, rules, context())};
+			cache.set(plan, entry);
+		}
+		return applyLink(rules, answers, entry.link);
+	};
+}
+
+function applyLink(rules: CompiledRules, answers: Answers, link: InterlockLink): {answers: Answers; link: InterlockLink} {
 	const answer: ConfirmationAnswer = {answer: link.status === 'current' ? 'yes' : 'no', note: link.text};
 	const confirmations = new Map(answers.confirmations);
 	for (const [id, compiled] of rules.confirmations) {

@@ -2,6 +2,8 @@ import {Box, Text, useApp, useInput, useStdout} from 'ink';
 import {resolve} from 'node:path';
 import {useEffect, useMemo, useRef, useState} from 'react';
 import {signAndWrite} from '../commands/sign-check.js';
+import {cachedLinker} from '../interlock/test-link.js';
+import {recordsFolder, trustedFingerprints} from '../records/folder.js';
 import {loadDraft, removeDraft, saveDraft, type Draft} from '../drafts/draft-store.js';
 import {listSetups, loadSetup, saveSetup} from '../drafts/setup-store.js';
 import {displayPath} from '../display-path.js';
@@ -48,9 +50,11 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 	const [plan, setPlan] = useState<{editing?: PlanEditing; problems?: string[]}>(() => (startPlan === undefined ? {} : openPlan(startPlan)));
 	const [screen, setScreen] = useState<Screen>(startPlan !== undefined ? (plan.editing ? 'planner' : 'plan-open') : startCheck ? 'step' : 'home');
 	const [stepIndex, setStepIndex] = useState(0);
+	// Confirmations answered by the interlock test come from the records folder; plan paths are read from the working folder.
+	const linker = useMemo(() => cachedLinker(rules, () => ({base: process.cwd(), folder: recordsFolder(env), trusted: trustedFingerprints(env), now: new Date()})), [rules, env]);
 	const [session, setSessionState] = useState<Session>(() => {
 		const saved = startCheck?.setup ? loadSetup(settings.folder, startCheck.setup) : undefined;
-		return startSession(rules, {setup: startCheck?.setup ?? '', ...(saved ? {entries: saved.entries} : {})});
+		return startSession(rules, {setup: startCheck?.setup ?? '', ...(saved ? {entries: saved.entries} : {})}, linker);
 	});
 	// The latest session for key handlers, which may run several times before the next frame.
 	const sessionRef = useRef(session);
@@ -94,18 +98,18 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 	const choose = (choice: HomeChoice) => {
 		switch (choice.action) {
 			case 'start':
-				setSession(startSession(rules));
+				setSession(startSession(rules, {}, linker));
 				setStepIndex(0);
 				return setScreen('step');
 			case 'resume':
 				if (draft) {
-					setSession(startSession(rules, {setup: draft.setup, entries: draft.entries, confirmations: draft.confirmations}));
+					setSession(startSession(rules, {setup: draft.setup, entries: draft.entries, confirmations: draft.confirmations}, linker));
 					setStepIndex(Math.min(draft.step, rules.rules.steps.length - 1));
 				}
 				return setScreen('step');
 			case 'setup': {
 				const saved = loadSetup(settings.folder, choice.name);
-				setSession(startSession(rules, {setup: choice.name, ...(saved ? {entries: saved.entries} : {})}));
+				setSession(startSession(rules, {setup: choice.name, ...(saved ? {entries: saved.entries} : {})}, linker));
 				setStepIndex(0);
 				return setScreen('step');
 			}
@@ -148,6 +152,7 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 					...(form.cosignName.trim() ? {cosign: {name: form.cosignName, role: form.cosignRole, key: form.cosignKey.trim(), meaning: 'verified'}} : {}),
 				},
 				env,
+				named.interlockTest,
 			);
 			settings.write({operator: form.name.trim(), role: form.role.trim()});
 			removeDraft(settings.folder);

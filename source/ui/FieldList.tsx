@@ -25,7 +25,8 @@ export type FieldListProps = {
 function currentValue(session: Session, field: Field): string {
 	if (field.kind === 'confirmation') {
 		const status = session.evaluation.confirmations.find(({id}) => id === field.id)?.status ?? 'unanswered';
-		const note = session.confirmations[field.id]?.note;
+		// The note in force: the operator's, or the interlock test record's when that answers it.
+		const note = session.answers.confirmations.get(field.id)?.note;
 		return `${confirmationStyle[status].label}${note ? ` (${stripControl(note)})` : ''}`;
 	}
 	const entry = session.entries[field.id];

@@ -33,6 +33,7 @@ export function SummaryScreen({session, rows, width = 80, onSign, onBack, onHelp
 		const style = confirmationStyle[entry.status];
 		unwrapped.push({key: `c-${entry.id}`, text: `${style.label.padEnd(13)}${stripControl(entry.statement)}${entry.note ? ` (${stripControl(entry.note)})` : ''}`, color: style.color});
 	}
+	if (session.interlockTest?.status === 'current') unwrapped.push({key: 'interlock', text: `${'Interlock'.padEnd(13)}${stripControl(session.interlockTest.text)}`, color: 'green'});
 	if (evaluation.missingInputs.length > 0) unwrapped.push({key: 'missing', text: `Inputs not given: ${evaluation.missingInputs.join(', ')}`, color: 'cyan'});
 	// Long lines wrap (under their own indent) rather than being cut, so every note and message can be read.
 	const wrapped: Line[] = unwrapped.flatMap((line) => {

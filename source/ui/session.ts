@@ -1,3 +1,4 @@
+import type {InterlockLink} from '../interlock/test-link.js';
 import type {Answers, ConfirmationAnswer, InputAnswer} from '../rules/answers.js';
 import type {CompiledRules} from '../rules/compiled-rules.js';
 import {evaluate} from '../rules/evaluate.js';
@@ -16,7 +17,14 @@ export type Session = {
 	confirmations: Readonly<Record<string, ConfirmationAnswer>>;
 	answers: Answers;
 	evaluation: Evaluation;
+	/** The interlock test the answers were taken from, when the setup names its interlock plan. */
+	interlockTest: InterlockLink | null;
+	/** Answers confirmations from the interlock test record (reads files); absent in tests that do not need it. */
+	linker?: Linker | undefined;
 };
+
+/** Takes answers and gives them back with the confirmations the interlock test answers. */
+export type Linker = (answers: Answers) => {answers: Answers; link: InterlockLink | null};
 
 /** What a session starts from: a draft, a saved setup, or nothing. */
 export type Prefill = {setup?: string; entries?: Record<string, string>; confirmations?: Record<string, ConfirmationAnswer>};
@@ -24,7 +32,7 @@ export type Prefill = {setup?: string; entries?: Record<string, string>; confirm
 /** A field of a step: an input that is asked, or a confirmation that applies. */
 export type Field = {kind: 'input'; id: string; input: Input} | {kind: 'confirmation'; id: string; confirmation: Confirmation};
 
-function build(rules: CompiledRules, setup: string, entries: Record<string, string>, confirmations: Record<string, ConfirmationAnswer>): Session {
+function build(rules: CompiledRules, setup: string, entries: Record<string, string>, confirmations: Record<string, ConfirmationAnswer>, linker?: Linker): Session {
 	const inputs = new Map<string, InputAnswer>();
 	for (const [id, text] of Object.entries(entries)) {
 		const compiled = rules.inputs.get(id);
@@ -32,13 +40,14 @@ function build(rules: CompiledRules, setup: string, entries: Record<string, stri
 		const parsed = parseInputEntry(compiled, text);
 		if (parsed.ok) inputs.set(id, parsed.value);
 	}
-	const answers: Answers = {setup, inputs, confirmations: new Map(Object.entries(confirmations).filter(([id]) => rules.confirmations.has(id)))};
-	return {rules, setup, entries, confirmations, answers, evaluation: evaluate(rules, answers)};
+	const given: Answers = {setup, inputs, confirmations: new Map(Object.entries(confirmations).filter(([id]) => rules.confirmations.has(id)))};
+	const {answers, link} = linker ? linker(given) : {answers: given, link: null};
+	return {rules, setup, entries, confirmations, answers, evaluation: evaluate(rules, answers), interlockTest: link, linker};
 }
 
 /** A new session, prefilled from a draft or a saved setup when given. */
-export function startSession(rules: CompiledRules, prefill: Prefill = {}): Session {
-	return build(rules, prefill.setup ?? '', {...prefill.entries}, {...prefill.confirmations});
+export function startSession(rules: CompiledRules, prefill: Prefill = {}, linker?: Linker): Session {
+	return build(rules, prefill.setup ?? '', {...prefill.entries}, {...prefill.confirmations}, linker);
 }
 
 /** The result of entering a value: the new session, or why the entry was refused (the session unchanged). */
@@ -51,12 +60,12 @@ export function enterInput(session: Session, id: string, text: string): EntryRes
 	const entries = {...session.entries};
 	if (text.trim() === '') {
 		delete entries[id];
-		return {ok: true, session: build(session.rules, session.setup, entries, {...session.confirmations})};
+		return {ok: true, session: build(session.rules, session.setup, entries, {...session.confirmations}, session.linker)};
 	}
 	const parsed = parseInputEntry(compiled, text);
 	if (!parsed.ok) return {ok: false, message: describeProblem(problem(parsed.problem.code, parsed.problem.data))};
 	entries[id] = text.trim();
-	return {ok: true, session: build(session.rules, session.setup, entries, {...session.confirmations})};
+	return {ok: true, session: build(session.rules, session.setup, entries, {...session.confirmations}, session.linker)};
 }
 
 /** Answers a confirmation (yes, no, not applicable with a note). */
@@ -65,12 +74,12 @@ export function answerConfirmation(session: Session, id: string, answer: Confirm
 	if (!compiled) return {ok: false, message: `no confirmation ${id}`};
 	const parsed = parseConfirmationEntry(compiled, answer === 'not_applicable' ? 'not applicable' : answer, note);
 	if (!parsed.ok) return {ok: false, message: describeProblem(problem(parsed.problem.code, parsed.problem.data))};
-	return {ok: true, session: build(session.rules, session.setup, {...session.entries}, {...session.confirmations, [id]: parsed.value})};
+	return {ok: true, session: build(session.rules, session.setup, {...session.entries}, {...session.confirmations, [id]: parsed.value}, session.linker)};
 }
 
 /** Names the setup. */
 export function nameSetup(session: Session, setup: string): Session {
-	return build(session.rules, setup.trim(), {...session.entries}, {...session.confirmations});
+	return build(session.rules, setup.trim(), {...session.entries}, {...session.confirmations}, session.linker);
 }
 
 /** The steps of the rules, in order. */
