@@ -27,6 +27,8 @@ export type RecordSummary = {
 	setup: {name: string | null; fingerprint: string};
 	outcome: Outcome;
 	rules: {name: string; file: string; sha256: string};
+	/** The interlock test record the check's confirmations were answered from, if it named a plan. */
+	interlockTest: NonNullable<RecordBody['interlockTest']> | null;
 	/** Confirmations answered no or not applicable, with their notes: what an auditor reads closely. */
 	exceptions: Array<{id: string; statement: string; status: string; note?: string}>;
 };
@@ -100,6 +102,7 @@ function summarise(body: RecordBody): RecordSummary {
 		setup: {name: body.setup.name, fingerprint: body.setup.fingerprint},
 		outcome: body.outcome,
 		rules: {name: body.rules.name, file: body.rules.file, sha256: body.rules.sha256},
+		interlockTest: body.interlockTest ?? null,
 		exceptions: body.confirmations
 			.filter((entry) => entry.status === 'no' || entry.status === 'not_applicable')
 			.map((entry) => ({id: entry.id, statement: entry.statement, status: entry.status, ...(entry.note ? {note: entry.note} : {})})),
@@ -131,6 +134,31 @@ function auditContents(body: RecordBody, rules: RuleCache, current: CompiledRule
 	const evaluation = own && own.rules === current ? own.evaluation : evaluate(current, read.answers);
 	const policy = policyReport(body, current, read, evaluation);
 	return {consistency, policy: policy.report, findings: [...findings, ...policy.findings]};
+}
+
+const testWords = (testedOn: string, outcome: string) => `tested ${testedOn}, ${outcome}`;
+
+/**
+ * A bench check that answered its interlock confirmations from a test record names it by body
+ * hash: when that record is among the authentic records audited, it must say what the check
+ * used (test day and outcome); when it is not, the audit says so (not a finding).
+ */
+function linkInterlockTests(audits: Array<Pick<RecordAudit, 'authentic' | 'bodySha256' | 'record' | 'interlockTest' | 'notChecked'> & {findings: Finding[]}>): void {
+	const tests = new Map(audits.filter((audit) => audit.authentic && audit.interlockTest && audit.bodySha256).map((audit) => [audit.bodySha256!, audit.interlockTest!]));
+	for (const audit of audits) {
+		if (!audit.authentic || !audit.record) continue;
+		const used = audit.record.interlockTest?.record;
+		if (!audit.record.interlockTest) {
+			audit.notChecked.push({item: 'interlock-test', text: describeFinding({code: 'audit-not-checked-interlock', data: {}})});
+		} else if (!used) {
+			// The check named a plan but found no usable test: its confirmations say no, and the consistency check covers that.
+		} else {
+			const data = {file: used.file, bodySha256: used.bodySha256, recorded: testWords(used.testedOn, used.outcome)};
+			const test = tests.get(used.bodySha256);
+			if (!test) audit.notChecked.push({item: 'interlock-test', text: describeFinding({code: 'audit-not-checked-interlock-record', data})});
+			else if (test.testedOn !== used.testedOn || test.outcome !== used.outcome) audit.findings.push(finding('consistency', 'audit-interlock-record-mismatch', {...data, actual: testWords(test.testedOn, test.outcome)}));
+		}
+	}
 }
 
 const emptyFindings = (): Record<FindingKind, number> => ({integrity: 0, trust: 0, consistency: 0, policy: 0, history: 0});
@@ -180,6 +208,7 @@ export function auditRecords(files: readonly string[], options: AuditOptions): A
 		}
 		options.onProgress?.(index + 1, files.length);
 	});
+	linkInterlockTests(audits);
 	relateRecords(entries).forEach(({history, findings}, index) => {
 		const audit = audits[entryOf[index]!]!;
 		audit.history = history;

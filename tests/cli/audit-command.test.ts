@@ -258,7 +258,7 @@ describe('prelase audit --json', () => {
 		expect(record.history).toEqual({amendedBy: []});
 		expect(record.notChecked).toEqual([
 			{item: 'record-age', text: expect.stringContaining('not checked')},
-			{item: 'interlock-test-date', text: expect.stringContaining('not checked')},
+			{item: 'interlock-test', text: expect.stringContaining('not checked')},
 		]);
 		expect(json['totals']).toMatchObject({records: 1, authentic: 1, integrityFailures: 0, consistent: 1, withFindings: 0});
 	});

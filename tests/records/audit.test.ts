@@ -97,7 +97,7 @@ describe('a clean record', () => {
 		expect(record!.bodySha256).toBe(bodySha256(clean.body));
 		expect(record!.record?.outcome).toBe('clear_to_energize');
 		expect(record!.currentPolicy).toMatchObject({sameRules: true, checks: [], inputsNeeded: [], confirmationsAdded: [], outcome: {recorded: 'clear_to_energize', current: 'clear_to_energize'}});
-		expect(record!.notChecked.map((item) => item.item)).toEqual(['record-age', 'interlock-test-date']);
+		expect(record!.notChecked.map((item) => item.item)).toEqual(['record-age', 'interlock-test']);
 		expect(report.totals).toEqual({records: 1, authentic: 1, integrityFailures: 0, consistent: 1, withFindings: 0, findings: {integrity: 0, trust: 0, consistency: 0, policy: 0, history: 0}});
 	});
 
