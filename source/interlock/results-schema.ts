@@ -6,8 +6,12 @@ import {quantityOf} from './plan-schema.js';
 const words = string().trim().min(1, 'this text cannot be empty');
 const person = object({name: words, role: string().trim().default('')}).strict();
 
+const dayPattern = /^\d{4}-\d{2}-\d{2}$/;
+
 /** A calendar date as written on a test sheet. */
-const isoDate = string().regex(/^\d{4}-\d{2}-\d{2}$/, 'write the date as YYYY-MM-DD, e.g. 2026-11-30').refine((text) => {
+const isoDate = string().regex(dayPattern, 'write the date as YYYY-MM-DD, e.g. 2026-11-30').refine((text) => {
+	// Text not written YYYY-MM-DD already has its problem; one mistake, one message.
+	if (!dayPattern.test(text)) return true;
 	const date = new Date(`${text}T00:00:00Z`);
 	return !Number.isNaN(date.getTime()) && date.toISOString().startsWith(text);
 }, 'not a calendar date');
