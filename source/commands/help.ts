@@ -9,7 +9,7 @@ Usage:
   prelase keys [export | trust FILE --name NAME | list | forget NAME]
   prelase report RECORD [--format md|html] [--out FILE]
   prelase audit PATH... [--rules FILE] [--json]
-  prelase plan FILE [--json | --test-sheet md]
+  prelase plan FILE [--json | --test-sheet md|html | --record-test RESULTS | --edit]
   prelase --help | --version
 
 Commands:
@@ -19,7 +19,7 @@ Commands:
   keys     Your signing key, and the colleagues' keys you trust
   report   A printable page (Markdown or HTML) of a signed record
   audit    Check signed records: authentic, consistent, and what the current rules change
-  plan     Analyse an interlock loop plan and print its functional test sheet
+  plan     Analyse an interlock loop plan, print its test sheet, record a test, edit it
 
 Every command takes --help. NO_COLOR turns colour off.
 The shipped bench policy is rules/default.yaml; --rules FILE uses a site policy instead.
@@ -172,13 +172,16 @@ Exit status:
 	plan: `prelase plan — the interlock planner
 
 Usage:
-  prelase plan FILE [--json]
-  prelase plan FILE --test-sheet md
+  prelase plan FILE [--rules FILE] [--json]
+  prelase plan FILE --test-sheet md|html
+  prelase plan FILE --record-test RESULTS [--records DIR] [--witness-key FILE]
   prelase plan FILE --edit
+  prelase plan --schema plan|results
 
-Reads an interlock plan (YAML: the driver's interlock input, the access points, the devices of
-the loop in wiring order, and the interlock policy; see docs/interlock.md) and prints the loop
-figures and every finding with its severity and the device or access point it concerns:
+Reads an interlock plan (YAML: the driver's interlock input, the access points and the devices
+of the loop in wiring order; see docs/interlock.md) under the interlock policy of the rule file
+in force (interlock_* policy values), and prints the loop figures and every finding with its
+severity and the device or access point it concerns:
   loop        contacts plus every wire run (copper at the stated temperature) against the
               input's closed threshold less the policy margin; loop current and voltage
               against every contact's rating
@@ -190,18 +193,29 @@ figures and every finding with its severity and the device or access point it co
               within the policy's largest response time; manual reset for class 4
 
 Options:
-  --json            Print the figures, findings and verdict as JSON
-  --test-sheet md   Print the functional test sheet (Markdown) with blanks for the result,
-                    initials and date of every step
-  --edit            Open the planner screen on FILE (needs a terminal): edit, add, remove and
-                    reorder access points and devices, the findings following each change;
-                    saving keeps the file's comments and key order
-  -h, --help        Show this help
+  --rules FILE           The rule file whose interlock policy applies (default: the settings'
+                         rule file, else the shipped policy)
+  --json                 Print the figures, findings and verdict as JSON
+  --test-sheet md|html   Print the functional test sheet (Markdown, or a page to print) with
+                         blanks for the result, initials and date of every step
+  --record-test RESULTS  Hold a filled-in test (YAML: tested_on, tested_by, witness, one result
+                         per step) against the plan's sheet, then write a signed interlock test
+                         record with the plan's text and hash. A bench check whose setup names
+                         the plan (input interlock_plan) answers its loop-test confirmations
+                         from the latest such record within the policy's test interval
+  --records DIR          Where to write the record (default: the settings' records folder)
+  --witness-key FILE     The witness's private key: the witness signs too, as verified
+  --edit                 Open the planner screen on FILE (needs a terminal): edit, add, remove
+                         and reorder access points and devices, the findings following each
+                         change; saving keeps the file's comments and key order
+  --schema plan|results  Print the JSON Schema of plan files or of results files
+  -h, --help             Show this help
 
 Exit status:
-  0  no stop finding (or the test sheet was printed)
-  1  one or more stop findings
-  2  bad usage or a bad plan file (the message names the file, line and field)
+  0  no stop finding (or the test sheet or schema was printed; or the test recorded passed)
+  1  one or more stop findings (or the test recorded failed: the record is written anyway)
+  2  bad usage, a bad plan or results file (the message names the file, line and field);
+     nothing is recorded
 
 The planner says which findings it has; it never says a loop is safe. The laser safety
 officer and the codes in force (IEC 60825 series, ANSI Z136 series, local law) decide.`,

@@ -29,6 +29,6 @@ describe('prelase plan FILE --edit', () => {
 	});
 
 	it('lists --edit in the help', () => {
-		expect(run('plan', '--help').stdout).toContain('--edit            Open the planner screen on FILE (needs a terminal)');
+		expect(run('plan', '--help').stdout).toContain('--edit                 Open the planner screen on FILE (needs a terminal)');
 	});
 });

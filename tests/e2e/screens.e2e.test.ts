@@ -52,8 +52,8 @@ async function answerFocused(session: TmuxSession): Promise<boolean> {
 		if (field.kind === 'choice') session.type(String(field.options.indexOf(String(value)) + 1));
 		if (field.kind === 'yes_no') session.type(value === true || value === 'yes' ? 'y' : 'n');
 		else {
-			if (field.kind !== 'choice') {
-				// Clear a prefilled default, then type the demo's value.
+			// Clear a prefilled default, then type the demo's value (an optional input the demo leaves out stays blank).
+			if (field.kind !== 'choice' && value !== undefined) {
 				for (let index = 0; index < 12; index += 1) session.press('BSpace');
 				session.type(String(value));
 			}

@@ -78,7 +78,8 @@ describe('prelase plan', () => {
 	});
 
 	it('has help, and a line in the main usage', () => {
-		expect(run('plan', '--help').stdout).toContain('prelase plan FILE --test-sheet md');
-		expect(run('--help').stdout).toContain('prelase plan FILE [--json | --test-sheet md]');
+		const help = run('plan', '--help').stdout;
+		for (const usage of ['prelase plan FILE --test-sheet md|html', 'prelase plan FILE --record-test RESULTS [--records DIR] [--witness-key FILE]', 'prelase plan --schema plan|results', '--rules FILE']) expect(help).toContain(usage);
+		expect(run('--help').stdout).toContain('prelase plan FILE [--json | --test-sheet md|html | --record-test RESULTS | --edit]');
 	});
 });
