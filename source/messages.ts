@@ -107,6 +107,7 @@ export const messages = {
 	'audit-plan-does-not-load': 'the embedded plan does not load, so its findings cannot be re-worked: {{detail}}',
 	'audit-plan-findings-mismatch': 'the record gives the plan {{recorded}}, but re-working the embedded plan under the recorded policy gives {{computed}}',
 	'audit-test-steps-mismatch': 'the recorded steps do not match the test sheet of the embedded plan: {{detail}}',
+	'audit-test-step-too-slow': 'step {{step}} is recorded as pass, but emission stopped in {{measured}}, above the recorded policy\'s {{limit}}',
 	'audit-test-outcome-mismatch': 'the record says the test {{recorded}}, but its steps and plan findings give {{computed}}',
 	'audit-not-checked-age': 'record age: not checked, the rule file sets no validity period for records',
 	'audit-not-checked-interlock': 'interlock test: not checked, the record names no interlock plan (the operator answered the loop-test confirmations)',

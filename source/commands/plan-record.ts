@@ -36,7 +36,9 @@ export function recordTest(plan: Plan, planFile: string, planText: string, rules
 	const {privateKey, created} = operatorKey(settings.folder, true);
 	const signers: Array<{signer: Signer; key: typeof privateKey}> = [{signer: {name: stripControl(body.tester.name).trim(), role: stripControl(body.tester.role).trim(), meaning: 'performed'}, key: privateKey}];
 	if (options.witnessKey !== undefined && body.witness) {
-		signers.push({signer: {name: stripControl(body.witness.name).trim(), role: stripControl(body.witness.role).trim(), meaning: 'verified'}, key: keyFromFile(options.witnessKey)});
+		const key = keyFromFile(options.witnessKey);
+		if (fingerprint(rawPublicKey(key)) === fingerprint(rawPublicKey(privateKey))) throw new UsageError('--witness-key is the tester\'s own key; the witness signs with a key of their own');
+		signers.push({signer: {name: stripControl(body.witness.name).trim(), role: stripControl(body.witness.role).trim(), meaning: 'verified'}, key});
 	}
 	const record = signRecord(body, signers, now);
 	const path = writeRecord(recordsFolder(env, options.records), record);

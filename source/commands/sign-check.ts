@@ -55,6 +55,7 @@ export function signAndWrite(rules: CompiledRules, answers: Answers, evaluation:
 			signer: {name: stripControl(options.cosign.name).trim(), role: stripControl(options.cosign.role ?? '').trim(), meaning: options.cosign.meaning as Signer['meaning']},
 			key: keyFromFile(options.cosign.key),
 		});
+		if (fingerprint(rawPublicKey(signers[1]!.key)) === fingerprint(rawPublicKey(privateKey))) throw new UsageError('--cosign-key is your own key; the second signer signs with a key of their own');
 	}
 	const body = buildRecordBody({rules, answers, evaluation, operator: {name, role: signers[0]!.signer.role}, interlockTest, ...(amends ? {amends} : {})});
 	const record = signRecord(body, signers);

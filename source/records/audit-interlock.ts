@@ -60,6 +60,11 @@ export function interlockTestConsistency(body: InterlockTestBody): {reevaluated:
 			findings.push(finding('consistency', 'audit-test-steps-mismatch', {detail: `step ${first === -1 ? expected.length + 1 : first + 1}: the sheet has "${expected[first] ?? '(no step)'}", the record "${recorded[first === -1 ? expected.length : first] ?? '(no step)'}"`}));
 		}
 	}
+	for (const step of body.steps) {
+		if (step.result === 'pass' && step.stoppedIn !== undefined && step.stoppedIn.si > body.policy.maxResponseTime.si) {
+			findings.push(finding('consistency', 'audit-test-step-too-slow', {step: step.number, measured: step.stoppedIn.text, limit: body.policy.maxResponseTime.text}));
+		}
+	}
 	const computed = testOutcome(body.planFindings.stops, body.steps);
 	if (computed !== body.outcome) findings.push(finding('consistency', 'audit-test-outcome-mismatch', {recorded: body.outcome, computed}));
 	return {reevaluated: loaded.ok, findings};

@@ -150,6 +150,8 @@ describe('prelase plan FILE --record-test RESULTS', () => {
 
 	it.each([
 		{name: '--witness-key with no witness in the results', text: edited('witness: {name: Tomas Reyes, role: deputy laser safety officer}\n', ''), key: () => witnessKey, says: () => 'prelase: --witness-key needs a witness in the results file (witness: {name, role})'},
+		// the first test made the operator key in home/keys; a witness signing with it would prove nothing
+		{name: '--witness-key that is the tester\'s own key', text: demoText, key: () => join(home, 'keys', 'operator.key'), says: () => "prelase: --witness-key is the tester's own key; the witness signs with a key of their own"},
 		{name: '--witness-key naming no key file', text: demoText, key: () => join(folder, 'no-such.key'), says: () => `prelase: no key file at ${join(folder, 'no-such.key')}`},
 	])('refuses $name: exit 2, no record', async ({text, key, says}) => {
 		const {results, records} = newCase(text);

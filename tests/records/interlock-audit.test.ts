@@ -95,6 +95,13 @@ const recordedStops = (stops: number) => `${stops} stop finding${stops === 1 ? '
 describe('audit of re-signed, altered interlock test records: authentic, with consistency findings', () => {
 	it.each([
 		{
+			name: 'a step passed although its stop time is above the recorded limit',
+			change: (body: InterlockTestBody) => {
+				body.steps[0]!.stoppedIn = {si: 0.05, unit: 's', text: '50 ms'};
+			},
+			findings: [['audit-test-step-too-slow', {step: 1, measured: '50 ms', limit: '20 ms'}]],
+		},
+		{
 			name: 'the outcome changed to failed',
 			change: (body: InterlockTestBody) => {
 				body.outcome = 'failed';
@@ -151,7 +158,11 @@ describe('audit of re-signed, altered interlock test records: authentic, with co
 			change: (body: InterlockTestBody) => {
 				body.policy.maxResponseTime = {si: 0.01, unit: 's', text: '10 ms'};
 			},
-			findings: [['audit-plan-findings-mismatch', {recorded: recordedStops(0), computed: recordedStops(2)}]],
+			// the demo's step 5 (chiller_flow) stopped in 16 ms: a pass above the lowered limit
+			findings: [
+				['audit-plan-findings-mismatch', {recorded: recordedStops(0), computed: recordedStops(2)}],
+				['audit-test-step-too-slow', {step: 5, measured: '16 ms', limit: '10 ms'}],
+			],
 		},
 		{
 			name: 'a step dropped',
