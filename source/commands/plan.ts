@@ -21,10 +21,19 @@ import {editPlan} from './plan-screen.js';
 
 const sheetWriters = {md: testSheetMarkdown, html: testSheetHtml};
 
+/** A value with its unit is checked by prelase's own parser; to an editor it is text (or a bare number). */
+const jsonSchemaOptions = {
+	io: 'input',
+	unrepresentable: 'any',
+	override(context: {zodSchema: {_zod: {def: {type: string}}}; jsonSchema: Record<string, unknown>}) {
+		if (context.zodSchema._zod.def.type === 'custom') context.jsonSchema['type'] = ['string', 'number'];
+	},
+} as const;
+
 /** JSON Schemas of the files the planner reads, for editors. */
 const schemas = {
-	plan: () => ({title: 'prelase interlock plan', ...toJSONSchema(planSchema, {io: 'input', unrepresentable: 'any'})}),
-	results: () => ({title: 'prelase interlock test results', ...toJSONSchema(testResultsSchema, {io: 'input', unrepresentable: 'any'})}),
+	plan: () => ({title: 'prelase interlock plan', ...toJSONSchema(planSchema, jsonSchemaOptions)}),
+	results: () => ({title: 'prelase interlock test results', ...toJSONSchema(testResultsSchema, jsonSchemaOptions)}),
 };
 
 /**

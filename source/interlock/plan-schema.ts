@@ -29,7 +29,7 @@ export function quantityOf(dimension: Dimension, floor: 'positive' | 'not negati
 			return NEVER;
 		}
 		return si;
-	});
+	}).meta({description: `${info.noun} with its unit, for example "${info.example}"`, examples: [info.example]});
 }
 
 /** The kinds of device an interlock loop may hold. */

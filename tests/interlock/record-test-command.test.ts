@@ -197,4 +197,11 @@ describe('prelase plan: options that go with --record-test, the sheet and the sc
 		expect(Object.keys(schema.properties)).toEqual(expect.arrayContaining(fields));
 		expect(schema.additionalProperties).toBe(false);
 	});
+
+	it('gives a value with a unit as text or a number, with what it must be, so an editor does not flag "12 V"', async () => {
+		const schema = JSON.parse((await run('plan', '--schema', 'plan')).stdout) as {properties: {input: {properties: Record<string, {type?: unknown; description?: string}>}}};
+		const {loop_voltage, closed_below} = schema.properties.input.properties;
+		expect(loop_voltage).toEqual({type: ['string', 'number'], description: 'a voltage with its unit, for example "2.1 V"'});
+		expect(closed_below).toEqual({type: ['string', 'number'], description: 'The largest loop resistance the input still reads as closed'});
+	});
 });
