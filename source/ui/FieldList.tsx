@@ -1,5 +1,5 @@
 import {Box, Text} from 'ink';
-import type {Session, Field} from './session.js';
+import {answeredByRecord, type Field, type Session} from './session.js';
 import {fieldHint} from './field-hint.js';
 import {confirmationStyle} from './verdict-style.js';
 import {stripControl} from '../text.js';
@@ -68,7 +68,7 @@ export function FieldList({session, fields, focus, buffer, choice, message, note
 						</Text>
 						<Text dimColor wrap="truncate">
 							{'  '}
-							{noteMode ? 'note (required for not applicable) · Enter save · Esc cancel' : fieldHint(session.rules, field)}
+							{noteMode ? 'note (required for not applicable) · Enter save · Esc cancel' : fieldHint(session.rules, field, answeredByRecord(session, field.id))}
 						</Text>
 						<FocusedValue session={session} field={field} buffer={buffer} choice={choice} noteMode={noteMode} />
 						{message ? (

@@ -4,7 +4,7 @@ import {useReducer, useRef} from 'react';
 import {stripControl} from '../text.js';
 import {ChecksPanel} from './ChecksPanel.js';
 import {FieldList} from './FieldList.js';
-import {answerConfirmation, enterInput, stepFields, type Field, type Session} from './session.js';
+import {answerConfirmation, answeredByRecord, enterInput, stepFields, type Field, type Session} from './session.js';
 import {typeInto} from './text-buffer.js';
 
 /** Props of one step of the bench check. */
@@ -121,6 +121,11 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 		if (key.upArrow || key.downArrow) {
 			if (typing && !commit(field, state.buffer)) return;
 			return move(key.upArrow ? -1 : 1);
+		}
+		if (field.kind === 'confirmation' && answeredByRecord(getSession(), field.id)) {
+			// The interlock test record answers it; a key typed here would be overruled, so it is not taken.
+			if (key.return) move(1);
+			return;
 		}
 		if (field.kind === 'confirmation') {
 			const answer = ({y: 'yes', n: 'no', a: 'not_applicable'} as const)[input.toLowerCase() as 'y' | 'n' | 'a'];

@@ -4,8 +4,9 @@ import type {CompiledRules} from '../rules/compiled-rules.js';
 import type {Field} from './session.js';
 
 /** One line saying what a field expects: dimension and range, options, or the keys to answer. */
-export function fieldHint(rules: CompiledRules, field: Field): string {
+export function fieldHint(rules: CompiledRules, field: Field, fromRecord = false): string {
 	if (field.kind === 'confirmation') {
+		if (fromRecord) return 'answered from the interlock test record · to answer it yourself, clear the interlock plan';
 		return field.confirmation.not_applicable === 'forbidden' ? 'y yes · n no · Tab note' : 'y yes · n no · a not applicable (needs a note) · Tab note';
 	}
 	const {input} = field;

@@ -1,4 +1,5 @@
 import {cleanup} from 'ink-testing-library';
+import {resolve} from 'node:path';
 import {afterEach, describe, expect, it} from 'vitest';
 import {focusOn, keys, renderApp} from '../helpers/screen-driver.js';
 
@@ -232,5 +233,24 @@ describe('moving around', () => {
 		const screen = await renderApp({startCheck: {}});
 		await screen.press(keys.pageDown);
 		expect(await screen.press(keys.escape)).toContain('Step 1 of 9');
+	});
+});
+
+describe('a confirmation answered from the interlock test record', () => {
+	it('says so on the field, and y or n typed there is not taken', async () => {
+		const screen = await renderApp({startCheck: {}});
+		for (let step = 1; step < 7; step += 1) await screen.press(keys.pageDown);
+		expect(screen.frame()).toContain('Step 7 of 9: Enclosure interlock');
+		// the demo plan, named by its absolute path; the screen's records folder has no test record of it
+		await screen.type(resolve('docs/examples/interlock/bench3-interlock-plan.yaml'));
+		await screen.press(keys.enter);
+		await screen.press(keys.down);
+		const focused = flat(screen.frame());
+		expect(focused).toContain('› The interlock loop passed its functional test');
+		expect(focused).toContain('answered from the interlock test record · to answer it yourself, clear the interlock plan');
+		expect(focused).toContain('✗ NO (no interlock test record of this plan');
+		const after = flat(await screen.type('y'));
+		expect(after).toContain('› The interlock loop passed its functional test');
+		expect(after).toContain('✗ NO (no interlock test record of this plan');
 	});
 });
