@@ -5,7 +5,10 @@ import {evaluate} from '../rules/evaluate.js';
 import {evaluationToJson} from '../rules/evaluation-json.js';
 import {loadAnswers} from '../rules/load-answers.js';
 import {rulesInForce} from '../rules/in-force.js';
-import {answerFromInterlockTest} from '../interlock/test-link.js';
+import {interlockPlanInput} from '../interlock/plan-input.js';
+import type {InterlockLink} from '../interlock/test-link.js';
+import type {Answers} from '../rules/answers.js';
+import type {CompiledRules} from '../rules/compiled-rules.js';
 import {recordsFolder, trustedFingerprints} from '../records/folder.js';
 import {dirname} from 'node:path';
 import {UsageError} from '../usage-error.js';
@@ -62,14 +65,27 @@ export function runCheck(args: string[], io: Io): number | Promise<number> {
 	if ((values['cosign-key'] !== undefined || values['cosign-role'] !== undefined || values['cosign-meaning'] !== undefined) && values.cosign === undefined) throw new UsageError('--cosign-key, --cosign-role and --cosign-meaning go with --cosign NAME');
 	if (values.cosign !== undefined && values['cosign-key'] === undefined) throw new UsageError('--cosign NAME needs --cosign-key FILE (the second signer\'s private key)');
 
-	// Confirmations the rule file answers by the interlock test come from the latest test record of the named plan.
-	const linked = answerFromInterlockTest(rules.value, answers.value, {base: dirname(values.answers), folder: recordsFolder(io.env, values.records), trusted: trustedFingerprints(io.env), now: new Date()});
-	const evaluation = evaluate(rules.value, linked.answers);
+	// Confirmations the rule file answers by the interlock test come from the latest test record of
+	// the named plan. The planner's modules are loaded only then: start-up time is a feature.
+	const compiled = rules.value;
+	if (!answers.value.inputs.has(interlockPlanInput)) return finishCheck(compiled, {answers: answers.value, link: null}, values, io);
+	const base = dirname(values.answers);
+	return import('../interlock/test-link.js').then(({answerFromInterlockTest}) =>
+		finishCheck(compiled, answerFromInterlockTest(compiled, answers.value, {base, folder: recordsFolder(io.env, values.records), trusted: trustedFingerprints(io.env), now: new Date()}), values, io),
+	);
+}
+
+/** The options of `check --answers` that decide what happens after the answers are read. */
+type FinishOptions = {json?: boolean | undefined; sign?: string | undefined; role?: string | undefined; records?: string | undefined; amends?: string | undefined; reason?: string | undefined; cosign?: string | undefined; 'cosign-role'?: string | undefined; 'cosign-key'?: string | undefined; 'cosign-meaning'?: string | undefined};
+
+/** Evaluates the (linked) answers, signs and writes a record when asked, prints the result; returns the exit status. */
+function finishCheck(rules: CompiledRules, linked: {answers: Answers; link: InterlockLink | null}, values: FinishOptions, io: Io): number {
+	const evaluation = evaluate(rules, linked.answers);
 	const written =
 		values.sign === undefined
 			? undefined
 			: signAndWrite(
-					rules.value,
+					rules,
 					linked.answers,
 					evaluation,
 					{
@@ -86,10 +102,10 @@ export function runCheck(args: string[], io: Io): number | Promise<number> {
 					linked.link,
 				);
 	if (values.json) {
-		const json = {...evaluationToJson(rules.value, linked.answers, evaluation), ...(linked.link ? {interlockTest: linked.link} : {}), ...(written ? {record: {path: written.path, fingerprint: written.fingerprint}} : {})};
+		const json = {...evaluationToJson(rules, linked.answers, evaluation), ...(linked.link ? {interlockTest: linked.link} : {}), ...(written ? {record: {path: written.path, fingerprint: written.fingerprint}} : {})};
 		io.stdout.write(`${terminalSafeJson(json)}\n`);
 	} else {
-		io.stdout.write(`${checkText(rules.value, linked.answers, evaluation, paintFor(io.stdout, io.env), io.stdout.columns ?? 100, linked.link)}\n`);
+		io.stdout.write(`${checkText(rules, linked.answers, evaluation, paintFor(io.stdout, io.env), io.stdout.columns ?? 100, linked.link)}\n`);
 		if (written) io.stdout.write(`\nRecord written: ${written.path}\nSigned with key ${written.fingerprint}${written.keyCreated ? ' (a new key, created now; share it with: prelase keys export)' : ''}\n`);
 	}
 	return evaluation.outcome === 'clear_to_energize' ? 0 : 1;

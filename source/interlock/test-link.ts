@@ -12,8 +12,7 @@ import {localDay} from './load-results.js';
 import {interlockPolicy} from './policy.js';
 import {planSha256} from './test-record.js';
 
-/** The input that names the interlock plan of a bench setup. */
-export const interlockPlanInput = 'interlock_plan';
+import {interlockPlanInput} from './plan-input.js';
 
 /** A test record that passed integrity checking and whose first signer's key is trusted. */
 export type FoundTest = {file: string; bodySha256: string; body: InterlockTestBody};
