@@ -20,3 +20,13 @@ await build({
 	outfile: 'dist/prelase.js',
 	define: {'process.env.NODE_ENV': '"production"', PRELASE_VERSION: JSON.stringify(version), PRELASE_SHIPPED_RULES: JSON.stringify(JSON.stringify(shipped))},
 });
+
+// Node decodes a pure-ASCII file on a fast path (about 20 ms less at every start for this
+// bundle). esbuild escapes non-ASCII text in strings, but not in regular expression literals:
+// write those characters as \u escapes in the source.
+const bundled = readFileSync(new URL('../dist/prelase.js', import.meta.url));
+const wide = bundled.findIndex((byte) => byte > 0x7f);
+if (wide !== -1) {
+	const context = bundled.subarray(Math.max(0, wide - 60), wide + 20).toString('utf8');
+	throw new Error(`dist/prelase.js is not pure ASCII at byte ${wide}: …${context}… (write the character as a \\u escape in the source)`);
+}

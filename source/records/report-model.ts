@@ -77,7 +77,7 @@ function checkRow(check: RecordCheck): CheckRow {
 	const sign = check.relation === 'at_least' ? '≥' : '≤';
 	let margin = '';
 	if (check.margin) {
-		const amount = clean(check.margin.text).replace(/^[-−]/, '');
+		const amount = clean(check.margin.text).replace(/^[-\u2212]/, '');
 		margin = check.verdict === 'pass' ? amount : `${check.relation === 'at_least' ? 'short by' : 'over by'} ${amount}`;
 	}
 	const fraction = check.margin?.fraction === null || check.margin?.fraction === undefined ? '' : formatQuantity(Math.abs(check.margin.fraction), 'ratio');

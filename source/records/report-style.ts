@@ -5,7 +5,7 @@
  * string, so only plain words, digits and a little punctuation are kept.
  */
 export function pageStyle(footer: string): string {
-	const safe = footer.replaceAll(/[^A-Za-z0-9 .·:-]/g, '');
+	const safe = footer.replaceAll(/[^A-Za-z0-9 .\u00B7:-]/g, '');
 	return `
 @page { margin: 16mm 15mm 17mm 15mm; @bottom-left { content: "${safe}"; font: 8pt Arial, "Liberation Sans", "DejaVu Sans", sans-serif; } @bottom-right { content: "page " counter(page) " of " counter(pages); font: 8pt Arial, "Liberation Sans", "DejaVu Sans", sans-serif; } }
 html { color: #000; background: #fff; }
