@@ -1,8 +1,8 @@
 import {deferral} from '../deferral.js';
 import {htmlText} from '../records/report-html.js';
-import {pageStyle} from '../records/report-style.js';
+import {pageHead, pageStyle} from '../records/report-style.js';
 import {stripControl} from '../text.js';
-import type {TestSheet} from './test-sheet.js';
+import {policyLine, sheetWords, type TestSheet} from './test-sheet.js';
 
 const h = (text: string) => htmlText(stripControl(text));
 
@@ -29,22 +29,13 @@ export function testSheetHtml(sheet: TestSheet): string {
 	const title = `Interlock functional test — ${h(sheet.name)}`;
 	const rows = sheet.steps.map((step) => `<tr><td class="number">${step.number}</td><td>${h(step.subject)}</td><td>${h(step.action)}</td><td>${h(step.expect)}</td><td></td><td></td><td></td></tr>`);
 	return [
-		'<!doctype html>',
-		'<html lang="en">',
-		'<head>',
-		'<meta charset="utf-8">',
-		`<meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'">`,
-		'<meta name="viewport" content="width=device-width, initial-scale=1">',
-		`<title>${title}</title>`,
-		`<style>${pageStyle(`prelase interlock functional test · ${sheet.name}`)}${sheetStyle}</style>`,
-		'</head>',
-		'<body>',
+		...pageHead(title, `${pageStyle(`prelase interlock functional test · ${sheet.name}`)}${sheetStyle}`),
 		`<h1>${title}</h1>`,
 		'<section class="caution" aria-label="Caution">',
 		`<p class="deferral">${h(deferral)}</p>`,
-		`<p>${h("Follow the laser safety officer's procedure for interlock tests (beam power, detector, eyewear, who is present). Time each stop with a detector on the beam or the driver's output current.")}</p>`,
+		`<p>${h(sheetWords.procedure)}</p>`,
 		'</section>',
-		`<p>Largest response time (policy): ${h(sheet.limit)}. Repeat this test at least every ${h(sheet.interval)} (policy), and after any change to the loop.</p>`,
+		`<p>${h(policyLine(sheet))}</p>`,
 		`<p class="fields">${blank('Tested by')} ${blank('Witness')} ${blank('Date', 'short')}</p>`,
 		'<table class="steps">',
 		'<colgroup><col class="c-number"><col class="c-subject"><col><col><col class="c-result"><col class="c-initials"><col class="c-date"></colgroup>',
@@ -52,7 +43,7 @@ export function testSheetHtml(sheet: TestSheet): string {
 		`<tbody>${rows.join('\n')}</tbody>`,
 		'</table>',
 		'<section class="closing">',
-		'<p>Every step must pass. A failed step: stop, tag the loop out of service, and tell the laser safety officer.</p>',
+		`<p>${h(sheetWords.failed)}</p>`,
 		`<p>${blank('Signature')}</p>`,
 		'</section>',
 		'</body>',

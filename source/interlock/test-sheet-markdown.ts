@@ -1,6 +1,6 @@
 import {deferral} from '../deferral.js';
 import {stripControl} from '../text.js';
-import type {TestSheet} from './test-sheet.js';
+import {policyLine, sheetWords, type TestSheet} from './test-sheet.js';
 
 const cell = (text: string) => stripControl(text).replaceAll('|', '\\|').replaceAll('\n', ' ');
 
@@ -11,9 +11,9 @@ export function testSheetMarkdown(sheet: TestSheet): string {
 		'',
 		`> ${deferral}`,
 		'',
-		'Follow the laser safety officer\'s procedure for interlock tests (beam power, detector, eyewear, who is present). Time each stop with a detector on the beam or the driver\'s output current.',
+		sheetWords.procedure,
 		'',
-		`Largest response time (policy): ${sheet.limit}. Repeat this test at least every ${sheet.interval} (policy), and after any change to the loop.`,
+		policyLine(sheet),
 		'',
 		'Tested by: ____________________   Witness: ____________________   Date: ____________',
 		'',
@@ -21,7 +21,7 @@ export function testSheetMarkdown(sheet: TestSheet): string {
 		'|---|---|---|---|---|---|---|',
 		...sheet.steps.map((step) => `| ${step.number} | ${cell(step.subject)} | ${cell(step.action)} | ${cell(step.expect)} |  |  |  |`),
 		'',
-		'Every step must pass. A failed step: stop, tag the loop out of service, and tell the laser safety officer.',
+		sheetWords.failed,
 		'',
 		'Signature: ____________________',
 	];

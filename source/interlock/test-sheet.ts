@@ -5,7 +5,18 @@ import type {Device, Plan} from './plan-schema.js';
 /** One step of the functional test: what to do and what must be seen. */
 export type TestStep = {number: number; subject: string; action: string; expect: string};
 
-/** The functional test of a plan, as data; rendered by testSheetMarkdown. */
+/** The fixed words of every test sheet, the same in each rendering. */
+export const sheetWords = {
+	procedure: "Follow the laser safety officer's procedure for interlock tests (beam power, detector, eyewear, who is present). Time each stop with a detector on the beam or the driver's output current.",
+	failed: 'Every step must pass. A failed step: stop, tag the loop out of service, and tell the laser safety officer.',
+} as const;
+
+/** The sheet's line on the policy: the largest response time and the test interval. */
+export function policyLine(sheet: TestSheet): string {
+	return `Largest response time (policy): ${sheet.limit}. Repeat this test at least every ${sheet.interval} (policy), and after any change to the loop.`;
+}
+
+/** The functional test of a plan, as data; rendered by testSheetMarkdown and testSheetHtml. */
 export type TestSheet = {name: string; limit: string; /** The largest response time, s. */ limitSeconds: number; /** The test interval as text, e.g. "90 days". */ interval: string; steps: TestStep[]};
 
 function openAction(device: Device): string {

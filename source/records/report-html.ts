@@ -1,6 +1,6 @@
 import type {BenchRecord} from './record-schema.js';
 import {reportModel, type CheckRow, type ConfirmationRow, type SignatureStatus, type TrustInfo} from './report-model.js';
-import {reportStyle} from './report-style.js';
+import {pageHead, reportStyle} from './report-style.js';
 
 const entities: Record<string, string> = {'&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;'};
 
@@ -42,16 +42,7 @@ export function reportHtml(record: BenchRecord, signatures: readonly SignatureSt
 	const model = reportModel(record, signatures, trust);
 	const out: string[] = [];
 	out.push(
-		'<!doctype html>',
-		'<html lang="en">',
-		'<head>',
-		'<meta charset="utf-8">',
-		`<meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'">`,
-		'<meta name="viewport" content="width=device-width, initial-scale=1">',
-		`<title>${h(model.title)} — ${h(model.outcomeText)}</title>`,
-		`<style>${reportStyle(`prelase record · setup ${model.setupKey} · ${model.outcomeText.toUpperCase()}`)}</style>`,
-		'</head>',
-		'<body>',
+		...pageHead(`${h(model.title)} — ${h(model.outcomeText)}`, reportStyle(`prelase record · setup ${model.setupKey} · ${model.outcomeText.toUpperCase()}`)),
 		'<header>',
 		`<p class="kind">prelase · bench check record</p>`,
 		`<h1>${h(model.setupName)}</h1>`,

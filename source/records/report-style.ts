@@ -62,3 +62,23 @@ footer { margin-top: 6mm; border-top: 1px solid #000; font-size: 8.5pt; }
 @media print { .verdict-fail td, .answer-no td, tbody.not-verified td { -webkit-print-color-adjust: exact; print-color-adjust: exact; } }
 `;
 }
+
+/**
+ * The start of a self-contained printable page up to and including <body>: no scripts, fonts
+ * or images may load (the content security policy allows only the inline style). The title
+ * must already be escaped.
+ */
+export function pageHead(escapedTitle: string, style: string): string[] {
+	return [
+		'<!doctype html>',
+		'<html lang="en">',
+		'<head>',
+		'<meta charset="utf-8">',
+		`<meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'">`,
+		'<meta name="viewport" content="width=device-width, initial-scale=1">',
+		`<title>${escapedTitle}</title>`,
+		`<style>${style}</style>`,
+		'</head>',
+		'<body>',
+	];
+}
