@@ -133,7 +133,7 @@ describe('changes to the record as data', () => {
 		const tampered = copy();
 		tampered.signatures[0]!.publicKey = rawPublicKey(generateKeyPair().publicKey).toString('base64');
 		const result = checkRecordText(serialise(tampered));
-		expect(result).toMatchObject({ok: false, reason: expect.stringContaining('the fingerprint does not match the public key')});
+		expect(result).toMatchObject({ok: false, reason: expect.stringContaining('the stated fingerprint does not match the public key')});
 	});
 
 	it('a removed signature is reported as unsigned', () => {
