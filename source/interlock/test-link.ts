@@ -5,6 +5,7 @@ import type {Answers, ConfirmationAnswer} from '../rules/answers.js';
 import type {CompiledRules} from '../rules/compiled-rules.js';
 import {readTextFile} from '../yaml-source.js';
 import {bodySha256} from '../records/build-body.js';
+import {KeyCache} from '../records/audit-integrity.js';
 import {readRecord} from '../records/read-record.js';
 import type {InterlockTestBody} from '../records/record-schema.js';
 import {durationText} from './duration-text.js';
@@ -61,11 +62,12 @@ export function findTestRecords(folder: string, trusted: ReadonlySet<string>): {
 		return {found: [], untrusted: 0, damaged: 0};
 	}
 	const found: FoundTest[] = [];
+	const keys = new KeyCache();
 	let untrusted = 0;
 	let damaged = 0;
 	for (const name of names) {
 		const file = join(folder, name);
-		const read = readRecord(file);
+		const read = readRecord(file, keys);
 		if (!read.ok || read.record.body.kind !== 'interlock-test') {
 			damaged += 1;
 			continue;
