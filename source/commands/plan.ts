@@ -79,7 +79,8 @@ export function runPlan(args: string[], io: Io): number | Promise<number> {
 	const loaded = loadPlanAndText(file, rules.value);
 	if (!loaded.ok) {
 		for (const found of loaded.errors) io.stderr.write(`${formatProblem(found)}\n`);
-		io.stderr.write(`prelase plan: ${loaded.errors.length} problem(s) in ${file}; nothing analysed\n`);
+		const files = [...new Set(loaded.errors.map((found) => found.file ?? file))].join(', ');
+		io.stderr.write(`prelase plan: ${loaded.errors.length} problem(s) in ${files}; nothing analysed\n`);
 		return 2;
 	}
 	for (const found of loaded.warnings) io.stderr.write(`${formatProblem(found)}\n`);

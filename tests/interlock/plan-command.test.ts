@@ -83,3 +83,19 @@ describe('prelase plan', () => {
 		expect(run('--help').stdout).toContain('prelase plan FILE [--json | --test-sheet md|html | --record-test RESULTS | --edit]');
 	});
 });
+
+describe('prelase plan under a rule file without the interlock policy', () => {
+	it('names each missing policy value and the rule file, exit 2', () => {
+		const shipped = readFileSync('rules/default.yaml', 'utf8');
+		const start = shipped.indexOf('  interlock_max_response_time:');
+		const cut = shipped.slice(0, start) + shipped.slice(shipped.indexOf('\n\n', start) + 1);
+		const rules = join(mkdtempSync(join(tmpdir(), 'prelase-plan-rules-')), 'no-interlock.yaml');
+		writeFileSync(rules, cut);
+		const {code, stderr} = run('plan', demoFile, '--rules', rules);
+		expect(code).toBe(2);
+		for (const [name, noun] of [['interlock_max_response_time', 'a time'], ['interlock_resistance_margin', 'a fraction or percentage'], ['interlock_test_interval', 'a time'], ['interlock_longest_bypass', 'a time']]) {
+			expect(stderr).toContain(`${rules}: error: the interlock policy value ${name} (${noun}) is missing from the rule file`);
+		}
+		expect(stderr).toContain(`prelase plan: 4 problem(s) in ${rules}; nothing analysed`);
+	});
+});
