@@ -29,23 +29,28 @@ the codes in force (IEC 60825 series, ANSI Z136 series, local law) have the fina
 	check: `prelase check — the bench check
 
 Usage:
-  prelase check --answers FILE [--rules FILE] [--json]
-                [--sign NAME [--role ROLE] [--records DIR] [--amends RECORD --reason TEXT]
+  prelase check --answers FILE [--rules FILE] [--json] [--records DIR]
+                [--sign NAME [--role ROLE] [--amends RECORD --reason TEXT]
                  [--cosign NAME --cosign-key FILE [--cosign-role ROLE] [--cosign-meaning verified|approved]]]
 
 Reads the setup's numbers and confirmations from an answers file (YAML), evaluates every
 check of the rule file, and prints each verdict with its value, limit and margin, failures
 first in the summary, then the outcome: clear to energize, do not energize, or incomplete.
+When the setup names its interlock plan (input interlock_plan, a path relative to the answers
+file), the loop-test confirmations are answered from the latest trusted interlock test record
+of that plan in the records folder: yes within the policy's test interval, otherwise no.
 
 Options:
   --answers FILE   Answers file: setup, inputs (id: value with unit), confirmations (id: yes/no/
                    not applicable, or {answer, note}); see docs/examples/
-  --rules FILE     Rule file to use (default: the shipped rules/default.yaml)
+  --rules FILE     Rule file to use (default: the settings' rule file, else the shipped
+                   rules/default.yaml)
   --json           Print the evaluation as JSON instead of text
   --sign NAME      Write a signed record of this check (in every outcome) as NAME; the
                    operator's key is created on first use (see prelase keys)
   --role ROLE      The signer's role (default: the role in settings)
-  --records DIR    Folder for the record (default: settings, else the settings folder's records/)
+  --records DIR    Records folder: where the record is written and interlock test records are
+                   looked for (default: settings, else the settings folder's records/)
   --amends RECORD  This record corrects RECORD (never edited); needs --reason TEXT
   --cosign NAME    A second signer (verifier or laser safety officer) signing with their own
                    private key file --cosign-key FILE; --cosign-meaning verified (default) or approved
