@@ -2,9 +2,9 @@ import {problem, type Problem} from '../problems.js';
 import {failure, success, type Result} from '../result.js';
 import {formatQuantity} from '../quantities/format.js';
 import {schemaProblems} from '../rules/schema-problems.js';
-import {parseYamlSource, readTextFile, type YamlSource} from '../yaml-source.js';
-import {testResultsSchema, type TestResults} from './results-schema.js';
-import type {TestSheet} from './test-sheet.js';
+import {parseYamlSource, readTextFile} from '../yaml-source.js';
+import {testResultsSchema, type StepResult, type TestResults} from './results-schema.js';
+import type {TestSheet, TestStep} from './test-sheet.js';
 
 /** What a results file is, for messages about the wrong kind of file. */
 export const resultsFileExpected = 'the results of an interlock functional test (YAML)';
@@ -33,29 +33,47 @@ export function loadResultsFromText(text: string, file: string, sheet: TestSheet
 	const source = parsed.value;
 	const validated = testResultsSchema.safeParse(source.data);
 	if (!validated.success) return failure(schemaProblems(validated.error.issues, source, 'docs/interlock.md'));
-	const problems = againstSheet(validated.data, sheet, source, now);
+	const problems = resultsAgainstSheet(validated.data, sheet, now, (path) => ({file: source.file, ...source.locate(path), field: path.join('.')}));
 	return problems.length > 0 ? failure(problems) : success(validated.data, parsed.warnings);
 }
 
-function againstSheet(results: TestResults, sheet: TestSheet, source: YamlSource, now: Date): Problem[] {
+/** Where a problem is: a file's line and column, or (for results held in memory) the field alone. */
+export type Locate = (path: Array<string | number>) => Pick<Problem, 'file' | 'line' | 'column' | 'field'>;
+
+const byField: Locate = (path) => ({field: path.join('.')});
+
+/**
+ * The problems of one step's result against its step of the sheet: another subject than the
+ * sheet's, a pass slower than the policy's response time, or not applicable without a note.
+ */
+export function stepProblems(entry: StepResult, step: TestStep, sheet: TestSheet, at: Locate = byField, path: Array<string | number> = []): Problem[] {
 	const problems: Problem[] = [];
-	const at = (path: Array<string | number>) => ({file: source.file, ...source.locate(path), field: path.join('.')});
+	if (entry.concerns !== step.subject) problems.push(problem('interlock-results-concerns', {step: entry.step, expected: step.subject, given: entry.concerns}, at([...path, 'concerns'])));
+	if (entry.result === 'pass' && entry.stopped_in !== undefined && entry.stopped_in > sheet.limitSeconds) {
+		problems.push(problem('interlock-results-too-slow', {step: entry.step, measured: formatQuantity(entry.stopped_in, 'time'), limit: sheet.limit}, at([...path, 'stopped_in'])));
+	}
+	if (entry.result === 'not_applicable' && entry.note === undefined) problems.push(problem('interlock-results-na-note', {step: entry.step}, at([...path, 'result'])));
+	return problems;
+}
+
+/**
+ * Holds validated results against the plan's test sheet: every step answered once and as
+ * stepProblems asks, and no test dated after today. The file and the screen both use it, so
+ * results get the same checks and messages wherever they were written down.
+ */
+export function resultsAgainstSheet(results: TestResults, sheet: TestSheet, now: Date, at: Locate = byField): Problem[] {
+	const problems: Problem[] = [];
 	const today = localDay(now);
 	if (results.tested_on > today) problems.push(problem('interlock-results-future', {date: results.tested_on, today}, at(['tested_on'])));
-	const seen = new Map<number, number>();
+	const seen = new Map<number, number | undefined>();
 	results.steps.forEach((entry, index) => {
 		const path = ['steps', index];
 		const step = sheet.steps.find((candidate) => candidate.number === entry.step);
-		const first = seen.get(entry.step);
 		if (step === undefined) problems.push(problem('interlock-results-step-unknown', {step: entry.step, count: sheet.steps.length}, at([...path, 'step'])));
-		else if (first !== undefined) problems.push(problem('interlock-results-step-twice', {step: entry.step, first}, at([...path, 'step'])));
+		else if (seen.has(entry.step)) problems.push(problem('interlock-results-step-twice', {step: entry.step, first: seen.get(entry.step) ?? '?'}, at([...path, 'step'])));
 		else {
-			seen.set(entry.step, source.locate([...path, 'step']).line);
-			if (entry.concerns !== step.subject) problems.push(problem('interlock-results-concerns', {step: entry.step, expected: step.subject, given: entry.concerns}, at([...path, 'concerns'])));
-			if (entry.result === 'pass' && entry.stopped_in !== undefined && entry.stopped_in > sheet.limitSeconds) {
-				problems.push(problem('interlock-results-too-slow', {step: entry.step, measured: formatQuantity(entry.stopped_in, 'time'), limit: sheet.limit}, at([...path, 'stopped_in'])));
-			}
-			if (entry.result === 'not_applicable' && entry.note === undefined) problems.push(problem('interlock-results-na-note', {step: entry.step}, at([...path, 'result'])));
+			seen.set(entry.step, at([...path, 'step']).line);
+			problems.push(...stepProblems(entry, step, sheet, at, path));
 		}
 	});
 	for (const step of sheet.steps) {
