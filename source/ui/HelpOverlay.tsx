@@ -42,6 +42,7 @@ export const screenKeys: Record<string, Array<[string, string]>> = {
 		['x', 'remove it (asks first)'],
 		['[ ]', 'move a device earlier / later in the wiring order'],
 		['f', 'every finding in full, with the verdict line'],
+		['t', 'record a functional test of the plan as saved'],
 		['s', 'save the plan file (comments and key order kept)'],
 		['Esc', 'back (asks when there are unsaved changes)'],
 		['✗ !', 'the item has a stop / advise finding'],
@@ -54,6 +55,15 @@ export const screenKeys: Record<string, Array<[string, string]>> = {
 		['← → space', 'choose an option; y n for yes / no'],
 		['empty', 'leaves an optional field out of the file'],
 		['Esc', 'back to the list (a new item not yet added is dropped)'],
+	],
+	'plan-test': [
+		['p f a', 'mark the step pass / fail / not applicable'],
+		['type', 'the stop time with its unit (9 ms), then a note (n/a needs one)'],
+		['Enter', 'take the field and go on; on the sign line, sign and write the record'],
+		['←', 'back from the note to the time, from the time to the result'],
+		['↑ ↓', 'previous / next step or field'],
+		['PgDn', 'to the tester, the witness and the date'],
+		['Esc', 'leave (asks before the entries are dropped)'],
 	],
 	done: [
 		['s', 'save these inputs as a named setup'],

@@ -11,6 +11,10 @@ import {PlanList} from './PlanList.js';
 import {formKey} from './planner-form-keys.js';
 import {leaveKey, listKey, removeKey, type ListActions} from './planner-list-keys.js';
 import {itemId, type PlannerState, type View} from './planner-state.js';
+import {startTestEntry, type TestEntry} from './test-entry.js';
+import {testEntryKey} from './test-entry-keys.js';
+import type {TestRecorder} from './test-recorder.js';
+import {testKeyLine, TestRecordScreen} from './TestRecordScreen.js';
 import {useKeystrokes} from './use-keystrokes.js';
 
 /** Props of the interlock planner. */
@@ -20,12 +24,14 @@ export type PlannerScreenProps = {
 	rulesName: string;
 	rows: number;
 	width: number;
+	/** Reads the plan as saved and signs test records. */
+	recorder: TestRecorder;
 	/** Leave the planner (after saving or discarding, when there were changes). */
 	onLeave(): void;
 };
 
-const keyLines: Record<View['name'], string> = {
-	list: 'Enter edit · a/d add point/device · x remove · [ ] move · s save · ? help',
+const keyLines: Record<Exclude<View['name'], 'record'>, string> = {
+	list: 'Enter edit · a/d add · x remove · [ ] move · s save · t test · ? help',
 	form: 'Enter apply · ↑ ↓ field · ← → choose · Esc back to the list · ? help',
 	remove: 'y remove · any other key keeps it',
 	leave: 's save and leave · d discard changes and leave · Esc stay',
@@ -39,12 +45,33 @@ function save(state: PlannerState): PlannerState {
 	return {...state, editing: saved.editing, notice: {text: `Saved ${displayPath(saved.editing.file)}`}};
 }
 
-/** The interlock planner: the plan's items and findings, forms to change them, and saving. Findings follow every applied change. */
-export function PlannerScreen({editing, rulesName, rows, width, onLeave}: PlannerScreenProps) {
+/** Starts recording a test of the plan file as it is on disk; a file that no longer loads is said in the notice. */
+function startTest(state: PlannerState, recorder: TestRecorder): PlannerState {
+	const opened = recorder.open(state.editing.file);
+	if (!opened.ok) return {...state, notice: {text: `No test: ${opened.message}`, error: true}};
+	return {...state, view: {name: 'record', entry: startTestEntry(opened.tested, recorder.tester(), new Date())}};
+}
+
+/** One key while a test is entered; the planner's list comes back when it is left or recorded. */
+function recordKey(state: PlannerState, entry: TestEntry, input: string, key: Key, recorder: TestRecorder): PlannerState {
+	let left: string | undefined;
+	let help = false;
+	const next = testEntryKey(entry, input, key, {
+		sign: (current, results) => recorder.sign(current.tested, results, current.people.witnessKey.trim() || undefined),
+		leave: (text) => (left = text),
+		help: () => (help = true),
+		now: () => new Date(),
+	});
+	if (left !== undefined) return {...state, view: {name: 'list'}, notice: {text: left}};
+	return next === entry && !help ? state : {...state, help, view: {name: 'record', entry: next}};
+}
+
+/** The interlock planner: the plan's items and findings, forms to change them, saving, and recording a test. Findings follow every applied change. */
+export function PlannerScreen({editing, rulesName, rows, width, recorder, onLeave}: PlannerScreenProps) {
 	// Keys are handled against a ref, not render state: several keys can arrive before the next frame.
 	const state = useRef<PlannerState>({editing, selected: 0, view: {name: 'list'}, help: false});
 	const [, rerender] = useReducer((count: number) => count + 1, 0);
-	const actions: ListActions = {save, leave: onLeave};
+	const actions: ListActions = {save, leave: onLeave, recordTest: (current) => startTest(current, recorder)};
 	useKeystrokes(handleKey, {isActive: !state.current.help});
 	function handleKey(input: string, key: Key) {
 		if (key.ctrl) return;
@@ -55,6 +82,7 @@ export function PlannerScreen({editing, rulesName, rows, width, onLeave}: Planne
 		else if (view.name === 'form') next = formKey(current, view.form, input, key);
 		else if (view.name === 'remove') next = removeKey(current, view.ref, input);
 		else if (view.name === 'leave') next = leaveKey(current, input, key, actions);
+		else if (view.name === 'record') next = recordKey(current, view.entry, input, key, recorder);
 		else if (key.escape) next = {...current, view: {name: 'list'}};
 		else if (key.upArrow || key.downArrow) next = {...current, view: {name: 'findings', offset: Math.max(0, view.offset + (key.upArrow ? -1 : 1))}};
 		else if (input === '?') next = {...current, help: true};
@@ -77,6 +105,7 @@ export function PlannerScreen({editing, rulesName, rows, width, onLeave}: Planne
 	);
 	let shown;
 	if (view.name === 'form') shown = <PlanForm editing={current} form={view.form} rows={body - 1} />;
+	else if (view.name === 'record') shown = <TestRecordScreen entry={view.entry} rows={body} />;
 	else if (view.name === 'findings') shown = <PlanFindings editing={current} offset={view.offset} rows={body} width={width} />;
 	else {
 		let prompt = noticeLine;
@@ -92,13 +121,13 @@ export function PlannerScreen({editing, rulesName, rows, width, onLeave}: Planne
 	};
 	return (
 		<Box flexDirection="column">
-			{state.current.help ? <HelpOverlay screen={view.name === 'form' ? 'plan-form' : 'planner'} onClose={close} /> : null}
+			{state.current.help ? <HelpOverlay screen={view.name === 'form' ? 'plan-form' : view.name === 'record' ? 'plan-test' : 'planner'} onClose={close} /> : null}
 			<Box display={state.current.help ? 'none' : 'flex'} flexDirection="column">
 				{shown}
 				{view.name === 'form' ? noticeLine : null}
 			</Box>
 			<Text dimColor wrap="truncate">
-				{keyLines[view.name]}
+				{view.name === 'record' ? testKeyLine(view.entry) : keyLines[view.name]}
 			</Text>
 		</Box>
 	);

@@ -2,8 +2,8 @@ import type {Key} from 'ink';
 import {moveDevice, removeItem} from '../interlock/plan-edit.js';
 import {focusField, itemId, itemRefs, selectionOf, type ItemRef, type PlannerState} from './planner-state.js';
 
-/** What the list's keys need from outside: saving writes a file, leaving changes screen. */
-export type ListActions = {save(state: PlannerState): PlannerState; leave(): void};
+/** What the list's keys need from outside: saving writes a file, leaving changes screen, a test starts from the file on disk. */
+export type ListActions = {save(state: PlannerState): PlannerState; leave(): void; recordTest(state: PlannerState): PlannerState};
 
 const what = (ref: ItemRef) => (ref.list === 'devices' ? 'device' : 'access point');
 
@@ -22,6 +22,11 @@ export function listKey(state: PlannerState, input: string, key: Key, actions: L
 	if (input === '?') return {...state, help: true};
 	if (input === 's') return actions.save(state);
 	if (input === 'f') return {...quiet, view: {name: 'findings', offset: 0}};
+	if (input === 't') {
+		// A test is of the plan as wired, and the record holds the file's exact text: never of edits not yet saved.
+		if (state.editing.dirty) return {...state, notice: {text: 'The plan has unsaved changes: save them first (s); a test records the plan as saved', error: true}};
+		return actions.recordTest(quiet);
+	}
 	if (input === 'a' || input === 'd') {
 		const target = {kind: 'add' as const, list: input === 'a' ? ('access_points' as const) : ('devices' as const), values: {}};
 		return {...quiet, view: {name: 'form', form: focusField(state.editing, target, 0)}};

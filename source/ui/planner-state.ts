@@ -1,5 +1,6 @@
 import {itemValue, type PlanEditing, type PlanList} from '../interlock/plan-edit.js';
 import {choicesOf, fieldsOf, shownValue, type PlanField} from './plan-fields.js';
+import type {TestEntry} from './test-entry.js';
 
 /** An access point or a device, by its list and place. */
 export type ItemRef = {list: PlanList; index: number};
@@ -11,7 +12,7 @@ export type FormTarget = {kind: 'edit'; ref: ItemRef} | {kind: 'add'; list: Plan
 export type Form = {target: FormTarget; focus: number; buffer: string; choice: number; message?: string};
 
 /** What the planner shows. */
-export type View = {name: 'list'} | {name: 'form'; form: Form} | {name: 'remove'; ref: ItemRef} | {name: 'leave'} | {name: 'findings'; offset: number};
+export type View = {name: 'list'} | {name: 'form'; form: Form} | {name: 'remove'; ref: ItemRef} | {name: 'leave'} | {name: 'findings'; offset: number} | {name: 'record'; entry: TestEntry};
 
 /** The planner's whole state, kept in a ref: keys can arrive faster than frames. */
 export type PlannerState = {editing: PlanEditing; selected: number; view: View; notice?: {text: string; error?: boolean}; help: boolean};

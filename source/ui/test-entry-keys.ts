@@ -1,0 +1,90 @@
+import type {Key} from 'ink';
+import type {TestResults} from '../interlock/results-schema.js';
+import type {RecordedTest} from '../commands/plan-record.js';
+import {entryResults, hasEntries, peopleFields, signRow, stepEntryProblem, type StepMark, type TestEntry} from './test-entry.js';
+import {typeInto} from './text-buffer.js';
+
+/** What the test's keys need from outside: signing writes a record, leaving and help change the screen. */
+export type TestEntryActions = {
+	sign(entry: TestEntry, results: TestResults): {ok: true; recorded: RecordedTest} | {ok: false; message: string};
+	leave(notice: string): void;
+	help(): void;
+	now(): Date;
+};
+
+const marks: Record<string, StepMark> = {p: 'pass', f: 'fail', a: 'not_applicable'};
+
+const withStep = (entry: TestEntry, changes: Partial<TestEntry['steps'][number]>): TestEntry => ({
+	...entry,
+	steps: entry.steps.map((step, index) => (index === entry.row ? {...step, ...changes} : step)),
+});
+
+/** Moves to another row; leaving a step checks it first (and stays, with the message, when refused). */
+function moveTo(entry: TestEntry, row: number): TestEntry {
+	if (entry.row < entry.steps.length) {
+		const problem = stepEntryProblem(entry, entry.row, entry.part !== 'note');
+		if (problem) return {...entry, message: problem};
+	}
+	const {message: _, ...rest} = entry;
+	return {...rest, row: Math.max(0, Math.min(signRow(entry), row)), part: 'result'};
+}
+
+/** One key on a step: p f a mark it, then its stop time and note are typed, each taken with Enter. */
+function stepKey(entry: TestEntry, input: string, key: Key, actions: TestEntryActions): TestEntry {
+	const step = entry.steps[entry.row]!;
+	if (entry.part === 'result') {
+		const mark = marks[input.toLowerCase()];
+		if (mark) return {...withStep(entry, {result: mark}), part: 'time', message: undefined};
+		if (input === '?') actions.help();
+		if (!key.return) return entry;
+		if (!step.result) return {...entry, message: `Mark step ${entry.row + 1}: p pass, f fail, a n/a`};
+		return {...entry, part: 'time', message: undefined};
+	}
+	if (key.leftArrow) return {...entry, part: entry.part === 'note' ? 'time' : 'result', message: undefined};
+	const field = entry.part === 'time' ? 'stoppedIn' : 'note';
+	const change = typeInto(step[field], input, key);
+	const typed = withStep(entry, {[field]: change.text});
+	if (!change.submit) return typed;
+	if (entry.part === 'time') {
+		const problem = stepEntryProblem(typed, entry.row, true);
+		return problem ? {...typed, message: problem} : {...typed, part: 'note', message: undefined};
+	}
+	return moveTo(typed, entry.row + 1);
+}
+
+/**
+ * One key while a test is entered: ↑ ↓ move between steps and fields, Enter takes a field and
+ * moves on, and on the sign line holds every result against the sheet and signs. Esc asks
+ * before entries are dropped.
+ */
+export function testEntryKey(entry: TestEntry, input: string, key: Key, actions: TestEntryActions): TestEntry {
+	if (entry.recorded) {
+		if (key.return || key.escape) actions.leave(`Recorded: ${entry.recorded.path}`);
+		return entry;
+	}
+	if (entry.leaving) {
+		if (input === 'd') actions.leave('Test discarded; nothing was recorded');
+		if (key.escape || input === 's') return {...entry, leaving: false};
+		return entry;
+	}
+	if (key.escape) {
+		if (!hasEntries(entry)) actions.leave('No test entered; nothing was recorded');
+		return {...entry, leaving: true};
+	}
+	if (key.upArrow || key.downArrow) return moveTo(entry, entry.row + (key.upArrow ? -1 : 1));
+	if (key.pageDown) return moveTo(entry, entry.steps.length);
+	if (entry.row < entry.steps.length) return stepKey(entry, input, key, actions);
+	if (entry.row < signRow(entry)) {
+		const field = peopleFields[entry.row - entry.steps.length]!.key;
+		const change = typeInto(entry.people[field], input, key);
+		const typed = {...entry, people: {...entry.people, [field]: change.text}};
+		return change.submit ? moveTo(typed, entry.row + 1) : typed;
+	}
+	if (input === '?') actions.help();
+	if (!key.return) return entry;
+	const results = entryResults(entry, actions.now());
+	if (!results.ok) return {...entry, row: results.row, part: 'result', message: results.message};
+	const signed = actions.sign(entry, results.results);
+	if (!signed.ok) return {...entry, message: `Not recorded: ${signed.message}`};
+	return {...entry, recorded: signed.recorded, message: undefined};
+}
