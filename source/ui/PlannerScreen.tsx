@@ -105,7 +105,7 @@ export function PlannerScreen({editing, rulesName, rows, width, recorder, onLeav
 	);
 	let shown;
 	if (view.name === 'form') shown = <PlanForm editing={current} form={view.form} rows={body - 1} />;
-	else if (view.name === 'record') shown = <TestRecordScreen entry={view.entry} rows={body} />;
+	else if (view.name === 'record') shown = <TestRecordScreen entry={view.entry} rows={body} width={width} />;
 	else if (view.name === 'findings') shown = <PlanFindings editing={current} offset={view.offset} rows={body} width={width} />;
 	else {
 		let prompt = noticeLine;

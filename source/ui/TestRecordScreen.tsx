@@ -23,6 +23,11 @@ export function testKeyLine(entry: TestEntry): string {
 	return 'p pass · f fail · a n/a · Enter next · ↑ ↓ step · PgDn sign-off · ? help';
 }
 
+/** What the head says of a plan with stop findings. */
+const stopLine = (stops: number) => `✗ The plan has ${stops} stop finding${stops === 1 ? '' : 's'}: this test will be recorded as FAILED whatever the steps show.`;
+
+const signNote = "The tester signs with this machine's operator key; with a key file, the witness signs too.";
+
 /** The head of the test: the plan as tested, and its stop findings in plain sight (with any, the test fails). */
 function Head({entry}: {entry: TestEntry}) {
 	const {tested, sheet, stops} = entry;
@@ -36,7 +41,7 @@ function Head({entry}: {entry: TestEntry}) {
 			</Text>
 			{stops > 0 ? (
 				<Text bold color="red" wrap="wrap">
-					✗ The plan has {stops} stop finding{stops === 1 ? '' : 's'}: this test will be recorded as FAILED whatever the steps show.
+					{stopLine(stops)}
 				</Text>
 			) : (
 				<Text wrap="truncate">Plan findings: 0 stop</Text>
@@ -131,7 +136,7 @@ function SignOff({entry}: {entry: TestEntry}) {
 				{onSign ? '[ Sign and write the record ]' : '  Sign and write the record  '}
 			</Text>
 			<Text dimColor wrap="wrap">
-				The tester signs with this machine's operator key; with a key file, the witness signs too.
+				{signNote}
 			</Text>
 		</Box>
 	);
@@ -161,12 +166,16 @@ function Recorded({entry}: {entry: TestEntry}) {
 }
 
 /** Recording a functional test of the plan as saved: the sheet's steps one by one, who tested, then signing. */
-export function TestRecordScreen({entry, rows}: {entry: TestEntry; rows: number}) {
+export function TestRecordScreen({entry, rows, width}: {entry: TestEntry; rows: number; width: number}) {
 	if (entry.recorded) return <Recorded entry={entry} />;
 	const onStep = entry.row < entry.steps.length;
-	// The step in focus and the sign-off take what they need; the step list shows as many lines as fit around the focus.
-	const fixed = 3 + (entry.stops > 0 ? 1 : 0) + (onStep ? 9 : peopleFields.length + 5) + (entry.message || entry.leaving ? 2 : 0);
-	const room = Math.max(3, rows - fixed);
+	// The step in focus (or the sign-off) and the head take what they need; the step list shows as many lines as fit around the focus.
+	const lines = (text: string, indent = 0) => Math.ceil(text.length / Math.max(20, width - indent));
+	const step = entry.sheet.steps[Math.min(entry.row, entry.steps.length - 1)]!;
+	const outcome = entryOutcome(entry);
+	const detail = onStep ? 5 + lines(step.action, 8) + lines(step.expect, 8) : peopleFields.length + 3 + lines(signNote) + (outcome ? lines(`If signed now: FAILED — ${outcome.text}`) : 0);
+	const below = (entry.message ? lines(entry.message) + 1 : 0) + (entry.leaving ? 1 : 0);
+	const room = Math.max(3, rows - 5 - (entry.stops > 0 ? lines(stopLine(entry.stops)) - 1 : 0) - detail - below);
 	const focus = Math.min(entry.row, entry.steps.length - 1);
 	const start = Math.max(0, Math.min(focus - Math.floor(room / 2), entry.steps.length - room));
 	const shown = entry.steps.slice(start, start + room).map((_, offset) => start + offset);
