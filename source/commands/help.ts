@@ -212,7 +212,8 @@ Options:
   --witness-key FILE     The witness's private key: the witness signs too, as verified
   --edit                 Open the planner screen on FILE (needs a terminal): edit, add, remove
                          and reorder access points and devices, the findings following each
-                         change; saving keeps the file's comments and key order
+                         change; saving keeps the file's comments and key order; t records a
+                         functional test of the plan as saved, step by step
   --schema plan|results  Print the JSON Schema of plan files or of results files
   -h, --help             Show this help
 
