@@ -135,7 +135,7 @@ export const messages = {
 	'interlock-policy-dimension': 'the interlock policy value {{name}} must be {{noun}}, not {{actual}}',
 	'interlock-plan-policy': 'the interlock policy is read from the rule file, not the plan: remove policy from the plan and set the interlock_* policy values in the rule file (prelase rules show)',
 	'interlock-results-step-unknown': 'the test sheet has no step {{step}} (it has steps 1 to {{count}})',
-	'interlock-results-step-twice': 'step {{step}} is given twice (first at line {{first}})',
+	'interlock-results-step-twice': 'step {{step}} is given twice (first at {{first}})',
 	'interlock-results-step-missing': 'no result for step {{step}} ({{subject}}); every step of the sheet needs a result',
 	'interlock-results-concerns': 'step {{step}} of this plan\'s test sheet concerns "{{expected}}", not "{{given}}"; were these results written for another version of the plan?',
 	'interlock-results-too-slow': 'step {{step}} is marked pass, but emission stopped in {{measured}}, above the policy\'s {{limit}}: mark it fail',

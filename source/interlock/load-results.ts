@@ -65,14 +65,16 @@ export function resultsAgainstSheet(results: TestResults, sheet: TestSheet, now:
 	const problems: Problem[] = [];
 	const today = localDay(now);
 	if (results.tested_on > today) problems.push(problem('interlock-results-future', {date: results.tested_on, today}, at(['tested_on'])));
-	const seen = new Map<number, number | undefined>();
+	// Where each step was first given: its line in a file, or its place in the list otherwise.
+	const seen = new Map<number, string>();
 	results.steps.forEach((entry, index) => {
 		const path = ['steps', index];
 		const step = sheet.steps.find((candidate) => candidate.number === entry.step);
 		if (step === undefined) problems.push(problem('interlock-results-step-unknown', {step: entry.step, count: sheet.steps.length}, at([...path, 'step'])));
-		else if (seen.has(entry.step)) problems.push(problem('interlock-results-step-twice', {step: entry.step, first: seen.get(entry.step) ?? '?'}, at([...path, 'step'])));
+		else if (seen.has(entry.step)) problems.push(problem('interlock-results-step-twice', {step: entry.step, first: seen.get(entry.step)!}, at([...path, 'step'])));
 		else {
-			seen.set(entry.step, at([...path, 'step']).line);
+			const where = at([...path, 'step']);
+			seen.set(entry.step, where.line === undefined ? `steps.${index}` : `line ${where.line}`);
 			problems.push(...stepProblems(entry, step, sheet, at, path));
 		}
 	});

@@ -1,7 +1,7 @@
 import {readFileSync} from 'node:fs';
 import fc from 'fast-check';
 import {describe, expect, it} from 'vitest';
-import {loadResults, loadResultsFromText} from '../../source/interlock/load-results.js';
+import {loadResults, loadResultsFromText, resultsAgainstSheet} from '../../source/interlock/load-results.js';
 import {testSheet} from '../../source/interlock/test-sheet.js';
 import {loadPlanUnderShippedPolicy} from './plan-fixture.js';
 
@@ -84,7 +84,7 @@ const invalid: Case[] = (() => {
 			field: 'steps.11.step',
 			needle: '# again',
 			// The first step 3 is on the demo's own line for it.
-			data: {step: 3, first: lineOf(demo, '{step: 3,')},
+			data: {step: 3, first: `line ${lineOf(demo, '{step: 3,')}`},
 		},
 		// The step list is where a missing step is reported: its first entry.
 		{name: 'a missing step', text: edit(`  - ${step8}\n`, ''), code: 'interlock-results-step-missing', field: 'steps', needle: '- {step: 1,', data: {step: 8, subject: 'key removal'}},
@@ -139,5 +139,15 @@ describe('the results loader on mutated files', () => {
 			}),
 			{numRuns: 300},
 		);
+	});
+});
+
+describe('results held in memory (the screen)', () => {
+	it('a step given twice names where it was first given by its place in the list', () => {
+		const steps = sheet.steps.map((step) => ({step: step.number, concerns: step.subject, result: 'pass' as const}));
+		const results = {format: 1 as const, tested_on: '2026-11-30', tested_by: {name: 'Ines Marlow', role: ''}, steps: [...steps, steps[2]!]};
+		expect(resultsAgainstSheet(results, sheet, new Date('2026-12-01T12:00:00'))).toEqual([
+			{code: 'interlock-results-step-twice', severity: 'error', data: {step: 3, first: 'steps.2'}, field: `steps.${steps.length}.step`},
+		]);
 	});
 });
