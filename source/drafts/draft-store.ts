@@ -1,5 +1,5 @@
 import {closeSync, existsSync, fsyncSync, mkdirSync, openSync, readFileSync, renameSync, rmSync, writeSync} from 'node:fs';
-import {join} from 'node:path';
+import {dirname, join} from 'node:path';
 // Named imports (not the z namespace) let the bundler leave out the parts of zod not used.
 import {enum as oneOf, number, object, record, string} from 'zod';
 
@@ -35,12 +35,16 @@ export function draftPath(settingsFolder: string): string {
  * edited: write and sync a temporary file, then rename it over the draft.
  */
 export function saveDraft(settingsFolder: string, draft: Draft): void {
-	const path = draftPath(settingsFolder);
-	mkdirSync(join(settingsFolder, 'drafts'), {recursive: true, mode: 0o700});
+	writeDraftFile(draftPath(settingsFolder), JSON.stringify(draft));
+}
+
+/** Writes a draft file (owner-only) all at once: a synced temporary file renamed over it. */
+export function writeDraftFile(path: string, text: string): void {
+	mkdirSync(dirname(path), {recursive: true, mode: 0o700});
 	const temporary = `${path}.${process.pid}.tmp`;
 	const handle = openSync(temporary, 'w', 0o600);
 	try {
-		writeSync(handle, JSON.stringify(draft));
+		writeSync(handle, text);
 		fsyncSync(handle);
 	} finally {
 		closeSync(handle);

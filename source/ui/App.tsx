@@ -7,7 +7,8 @@ import {recordsFolder, trustedFingerprints} from '../records/folder.js';
 import {loadDraft, removeDraft, saveDraft, type Draft} from '../drafts/draft-store.js';
 import {listSetups, loadSetup, saveSetup} from '../drafts/setup-store.js';
 import {displayPath} from '../display-path.js';
-import {openPlanForEditing, type PlanEditing} from '../interlock/plan-edit.js';
+import {openPlanForEditing, planEditingFromText, planEditingText, type PlanEditing} from '../interlock/plan-edit.js';
+import {loadPlanDraft, removePlanDraft, savePlanDraft} from '../drafts/plan-draft-store.js';
 import {formatProblem} from '../problems.js';
 import type {CompiledRules} from '../rules/compiled-rules.js';
 import type {SettingsStore} from '../settings.js';
@@ -48,7 +49,7 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 	const rows = stdout.rows ?? 24;
 	const width = stdout.columns ?? 80;
 	// The plan is opened before the first frame, so `plan FILE --edit` starts on it (or on its problems).
-	const [plan, setPlan] = useState<{editing?: PlanEditing; problems?: string[]}>(() => (startPlan === undefined ? {} : openPlan(startPlan)));
+	const [plan, setPlan] = useState<{editing?: PlanEditing; problems?: string[]; notice?: {text: string; error?: boolean}}>(() => (startPlan === undefined ? {} : openPlan(startPlan)));
 	const [screen, setScreen] = useState<Screen>(startPlan !== undefined ? (plan.editing ? 'planner' : 'plan-open') : startCheck ? 'step' : 'home');
 	const [stepIndex, setStepIndex] = useState(0);
 	// Confirmations answered by the interlock test come from the records folder; plan paths are read from the working folder.
@@ -73,13 +74,29 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 	const setups = useMemo(() => (screen === 'home' ? listSetups(settings.folder) : []), [screen]);
 	const saved = useMemo(() => settings.read(), [screen]);
 
-	function openPlan(path: string): {editing?: PlanEditing; problems?: string[]} {
+	function openPlan(path: string): {editing?: PlanEditing; problems?: string[]; notice?: {text: string; error?: boolean}} {
 		const file = resolve(path);
 		const opened = openPlanForEditing(file, rules);
 		if (!opened.ok) return {problems: opened.errors.map(formatProblem)};
 		settings.write({planFile: file});
-		return {editing: opened.value};
+		return restoreDraft(opened.value);
 	}
+
+	/** Edits left unsaved by an earlier session (a crash, Ctrl-C) come back, if the file has not changed since. */
+	function restoreDraft(editing: PlanEditing): {editing: PlanEditing; notice?: {text: string; error?: boolean}} {
+		const found = loadPlanDraft(settings.folder, editing.file, editing.original);
+		if (!found) return {editing};
+		const when = found.draft.savedAt.slice(0, 16).replace('T', ' ');
+		if (found.state === 'stale') return {editing, notice: {text: `Unsaved edits from ${when} were not restored: the file changed since. They are kept in ${found.path}`, error: true}};
+		const restored = planEditingFromText(found.draft.text, editing.file, editing.policy);
+		if (!restored.ok) return {editing, notice: {text: `Unsaved edits from ${when} no longer load and were not restored; they are kept in ${found.path}`, error: true}};
+		return {editing: {...restored.value, original: editing.original, dirty: true}, notice: {text: `Unsaved edits from ${when} restored: s saves them, Esc then d discards them`}};
+	}
+
+	const planDrafts = {
+		save: (editing: PlanEditing) => savePlanDraft(settings.folder, editing.file, editing.original, planEditingText(editing)),
+		clear: (file: string) => removePlanDraft(settings.folder, file),
+	};
 
 	const quit = (code: number) => {
 		onExit(code);
@@ -226,7 +243,7 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 			return undefined;
 		};
 		body = <PlanOpenScreen initial={plan.problems && startPlan ? startPlan : (saved.planFile ?? '')} {...(plan.problems ? {problems: plan.problems} : {})} onOpen={open} onBack={() => setScreen('home')} onHelp={() => setHelp(true)} active={!help} />;
-	} else if (screen === 'planner' && plan.editing) body = <PlannerScreen editing={plan.editing} rulesName={rules.rules.name} rows={rows - 2} width={width} recorder={testRecorder(rules, settings, env)} onLeave={() => setScreen('home')} />;
+	} else if (screen === 'planner' && plan.editing) body = <PlannerScreen editing={plan.editing} rulesName={rules.rules.name} rows={rows - 2} width={width} recorder={testRecorder(rules, settings, env)} drafts={planDrafts} notice={plan.notice} onLeave={() => setScreen('home')} />;
 	else if (screen === 'settings') body = <SettingsScreen initial={saved} path={settings.path} onSave={(changes) => settings.write(changes)} onBack={() => setScreen('home')} />;
 	else body = <InfoScreen title={info.title} lines={info.lines} onBack={() => setScreen('home')} />;
 

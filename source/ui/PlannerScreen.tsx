@@ -26,9 +26,16 @@ export type PlannerScreenProps = {
 	width: number;
 	/** Reads the plan as saved and signs test records. */
 	recorder: TestRecorder;
+	/** Keeps unsaved edits on disk after every change, so a crash or Ctrl-C loses none. */
+	drafts: PlanDrafts;
+	/** A notice to show first (a draft restored, or one that no longer applies). */
+	notice?: {text: string; error?: boolean} | undefined;
 	/** Leave the planner (after saving or discarding, when there were changes). */
 	onLeave(): void;
 };
+
+/** Where the planner keeps unsaved edits between changes. */
+export type PlanDrafts = {save(editing: PlanEditing): void; clear(file: string): void};
 
 const keyLines: Record<Exclude<View['name'], 'record'>, string> = {
 	list: 'Enter edit · a/d add · x remove · [ ] move · s save · t test · ? help',
@@ -67,11 +74,16 @@ function recordKey(state: PlannerState, entry: TestEntry, input: string, key: Ke
 }
 
 /** The interlock planner: the plan's items and findings, forms to change them, saving, and recording a test. Findings follow every applied change. */
-export function PlannerScreen({editing, rulesName, rows, width, recorder, onLeave}: PlannerScreenProps) {
+export function PlannerScreen({editing, rulesName, rows, width, recorder, drafts, notice: first, onLeave}: PlannerScreenProps) {
 	// Keys are handled against a ref, not render state: several keys can arrive before the next frame.
-	const state = useRef<PlannerState>({editing, selected: 0, view: {name: 'list'}, help: false});
+	const state = useRef<PlannerState>({editing, selected: 0, view: {name: 'list'}, help: false, ...(first ? {notice: first} : {})});
 	const [, rerender] = useReducer((count: number) => count + 1, 0);
-	const actions: ListActions = {save, leave: onLeave, recordTest: (current) => startTest(current, recorder)};
+	// Leaving follows a save or a discard: either way the draft has served.
+	const leave = () => {
+		drafts.clear(state.current.editing.file);
+		onLeave();
+	};
+	const actions: ListActions = {save, leave, recordTest: (current) => startTest(current, recorder)};
 	useKeystrokes(handleKey, {isActive: !state.current.help});
 	function handleKey(input: string, key: Key) {
 		if (key.ctrl) return;
@@ -86,6 +98,10 @@ export function PlannerScreen({editing, rulesName, rows, width, recorder, onLeav
 		else if (key.escape) next = {...current, view: {name: 'list'}};
 		else if (key.upArrow || key.downArrow) next = {...current, view: {name: 'findings', offset: Math.max(0, view.offset + (key.upArrow ? -1 : 1))}};
 		else if (input === '?') next = {...current, help: true};
+		if (next.editing !== current.editing) {
+			if (next.editing.dirty) drafts.save(next.editing);
+			else drafts.clear(next.editing.file);
+		}
 		if (next !== current) {
 			state.current = next;
 			rerender();

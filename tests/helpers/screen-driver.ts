@@ -122,13 +122,15 @@ export type AppOptions = {
 	settings?: Settings;
 	/** A draft saved before the App starts, resumable from the home screen. */
 	draft?: Prefill & {step?: number};
-	/** Extra environment (NO_COLOR and the like); PRELASE_HOME is always a fresh folder. */
+	/** Extra environment (NO_COLOR and the like). */
 	env?: NodeJS.ProcessEnv;
+	/** The settings folder (PRELASE_HOME) of an earlier run, to start again where it stopped; a fresh folder when absent. */
+	home?: string;
 };
 
 /** Renders the whole interface with the shipped rules and a fresh settings folder. */
 export async function renderApp(options: AppOptions = {}): Promise<AppScreen> {
-	const home = mkdtempSync(join(tmpdir(), 'prelase-ui-'));
+	const home = options.home ?? mkdtempSync(join(tmpdir(), 'prelase-ui-'));
 	const env: NodeJS.ProcessEnv = {...options.env, PRELASE_HOME: home};
 	const settings = openSettings(env);
 	if (options.settings) settings.write(options.settings);

@@ -1,5 +1,5 @@
 import chalk from 'chalk';
-import {copyFileSync, mkdtempSync, readFileSync} from 'node:fs';
+import {copyFileSync, existsSync, mkdtempSync, readdirSync, readFileSync, writeFileSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {join, resolve} from 'node:path';
 import {cleanup} from 'ink-testing-library';
@@ -215,5 +215,56 @@ describe('the interlock planner', () => {
 		expect(raw).not.toContain('\u001B[');
 		expect(raw).toContain('✗ STOP    device estop_bench');
 		expect(raw).toContain('› ✗ estop_bench');
+	});
+});
+
+describe('unsaved planner edits survive the program ending', () => {
+	/** The planner on a copy of the demo with estop_bench made normally open, not saved; returns the screen and the file. */
+	async function editedAndLeftUnsaved(): Promise<AppScreen & {file: string}> {
+		const screen = await planner();
+		await select(screen, 'estop_bench');
+		await screen.press(keys.enter);
+		await field(screen, 'Contact');
+		await screen.press(keys.right, keys.enter, keys.escape);
+		expect(screen.frame()).toContain('Findings: 1 stop · 0 advise');
+		return screen;
+	}
+	const draftsOf = (home: string) => (existsSync(join(home, 'drafts')) ? readdirSync(join(home, 'drafts')).filter((name) => name.startsWith('plan-')) : []);
+
+	it('a change is kept as a draft at once; opening the plan again restores it, and saving clears it', async () => {
+		const first = await editedAndLeftUnsaved();
+		expect(draftsOf(first.home)).toHaveLength(1);
+		// the program ends without saving (Ctrl-C, a closed terminal, a crash)
+		cleanup();
+		const again = await renderApp({startPlan: first.file, home: first.home});
+		let frame = again.frame();
+		expect(frame).toMatch(/✓ Unsaved edits from \d{4}-\d{2}-\d{2} \d{2}:\d{2} restored: s saves them/);
+		expect(frame).toContain('Findings: 1 stop · 0 advise');
+		expect(readFileSync(first.file, 'utf8')).toBe(demoText);
+		frame = await again.press('s');
+		expect(frame).toContain(`✓ Saved`);
+		expect(loadPlan(first.file)).toMatchObject({ok: true, value: {devices: expect.arrayContaining([expect.objectContaining({id: 'estop_bench', contact: 'normally_open'})]) as unknown}});
+		expect(draftsOf(first.home)).toEqual([]);
+	});
+
+	it('a draft made from a file that has changed since is kept, not applied, and said so', async () => {
+		const first = await editedAndLeftUnsaved();
+		cleanup();
+		writeFileSync(first.file, `${demoText}# edited by hand meanwhile\n`);
+		const again = await renderApp({startPlan: first.file, home: first.home});
+		const frame = again.frame().replaceAll(/\s+/g, ' ');
+		expect(frame).toContain('✗ Unsaved edits from');
+		expect(frame).toContain('were not restored: the file changed since');
+		expect(frame).toContain('Findings: 0 stop · 0 advise');
+		expect(draftsOf(first.home)).toHaveLength(1);
+	});
+
+	it('discarding the changes when leaving removes the draft', async () => {
+		const first = await editedAndLeftUnsaved();
+		await first.press(keys.escape);
+		expect(first.frame()).toContain('s save and leave · d discard changes and leave · Esc stay');
+		await first.press('d');
+		expect(draftsOf(first.home)).toEqual([]);
+		expect(readFileSync(first.file, 'utf8')).toBe(demoText);
 	});
 });
