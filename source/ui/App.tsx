@@ -9,6 +9,7 @@ import {listSetups, loadSetup, saveSetup} from '../drafts/setup-store.js';
 import {displayPath} from '../display-path.js';
 import {openPlanForEditing, planEditingFromText, planEditingText, type PlanEditing} from '../interlock/plan-edit.js';
 import {loadPlanDraft, removePlanDraft, savePlanDraft} from '../drafts/plan-draft-store.js';
+import {isoWithOffset} from '../records/sign.js';
 import {formatProblem} from '../problems.js';
 import type {CompiledRules} from '../rules/compiled-rules.js';
 import type {SettingsStore} from '../settings.js';
@@ -86,7 +87,8 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 	function restoreDraft(editing: PlanEditing): {editing: PlanEditing; notice?: {text: string; error?: boolean}} {
 		const found = loadPlanDraft(settings.folder, editing.file, editing.original);
 		if (!found) return {editing};
-		const when = found.draft.savedAt.slice(0, 16).replace('T', ' ');
+		// Local time, as the operator's clock shows it.
+		const when = isoWithOffset(new Date(found.draft.savedAt)).slice(0, 16).replace('T', ' ');
 		if (found.state === 'stale') return {editing, notice: {text: `Unsaved edits from ${when} were not restored: the file changed since. They are kept in ${found.path}`, error: true}};
 		const restored = planEditingFromText(found.draft.text, editing.file, editing.policy);
 		if (!restored.ok) return {editing, notice: {text: `Unsaved edits from ${when} no longer load and were not restored; they are kept in ${found.path}`, error: true}};
