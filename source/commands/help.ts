@@ -161,7 +161,9 @@ Checks the record's integrity, then prints it: the outcome, the caution and the 
 failures first in a summary, the setup and its fingerprint, operator and time, the rule
 file's name and SHA-256, every input, every check by step with verdict, value, limit and
 margin, confirmations with notes, and each signature with whether it verifies and whether
-its key is yours or one you trust (prelase keys).
+its key is yours or one you trust (prelase keys). An interlock test record (prelase plan
+--record-test) prints its outcome, steps not passed first, the tester and witness, the plan and
+its SHA-256, the policy, every step with its result, stop time and note, and the signatures.
 
 Options:
   --format md|html  Markdown (default), or one self-contained HTML file that prints on A4

@@ -2,6 +2,7 @@ import {writeFileSync} from 'node:fs';
 import {extname} from 'node:path';
 import {parseArgs} from 'node:util';
 import {ownFingerprint, readTrusted} from '../records/key-store.js';
+import {interlockReportHtml, interlockReportMarkdown} from '../records/interlock-report.js';
 import {readRecord} from '../records/read-record.js';
 import {reportHtml} from '../records/report-html.js';
 import {reportMarkdown} from '../records/report-markdown.js';
@@ -12,6 +13,7 @@ import type {Io} from './check.js';
 import {helpTexts} from './help.js';
 
 const writers = {md: reportMarkdown, html: reportHtml} as const;
+const interlockWriters = {md: interlockReportMarkdown, html: interlockReportHtml} as const;
 
 /** The format asked for, else the one the output file's extension names, else Markdown. */
 function chooseFormat(format: string | undefined, out: string | undefined): keyof typeof writers {
@@ -38,13 +40,13 @@ export function runReport(args: string[], io: Io): number {
 		io.stderr.write(`prelase: ${stripControl(path)} fails its integrity check: ${stripControl(integrity.reason)}\nNo report was printed; a record that fails its integrity check cannot be relied on (prelase audit ${stripControl(path)} says more).\n`);
 		return 3;
 	}
-	if (integrity.record.body.kind !== 'bench-check') {
-		throw new UsageError(`${stripControl(path)} is an interlock test record; report prints bench-check records (prelase audit ${stripControl(path)} shows an interlock test record)`);
-	}
-	const record = {...integrity.record, body: integrity.record.body};
 	const settings = openSettings(io.env);
 	const trust = {own: ownFingerprint(settings.folder), trusted: readTrusted(settings.folder)};
-	const page = writers[format](record, integrity.signatures, trust);
+	const {body} = integrity.record;
+	const page =
+		body.kind === 'interlock-test'
+			? interlockWriters[format]({...integrity.record, body}, integrity.signatures, trust)
+			: writers[format]({...integrity.record, body}, integrity.signatures, trust);
 
 	if (values.out === undefined) {
 		io.stdout.write(page);

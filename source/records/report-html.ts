@@ -1,5 +1,5 @@
 import type {BenchRecord} from './record-schema.js';
-import {reportModel, type CheckRow, type ConfirmationRow, type SignatureStatus, type TrustInfo} from './report-model.js';
+import {reportModel, type CheckRow, type ConfirmationRow, type SignatureRow, type SignatureStatus, type TrustInfo} from './report-model.js';
 import {pageHead, reportStyle} from './report-style.js';
 
 const entities: Record<string, string> = {'&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;'};
@@ -79,7 +79,19 @@ export function reportHtml(record: BenchRecord, signatures: readonly SignatureSt
 		out.push(`<section class="derived"><h2>Derived values</h2><table class="derived-values"><colgroup><col class="c-derived"><col></colgroup><thead><tr><th scope="col">Value</th><th scope="col">Result</th></tr></thead><tbody>${rows.join('')}</tbody></table></section>`);
 	}
 
-	const signatureRows = model.signatures.map((row) =>
+	out.push(
+		signatureSection(model.signatures),
+		`<footer><p>${h(model.deferral)}</p></footer>`,
+		'</body>',
+		'</html>',
+		'',
+	);
+	return out.join('\n');
+}
+
+/** The signatures of a record, each with its verification and trust, as an HTML section. */
+export function signatureSection(rows: readonly SignatureRow[]): string {
+	const bodies = rows.map((row) =>
 		[
 			`<tbody class="signature ${row.verified ? 'verified' : 'not-verified'}">`,
 			`<tr><td>${row.number}</td><td>${h(row.name)}${row.role ? `<br>${h(row.role)}` : ''}</td><td>${h(row.meaning)}</td><td class="number">${h(row.signedAt)}</td><td class="verdict">${h(row.verifiedText)}</td><td>${h(row.trustText)}</td></tr>`,
@@ -87,12 +99,5 @@ export function reportHtml(record: BenchRecord, signatures: readonly SignatureSt
 			'</tbody>',
 		].join(''),
 	);
-	out.push(
-		`<section class="signatures"><h2>Signatures</h2><table class="signature-table"><colgroup><col class="c-number"><col><col class="c-meaning"><col class="c-when"><col class="c-verified"><col class="c-trust"></colgroup><thead><tr><th scope="col">#</th><th scope="col">Signer and role</th><th scope="col">Meaning</th><th scope="col">Signed at</th><th scope="col">Verified</th><th scope="col">Trust</th></tr></thead>${signatureRows.join('')}</table></section>`,
-		`<footer><p>${h(model.deferral)}</p></footer>`,
-		'</body>',
-		'</html>',
-		'',
-	);
-	return out.join('\n');
+	return `<section class="signatures"><h2>Signatures</h2><table class="signature-table"><colgroup><col class="c-number"><col><col class="c-meaning"><col class="c-when"><col class="c-verified"><col class="c-trust"></colgroup><thead><tr><th scope="col">#</th><th scope="col">Signer and role</th><th scope="col">Meaning</th><th scope="col">Signed at</th><th scope="col">Verified</th><th scope="col">Trust</th></tr></thead>${bodies.join('')}</table></section>`;
 }

@@ -1,5 +1,5 @@
 import type {BenchRecord} from './record-schema.js';
-import {reportModel, type CheckRow, type ConfirmationRow, type SignatureStatus, type TrustInfo} from './report-model.js';
+import {reportModel, type CheckRow, type ConfirmationRow, type SignatureRow, type SignatureStatus, type TrustInfo} from './report-model.js';
 
 /**
  * Escapes text for Markdown: entities for < > (and for & where it would start an entity) so no
@@ -19,7 +19,8 @@ export function markdownText(text: string, inCell = false): string {
 const cell = (text: string) => markdownText(text, true);
 const code = (text: string) => (/^[\w.-]+$/.test(text) ? `\`${text}\`` : cell(text));
 
-function table(head: string[], rows: string[][]): string[] {
+/** A Markdown table (cells already escaped). */
+export function table(head: string[], rows: string[][]): string[] {
 	return [`| ${head.join(' | ')} |`, `|${head.map(() => '---').join('|')}|`, ...rows.map((row) => `| ${row.join(' | ')} |`)];
 }
 
@@ -66,14 +67,20 @@ export function reportMarkdown(record: BenchRecord, signatures: readonly Signatu
 
 	if (model.derived.length > 0) out.push('## Derived values', '', ...table(['Value', 'Result'], model.derived.map((entry) => [`${cell(entry.label)} (${code(entry.id)})`, cell(entry.value)])), '');
 
-	out.push('## Signatures', '');
-	out.push(
-		...table(
-			['#', 'Signer', 'Role', 'Meaning', 'Signed at', 'Key', 'Verified', 'Trust'],
-			model.signatures.map((row) => [String(row.number), cell(row.name), cell(row.role), row.meaning, cell(row.signedAt), `${row.key}<br>${row.fingerprint}`, `**${cell(row.verifiedText)}**`, cell(row.trustText)]),
-		),
-		'',
-	);
+	out.push(...signatureSection(model.signatures));
 	out.push(`*${markdownText(model.deferral)}*`, '');
 	return out.join('\n');
+}
+
+/** The signatures of a record, each with its verification and trust, as a Markdown section. */
+export function signatureSection(rows: readonly SignatureRow[]): string[] {
+	return [
+		'## Signatures',
+		'',
+		...table(
+			['#', 'Signer', 'Role', 'Meaning', 'Signed at', 'Key', 'Verified', 'Trust'],
+			rows.map((row) => [String(row.number), cell(row.name), cell(row.role), row.meaning, cell(row.signedAt), `${row.key}<br>${row.fingerprint}`, `**${cell(row.verifiedText)}**`, cell(row.trustText)]),
+		),
+		'',
+	];
 }

@@ -4,7 +4,7 @@ import {outcomeWords} from '../rules/evaluation.js';
 import {stripControl} from '../text.js';
 import {shortFingerprint} from './keys.js';
 import type {TrustedKey} from './key-store.js';
-import type {BenchRecord, RecordBody} from './record-schema.js';
+import type {AnyRecord, BenchRecord, RecordBody} from './record-schema.js';
 import {ruleOutline} from './report-rule-outline.js';
 
 type RecordCheck = RecordBody['checks'][number];
@@ -103,7 +103,8 @@ function confirmationRow(entry: RecordConfirmation): ConfirmationRow {
 	return {id: clean(entry.id), status: entry.status, answerText: answerWords[entry.status], statement: clean(entry.statement), note: clean(entry.note ?? needs)};
 }
 
-function signatureRow(record: BenchRecord, status: SignatureStatus | undefined, index: number, trust: TrustInfo): SignatureRow {
+/** One signature of a record with its verification and trust, for printing. */
+export function signatureRow(record: AnyRecord, status: SignatureStatus | undefined, index: number, trust: TrustInfo): SignatureRow {
 	const signature = record.signatures[index]!;
 	const verified = status?.valid === true;
 	const trustedKey = trust.trusted.find((key) => key.fingerprint === signature.fingerprint);
@@ -162,8 +163,7 @@ export function reportModel(record: BenchRecord, signatures: readonly SignatureS
 
 	const counts = body.counts;
 	const countsText = ['fail', 'advise', 'open', 'pass', 'skip'].map((verdict) => `${counts[verdict] ?? 0} ${verdict}`).join(' · ');
-	const signatureRows = record.signatures.map((_, index) => signatureRow(record, signatures.find((entry) => entry.index === index), index, trust));
-	const verifiedCount = signatureRows.filter((row) => row.verified).length;
+	const signatureRows = signatureRowsOf(record, signatures, trust);
 
 	return {
 		title: `Bench check record: ${setupName}`,
@@ -187,7 +187,7 @@ export function reportModel(record: BenchRecord, signatures: readonly SignatureS
 			['Rule file', clean(body.rules.name)],
 			['Rule file path', clean(body.rules.file)],
 			['Rule file SHA-256', body.rules.sha256],
-			['Signatures', `${record.signatures.length}, ${verifiedCount === signatureRows.length ? 'all verified' : `${signatureRows.length - verifiedCount} NOT VERIFIED`}`],
+			['Signatures', signaturesSummary(signatureRows)],
 		],
 		...(body.amends ? {amendment: {record: clean(body.amends.record), bodySha256: body.amends.bodySha256, reason: clean(body.amends.reason)}} : {}),
 		steps,
@@ -198,4 +198,15 @@ export function reportModel(record: BenchRecord, signatures: readonly SignatureS
 		})),
 		signatures: signatureRows,
 	};
+}
+
+/** Every signature of a record as a row to print. */
+export function signatureRowsOf(record: AnyRecord, signatures: readonly SignatureStatus[], trust: TrustInfo): SignatureRow[] {
+	return record.signatures.map((_, index) => signatureRow(record, signatures.find((entry) => entry.index === index), index, trust));
+}
+
+/** How many signatures, and whether all verified. */
+export function signaturesSummary(rows: readonly SignatureRow[]): string {
+	const verified = rows.filter((row) => row.verified).length;
+	return `${rows.length}, ${verified === rows.length ? 'all verified' : `${rows.length - verified} NOT VERIFIED`}`;
 }
