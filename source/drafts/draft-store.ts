@@ -1,7 +1,7 @@
 import {closeSync, existsSync, fsyncSync, mkdirSync, openSync, readFileSync, renameSync, rmSync, writeSync} from 'node:fs';
 import {dirname, join} from 'node:path';
 // Named imports (not the z namespace) let the bundler leave out the parts of zod not used.
-import {enum as oneOf, number, object, record, string} from 'zod';
+import {enum as oneOf, number, object, record, string, type ZodType} from 'zod';
 
 /** A check in progress: enough to resume it exactly where it was left. */
 export type Draft = {
@@ -52,16 +52,20 @@ export function writeDraftFile(path: string, text: string): void {
 	renameSync(temporary, path);
 }
 
-/** The saved draft, or undefined when there is none or it cannot be read. */
-export function loadDraft(settingsFolder: string): Draft | undefined {
-	const path = draftPath(settingsFolder);
+/** A draft file checked against its shape: undefined when missing, not JSON or of another shape (never trusted). */
+export function readDraftFile<T>(path: string, schema: ZodType<T>): T | undefined {
 	if (!existsSync(path)) return undefined;
 	try {
-		const parsed = draftSchema.safeParse(JSON.parse(readFileSync(path, 'utf8')));
-		return parsed.success ? (parsed.data as Draft) : undefined;
+		const parsed = schema.safeParse(JSON.parse(readFileSync(path, 'utf8')));
+		return parsed.success ? parsed.data : undefined;
 	} catch {
 		return undefined;
 	}
+}
+
+/** The saved draft, or undefined when there is none or it cannot be read. */
+export function loadDraft(settingsFolder: string): Draft | undefined {
+	return readDraftFile(draftPath(settingsFolder), draftSchema) as Draft | undefined;
 }
 
 /** Removes the draft once its check is finished. */

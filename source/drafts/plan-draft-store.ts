@@ -1,9 +1,9 @@
 import {createHash} from 'node:crypto';
-import {existsSync, readFileSync, rmSync} from 'node:fs';
+import {rmSync} from 'node:fs';
 import {join} from 'node:path';
 // Named imports (not the z namespace) let the bundler leave out the parts of zod not used.
 import {object, string} from 'zod';
-import {writeDraftFile} from './draft-store.js';
+import {readDraftFile, writeDraftFile} from './draft-store.js';
 
 /** Unsaved planner edits of one plan file, kept so that a crash or Ctrl-C loses none of them. */
 export type PlanDraft = {
@@ -37,14 +37,9 @@ export function savePlanDraft(settingsFolder: string, file: string, baseText: st
  */
 export function loadPlanDraft(settingsFolder: string, file: string, fileText: string): {state: 'current' | 'stale'; draft: PlanDraft; path: string} | undefined {
 	const path = planDraftPath(settingsFolder, file);
-	if (!existsSync(path)) return undefined;
-	try {
-		const parsed = planDraftSchema.safeParse(JSON.parse(readFileSync(path, 'utf8')));
-		if (!parsed.success || parsed.data.file !== file) return undefined;
-		return {state: parsed.data.baseSha256 === sha256(fileText) ? 'current' : 'stale', draft: parsed.data, path};
-	} catch {
-		return undefined;
-	}
+	const draft = readDraftFile(path, planDraftSchema);
+	if (draft?.file !== file) return undefined;
+	return {state: draft.baseSha256 === sha256(fileText) ? 'current' : 'stale', draft, path};
 }
 
 /** Removes the draft of a plan once its edits are saved or discarded. */

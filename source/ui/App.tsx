@@ -20,6 +20,7 @@ import {HomeScreen, type HomeChoice} from './HomeScreen.js';
 import {InfoScreen} from './InfoScreen.js';
 import {PlannerScreen} from './PlannerScreen.js';
 import {PlanOpenScreen} from './PlanOpenScreen.js';
+import {testDraftsIn} from './test-drafts.js';
 import {testRecorder} from './test-recorder.js';
 import {nameSetup, startSession, type Session} from './session.js';
 import {SettingsScreen} from './SettingsScreen.js';
@@ -245,7 +246,7 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 			return undefined;
 		};
 		body = <PlanOpenScreen initial={plan.problems && startPlan ? startPlan : (saved.planFile ?? '')} {...(plan.problems ? {problems: plan.problems} : {})} onOpen={open} onBack={() => setScreen('home')} onHelp={() => setHelp(true)} active={!help} />;
-	} else if (screen === 'planner' && plan.editing) body = <PlannerScreen editing={plan.editing} rulesName={rules.rules.name} rows={rows - 2} width={width} recorder={testRecorder(rules, settings, env)} drafts={planDrafts} notice={plan.notice} onLeave={() => setScreen('home')} />;
+	} else if (screen === 'planner' && plan.editing) body = <PlannerScreen editing={plan.editing} rulesName={rules.rules.name} rows={rows - 2} width={width} recorder={testRecorder(rules, settings, env)} drafts={planDrafts} testDrafts={testDraftsIn(settings.folder)} notice={plan.notice} onLeave={() => setScreen('home')} />;
 	else if (screen === 'settings') body = <SettingsScreen initial={saved} path={settings.path} onSave={(changes) => settings.write(changes)} onBack={() => setScreen('home')} />;
 	else body = <InfoScreen title={info.title} lines={info.lines} onBack={() => setScreen('home')} />;
 

@@ -13,6 +13,7 @@ import {leaveKey, listKey, removeKey, type ListActions} from './planner-list-key
 import {itemId, type PlannerState, type View} from './planner-state.js';
 import {startTestEntry, type TestEntry} from './test-entry.js';
 import {testEntryKey} from './test-entry-keys.js';
+import {followTestEntry, type TestDrafts} from './test-drafts.js';
 import type {TestRecorder} from './test-recorder.js';
 import {testKeyLine, TestRecordScreen} from './TestRecordScreen.js';
 import {useKeystrokes} from './use-keystrokes.js';
@@ -28,6 +29,8 @@ export type PlannerScreenProps = {
 	recorder: TestRecorder;
 	/** Keeps unsaved edits on disk after every change, so a crash or Ctrl-C loses none. */
 	drafts: PlanDrafts;
+	/** Keeps the entries of a test in progress on disk after every change. */
+	testDrafts: TestDrafts;
 	/** A notice to show first (a draft restored, or one that no longer applies). */
 	notice?: {text: string; error?: boolean} | undefined;
 	/** Leave the planner (after saving or discarding, when there were changes). */
@@ -53,10 +56,10 @@ function save(state: PlannerState): PlannerState {
 }
 
 /** Starts recording a test of the plan file as it is on disk; a file that no longer loads is said in the notice. */
-function startTest(state: PlannerState, recorder: TestRecorder): PlannerState {
+function startTest(state: PlannerState, recorder: TestRecorder, drafts: TestDrafts): PlannerState {
 	const opened = recorder.open(state.editing.file);
 	if (!opened.ok) return {...state, notice: {text: `No test: ${opened.message}`, error: true}};
-	return {...state, view: {name: 'record', entry: startTestEntry(opened.tested, recorder.tester(), new Date())}};
+	return {...state, view: {name: 'record', entry: drafts.start(startTestEntry(opened.tested, recorder.tester(), new Date()))}};
 }
 
 /** One key while a test is entered; the planner's list comes back when it is left or recorded. */
@@ -74,7 +77,7 @@ function recordKey(state: PlannerState, entry: TestEntry, input: string, key: Ke
 }
 
 /** The interlock planner: the plan's items and findings, forms to change them, saving, and recording a test. Findings follow every applied change. */
-export function PlannerScreen({editing, rulesName, rows, width, recorder, drafts, notice: first, onLeave}: PlannerScreenProps) {
+export function PlannerScreen({editing, rulesName, rows, width, recorder, drafts, testDrafts, notice: first, onLeave}: PlannerScreenProps) {
 	// Keys are handled against a ref, not render state: several keys can arrive before the next frame.
 	const state = useRef<PlannerState>({editing, selected: 0, view: {name: 'list'}, help: false, ...(first ? {notice: first} : {})});
 	const [, rerender] = useReducer((count: number) => count + 1, 0);
@@ -83,7 +86,7 @@ export function PlannerScreen({editing, rulesName, rows, width, recorder, drafts
 		drafts.clear(state.current.editing.file);
 		onLeave();
 	};
-	const actions: ListActions = {save, leave, recordTest: (current) => startTest(current, recorder)};
+	const actions: ListActions = {save, leave, recordTest: (current) => startTest(current, recorder, testDrafts)};
 	useKeystrokes(handleKey, {isActive: !state.current.help});
 	function handleKey(input: string, key: Key) {
 		if (key.ctrl) return;
@@ -94,7 +97,10 @@ export function PlannerScreen({editing, rulesName, rows, width, recorder, drafts
 		else if (view.name === 'form') next = formKey(current, view.form, input, key);
 		else if (view.name === 'remove') next = removeKey(current, view.ref, input);
 		else if (view.name === 'leave') next = leaveKey(current, input, key, actions);
-		else if (view.name === 'record') next = recordKey(current, view.entry, input, key, recorder);
+		else if (view.name === 'record') {
+			next = recordKey(current, view.entry, input, key, recorder);
+			followTestEntry(testDrafts, view.entry, next.view.name === 'record' ? next.view.entry : undefined);
+		}
 		else if (key.escape) next = {...current, view: {name: 'list'}};
 		else if (key.upArrow || key.downArrow) next = {...current, view: {name: 'findings', offset: Math.max(0, view.offset + (key.upArrow ? -1 : 1))}};
 		else if (input === '?') next = {...current, help: true};

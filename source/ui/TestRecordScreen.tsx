@@ -174,7 +174,7 @@ export function TestRecordScreen({entry, rows, width}: {entry: TestEntry; rows: 
 	const step = entry.sheet.steps[Math.min(entry.row, entry.steps.length - 1)]!;
 	const outcome = entryOutcome(entry);
 	const detail = onStep ? 5 + lines(step.action, 8) + lines(step.expect, 8) : peopleFields.length + 3 + lines(signNote) + (outcome ? lines(`If signed now: FAILED — ${outcome.text}`) : 0);
-	const below = (entry.message ? lines(entry.message) + 1 : 0) + (entry.leaving ? 1 : 0);
+	const below = (entry.message ? lines(entry.message) + 1 : 0) + (entry.leaving ? 1 : 0) + (entry.notice ? lines(entry.notice.text) : 0);
 	const room = Math.max(3, rows - 5 - (entry.stops > 0 ? lines(stopLine(entry.stops)) - 1 : 0) - detail - below);
 	const focus = Math.min(entry.row, entry.steps.length - 1);
 	const start = Math.max(0, Math.min(focus - Math.floor(room / 2), entry.steps.length - room));
@@ -182,6 +182,12 @@ export function TestRecordScreen({entry, rows, width}: {entry: TestEntry; rows: 
 	return (
 		<Box flexDirection="column">
 			<Head entry={entry} />
+			{entry.notice ? (
+				<Text wrap="wrap" {...(entry.notice.error ? {color: 'red'} : {})}>
+					{entry.notice.error ? '✗ ' : '✓ '}
+					{stripControl(entry.notice.text)}
+				</Text>
+			) : null}
 			<Box marginTop={1} flexDirection="column">
 				{shown.map((index) => (
 					<StepLine key={index} entry={entry} index={index} />

@@ -55,9 +55,17 @@ function stepKey(entry: TestEntry, input: string, key: Key, actions: TestEntryAc
 /**
  * One key while a test is entered: ↑ ↓ move between steps and fields, Enter takes a field and
  * moves on, and on the sign line holds every result against the sheet and signs. Esc asks
- * before entries are dropped.
+ * before entries are dropped. The notice shown on starting goes with the first change.
  */
 export function testEntryKey(entry: TestEntry, input: string, key: Key, actions: TestEntryActions): TestEntry {
+	const next = entryKey(entry, input, key, actions);
+	if (next === entry || !next.notice) return next;
+	const {notice: _, ...rest} = next;
+	return rest;
+}
+
+/** One key, as testEntryKey describes it, the notice left as it is. */
+function entryKey(entry: TestEntry, input: string, key: Key, actions: TestEntryActions): TestEntry {
 	if (entry.recorded) {
 		if (key.return || key.escape) actions.leave(`Recorded: ${entry.recorded.path}`);
 		return entry;

@@ -39,6 +39,8 @@ export type TestEntry = {
 	part: 'result' | 'time' | 'note';
 	people: Record<PersonField, string>;
 	message?: string;
+	/** Said above the entries until the first change: entries restored from a draft, or why not. */
+	notice?: {text: string; error?: boolean};
 	/** Asking whether to discard the entries and leave. */
 	leaving?: boolean;
 	recorded?: RecordedTest;
@@ -56,6 +58,15 @@ export function startTestEntry(tested: PlanAsTested, tester: {name: string; role
 		part: 'result',
 		people: {name: tester.name, role: tester.role, witnessName: '', witnessRole: '', witnessKey: '', date: localDay(now)},
 	};
+}
+
+/**
+ * A new test given the entries of an earlier one of the same plan text, the focus on the first
+ * step without a result (or the tester's name, when every step has one).
+ */
+export function resumeTestEntry(entry: TestEntry, earlier: {steps: StepEntry[]; people: TestEntry['people']}): TestEntry {
+	const open = earlier.steps.findIndex((step) => step.result === undefined);
+	return {...entry, steps: earlier.steps, people: earlier.people, row: open < 0 ? earlier.steps.length : open, part: 'result'};
 }
 
 /** The row of the sign line. */

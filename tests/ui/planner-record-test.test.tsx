@@ -1,4 +1,4 @@
-import {copyFileSync, mkdtempSync, readdirSync, readFileSync, writeFileSync} from 'node:fs';
+import {copyFileSync, existsSync, mkdtempSync, readdirSync, readFileSync, writeFileSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {dirname, join} from 'node:path';
 import {cleanup} from 'ink-testing-library';
@@ -184,5 +184,83 @@ describe('recording an interlock test on screen', () => {
 		frame = await screen.press('d');
 		expect(frame).toContain('✓ Test discarded; nothing was recorded');
 		expect(readdirSync(screen.home)).not.toContain('records');
+	});
+});
+
+describe('the entries of a test in progress survive the program ending', () => {
+	const testDrafts = (home: string) => (existsSync(join(home, 'drafts')) ? readdirSync(join(home, 'drafts')).filter((name) => name.startsWith('test-')) : []);
+
+	/** Steps 1 to 3 marked on a copy of the demo, each with a time or a note; then the program ends. */
+	async function threeStepsThenEnd(): Promise<{file: string; home: string}> {
+		const screen = await testOfDemo();
+		await mark(screen, 'p', '9 ms', 'lid opened by hand');
+		await mark(screen, 'f', '31 ms', 'relay slow to drop');
+		const frame = await mark(screen, 'a', '', 'no chiller on this bench, accepted by the LSO');
+		expect(frame).toContain('Step 4 of 11');
+		expect(testDrafts(screen.home)).toHaveLength(1);
+		// the program ends mid-test (Ctrl-C, a closed terminal, a crash)
+		cleanup();
+		return {file: screen.file, home: screen.home};
+	}
+
+	it('pressing t on the same plan brings the entries back with a notice, and signing removes the draft', async () => {
+		const first = await threeStepsThenEnd();
+		const again = await renderApp({startPlan: first.file, home: first.home});
+		let frame = await again.press('t');
+		expect(frame).toMatch(/✓ Test entries from \d{4}-\d{2}-\d{2} \d{2}:\d{2} restored; carry on from the first step without a result/);
+		expect(frame).toMatch(/ 1 lid_switch +✓ pass +9 ms · lid opened by hand/);
+		expect(frame).toMatch(/ 2 fibre_sense +✗ FAIL +31 ms · relay slow to drop/);
+		expect(frame).toMatch(/ 3 \S+ +– n\/a +no chiller on this bench/);
+		expect(frame).toContain('Step 4 of 11');
+		for (const time of times.slice(3)) frame = await mark(again, 'p', time);
+		expect(frame).not.toContain('restored');
+		expect(frame).toContain('Steps: 9 pass · 1 fail · 1 n/a');
+		expect(testDrafts(first.home)).toHaveLength(1);
+		frame = await signAs(again, 'Orla Penhaligon', 'laser technician');
+		expect(frame).toContain(': FAILED');
+		expect(testDrafts(first.home)).toEqual([]);
+		const record = theRecord(again);
+		expect(record.body.steps.slice(0, 3)).toMatchObject([
+			{number: 1, result: 'pass', stoppedIn: {text: '9 ms'}, note: 'lid opened by hand'},
+			{number: 2, result: 'fail', stoppedIn: {text: '31 ms'}, note: 'relay slow to drop'},
+			{number: 3, result: 'not_applicable', note: 'no chiller on this bench, accepted by the LSO'},
+		]);
+	});
+
+	it('a plan changed on disk since is not resumed, and the earlier entries are kept aside and said so', async () => {
+		const first = await threeStepsThenEnd();
+		writeFileSync(first.file, `${readFileSync(first.file, 'utf8')}# rewired meanwhile\n`);
+		const again = await renderApp({startPlan: first.file, home: first.home});
+		const frame = (await again.press('t')).replaceAll(/\s+/g, ' ');
+		expect(frame).toContain('✗ Test entries from');
+		expect(frame).toContain('were not restored: the plan changed since, and a test is of the plan as wired; they are kept in');
+		expect(frame).toContain('Step 1 of 11: lid_switch');
+		expect(frame).not.toContain('✓ pass');
+		const kept = testDrafts(first.home);
+		expect(kept).toEqual([expect.stringMatching(/^test-[0-9a-f]{16}\.\d{8}T\d{9}Z\.json$/)]);
+		expect(frame).toContain(kept[0]);
+		const earlier = JSON.parse(readFileSync(join(first.home, 'drafts', kept[0]!), 'utf8')) as {steps: unknown[]};
+		expect(earlier.steps.slice(0, 4)).toEqual([
+			{result: 'pass', stoppedIn: '9 ms', note: 'lid opened by hand'},
+			{result: 'fail', stoppedIn: '31 ms', note: 'relay slow to drop'},
+			{result: 'not_applicable', stoppedIn: '', note: 'no chiller on this bench, accepted by the LSO'},
+			{stoppedIn: '', note: ''},
+		]);
+		// The new test keeps its own draft beside the one set aside.
+		await mark(again, 'p', '7 ms');
+		expect(testDrafts(first.home)).toHaveLength(2);
+	});
+
+	it('discarding the entries on leaving removes the draft', async () => {
+		const screen = await testOfDemo();
+		await mark(screen, 'p', '9 ms');
+		expect(testDrafts(screen.home)).toHaveLength(1);
+		await screen.press(keys.escape);
+		const frame = await screen.press('d');
+		expect(frame).toContain('✓ Test discarded; nothing was recorded');
+		expect(testDrafts(screen.home)).toEqual([]);
+		await screen.press('t');
+		expect(screen.frame()).not.toContain('restored');
+		expect(screen.frame()).not.toContain('✓ pass');
 	});
 });
