@@ -1,5 +1,6 @@
-import {closeSync, existsSync, fsyncSync, mkdirSync, openSync, readFileSync, renameSync, rmSync, writeSync} from 'node:fs';
+import {existsSync, mkdirSync, readFileSync, rmSync} from 'node:fs';
 import {dirname, join} from 'node:path';
+import {replaceFileAtomically} from '../atomic-file.js';
 // Named imports (not the z namespace) let the bundler leave out the parts of zod not used.
 import {enum as oneOf, number, object, record, string, type ZodType} from 'zod';
 
@@ -41,15 +42,7 @@ export function saveDraft(settingsFolder: string, draft: Draft): void {
 /** Writes a draft file (owner-only) all at once: a synced temporary file renamed over it. */
 export function writeDraftFile(path: string, text: string): void {
 	mkdirSync(dirname(path), {recursive: true, mode: 0o700});
-	const temporary = `${path}.${process.pid}.tmp`;
-	const handle = openSync(temporary, 'w', 0o600);
-	try {
-		writeSync(handle, text);
-		fsyncSync(handle);
-	} finally {
-		closeSync(handle);
-	}
-	renameSync(temporary, path);
+	replaceFileAtomically(path, text, 0o600);
 }
 
 /** A draft file checked against its shape: undefined when missing, not JSON or of another shape (never trusted). */

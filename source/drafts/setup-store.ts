@@ -1,5 +1,6 @@
-import {existsSync, mkdirSync, readdirSync, readFileSync, renameSync, writeFileSync} from 'node:fs';
+import {existsSync, mkdirSync, readdirSync, readFileSync} from 'node:fs';
 import {join} from 'node:path';
+import {replaceFileAtomically} from '../atomic-file.js';
 // Named imports (not the z namespace) let the bundler leave out the parts of zod not used.
 import {object, record, string} from 'zod';
 
@@ -21,8 +22,7 @@ export function saveSetup(settingsFolder: string, setup: SavedSetup): string {
 	const folder = folderOf(settingsFolder);
 	mkdirSync(folder, {recursive: true});
 	const path = join(folder, fileName(setup.name));
-	writeFileSync(`${path}.tmp`, `${JSON.stringify(setup, null, 2)}\n`);
-	renameSync(`${path}.tmp`, path);
+	replaceFileAtomically(path, `${JSON.stringify(setup, null, 2)}\n`, 0o644);
 	return path;
 }
 

@@ -1,5 +1,5 @@
-import {closeSync, fsyncSync, openSync, renameSync, statSync, unlinkSync, writeSync} from 'node:fs';
-import {basename, dirname, join} from 'node:path';
+import {statSync} from 'node:fs';
+import {replaceFileAtomically} from '../atomic-file.js';
 import {describeProblem} from '../problems.js';
 import {planEditingText, savedEditing, type PlanEditing} from './plan-edit.js';
 
@@ -15,23 +15,7 @@ export function writePlanFile(file: string, text: string): void {
 	} catch {
 		// A plan saved for the first time gets the usual mode.
 	}
-	const temporary = join(dirname(file), `.${basename(file)}.${process.pid}.${Date.now()}.tmp`);
-	const handle = openSync(temporary, 'wx', mode);
-	try {
-		writeSync(handle, text);
-		fsyncSync(handle);
-	} catch (error) {
-		closeSync(handle);
-		unlinkSync(temporary);
-		throw error;
-	}
-	closeSync(handle);
-	try {
-		renameSync(temporary, file);
-	} catch (error) {
-		unlinkSync(temporary);
-		throw error;
-	}
+	replaceFileAtomically(file, text, mode);
 }
 
 /** Saves a plan being edited and reopens it from the text written, so nothing is left unsaved; the message says why not. */

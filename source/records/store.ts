@@ -1,6 +1,6 @@
-import {closeSync, fsyncSync, linkSync, mkdirSync, openSync, unlinkSync, writeSync} from 'node:fs';
+import {linkSync, mkdirSync, unlinkSync} from 'node:fs';
 import {join} from 'node:path';
-import {randomBytes} from 'node:crypto';
+import {fsyncFolder, writeSyncedTemporary} from '../atomic-file.js';
 import type {AnyRecord} from './record-schema.js';
 import {bodySha256} from './build-body.js';
 
@@ -23,19 +23,6 @@ export function recordFileName(record: AnyRecord): string {
 	return `${stamp}-${what}-${bodySha256(record.body).slice(0, 8)}.json`;
 }
 
-function fsyncFolder(folder: string): void {
-	try {
-		const handle = openSync(folder, 'r');
-		try {
-			fsyncSync(handle);
-		} finally {
-			closeSync(handle);
-		}
-	} catch {
-		// Some file systems cannot fsync a folder; the record itself is already synced.
-	}
-}
-
 /**
  * Writes a record so that it is either wholly there or not at all, and never replaces
  * another: a temporary file in the same folder is written and synced, then linked to the
@@ -45,14 +32,7 @@ function fsyncFolder(folder: string): void {
 export function writeRecord(folder: string, record: AnyRecord): string {
 	mkdirSync(folder, {recursive: true});
 	const data = `${JSON.stringify(record, null, 2)}\n`;
-	const temporary = join(folder, `.${process.pid}-${randomBytes(6).toString('hex')}.tmp`);
-	const handle = openSync(temporary, 'wx', 0o644);
-	try {
-		writeSync(handle, data);
-		fsyncSync(handle);
-	} finally {
-		closeSync(handle);
-	}
+	const temporary = writeSyncedTemporary(join(folder, 'record'), data, 0o644);
 	try {
 		const base = recordFileName(record).replace(/\.json$/, '');
 		for (let attempt = 0; attempt < 100; attempt += 1) {

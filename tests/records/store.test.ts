@@ -37,8 +37,8 @@ if (mode === 'once') {
 }
 `;
 
-/** The name of a temporary file the store writes before linking: dot, pid, random hex, .tmp. */
-const temporaryName = /^\.\d+-[0-9a-f]{12}\.tmp$/;
+/** The name of a temporary file the store writes before linking: dot, "record", pid, random hex, .tmp. */
+const temporaryName = /^\.record\.\d+-[0-9a-f]{12}\.tmp$/;
 
 let scratch: string;
 let writer: string;
@@ -191,7 +191,7 @@ describe('several processes at once', () => {
 			const entry = startWriter('loop', folder, recordFile);
 			// Let one record finish, then kill the writer as soon as its next temporary file appears.
 			await entry.saying((line) => line.startsWith('wrote '));
-			const mine = `.${entry.child.pid}-`;
+			const mine = `.record.${entry.child.pid}-`;
 			const deadline = Date.now() + 10_000;
 			while (!readdirSync(folder).some((name) => name.startsWith(mine) && name.endsWith('.tmp'))) {
 				if (Date.now() > deadline) throw new Error('the writer never started a second record');
