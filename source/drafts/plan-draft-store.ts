@@ -1,4 +1,4 @@
-import {createHash} from 'node:crypto';
+import {sha256Hex} from '../sha256.js';
 import {rmSync} from 'node:fs';
 import {join} from 'node:path';
 // Named imports (not the z namespace) let the bundler leave out the parts of zod not used.
@@ -18,16 +18,15 @@ export type PlanDraft = {
 
 const planDraftSchema = object({file: string(), baseSha256: string().regex(/^[0-9a-f]{64}$/), text: string(), savedAt: string()}).strict();
 
-const sha256 = (text: string) => createHash('sha256').update(text).digest('hex');
 
 /** Where the draft of a plan file lives: one per plan, beside the bench-check draft. */
 export function planDraftPath(settingsFolder: string, file: string): string {
-	return join(settingsFolder, 'drafts', `plan-${sha256(file).slice(0, 16)}.json`);
+	return join(settingsFolder, 'drafts', `plan-${sha256Hex(file).slice(0, 16)}.json`);
 }
 
 /** Saves the unsaved edits of a plan, atomically. */
 export function savePlanDraft(settingsFolder: string, file: string, baseText: string, text: string, now = new Date()): void {
-	const draft: PlanDraft = {file, baseSha256: sha256(baseText), text, savedAt: now.toISOString()};
+	const draft: PlanDraft = {file, baseSha256: sha256Hex(baseText), text, savedAt: now.toISOString()};
 	writeDraftFile(planDraftPath(settingsFolder, file), JSON.stringify(draft));
 }
 
@@ -39,7 +38,7 @@ export function loadPlanDraft(settingsFolder: string, file: string, fileText: st
 	const path = planDraftPath(settingsFolder, file);
 	const draft = readDraftFile(path, planDraftSchema);
 	if (draft?.file !== file) return undefined;
-	return {state: draft.baseSha256 === sha256(fileText) ? 'current' : 'stale', draft, path};
+	return {state: draft.baseSha256 === sha256Hex(fileText) ? 'current' : 'stale', draft, path};
 }
 
 /** Removes the draft of a plan once its edits are saved or discarded. */

@@ -1,4 +1,4 @@
-import {createHash} from 'node:crypto';
+import {sha256Hex} from '../sha256.js';
 import {renameSync, rmSync} from 'node:fs';
 import {join} from 'node:path';
 // Named imports (not the z namespace) let the bundler leave out the parts of zod not used.
@@ -30,16 +30,15 @@ const testDraftSchema = object({
 	savedAt: string().datetime(),
 }).strict();
 
-const sha256 = (text: string) => createHash('sha256').update(text).digest('hex');
 
 /** Where the test draft of a plan file lives: one per plan, beside the planner's draft. */
 export function testDraftPath(settingsFolder: string, file: string): string {
-	return join(settingsFolder, 'drafts', `test-${sha256(file).slice(0, 16)}.json`);
+	return join(settingsFolder, 'drafts', `test-${sha256Hex(file).slice(0, 16)}.json`);
 }
 
 /** Saves the entries of a test of a plan's text, atomically and owner-only. */
 export function saveTestDraft(settingsFolder: string, file: string, planText: string, entries: {steps: TestDraftStep[]; people: TestDraftPeople}, now = new Date()): void {
-	const draft: TestDraft = {file, planSha256: sha256(planText), steps: entries.steps, people: entries.people, savedAt: now.toISOString()};
+	const draft: TestDraft = {file, planSha256: sha256Hex(planText), steps: entries.steps, people: entries.people, savedAt: now.toISOString()};
 	writeDraftFile(testDraftPath(settingsFolder, file), JSON.stringify(draft));
 }
 
@@ -52,7 +51,7 @@ export function loadTestDraft(settingsFolder: string, file: string, planText: st
 	const path = testDraftPath(settingsFolder, file);
 	const draft = readDraftFile(path, testDraftSchema) as TestDraft | undefined;
 	if (draft?.file !== file) return undefined;
-	return {state: draft.planSha256 === sha256(planText) ? 'current' : 'stale', draft, path};
+	return {state: draft.planSha256 === sha256Hex(planText) ? 'current' : 'stale', draft, path};
 }
 
 /**

@@ -1,3 +1,4 @@
+import {sha256Hex} from '../sha256.js';
 import {readdirSync} from 'node:fs';
 import {isAbsolute, join, resolve} from 'node:path';
 import {displayPath} from '../display-path.js';
@@ -11,7 +12,6 @@ import type {InterlockTestBody} from '../records/record-schema.js';
 import {durationText} from './duration-text.js';
 import {localDay} from './load-results.js';
 import {interlockPolicy} from './policy.js';
-import {planSha256} from './test-record.js';
 
 import {interlockPlanInput} from './plan-input.js';
 
@@ -92,7 +92,7 @@ export function interlockLink(planPath: string, rules: CompiledRules, context: L
 	const shown = displayPath(file);
 	const text = readTextFile(file, 'a prelase interlock plan (YAML)');
 	if (!text.ok) return {status: 'unreadable', plan: {file: shown, sha256: null}, record: null, text: `the interlock plan ${shown} cannot be read, so no test record can be matched to it`};
-	const sha256 = planSha256(text.value);
+	const sha256 = sha256Hex(text.value);
 	const policy = interlockPolicy(rules);
 	const intervalDays = policy.ok ? Math.floor(policy.value.test_interval / 86_400) : 0;
 	const {found, untrusted} = findTestRecords(context.folder, context.trusted);

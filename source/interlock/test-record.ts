@@ -1,4 +1,4 @@
-import {createHash} from 'node:crypto';
+import {sha256Hex} from '../sha256.js';
 import {deferral} from '../deferral.js';
 import {displayPath} from '../display-path.js';
 import {formatQuantity} from '../quantities/format.js';
@@ -16,11 +16,6 @@ import type {TestSheet} from './test-sheet.js';
 /** Shown on every interlock test record and wherever one is used. */
 export const interlockTestCaution =
 	'A functional test shows that the loop worked as built on the day it was tested. Test again after any change to the loop, its wiring or the driver, and within the policy\'s test interval.';
-
-/** SHA-256 (hex) of a plan file's text: what ties a test record to the plan it tested. */
-export function planSha256(text: string): string {
-	return createHash('sha256').update(text).digest('hex');
-}
 
 /** The outcome of a test: passed only when every step passed (or was accepted as not applicable) and the plan had no stop finding. */
 export function testOutcome(stops: number, results: ReadonlyArray<{result: string}>): 'passed' | 'failed' {
@@ -82,7 +77,7 @@ export function buildTestBody(input: {plan: Plan; planFile: string; planText: st
 		testedOn: results.tested_on,
 		tester: {name: results.tested_by.name, role: results.tested_by.role},
 		...(results.witness ? {witness: {name: results.witness.name, role: results.witness.role}} : {}),
-		plan: {name: plan.name, file: displayPath(input.planFile), sha256: planSha256(input.planText), text: input.planText},
+		plan: {name: plan.name, file: displayPath(input.planFile), sha256: sha256Hex(input.planText), text: input.planText},
 		policy: recordedPolicy(plan.policy, input.rules),
 		planFindings: {stops: analysis.stops, advises: analysis.advises, codes: analysis.findings.map((entry) => entry.code)},
 		outcome: testOutcome(analysis.stops, steps),

@@ -1,4 +1,5 @@
-import {createHash, type KeyObject} from 'node:crypto';
+import {sha256Hex} from '../sha256.js';
+import type {KeyObject} from 'node:crypto';
 import {readFileSync} from 'node:fs';
 import canonicalize from 'canonicalize';
 import {finding, type Finding} from './audit-findings.js';
@@ -89,7 +90,7 @@ export function checkIntegrity(text: string, keys: KeyCache): IntegrityCheck {
 		const signer = record.signatures[bad.index]!.signer.name;
 		return {ok: false, record, signatures, finding: finding('integrity', bad.code!, {index: bad.index + 1, signer, ...(bad.what ? {what: bad.what} : {})})};
 	}
-	return {ok: true, record, signatures, bodySha256: createHash('sha256').update(body).digest('hex')};
+	return {ok: true, record, signatures, bodySha256: sha256Hex(body)};
 }
 
 /**

@@ -1,6 +1,7 @@
+import {sha256Hex} from '../sha256.js';
 import {analysePlan} from '../interlock/analyse.js';
 import {loadPlanFromText} from '../interlock/load-plan.js';
-import {planSha256, policyFromRecord, testOutcome} from '../interlock/test-record.js';
+import {policyFromRecord, testOutcome} from '../interlock/test-record.js';
 import {testSheet} from '../interlock/test-sheet.js';
 import {formatProblem} from '../problems.js';
 import {finding, type Finding} from './audit-findings.js';
@@ -44,7 +45,7 @@ const stopsText = (stops: number) => `${stops} stop finding${stops === 1 ? '' : 
  */
 export function interlockTestConsistency(body: InterlockTestBody): {reevaluated: boolean; findings: Finding[]} {
 	const findings: Finding[] = [];
-	const actual = planSha256(body.plan.text);
+	const actual = sha256Hex(body.plan.text);
 	if (actual !== body.plan.sha256) findings.push(finding('consistency', 'audit-plan-hash-mismatch', {stated: body.plan.sha256, actual}));
 	const loaded = loadPlanFromText(body.plan.text, body.plan.file);
 	if (!loaded.ok) {

@@ -1,4 +1,4 @@
-import {createHash} from 'node:crypto';
+import {sha256Hex} from '../sha256.js';
 import {formatProblem, type Problem} from '../problems.js';
 import type {Result} from '../result.js';
 import type {CompiledRules} from '../rules/compiled-rules.js';
@@ -83,7 +83,7 @@ class RuleCache {
 	get(text: string, stated: string, file: string): {sha256: string; loaded: Result<CompiledRules, Problem>} {
 		const known = this.#byStated.get(stated);
 		// Equal text to one already hashed needs no hashing again.
-		const sha256 = known && known.text === text ? known.sha256 : createHash('sha256').update(text).digest('hex');
+		const sha256 = known && known.text === text ? known.sha256 : sha256Hex(text);
 		if (!known) this.#byStated.set(stated, {text, sha256});
 		let loaded = this.#bySha.get(sha256);
 		if (!loaded) {

@@ -1,4 +1,4 @@
-import {createHash} from 'node:crypto';
+import {sha256Hex} from '../sha256.js';
 import type {Answers} from '../rules/answers.js';
 import type {CompiledRules} from '../rules/compiled-rules.js';
 import type {Evaluation} from '../rules/evaluation.js';
@@ -24,12 +24,12 @@ export function setupFingerprint(rules: CompiledRules, answers: Answers): {finge
 		const answer = answers.inputs.get(id);
 		values[id] = !answer ? null : answer.kind === 'quantity' ? answer.si : answer.kind === 'choice' ? answer.option : answer.value;
 	}
-	return {fingerprint: `sha256:${createHash('sha256').update(canonicalBytes(values)).digest('hex')}`, identifying};
+	return {fingerprint: `sha256:${sha256Hex(canonicalBytes(values))}`, identifying};
 }
 
 /** SHA-256 (hex) of the canonical form of a record body: how amendments and audits name a body. */
 export function bodySha256(body: AnyBody): string {
-	return createHash('sha256').update(canonicalBytes(body)).digest('hex');
+	return sha256Hex(canonicalBytes(body));
 }
 
 /** Builds the body of a bench-check record, validated as plain data before anyone signs it. */

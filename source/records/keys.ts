@@ -1,4 +1,5 @@
-import {createHash, createPrivateKey, createPublicKey, generateKeyPairSync, type KeyObject} from 'node:crypto';
+import {sha256Hex} from '../sha256.js';
+import {createPrivateKey, createPublicKey, generateKeyPairSync, type KeyObject} from 'node:crypto';
 
 const spkiPrefix = Buffer.from('302a300506032b6570032100', 'hex');
 const pkcs8Prefix = Buffer.from('302e020100300506032b657004220420', 'hex');
@@ -28,7 +29,7 @@ export function generateKeyPair(): {privateKey: KeyObject; publicKey: KeyObject}
 
 /** The fingerprint people compare: SHA-256 of the raw public key, as `sha256:` and 64 hex digits. */
 export function fingerprint(raw: Buffer): string {
-	return `sha256:${createHash('sha256').update(raw).digest('hex')}`;
+	return `sha256:${sha256Hex(raw)}`;
 }
 
 /** A fingerprint short enough to read aloud: the first 16 hex digits in groups of four. */

@@ -1,4 +1,4 @@
-import {createHash} from 'node:crypto';
+import {sha256Hex} from '../sha256.js';
 import {formulaFunctions} from '../calculations/formula-functions.js';
 import {describeProblem, problem, warning, type Problem} from '../problems.js';
 import {mathFunctions} from '../quantities/engine.js';
@@ -28,7 +28,7 @@ export const formulaFunctionNames: ReadonlySet<string> = new Set([...mathFunctio
 export function compileRules(
 	rules: RuleFile,
 	source: YamlSource & {origin?(path: Path): Place},
-	sha256 = createHash('sha256').update(source.text).digest('hex'),
+	sha256 = sha256Hex(source.text),
 	provenance: Provenance = wholeFileProvenance(rules, source),
 ): Result<CompiledRules, Problem> {
 	const {names, problems} = collectNames(rules, source);

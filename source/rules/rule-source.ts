@@ -1,4 +1,4 @@
-import {createHash} from 'node:crypto';
+import {sha256Hex} from '../sha256.js';
 import {existsSync} from 'node:fs';
 import {dirname, join, resolve} from 'node:path';
 import {fileURLToPath} from 'node:url';
@@ -23,7 +23,7 @@ export function shippedRulesPath(): string {
 
 /** Rule text parsed as YAML with positions, and its SHA-256. The shipped policy is not parsed again. */
 export function parseRuleText(text: string, file: string): Result<{source: YamlSource; sha256: string}, Problem> {
-	const sha256 = createHash('sha256').update(text).digest('hex');
+	const sha256 = sha256Hex(text);
 	const shipped = shippedRulesData(sha256);
 	if (shipped !== undefined) return success({source: preparsedYamlSource(text, file, shipped), sha256});
 	const parsed = parseYamlSource(text, file, ruleFileExpected);

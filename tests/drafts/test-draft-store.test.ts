@@ -3,7 +3,7 @@ import {tmpdir} from 'node:os';
 import {dirname, join} from 'node:path';
 import {describe, expect, it} from 'vitest';
 import {loadTestDraft, removeTestDraft, saveTestDraft, setTestDraftAside, testDraftPath, type TestDraftPeople, type TestDraftStep} from '../../source/drafts/test-draft-store.js';
-import {planSha256} from '../../source/interlock/test-record.js';
+import {sha256Hex} from '../../source/sha256.js';
 
 const plan = '/lab/bench3/plan.yaml';
 const planText = 'format: 1\nname: Fenwick Hollow bench 3\n';
@@ -24,8 +24,8 @@ describe('the test draft of a plan file', () => {
 		expect(path).toMatch(/[/\\]drafts[/\\]test-[0-9a-f]{16}\.json$/);
 		if (process.platform !== 'win32') expect(statSync(path).mode & 0o777).toBe(0o600);
 		// The same hash as the record of the test would carry.
-		expect(JSON.parse(readFileSync(path, 'utf8'))).toMatchObject({planSha256: planSha256(planText)});
-		expect(loadTestDraft(folder, plan, planText)).toEqual({state: 'current', path, draft: {file: plan, planSha256: planSha256(planText), steps, people, savedAt: '2026-12-01T10:00:00.000Z'}});
+		expect(JSON.parse(readFileSync(path, 'utf8'))).toMatchObject({planSha256: sha256Hex(planText)});
+		expect(loadTestDraft(folder, plan, planText)).toEqual({state: 'current', path, draft: {file: plan, planSha256: sha256Hex(planText), steps, people, savedAt: '2026-12-01T10:00:00.000Z'}});
 	});
 
 	it('is stale once the plan text changed, and can be set aside out of a new test\'s way', () => {
@@ -51,7 +51,7 @@ describe('the test draft of a plan file', () => {
 		expect(loadTestDraft(folder, other, planText)?.draft.steps).toEqual(steps.slice(0, 1));
 	});
 
-	const valid = {file: plan, planSha256: planSha256(planText), steps, people, savedAt: '2026-12-01T10:00:00.000Z'};
+	const valid = {file: plan, planSha256: sha256Hex(planText), steps, people, savedAt: '2026-12-01T10:00:00.000Z'};
 	it.each([
 		{name: 'not JSON', content: '{"file": '},
 		{name: 'missing the people', content: JSON.stringify({...valid, people: undefined})},

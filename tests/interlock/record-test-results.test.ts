@@ -4,7 +4,7 @@ import {join} from 'node:path';
 import {describe, expect, it} from 'vitest';
 import {recordTestResults} from '../../source/commands/plan-record.js';
 import type {TestResults} from '../../source/interlock/results-schema.js';
-import {planSha256} from '../../source/interlock/test-record.js';
+import {sha256Hex} from '../../source/sha256.js';
 import {readRecord} from '../../source/records/read-record.js';
 import type {InterlockTestRecord} from '../../source/records/record-schema.js';
 import {UsageError} from '../../source/usage-error.js';
@@ -41,7 +41,7 @@ describe('recordTestResults (results held in memory)', () => {
 		expect(recorded.outcome).toBe('passed');
 		expect(recorded.path.startsWith(join(home, 'records'))).toBe(true);
 		expect(body.kind).toBe('interlock-test');
-		expect(body.plan.sha256).toBe(planSha256(text));
+		expect(body.plan.sha256).toBe(sha256Hex(text));
 		expect(body.steps.map((step) => step.subject)).toEqual(subjects);
 		expect(body.steps[0]?.stoppedIn?.text).toBe('5 ms');
 		expect(body.tester).toEqual({name: 'Orla Penhaligon', role: 'laser technician'});

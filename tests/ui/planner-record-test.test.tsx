@@ -4,7 +4,8 @@ import {dirname, join} from 'node:path';
 import {cleanup} from 'ink-testing-library';
 import {afterEach, describe, expect, it} from 'vitest';
 import {deferral} from '../../source/deferral.js';
-import {interlockTestCaution, planSha256} from '../../source/interlock/test-record.js';
+import {interlockTestCaution} from '../../source/interlock/test-record.js';
+import {sha256Hex} from '../../source/sha256.js';
 import {generateKeyPair} from '../../source/records/keys.js';
 import {readRecord} from '../../source/records/read-record.js';
 import type {InterlockTestRecord} from '../../source/records/record-schema.js';
@@ -84,7 +85,7 @@ describe('recording an interlock test on screen', () => {
 		expect(record.body.steps.map((step) => step.stoppedIn?.text ?? '')).toEqual(times);
 		expect(record.body.steps[10]?.note).toBe('key returned to the lock box');
 		expect(record.body.tester).toEqual({name: 'Orla Penhaligon', role: 'laser technician'});
-		expect(record.body.plan.sha256).toBe(planSha256(readFileSync(screen.file, 'utf8')));
+		expect(record.body.plan.sha256).toBe(sha256Hex(readFileSync(screen.file, 'utf8')));
 		expect(record.signatures.map((entry) => [entry.signer.name, entry.meaning])).toEqual([['Orla Penhaligon', 'performed']]);
 		// The bench check beside the plan now answers its loop-test confirmations from this record.
 		const answers = join(dirname(screen.file), 'bench3.yaml');
