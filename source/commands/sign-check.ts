@@ -1,5 +1,5 @@
 import {basename} from 'node:path';
-import {bodySha256, buildRecordBody} from '../records/build-body.js';
+import {buildRecordBody} from '../records/build-body.js';
 import {keyFromFile, operatorKey} from '../records/key-store.js';
 import {fingerprint, rawPublicKey, shortFingerprint} from '../records/keys.js';
 import {readRecord} from '../records/read-record.js';
@@ -43,7 +43,7 @@ export function signAndWrite(rules: CompiledRules, answers: Answers, evaluation:
 		const original = readRecord(options.amends);
 		if (!original.ok) throw new UsageError(`the record to amend, ${options.amends}, fails its integrity check: ${original.reason}`);
 		if (original.record.body.kind !== 'bench-check') throw new UsageError(`${options.amends} is an interlock test record; a bench check can amend only a bench-check record`);
-		amends = {record: basename(options.amends), bodySha256: bodySha256(original.record.body), reason: stripControl(options.reason).trim()};
+		amends = {record: basename(options.amends), bodySha256: original.bodySha256, reason: stripControl(options.reason).trim()};
 	} else if (options.reason !== undefined) {
 		throw new UsageError('--reason goes with --amends RECORD');
 	}

@@ -5,7 +5,6 @@ import {displayPath} from '../display-path.js';
 import type {Answers, ConfirmationAnswer} from '../rules/answers.js';
 import type {CompiledRules} from '../rules/compiled-rules.js';
 import {readTextFile} from '../yaml-source.js';
-import {bodySha256} from '../records/build-body.js';
 import {KeyCache} from '../records/audit-integrity.js';
 import {readRecord} from '../records/read-record.js';
 import type {InterlockTestBody} from '../records/record-schema.js';
@@ -76,7 +75,7 @@ export function findTestRecords(folder: string, trusted: ReadonlySet<string>): {
 			untrusted += 1;
 			continue;
 		}
-		found.push({file, bodySha256: bodySha256(read.record.body), body: read.record.body});
+		found.push({file, bodySha256: read.bodySha256, body: read.record.body});
 	}
 	return {found, untrusted, damaged};
 }

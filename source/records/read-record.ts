@@ -5,7 +5,7 @@ import type {AnyRecord} from './record-schema.js';
 
 /** What integrity checking found: the record, or why it cannot be trusted at all. */
 export type IntegrityResult =
-	| {ok: true; record: AnyRecord; signatures: Array<{index: number; valid: true}>}
+	| {ok: true; record: AnyRecord; signatures: Array<{index: number; valid: true}>; /** SHA-256 of the canonical body: how amendments and links name it. */ bodySha256: string}
 	| {ok: false; reason: string; record?: AnyRecord; signatures?: Array<{index: number; valid: boolean; reason?: string}>};
 
 /**
@@ -25,7 +25,7 @@ export function readRecord(path: string, keys?: KeyCache): IntegrityResult {
 /** The same checks for text already in hand: the audit's integrity check, with its findings in words. */
 export function checkRecordText(text: string, keys = new KeyCache()): IntegrityResult {
 	const checked = checkIntegrity(text, keys);
-	if (checked.ok) return {ok: true, record: checked.record, signatures: checked.signatures.map(({index}) => ({index, valid: true as const}))};
+	if (checked.ok) return {ok: true, record: checked.record, signatures: checked.signatures.map(({index}) => ({index, valid: true as const})), bodySha256: checked.bodySha256};
 	const record = checked.record;
 	const signatures = record && checked.signatures?.map((entry) => ({index: entry.index, valid: entry.valid, ...(entry.valid ? {} : {reason: signatureReason(entry, record)})}));
 	return {ok: false, reason: describeFinding(checked.finding), ...(record ? {record} : {}), ...(signatures ? {signatures} : {})};
