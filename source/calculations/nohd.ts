@@ -8,9 +8,9 @@ export const nohd: Calculation = {
 	name: 'nohd',
 	summary: 'Nominal ocular hazard distance: how far from the exit the beam stays above the MPE',
 	inputs: {
-		power: {dimension: 'power', description: 'Largest output power'},
+		power: {dimension: 'power', description: 'Largest output power: at least what the setup can emit at its current limit when coldest'},
 		diameter: {dimension: 'length', description: 'Beam diameter at the exit (1/e points; 0 for a bare diode)'},
-		divergence: {dimension: 'angle', description: 'Full-angle divergence (1/e points; for an elliptical beam the smaller angle is the cautious one)', allowed: 'positive'},
+		divergence: {dimension: 'angle', description: 'Full-angle divergence at the 1/e points: a datasheet FWHM figure × 1.2011, a 1/e² figure ÷ √2 (Gaussian beam); for an elliptical beam the smaller angle is the cautious one', allowed: 'positive'},
 		wavelength: {dimension: 'length', description: 'Wavelength', allowed: 'positive'},
 		duration: {dimension: 'time', description: 'Exposure duration for the MPE', allowed: 'positive'},
 		edition: editionInput,

@@ -8,8 +8,8 @@ export const od: Calculation = {
 	name: 'od',
 	summary: 'Optical density eyewear needs: log10 of the worst-case exposure over the limiting aperture divided by the MPE',
 	inputs: {
-		power: {dimension: 'power', description: 'Largest power that can reach the eye (peak power over the duration for a single pulse)'},
-		diameter: {dimension: 'length', description: 'Beam diameter where it can reach the eye (0 for the worst case, a beam focused into the aperture)'},
+		power: {dimension: 'power', description: 'Largest power that can reach the eye: at least what the setup can emit at its current limit when coldest (peak power over the duration for a single pulse)'},
+		diameter: {dimension: 'length', description: 'Narrowest beam diameter where it can reach the eye, at the 1/e points (0, the worst case, when a lens could focus it into the aperture; not the exit diameter of a wide beam)'},
 		wavelength: {dimension: 'length', description: 'Wavelength', allowed: 'positive'},
 		duration: {dimension: 'time', description: 'Exposure duration (pulse duration for a single pulse)', allowed: 'positive'},
 		edition: editionInput,

@@ -4,7 +4,8 @@ import type {Paint} from '../paint.js';
 import type {Answers, InputAnswer} from '../rules/answers.js';
 import type {Input} from '../rules/schema.js';
 import type {CompiledRules} from '../rules/compiled-rules.js';
-import {outcomeWords, type CheckResult, type ConfirmationResult, type Evaluation, type Verdict} from '../rules/evaluation.js';
+import {outcomeWords, type CheckResult, type ConfirmationResult, type DerivedResult, type Evaluation, type Verdict} from '../rules/evaluation.js';
+import {shownDerived} from '../rules/shown-derived.js';
 import {formatQuantity} from '../quantities/format.js';
 import {stripControl} from '../text.js';
 import {confirmationWords, countVerdicts, verdictWords} from '../rules/verdict-words.js';
@@ -42,6 +43,13 @@ function checkLines(check: CheckResult, paint: Paint, width: number, withMessage
 	if (check.needs?.length) lines.push(...wrap(`needs ${check.needs.join(', ')}`, width, '                '));
 	if (check.error) lines.push(...wrap(check.error, width, '                '));
 	if (withMessage && check.message) lines.push(...wrap(stripControl(check.message), width, '                '));
+	return lines;
+}
+
+function derivedLines(entry: DerivedResult, text: string, width: number): string[] {
+	const lines = wrap(stripControl(entry.label), width, '                ');
+	lines[0] = `   ${'derived'.padEnd(12)} ${lines[0]!.trimStart()}`;
+	lines.push(...wrap(`= ${text}`, width, '                '));
 	return lines;
 }
 
@@ -84,6 +92,7 @@ export function checkText(rules: CompiledRules, answers: Answers, evaluation: Ev
 			const shown = answer ? answerText(input, answer) : asked ? paint.open('? not given') : paint.dim('- not asked');
 			out.push(`   ${input.id.padEnd(30)} ${shown}`);
 		}
+		for (const {entry, text} of shownDerived(evaluation, step.id)) out.push(...derivedLines(entry, text, width));
 		for (const check of evaluation.checks.filter((entry) => entry.step === step.id)) out.push(...checkLines(check, paint, width, false));
 		for (const entry of evaluation.confirmations.filter((item) => item.step === step.id)) out.push(...confirmationLines(entry, paint, width));
 	});

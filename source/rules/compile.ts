@@ -107,7 +107,9 @@ export function compileRules(
 	}
 
 	const derivedList: CompiledDerived[] = [];
+	const stepIds = rules.steps.map((step) => step.id);
 	rules.derived.forEach((derived, index) => {
+		if (derived.step !== undefined && !stepIds.includes(derived.step)) problems.push(problem('missing-step', {step: derived.step, allowed: stepIds.join(', ')}, where(['derived', index, 'step'])));
 		const compiled = formula(derived.formula, ['derived', index, 'formula']);
 		if (compiled) derivedList.push({derived, formula: compiled});
 	});
@@ -116,7 +118,6 @@ export function compileRules(
 		problems.push(problem('derived-cycle', {path: cycle.join(' → ')}, where(['derived', index, 'formula'])));
 	});
 
-	const stepIds = rules.steps.map((step) => step.id);
 	const checks: CompiledCheck[] = [];
 	const switchedOff: CompiledCheck[] = [];
 	rules.checks.forEach((check, index) => {

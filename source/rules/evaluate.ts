@@ -70,14 +70,14 @@ export function evaluate(rules: CompiledRules, answers: Answers): Evaluation {
 		const result = compute(formula);
 		if (result.ok && isFiniteResult(result.value)) {
 			scope.set(entry.id, result.value);
-			derived.push({id: entry.id, label: entry.label, status: 'value', value: toShown(result.value, entry.dimension)});
+			derived.push({...shownWith(entry), status: 'value', value: toShown(result.value, entry.dimension)});
 		} else if (!result.ok && result.needs) {
 			missing.set(entry.id, result.needs);
-			derived.push({id: entry.id, label: entry.label, status: 'open', needs: result.needs});
+			derived.push({...shownWith(entry), status: 'open', needs: result.needs});
 		} else {
 			const error = result.ok ? 'the result is not a finite number' : result.error;
 			missing.set(entry.id, []);
-			derived.push({id: entry.id, label: entry.label, status: 'error', error});
+			derived.push({...shownWith(entry), status: 'error', error});
 		}
 	}
 	const failedDerived = new Map(derived.filter((entry) => entry.status === 'error').map((entry) => [entry.id, entry.status === 'error' ? entry.error : '']));
@@ -109,6 +109,11 @@ export function decideOutcome(checks: readonly CheckResult[], confirmations: rea
 	if (stops.some((check) => check.verdict === 'fail') || confirmations.some((entry) => entry.status === 'no')) return 'do_not_energize';
 	if (missingInputs.length > 0 || stops.some((check) => check.verdict === 'open') || confirmations.some((entry) => entry.status === 'unanswered' || entry.status === 'open')) return 'incomplete';
 	return 'clear_to_energize';
+}
+
+/** A derived value's id and label, and the step it is shown with when it names one. */
+function shownWith(entry: {id: string; label: string; step?: string | undefined}): {id: string; label: string; step?: string} {
+	return entry.step === undefined ? {id: entry.id, label: entry.label} : {id: entry.id, label: entry.label, step: entry.step};
 }
 
 function isFiniteResult(value: unknown): boolean {

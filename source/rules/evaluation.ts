@@ -45,7 +45,7 @@ export const outcomeWords: Record<Outcome, string> = {
 };
 
 /** A derived value's result. */
-export type DerivedResult = {id: string; label: string} & ({status: 'value'; value: Shown} | {status: 'open'; needs: string[]} | {status: 'error'; error: string});
+export type DerivedResult = {id: string; label: string; /** The step it is shown with, if any. */ step?: string} & ({status: 'value'; value: Shown} | {status: 'open'; needs: string[]} | {status: 'error'; error: string});
 
 /** Everything the evaluation found, in the order of the rule file. */
 export type Evaluation = {

@@ -85,7 +85,13 @@ export const stepSchema = object({
 	.strict();
 
 /** A value computed from inputs, policy values and other derived values. */
-export const derivedSchema = object({id: identifier, label: words, dimension: oneOf(dimensionNames), formula})
+export const derivedSchema = object({
+		id: identifier,
+		label: words,
+		dimension: oneOf(dimensionNames),
+		step: identifier.optional().describe('Show this value with the inputs of this step (a converted or worst-case figure the operator should see)'),
+		formula,
+	})
 	.strict();
 
 /** Which options of one choice go with each option of another. */

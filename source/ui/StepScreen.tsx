@@ -1,6 +1,7 @@
 import {Box, Text, type Key} from 'ink';
 import {useKeystrokes} from './use-keystrokes.js';
 import {useReducer, useRef} from 'react';
+import {shownDerived} from '../rules/shown-derived.js';
 import {stripControl} from '../text.js';
 import {ChecksPanel} from './ChecksPanel.js';
 import {FieldList} from './FieldList.js';
@@ -173,6 +174,7 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 	const checks = session.evaluation.checks.filter((check) => check.step === step.id);
 	// On a short terminal the checks panel gives way so that more fields stay in view.
 	const panelRows = Math.min(rows < 30 ? 6 : 8, Math.max(2, checks.length * 2));
+	const derived = shownDerived(session.evaluation, step.id);
 	return (
 		<Box flexDirection="column">
 			<Text bold>
@@ -193,12 +195,12 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 					choice={state.choice}
 					{...(state.message ? {message: state.message} : {})}
 					noteMode={state.noteMode}
-					rows={Math.max(5, rows - panelRows - (step.summary ? 7 : 5))}
+					rows={Math.max(5, rows - panelRows - derived.length - (step.summary ? 7 : 5))}
 					width={width}
 				/>
 			</Box>
 			<Box marginTop={1} flexDirection="column">
-				<ChecksPanel checks={checks} rows={panelRows} />
+				<ChecksPanel checks={checks} rows={panelRows} derived={derived} />
 			</Box>
 		</Box>
 	);

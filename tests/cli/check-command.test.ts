@@ -92,7 +92,7 @@ describe('prelase check: the demos', () => {
 		expect(code).toBe(0);
 		expect(stdout).toContain('Outcome: CLEAR TO ENERGIZE');
 		expect(stdout).toContain('CAUTION');
-		expect(stdout).toContain('Summary: 0 fail · 2 advise · 0 open · 18 pass · 5 skip');
+		expect(stdout).toContain('Summary: 0 fail · 2 advise · 0 open · 19 pass · 5 skip');
 		expect(stdout).not.toMatch(/\u001B\[/);
 	});
 
@@ -122,7 +122,7 @@ describe('prelase check --json', () => {
 		expect(json['setup']).toBe('Fenwick Hollow bench 3 — FH-808-2 on LD-5L, constant current');
 		expect(json['outcome']).toBe('clear_to_energize');
 		expect(json['outcomeText']).toBe('clear to energize');
-		expect(json['counts']).toEqual({pass: 18, fail: 0, advise: 2, open: 0, skip: 5});
+		expect(json['counts']).toEqual({pass: 19, fail: 0, advise: 2, open: 0, skip: 5});
 		expect(json['caution']).toBe(rules.rules.caution);
 		expect(json['deferral']).toMatch(/laser safety officer/);
 	});
@@ -198,7 +198,7 @@ describe('prelase check --json', () => {
 		expect(check['margin'].si).toBeCloseTo(9 - 27.4, 9);
 		expect(check['margin'].fraction).toBeCloseTo((9 - 27.4) / 9, 9);
 		expect(check['margin'].text).toBe('-18.4 W');
-		expect(json['counts']).toEqual({pass: 16, fail: 1, advise: 1, open: 0, skip: 7});
+		expect(json['counts']).toEqual({pass: 17, fail: 1, advise: 1, open: 0, skip: 7});
 	});
 
 	it('gives each confirmation its status, and open checks what they need', () => {
@@ -210,7 +210,7 @@ describe('prelase check --json', () => {
 		expect(confirmations.find((entry) => entry['id'] === 'use_authorised')).toMatchObject({status: 'yes'});
 
 		const incomplete = runJson(incompleteDemo).json;
-		expect(incomplete['counts']).toEqual({pass: 14, fail: 0, advise: 1, open: 4, skip: 6});
+		expect(incomplete['counts']).toEqual({pass: 15, fail: 0, advise: 1, open: 4, skip: 6});
 		expect(incomplete['missingInputs']).toEqual(['photodiode_responsivity', 'brownout_trip', 'beam1_eyewear_od']);
 		const open = (incomplete['checks'] as Array<Record<string, any>>).find((entry) => entry['id'] === 'brownout_before_control_lost')!;
 		expect(open).toMatchObject({verdict: 'open', needs: ['brownout_trip']});

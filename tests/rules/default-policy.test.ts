@@ -30,9 +30,9 @@ const constantPower = withChanges(
 	{responsivity_measured: 'yes'},
 );
 // The demo with only the output beam, and with a third beam (a 1064 nm pump leak: 0.5 W, no
-// exit diameter, 10 mrad, eyewear OD 4).
-const singleBeam = withChanges(clear, {second_beam: 'no', beam2_wavelength: null, beam2_power: null, beam2_diameter: null, beam2_divergence: null, beam2_eyewear_od: null, third_beam: null});
-const threeBeams = withChanges(clear, {third_beam: 'yes', beam3_wavelength: '1064 nm', beam3_power: '0.5 W', beam3_diameter: '0 mm', beam3_divergence: '10 mrad', beam3_eyewear_od: '4'});
+// exit diameter, 0 at the eye, 10 mrad at the 1/e points, eyewear OD 4).
+const singleBeam = withChanges(clear, {second_beam: 'no', beam2_wavelength: null, beam2_power: null, beam2_diameter: null, beam2_eye_diameter: null, beam2_divergence: null, beam2_divergence_convention: null, beam2_eyewear_od: null, third_beam: null});
+const threeBeams = withChanges(clear, {third_beam: 'yes', beam3_wavelength: '1064 nm', beam3_power: '0.5 W', beam3_diameter: '0 mm', beam3_eye_diameter: '0 mm', beam3_divergence: '10 mrad', beam3_divergence_convention: 'one_over_e', beam3_eyewear_od: '4'});
 type Base = 'current' | 'power' | 'single' | 'three';
 const bases: Record<Base, AnswersDocument> = {current: clear, power: constantPower, single: singleBeam, three: threeBeams};
 
@@ -142,6 +142,14 @@ const comparisons: Comparison[] = [
 	{check: 'photodiode_bias_within_rating', kind: 'fail', name: 'bias above the rating', inputs: {photodiode_bias: '20 V'}, value: 20, limit: 15, margin: -5, fraction: -5 / 15},
 	{check: 'photodiode_bias_within_rating', kind: 'boundary', name: 'bias equal to the rating', inputs: {photodiode_bias: '15 V'}, value: 15, limit: 15, margin: 0, fraction: 0},
 
+	// The typed beam 1 power against what the setup can emit at the limit, coldest (power_at_limit_cold).
+	// 2 W vs 1.7391239 W: margin 0.2608761 W, 0.2608761/1.7391239 = 0.1500043
+	{check: 'beam1_power_covers_worst_case', kind: 'pass', name: 'demo 2 W typed', value: 2, limit: 1.1 * (2 - 0.45 * Math.exp(-10 / 140)), margin: 2 - 1.1 * (2 - 0.45 * Math.exp(-10 / 140)), fraction: (2 - 1.1 * (2 - 0.45 * Math.exp(-10 / 140))) / (1.1 * (2 - 0.45 * Math.exp(-10 / 140)))},
+	// 1 W vs 1.7391239 W: margin −0.7391239 W, −0.4249978
+	{check: 'beam1_power_covers_worst_case', kind: 'advise', name: '1 W typed', inputs: {beam1_power: '1 W'}, value: 1, limit: 1.1 * (2 - 0.45 * Math.exp(-10 / 140)), margin: 1 - 1.1 * (2 - 0.45 * Math.exp(-10 / 140)), fraction: (1 - 1.1 * (2 - 0.45 * Math.exp(-10 / 140))) / (1.1 * (2 - 0.45 * Math.exp(-10 / 140)))},
+	// at the reference temperature: 1.25 W/A × (2 A − 0.4 A) = 2 W, the typed power
+	{check: 'beam1_power_covers_worst_case', kind: 'boundary', name: 'worst case equal to the typed power', inputs: {diode_temperature_min: '25 degC', diode_threshold: '400 mA', diode_slope_efficiency: '1.25 W/A'}, value: 2, limit: 2, margin: 0, fraction: 0},
+
 	// People around the bench. Limiting aperture 7 mm: A = π × 3.5² mm² = 3.848451e-5 m².
 	// Beam 1, 808 nm, invisible so 10 s: MPE = 10·C_A = 10 × 10^(0.002 × 108) = 16.443717 W/m²;
 	// E₀ = 2 W / A = 51 968.9 W/m²; OD = log10(E₀/MPE) = 3.499744.
@@ -158,10 +166,11 @@ const comparisons: Comparison[] = [
 	// 10 mW: OD = log10(10.20768) = 1.0089265
 	{check: 'beam2_eyewear_sufficient', kind: 'fail', name: 'a 10 mW aiming beam', inputs: {beam2_power: '10 mW'}, value: 0.5, limit: 1.00892653567, margin: -0.50892653567, fraction: -0.50892653567 / 1.00892653567},
 	{check: 'beam2_eyewear_sufficient', kind: 'boundary', name: 'eyewear exactly at the required OD', inputs: {beam2_eyewear_od: '0.008926535670018101'}, value: 0.00892653567, limit: 0.00892653567, margin: 0, fraction: 0},
-	// NOHD = (√(4 × 1 mW/(π × 25.455844)) − 2 mm)/1 mrad = (7.072310 − 2) mm / 1 mrad = 5.072310 m
-	{check: 'beam2_hazard_distance', kind: 'advise', name: 'the aiming beam reaches past 4 m', value: 5.07231031, limit: 4, margin: -1.07231031, fraction: -1.07231031 / 4},
-	{check: 'beam2_hazard_distance', kind: 'pass', name: 'uncontrolled position 6 m away', inputs: {uncontrolled_distance: '6 m'}, value: 5.07231031, limit: 6, margin: 0.92768969, fraction: 0.92768969 / 6},
-	{check: 'beam2_hazard_distance', kind: 'boundary', name: 'uncontrolled position at the NOHD', inputs: {uncontrolled_distance: '5.072310309922722 m'}, value: 5.07231031, limit: 5.07231031, margin: 0, fraction: 0},
+	// The demo gives 1 mrad at the 1/e² points: φ = 1 mrad/√2 = 0.7071068 mrad at 1/e (Gaussian beam).
+	// NOHD = (√(4 × 1 mW/(π × 25.455844)) − 2 mm)/0.7071068 mrad = (7.072310 − 2) mm / 0.7071068 mrad = 7.173330 m
+	{check: 'beam2_hazard_distance', kind: 'advise', name: 'the aiming beam reaches past 4 m', value: 7.17333003, limit: 4, margin: -3.17333003, fraction: -3.17333003 / 4},
+	{check: 'beam2_hazard_distance', kind: 'pass', name: 'uncontrolled position 8 m away', inputs: {uncontrolled_distance: '8 m'}, value: 7.17333003, limit: 8, margin: 0.826669967, fraction: 0.826669967 / 8},
+	{check: 'beam2_hazard_distance', kind: 'boundary', name: 'uncontrolled position at the NOHD', inputs: {uncontrolled_distance: '7.17333003285759 m'}, value: 7.17333003, limit: 7.17333003, margin: 0, fraction: 0},
 	// Beam 3, 1064 nm, 10 s: MPE = 10·C_A = 50 W/m²; E₀ = 0.5 W / A = 12 992.2 W/m²; OD = 2.414714
 	{check: 'beam3_eyewear_sufficient', kind: 'pass', name: 'OD 4 at 1064 nm', base: 'three', value: 4, limit: 2.414714039, margin: 1.585285961, fraction: 1.585285961 / 2.414714039},
 	{check: 'beam3_eyewear_sufficient', kind: 'fail', name: 'OD 2 at 1064 nm', base: 'three', inputs: {beam3_eyewear_od: '2'}, value: 2, limit: 2.414714039, margin: -0.414714039, fraction: -0.414714039 / 2.414714039},
@@ -172,8 +181,9 @@ const comparisons: Comparison[] = [
 	{check: 'beam3_hazard_distance', kind: 'boundary', name: 'uncontrolled position at the NOHD', base: 'three', inputs: {uncontrolled_distance: '11.283791670955125 m'}, value: 11.28379167, limit: 11.28379167, margin: 0, fraction: 0},
 	// 2 W at 808 nm is above the 0.5 W Class 3B limit: rank 5 (Class 4), the label's rank
 	{check: 'label_class_covers_output', kind: 'boundary', name: 'Class 4 label on a 2 W beam', value: 5, limit: 5, margin: 0, fraction: 0},
-	// 0.4 W: above 5 × 3.9e-4 × 1.644372 W = 3.2 mW (3R) and at most 0.5 W: rank 4 (Class 3B)
-	{check: 'label_class_covers_output', kind: 'pass', name: '0.4 W under a Class 4 label', inputs: {beam1_power: '0.4 W'}, value: 4, limit: 5, margin: 1, fraction: 0.2},
+	// 0.4 W: above 5 × 3.9e-4 × 1.644372 W = 3.2 mW (3R) and at most 0.5 W: rank 4 (Class 3B). A 0.5 A
+	// limit keeps the worst case below it: 1.1 W/A × (0.5 A − 0.4189783 A) = 0.0891 W.
+	{check: 'label_class_covers_output', kind: 'pass', name: '0.4 W under a Class 4 label', inputs: {beam1_power: '0.4 W', current_limit: '0.5 A', current_setpoint: '0.4 A', modulation_source_peak: '0.5 V'}, value: 4, limit: 5, margin: 1, fraction: 0.2},
 	{check: 'label_class_covers_output', kind: 'advise', name: 'Class 3B label on a 2 W beam', inputs: {laser_class: 'class_3b'}, value: 5, limit: 4, margin: -1, fraction: -0.25},
 ];
 
@@ -224,10 +234,17 @@ const opens: Array<{check: string; base?: Base; remove: string[]; needs: string[
 	{check: 'photodiode_bias_within_rating', remove: ['photodiode_reverse_max'], needs: ['photodiode_reverse_max']},
 	{check: 'reverse_protection_fitted', remove: ['reverse_protection'], needs: ['reverse_protection']},
 	{check: 'pin_configuration_supported', remove: ['pin_configuration'], needs: ['pin_configuration']},
+	{check: 'beam1_power_covers_worst_case', remove: ['beam1_power'], needs: ['beam1_power']},
+	{check: 'beam1_power_covers_worst_case', remove: ['diode_threshold'], needs: ['diode_threshold']},
 	{check: 'beam1_eyewear_sufficient', remove: ['beam1_eyewear_od'], needs: ['beam1_eyewear_od']},
+	{check: 'beam1_eyewear_sufficient', remove: ['beam1_eye_diameter'], needs: ['beam1_eye_diameter']},
+	{check: 'beam1_eyewear_sufficient', remove: ['diode_slope_efficiency'], needs: ['diode_slope_efficiency']},
+	{check: 'beam1_hazard_distance', remove: ['beam1_divergence_convention'], needs: ['beam1_divergence_convention']},
 	{check: 'beam1_hazard_distance', remove: ['uncontrolled_distance'], needs: ['uncontrolled_distance']},
 	{check: 'beam2_eyewear_sufficient', remove: ['beam2_eyewear_od'], needs: ['beam2_eyewear_od']},
 	{check: 'beam2_hazard_distance', remove: ['beam2_divergence'], needs: ['beam2_divergence']},
+	{check: 'beam2_hazard_distance', remove: ['beam2_divergence_convention'], needs: ['beam2_divergence_convention']},
+	{check: 'beam2_eyewear_sufficient', remove: ['beam2_eye_diameter'], needs: ['beam2_eye_diameter']},
 	{check: 'beam3_eyewear_sufficient', base: 'three', remove: ['beam3_power'], needs: ['beam3_power']},
 	{check: 'beam3_hazard_distance', base: 'three', remove: ['beam3_divergence'], needs: ['beam3_divergence']},
 	{check: 'label_class_covers_output', remove: ['beam1_power'], needs: ['beam1_power']},
@@ -322,6 +339,7 @@ describe('the shipped policy, check by check', () => {
 		const advisory = rules.rules.checks.filter(({severity}) => severity === 'advise').map(({id}) => id);
 		expect(advisory.sort()).toEqual([
 			'beam1_hazard_distance',
+			'beam1_power_covers_worst_case',
 			'beam2_hazard_distance',
 			'beam3_hazard_distance',
 			'brownout_clear_of_service_supply',

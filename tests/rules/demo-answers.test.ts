@@ -41,7 +41,7 @@ describe('the demo answers files', () => {
 		const evaluation = evaluateDemo('bench3-808nm-clear.yaml');
 		expect(ids(evaluation, 'fail')).toEqual([]);
 		expect(ids(evaluation, 'open')).toEqual([]);
-		// the aiming beam (1 mW, 2 mm, 1 mrad) stays above the MPE for 5.07 m, past 4 m
+		// the aiming beam (1 mW, 2 mm, 1 mrad at 1/e² = 0.707 mrad at 1/e) stays above the MPE for 7.17 m, past 4 m
 		expect(ids(evaluation, 'advise')).toEqual(['short_circuit_dissipation', 'beam2_hazard_distance']);
 		expect(ids(evaluation, 'skip').sort()).toEqual(['beam3_eyewear_sufficient', 'beam3_hazard_distance', 'monitor_current_within_input', 'monitor_loss_contained', 'power_setpoint_below_maximum']);
 		expect(evaluation.missingInputs).toEqual([]);
