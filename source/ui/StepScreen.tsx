@@ -198,7 +198,7 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 				/>
 			</Box>
 			<Box marginTop={1} flexDirection="column">
-				<ChecksPanel checks={checks} rows={panelRows} />
+				<ChecksPanel checks={checks} rows={panelRows} width={width} />
 			</Box>
 		</Box>
 	);
