@@ -68,3 +68,16 @@ describe('a check skipped by its condition says why', () => {
 		expect(json.checks[0]!.reason).toContain('ask the laser safety officer');
 	});
 });
+
+describe('the shipped class check at 1550 nm', () => {
+	it('is judged, not left as an advice that can never clear', async () => {
+		const {checkResult, evaluateDocument, readDemo, shippedRules, withChanges} = await import('./bench-answers.js');
+		// the clearing demo's 2 W output moved to 1550 nm: above 0.5 W is Class 4 (IEC 60825-1, from memory, high),
+		// and the label says Class 4
+		const evaluation = evaluateDocument(shippedRules(), withChanges(readDemo('bench3-808nm-clear.yaml'), {beam1_wavelength: '1550 nm'}));
+		const check = checkResult(evaluation, 'label_class_covers_output');
+		expect(check.error).toBeUndefined();
+		expect(check.verdict).toBe('pass');
+		expect(check.value?.si).toBe(5);
+	});
+});
