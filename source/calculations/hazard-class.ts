@@ -40,5 +40,11 @@ export const hazardClass: Calculation = {
 		const limits = continuousLimits(inNanometres);
 		return {class_rank: rank, class1_limit: limits.class1, class3r_limit: limits.class3r, class3b_limit: limits.class3b};
 	},
-	notes: (_inputs, outputs) => [`Indicative class: ${classNames[outputs['class_rank']!] ?? '?'} (CW, point source).`],
+	notes: ({power, wavelength}, outputs) => {
+		const notes = [`Indicative class: ${classNames[outputs['class_rank']!] ?? '?'} (CW, point source).`];
+		if (power === undefined || wavelength === undefined) return notes;
+		const ranks = new Set(limitsOnEverySide(nanometres(wavelength)).map((limits) => rankOf(power, limits)));
+		if (ranks.size > 1) notes.push('The wavelength is on a band edge where the class tables differ: the higher class of the two sides is given.');
+		return notes;
+	},
 };

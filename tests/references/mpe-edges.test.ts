@@ -169,3 +169,17 @@ describe('every aperture edge, typed every way', () => {
 		expect(new Set(ods).size).toBe(1);
 	});
 });
+
+describe('the class note on an edge', () => {
+	it('says the higher class of the two sides is given at 700 nm, 1 mW (Class 2 below, 3R above; IEC, from memory)', () => {
+		const inputs = {power: 1e-3, wavelength: typed('0.7 um', 'length')};
+		const notes = hazardClass.notes!(inputs, hazardClass.compute(inputs)).join(' ');
+		expect(notes).toContain('Class 3R');
+		expect(notes).toContain('higher class of the two sides');
+	});
+
+	it('says nothing of edges off an edge (650 nm, 1 mW is Class 2)', () => {
+		const inputs = {power: 1e-3, wavelength: 650e-9};
+		expect(hazardClass.notes!(inputs, hazardClass.compute(inputs)).join(' ')).not.toContain('band edge');
+	});
+});
