@@ -37,12 +37,16 @@ export function probes(snapped: Snapped): number[] {
 	return [snapped.edge * (1 - probeOffset), snapped.edge, snapped.edge * (1 + probeOffset)];
 }
 
-/** Formats an edge for a limit text: "700 nm", "1.3×10⁻⁵ s". */
-export function edgeText(value: number, unit: string): string {
-	if (value >= 1e-3 && value < 1e7) return `${Number(value.toPrecision(6))} ${unit}`;
-	const [mantissa, exponent] = value.toExponential().split('e');
-	const superscript = exponent!.replace('+', '').replace(/[-0-9]/g, (c) => '⁻⁰¹²³⁴⁵⁶⁷⁸⁹'['-0123456789'.indexOf(c)]!);
-	return `${mantissa === '1' ? '' : `${mantissa}×`}10${superscript} ${unit}`;
+/** Formats an edge for a limit text: "700 nm", "1 ms", "13 µs", "10⁻¹¹ s". */
+export function edgeText(value: number, unit: 'nm' | 's'): string {
+	const plain = (x: number) => Number(x.toPrecision(6));
+	if (unit === 'nm' || value >= 1) return `${plain(value)} ${unit}`;
+	if (value >= 1e-3) return `${plain(value * 1e3)} ms`;
+	if (value >= 1e-6) return `${plain(value * 1e6)} µs`;
+	if (value >= 1e-9) return `${plain(value * 1e9)} ns`;
+	const exponent = Math.round(Math.log10(value));
+	const superscript = String(exponent).replace(/[-0-9]/g, (c) => '⁻⁰¹²³⁴⁵⁶⁷⁸⁹'['-0123456789'.indexOf(c)]!);
+	return 10 ** exponent === value ? `10${superscript} s` : `${plain(value)} s`;
 }
 
 /** Metres to nanometres, the unit the optical tables are written in. */

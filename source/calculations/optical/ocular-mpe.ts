@@ -66,24 +66,30 @@ export function ocularMpe(wavelengthEntered: number, durationEntered: number, ed
 	const breakpoint = snapToEdge(durationEntered, durationEdges(wavelength));
 	const t = breakpoint.value;
 	if (!(t <= 3e4)) throw new NotCoveredError('duration', 'at most 30 000 s (3×10⁴ s, the longest duration the tables cover)');
-	const found: Array<{row: Row; radiantExposure: number; center: boolean}> = [];
+	const found: Array<{row: Row; radiantExposure: number; pick: Pick}> = [];
 	for (const pickWavelength of probes(band)) {
 		if (pickWavelength < 180 || pickWavelength > 1e6) continue;
 		const shortest = isRetinal(pickWavelength) ? 1e-13 : 1e-9;
 		if (!(t >= shortest)) throw new NotCoveredError('duration', `at least ${shortest === 1e-13 ? '10⁻¹³ s' : '10⁻⁹ s'} at this wavelength (shorter pulses are not covered)`);
 		for (const pickT of probes(breakpoint)) {
 			if (pickT < shortest || pickT > 3e4) continue;
-			const row = rowAt(wavelength, t, edition, {wavelength: pickWavelength, t: pickT});
-			found.push({row, radiantExposure: row.radiantExposure ?? row.irradiance! * t, center: pickWavelength === wavelength && pickT === t});
+			const pick = {wavelength: pickWavelength, t: pickT};
+			const row = rowAt(wavelength, t, edition, pick);
+			found.push({row, radiantExposure: row.radiantExposure ?? row.irradiance! * t, pick});
 		}
 	}
 	// The row the value itself falls in stays unless a row on the other side of an edge is lower.
-	const center = found.find((entry) => entry.center) ?? found[0]!;
-	const lowest = found.reduce((low, next) => (next.radiantExposure < low.radiantExposure * (1 - 1e-12) ? next : low), center);
-	const highest = Math.max(...found.map((entry) => entry.radiantExposure));
-	const onEdge = highest > lowest.radiantExposure * (1 + 1e-12);
-	const where = [band.edge === undefined ? '' : edgeText(band.edge, 'nm'), breakpoint.edge === undefined ? '' : edgeText(breakpoint.edge, 's')].filter(Boolean).join(' and ');
-	const limit = onEdge ? `${lowest.row.limit}; on the table edge at ${where} the adjoining rows differ, and the lower limit applies` : lowest.row.limit;
+	const differs = (a: number, b: number) => Math.abs(a - b) > 1e-12 * Math.max(a, b);
+	const center = found.find(({pick}) => pick.wavelength === wavelength && pick.t === t) ?? found[0]!;
+	const lowest = found.reduce((low, next) => (next.radiantExposure < low.radiantExposure && differs(next.radiantExposure, low.radiantExposure) ? next : low), center);
+	// Name the edges across which the rows differ: the wavelength edge, the breakpoint, or both.
+	const across = (same: (entry: (typeof found)[number]) => boolean) => found.some((entry) => same(entry) && differs(entry.radiantExposure, center.radiantExposure));
+	const where = [
+		band.edge !== undefined && across(({pick}) => pick.t === t) ? edgeText(band.edge, 'nm') : '',
+		breakpoint.edge !== undefined && across(({pick}) => pick.wavelength === wavelength) ? edgeText(breakpoint.edge, 's') : '',
+	].filter(Boolean);
+	if (where.length === 0 && found.some((entry) => differs(entry.radiantExposure, center.radiantExposure))) where.push(edgeText(band.edge!, 'nm'), edgeText(breakpoint.edge!, 's'));
+	const limit = where.length > 0 ? `${lowest.row.limit}; on the table edge at ${where.join(' and ')} the adjoining rows differ, and the lower limit applies` : lowest.row.limit;
 	const radiantExposure = lowest.radiantExposure;
 	const irradiance = lowest.row.irradiance ?? radiantExposure / t;
 	return {radiantExposure, irradiance, limit, edition: editionNames[edition]};
