@@ -39,6 +39,19 @@ describe('od reference values', () => {
 		expect(result['od']).toBe(0);
 	});
 
+	// 50 mW at 375 nm focused into the 1 mm UV aperture over 3×10⁴ s (hand arithmetic):
+	// E₀ = 4 × 0.05 / (π × 10⁻⁶) = 63 661.98 W/m²
+	it.each([
+		{edition: 2014, mpe: 1e4 / 3e4, od: 5.281}, // 10⁴ J/m² held to 3×10⁴ s (DGUV Information 203-042 Annex 6): log10(63 661.98 / 0.33333) = 5.2810
+		{edition: 2007, mpe: 10, od: 3.8039}, // IEC-2007 handout (seen): 10 W/m² after 10³ s: log10(6366.198) = 3.8039
+	])('needs OD $od for a 50 mW UV-A beam over 3×10⁴ s [edition $edition]', ({edition, mpe, od: density}) => {
+		const result = od.compute({power: 0.05, diameter: 0, wavelength: 375 * nm, duration: 3e4, edition});
+		expect(result['aperture']).toBe(1e-3); // 1 mm for 180–400 nm (from memory, high)
+		expect(result['exposure']! / 63661.98).toBeCloseTo(1, 6);
+		expect(result['mpe_irradiance']! / mpe).toBeCloseTo(1, 9);
+		expect(result['od']).toBeCloseTo(density, 3);
+	});
+
 	it('increases with power', () => {
 		fc.assert(
 			fc.property(fc.double({min: 1e-2, max: 1e3, noNaN: true}), fc.constantFrom(450, 532, 650, 808, 980, 1064, 1550), (power, wavelength) => {
