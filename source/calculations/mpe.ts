@@ -1,9 +1,8 @@
 import type {Calculation} from './calculation.js';
 import {covered, editionInput, readEdition, refuseRepetition, repetitionInput} from './optical/edition-input.js';
 import {ocularMpe} from './optical/ocular-mpe.js';
+import {nanometres} from './optical/edges.js';
 import {opticalCaution} from './optical/optical-caution.js';
-
-const nanometres = (metres: number) => metres * 1e9;
 
 /** Maximum permissible exposure of the eye to a point source. */
 export const mpe: Calculation = {
@@ -25,6 +24,8 @@ export const mpe: Calculation = {
 		'ICNIRP 2013 guidelines (Health Phys. 105(3)) = IEC 60825-1:2014 Annex A = ANSI Z136.1-2014 Tables 5a/5b (2014 values from memory where they differ from 2007)',
 		'IEC 60825-1:2007 Table A.1 and its correction factors (as reproduced in a university MPE handout)',
 		'Directive 2006/25/EC Annex II, Tables 2.2–2.6 (correction factors C_A, C_B, C_C, T1)',
+		'315–400 nm from 10 s (2014 edition): the dose 10⁴ J/m² is held to 3×10⁴ s (E = 0.33 W/m² at 3×10⁴ s), the more protective of the readings: Directive 2006/25/EC as applied in DGUV Information 203-042 Annex 6, where the simplified 10 W/m² holds only to 10³ s; the 2007 edition steps to 10 W/m² after 10³ s and is kept as printed',
+		'Table edges: a wavelength or duration within a relative 10⁻¹⁰ of a band edge, breakpoint or T1 is on it, whatever its spelling; on an edge the rows that meet there are all evaluated and the lower limit applies (common practice for a safety tool: the safe side)',
 	],
 	caution: opticalCaution,
 	compute: ({wavelength, duration, edition, repetition_rate}) => {

@@ -42,6 +42,7 @@ function checkLines(check: CheckResult, paint: Paint, width: number, withMessage
 	if (figures) lines.push(...wrap(figures, width, '                '));
 	if (check.needs?.length) lines.push(...wrap(`needs ${check.needs.join(', ')}`, width, '                '));
 	if (check.error) lines.push(...wrap(check.error, width, '                '));
+	if (check.reason) lines.push(...wrap(stripControl(check.reason), width, '                '));
 	if (withMessage && check.message) lines.push(...wrap(stripControl(check.message), width, '                '));
 	return lines;
 }

@@ -48,6 +48,7 @@ export const recordBodySchema = object({
 					needs: array(text).optional(),
 					message: text.optional(),
 					error: text.optional(),
+					reason: text.optional(),
 					explanation: text,
 					basis: text,
 				})

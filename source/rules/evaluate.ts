@@ -133,7 +133,7 @@ function judge(compiled: CompiledCheck, compute: (formula: CompiledFormula) => C
 	if (compiled.when) {
 		const condition = compute(compiled.when);
 		if (!condition.ok) return condition.needs ? {...base, verdict: 'open', needs: condition.needs} : failWith(condition.error);
-		if (condition.value !== true) return {...base, verdict: 'skip'};
+		if (condition.value !== true) return {...base, verdict: 'skip', ...(check.skip_reason ? {reason: check.skip_reason} : {})};
 	}
 	const formulas = [compiled.holds, compiled.value, compiled.limit].filter((formula): formula is CompiledFormula => formula !== undefined);
 	const results = formulas.map((formula) => ({formula, result: compute(formula)}));

@@ -59,6 +59,7 @@ export function evaluationToJson(rules: CompiledRules, answers: Answers, evaluat
 			...(check.needs ? {needs: check.needs} : {}),
 			...(check.message ? {message: check.message} : {}),
 			...(check.error ? {error: check.error} : {}),
+			...(check.reason ? {reason: check.reason} : {}),
 			explanation: check.explanation,
 			basis: check.basis,
 		})),

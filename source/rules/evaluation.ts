@@ -26,6 +26,8 @@ export type CheckResult = {
 	message?: string;
 	/** Why it could not be evaluated properly (a non-finite value, a calculation refusing its inputs). */
 	error?: string;
+	/** Why a skipped check does not apply (the rule file's `skip_reason`). */
+	reason?: string;
 };
 
 /** Status of one confirmation. */

@@ -110,6 +110,7 @@ export const checkSchema = object({
 		step: identifier,
 		title: words,
 		when: formula.optional(),
+		skip_reason: words.optional().describe('Why the check is skipped when its `when` does not hold; shown with the skip'),
 		value: formula.optional().describe('The quantity being checked'),
 		at_most: formula.optional().describe('The limit the value must not exceed'),
 		at_least: formula.optional().describe('The limit the value must reach'),

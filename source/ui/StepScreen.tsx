@@ -200,7 +200,7 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 				/>
 			</Box>
 			<Box marginTop={1} flexDirection="column">
-				<ChecksPanel checks={checks} rows={panelRows} derived={derived} />
+				<ChecksPanel checks={checks} rows={panelRows} derived={derived} width={width} />
 			</Box>
 		</Box>
 	);

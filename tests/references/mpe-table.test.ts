@@ -52,7 +52,9 @@ const references: Reference[] = [
 	{name: '905 nm, 100 ns: 2×10⁻³·C_A = 5.14079×10⁻³ J/m² (2014, from memory)', wavelength: 905, duration: 1e-7, editions: [2014], H: 2e-3 * 10 ** 0.41, tolerance: exact, row: '700–1050 nm, up to 5 µs'}, // IEC-2014 (from memory): 10⁻¹¹–5×10⁻⁶ s, 2×10⁻³·C_A
 	{name: '808 nm, 1 s: 18·C_A·1^0.75 = 29.599 J/m²', wavelength: 808, duration: 1, editions: both, H: 18 * 10 ** 0.216, tolerance: exact, row: '18·C_A·t^0.75'}, // IEC-2007 handout (seen): 700–1050 nm, H = 18·C_A·t^0.75
 	// Near IR 1050–1400 nm
-	{name: '1064 nm, 1 ns: 0.05 J/m² = 5×10⁻⁶ J/cm² (2007)', wavelength: 1064, duration: 1e-9, editions: [2007], H: 0.05, tolerance: exact, row: '1050–1400 nm, up to 50 µs'}, // training booklet OD example (seen): 5×10⁻⁶ J/cm²; IEC-2007 handout (seen) 5×10⁻²·C_C
+	// The booklet's pulse is 1 ns, exactly on the 2007 table's 10⁻⁹ s breakpoint, where the lower row now applies
+	// (see the edge tests); its row, 10⁻⁹–5×10⁻⁵ s, is checked just inside, at 2 ns.
+	{name: '1064 nm, 2 ns: 0.05 J/m² = 5×10⁻⁶ J/cm² (2007)', wavelength: 1064, duration: 2e-9, editions: [2007], H: 0.05, tolerance: exact, row: '1050–1400 nm, up to 50 µs'}, // training booklet OD example (seen): 5×10⁻⁶ J/cm²; IEC-2007 handout (seen) 5×10⁻²·C_C
 	{name: '1064 nm, 1 ns: 2×10⁻²·C_C = 0.02 J/m² (2014, from memory)', wavelength: 1064, duration: 1e-9, editions: [2014], H: 0.02, tolerance: exact, row: '1050–1400 nm, up to 13 µs'}, // IEC-2014 (from memory): 10⁻¹¹–1.3×10⁻⁵ s, 2×10⁻²·C_C
 	{name: '1064 nm, 1 ms: 90·(10⁻³)^0.75 = 90·10^−2.25 = 0.506107 J/m²', wavelength: 1064, duration: 1e-3, editions: both, H: 90 * 10 ** -2.25, tolerance: exact, row: '90·C_C·t^0.75'}, // IEC-2007 handout (seen): 90·C_C·t^0.75; ANSI 9.0·C_C·t^0.75 mJ/cm²
 	{name: '1064 nm, 100 s: E = 10·C_A·C_C = 50 W/m² (ANSI 5.0·C_C mW/cm²)', wavelength: 1064, duration: 100, editions: both, E: 50, tolerance: exact, row: '1050–1400 nm, 10 s–3×10⁴ s'}, // ANSI-2014 5.0·C_C×10⁻³ W/cm² (from memory, high)
@@ -69,9 +71,11 @@ const references: Reference[] = [
 	{name: '10 600 nm, 10 ns: H = 100 J/m²', wavelength: 10600, duration: 1e-8, editions: both, H: 100, tolerance: exact, row: '2600 nm–1 mm, up to 100 ns'}, // IEC-2007 handout (seen)
 	{name: '10 600 nm, 100 µs: 5600·(10⁻⁴)^0.25 = 560 J/m²', wavelength: 10600, duration: 1e-4, editions: both, H: 560, tolerance: exact, row: '2600 nm–1 mm, 100 ns–10 s'}, // IEC-2007 handout (seen)
 	// Ultraviolet
-	{name: '355 nm, 100 s: H = 10⁴ J/m² (1 J/cm²)', wavelength: 355, duration: 100, editions: both, H: 1e4, tolerance: exact, row: '315–400 nm, 10 s–10³ s'}, // IEC-2007 handout (seen)
+	{name: '355 nm, 100 s: H = 10⁴ J/m² (1 J/cm²)', wavelength: 355, duration: 100, editions: [2007], H: 1e4, tolerance: exact, row: '315–400 nm, 10 s–10³ s'}, // IEC-2007 handout (seen)
+	{name: '355 nm, 100 s: H = 10⁴ J/m² (2014 reading)', wavelength: 355, duration: 100, editions: [2014], H: 1e4, tolerance: exact, row: '315–400 nm, 10 s–3×10⁴ s: H = 10⁴ J/m²'}, // IEC-2007 handout (seen) 10⁴ J/m²; DGUV Information 203-042 Annex 6 keeps the dose to 3×10⁴ s
 	{name: '355 nm, 1 s: C1 = 5.6×10³·1^0.25 = 5600 J/m²', wavelength: 355, duration: 1, editions: both, H: 5600, tolerance: exact, row: '315–400 nm, up to 10 s'}, // IEC-2007 handout (seen)
-	{name: '355 nm, 10⁴ s: E = 10 W/m², H = 10⁵ J/m²', wavelength: 355, duration: 1e4, editions: both, E: 10, tolerance: exact, row: '315–400 nm, 10³ s–3×10⁴ s'}, // IEC-2007 handout (seen): 1 mW/cm²
+	{name: '355 nm, 10⁴ s: E = 10 W/m², H = 10⁵ J/m²', wavelength: 355, duration: 1e4, editions: [2007], E: 10, tolerance: exact, row: '315–400 nm, 10³ s–3×10⁴ s'}, // IEC-2007 handout (seen): 1 mW/cm²
+	{name: '355 nm, 10⁴ s: H = 10⁴ J/m², E = 1 W/m² (2014 reading, more protective)', wavelength: 355, duration: 1e4, editions: [2014], E: 1, tolerance: exact, row: 'DGUV Information 203-042'}, // DGUV Information 203-042 Annex 6 (Directive 2006/25/EC): 10⁴ J/m² up to 3×10⁴ s; 10⁴ J/m² / 10⁴ s = 1 W/m² (hand arithmetic)
 	{name: '250 nm, 1 s: H = 30 J/m²', wavelength: 250, duration: 1, editions: both, H: 30, tolerance: exact, row: '180–302.5 nm'}, // IEC-2007 handout (seen): 3×10⁻³ J/cm²
 	{name: '250 nm, 3×10⁴ s: H = 30 J/m²', wavelength: 250, duration: 3e4, editions: both, H: 30, tolerance: exact, row: '180–302.5 nm'}, // IEC-2007 handout (seen)
 	// 302.5–315 nm: T1 = 10^(0.8(λ−295))×10⁻¹⁵ s; at 310 nm T1 = 10^12×10⁻¹⁵ = 1 ms, C2 = 10^(0.2·15) = 1000 J/m²
@@ -91,9 +95,10 @@ describe('ocular MPE against the published tables', () => {
 		expect(result.edition).toContain(edition === 2014 ? '60825-1:2014' : '60825-1:2007');
 	});
 
-	it('gives the training booklet its OD 6.4 for 1064 nm, 1 ns, H₀ = 12.5 J/cm² (2007)', () => {
-		// training booklet ch. 1 (seen): OD = log₁₀(12.5 / 5×10⁻⁶) = 6.3979 → quoted 6.4
-		const mpeJoulesPerSquareCentimetre = ocularMpe(1064, 1e-9, 2007).radiantExposure * 1e-4;
+	it('gives the training booklet its OD 6.4 for 1064 nm, H₀ = 12.5 J/cm² in the 10⁻⁹–5×10⁻⁵ s row (2007)', () => {
+		// training booklet ch. 1 (seen): OD = log₁₀(12.5 / 5×10⁻⁶) = 6.3979 → quoted 6.4. Its 1 ns sits on the
+		// breakpoint, where the lower 10⁻¹¹–10⁻⁹ s row now applies; the row itself is taken at 2 ns.
+		const mpeJoulesPerSquareCentimetre = ocularMpe(1064, 2e-9, 2007).radiantExposure * 1e-4;
 		expect(Math.log10(12.5 / mpeJoulesPerSquareCentimetre)).toBeCloseTo(6.3979, 4);
 	});
 
@@ -126,10 +131,14 @@ const boundaries: Boundary[] = [
 		lower: {wavelength: below(302.5), duration: 1, row: '180–302.5 nm', H: 30}, upper: {wavelength: above(302.5), duration: 1, row: 't > T1', H: 10 ** 1.5}, step: 0.055},
 	{name: '315 nm at 1 s: C1 = 5600 J/m² on both sides (T1(315) = 10 s)', editions: both, // IEC-2007 handout (seen)
 		lower: {wavelength: below(315), duration: 1, row: '302.5–315 nm, t ≤ T1', H: 5600}, upper: {wavelength: above(315), duration: 1, row: '315–400 nm, up to 10 s', H: 5600}, step: 1e-6},
-	{name: '315 nm at 100 s: C2(315) = 10⁴ J/m² = 10⁴ J/m²', editions: both, // IEC-2007 handout (seen)
+	{name: '315 nm at 100 s: C2(315) = 10⁴ J/m² = 10⁴ J/m²', editions: [2007], // IEC-2007 handout (seen)
 		lower: {wavelength: below(315), duration: 100, row: 't > T1', H: 1e4}, upper: {wavelength: above(315), duration: 100, row: '315–400 nm, 10 s–10³ s', H: 1e4}, step: 1e-6},
-	{name: '315 nm at 10⁴ s: C2 = 10⁴ J/m² → 10 W/m²·10⁴ s = 10⁵ J/m² (the table steps: C2 runs to 3×10⁴ s)', editions: both, // IEC-2007 handout (seen)
+	{name: '315 nm at 100 s: C2(315) = 10⁴ J/m² = 10⁴ J/m² (2014 reading)', editions: [2014], // IEC-2007 handout (seen); DGUV Information 203-042 Annex 6
+		lower: {wavelength: below(315), duration: 100, row: 't > T1', H: 1e4}, upper: {wavelength: above(315), duration: 100, row: '315–400 nm, 10 s–3×10⁴ s', H: 1e4}, step: 1e-6},
+	{name: '315 nm at 10⁴ s: C2 = 10⁴ J/m² → 10 W/m²·10⁴ s = 10⁵ J/m² (the table steps: C2 runs to 3×10⁴ s)', editions: [2007], // IEC-2007 handout (seen)
 		lower: {wavelength: below(315), duration: 1e4, row: 't > T1', H: 1e4}, upper: {wavelength: above(315), duration: 1e4, row: '315–400 nm, 10³ s–3×10⁴ s', H: 1e5}, step: null},
+	{name: '315 nm at 10⁴ s: C2 = 10⁴ J/m² on both sides (2014 reading keeps the dose to 3×10⁴ s)', editions: [2014], // IEC-2007 handout (seen) C2; DGUV Information 203-042 Annex 6
+		lower: {wavelength: below(315), duration: 1e4, row: 't > T1', H: 1e4}, upper: {wavelength: above(315), duration: 1e4, row: '315–400 nm, 10 s–3×10⁴ s', H: 1e4}, step: 1e-6},
 	{name: '400 nm at 1 ms: cornea C1 = 995.8 J/m² → retina 18·t^0.75 = 0.1012 J/m² (different tissue)', editions: both, // IEC-2007 handout (seen)
 		lower: {wavelength: below(400), duration: 1e-3, row: '315–400 nm, up to 10 s', H: 5600 * 10 ** -0.75}, upper: {wavelength: above(400), duration: 1e-3, row: 'retinal thermal, 400–700 nm', H: 18 * 10 ** -2.25}, step: null},
 	{name: '450 nm at 1000 s: photochemical E = C_B = 1 W/m² on both sides', editions: both, // IEC-2007 handout (seen); C_B EU-AOR (seen)
@@ -202,7 +211,7 @@ const boundaries: Boundary[] = [
 	{name: '450 nm at 10 s: thermal 18·10^0.75 = 101.2 → photochemical 100·C_B = 100 J/m² (below thermal 10 W/m²·t just after 10 s)', editions: both, // IEC-2007 handout (seen)
 		lower: {wavelength: 450, duration: below(10), row: 'H = 18·t^0.75', H: 18 * 10 ** 0.75}, upper: {wavelength: 450, duration: above(10), row: '10–100 s: H = 100·C_B J/m² (lower than the thermal', H: 100}, step: 0.013},
 	{name: '355 nm at 10 s: C1 = 5600·10^0.25 = 9958.4 → 10⁴ J/m² (0.42 %)', editions: both, // IEC-2007 handout (seen)
-		lower: {wavelength: 355, duration: below(10), row: 'up to 10 s', H: 5600 * 10 ** 0.25}, upper: {wavelength: 355, duration: above(10), row: '10 s–10³ s', H: 1e4}, step: 0.005},
+		lower: {wavelength: 355, duration: below(10), row: 'up to 10 s', H: 5600 * 10 ** 0.25}, upper: {wavelength: 355, duration: above(10), row: '10 s–', H: 1e4}, step: 0.005},
 	{name: '1450 nm at 10 s: 5600·10^0.25 = 9958.4 → 1000 W/m²·10 s = 10⁴ J/m² (0.42 %)', editions: both, // IEC-2007 handout (seen) + from memory (high)
 		lower: {wavelength: 1450, duration: below(10), row: '1 ms–10 s', H: 5600 * 10 ** 0.25}, upper: {wavelength: 1450, duration: above(10), row: '10 s–3×10⁴ s', H: 1e4}, step: 0.005},
 	{name: '1550 nm at 10 s: 10⁴ J/m² → 1000 W/m²·10 s (continuous)', editions: both, // IEC-2007 handout (seen) + from memory (high)
@@ -215,7 +224,7 @@ const boundaries: Boundary[] = [
 		lower: {wavelength: 488, duration: below(100), row: '10–100 s', H: 100 * 10 ** 0.76}, upper: {wavelength: 488, duration: above(100), row: '100 s–3×10⁴ s', H: 100 * 10 ** 0.76}, step: 1e-6},
 	{name: '480 nm at T1 = 10·10^(0.02·30) = 39.81 s: thermal 10 W/m² gives way to photochemical 100·C_B (continuous)', editions: both, // EU-AOR T2.5 (seen): T1 = 10·10^(0.02(λ−450)) s for 450–500 nm
 		lower: {wavelength: 480, duration: below(10 * 10 ** 0.6), row: 'thermal, 400–700 nm, 10 s', H: 100 * 10 ** 0.6}, upper: {wavelength: 480, duration: above(10 * 10 ** 0.6), row: 'photochemical', H: 100 * 10 ** 0.6}, step: 1e-6},
-	{name: '355 nm at 10³ s: 10⁴ J/m² → 10 W/m²·10³ s (continuous)', editions: both, // IEC-2007 handout (seen)
+	{name: '355 nm at 10³ s: 10⁴ J/m² → 10 W/m²·10³ s (continuous)', editions: [2007], // IEC-2007 handout (seen)
 		lower: {wavelength: 355, duration: below(1e3), row: '10 s–10³ s', H: 1e4}, upper: {wavelength: 355, duration: above(1e3), row: '10³ s–3×10⁴ s', H: 1e4}, step: 1e-6},
 	{name: '1450 nm at 1 ms: 10³ → 5600·10^−0.75 = 995.84 J/m² (0.42 %)', editions: both, // IEC-2007 handout (seen)
 		lower: {wavelength: 1450, duration: below(1e-3), row: 'up to 1 ms', H: 1e3}, upper: {wavelength: 1450, duration: above(1e-3), row: '1 ms–10 s', H: 5600 * 10 ** -0.75}, step: 0.005},
@@ -249,7 +258,7 @@ describe('ocular MPE on each side of every table edge', () => {
 	});
 });
 
-describe('a duration exactly on a breakpoint belongs to the longer-duration row', () => {
+describe('a duration exactly on a breakpoint takes the lower of the two rows that meet there', () => {
 	it('532 nm at exactly 10 s is 10 W/m², not 18·10^0.75/10 = 10.122 W/m²', () => {
 		// the rows meet at 10 s: 1.0 mW/cm² (long-duration row) vs 1.0122 mW/cm²
 		const result = ocularMpe(532, 10);
@@ -259,20 +268,20 @@ describe('a duration exactly on a breakpoint belongs to the longer-duration row'
 
 	// prettier-ignore
 	const onBreakpoint = [
-		{wavelength: 532, duration: 1e-11, edition: 2007 as Edition, row: '10⁻¹¹–10⁻⁹ s', H: 2.7e4 * 10 ** -8.25}, // IEC-2007 handout (seen)
-		{wavelength: 532, duration: 1e-9, edition: 2007 as Edition, row: 'up to 18 µs', H: 5e-3}, // IEC-2007 handout (seen)
+		{wavelength: 532, duration: 1e-11, edition: 2007 as Edition, row: '10⁻¹³–10⁻¹¹ s', H: 1.5e-4}, // IEC-2007 handout (seen): 1.5×10⁻⁴ below, 2.7×10⁴·10^−8.25 = 1.5183×10⁻⁴ above
+		{wavelength: 532, duration: 1e-9, edition: 2007 as Edition, row: '10⁻¹¹–10⁻⁹ s', H: 2.7e4 * 10 ** -6.75}, // IEC-2007 handout (seen): 2.7×10⁴·10^−6.75 = 4.8014×10⁻³ below, 5×10⁻³ above
 		{wavelength: 532, duration: 1.8e-5, edition: 2007 as Edition, row: '18 µs–10 s', H: 18 * 1.8e-5 ** 0.75}, // IEC-2007 handout (seen)
 		{wavelength: 532, duration: 5e-6, edition: 2014 as Edition, row: '5 µs–10 s', H: 18 * 5e-6 ** 0.75}, // IEC-2014 (from memory, high)
-		{wavelength: 1064, duration: 5e-5, edition: 2007 as Edition, row: '50 µs–10 s', H: 90 * 5e-5 ** 0.75}, // IEC-2007 handout (seen)
+		{wavelength: 1064, duration: 5e-5, edition: 2007 as Edition, row: 'up to 50 µs', H: 5e-2}, // IEC-2007 handout (seen): 0.05 below, 90·(5×10⁻⁵)^0.75 = 0.053514 above
 		{wavelength: 1064, duration: 1.3e-5, edition: 2014 as Edition, row: '13 µs–10 s', H: 90 * 1.3e-5 ** 0.75}, // IEC-2014 (from memory)
 		{wavelength: 450, duration: 100, edition: 2014 as Edition, row: '100 s–3×10⁴ s', H: 100}, // IEC-2007 handout (seen)
-		{wavelength: 355, duration: 10, edition: 2014 as Edition, row: '10 s–10³ s', H: 1e4}, // IEC-2007 handout (seen)
-		{wavelength: 355, duration: 1e3, edition: 2014 as Edition, row: '10³ s–3×10⁴ s', H: 1e4}, // IEC-2007 handout (seen)
+		{wavelength: 355, duration: 10, edition: 2014 as Edition, row: 'up to 10 s', H: 5600 * 10 ** 0.25}, // IEC-2007 handout (seen): C1(10 s) = 9958.4 below, 10⁴ above
+		{wavelength: 355, duration: 1e3, edition: 2007 as Edition, row: '10³ s–3×10⁴ s', H: 1e4}, // IEC-2007 handout (seen): 10⁴ J/m² on both sides, the table's own row kept
 		{wavelength: 1450, duration: 1e-3, edition: 2014 as Edition, row: '1 ms–10 s', H: 5600 * 10 ** -0.75}, // IEC-2007 handout (seen)
 		{wavelength: 10600, duration: 1e-7, edition: 2014 as Edition, row: '100 ns–10 s', H: 5600 * 10 ** -1.75}, // IEC-2007 handout (seen)
-		{wavelength: 1450, duration: 10, edition: 2014 as Edition, row: '10 s–3×10⁴ s', H: 1e4}, // from memory (high)
+		{wavelength: 1450, duration: 10, edition: 2014 as Edition, row: '1 ms–10 s', H: 5600 * 10 ** 0.25}, // IEC-2007 handout (seen): 5600·10^0.25 = 9958.4 below; 1000 W/m²·10 s above (from memory, high)
 	];
-	it.each(onBreakpoint)('$wavelength nm at exactly $duration s [edition $edition] is on the longer row', ({wavelength, duration, edition, row, H}) => {
+	it.each(onBreakpoint)('$wavelength nm at exactly $duration s [edition $edition] takes the lower row', ({wavelength, duration, edition, row, H}) => {
 		const result = ocularMpe(wavelength, duration, edition);
 		expect(result.limit).toContain(row);
 		expect(off(result.radiantExposure, H)).toBeLessThan(1e-9);
@@ -310,17 +319,17 @@ const picosecond2014 = 2e-3 / 1.5e-4; // 13.33 (2014 rows from memory)
 const bands: Band[] = [
 	{name: '180–302.5 nm', from: 180, to: 302.4, shortest: 1e-9, editions: both, hFalls: [], eRises: []},
 	{name: '302.5–315 nm', from: 302.6, to: 314.9, shortest: 1e-9, editions: both, hFalls: [], eRises: [{at: (wavelength) => 10 ** (0.8 * (wavelength - 295)) * 1e-15, factor: uvT1}]},
-	{name: '315–400 nm', from: 315, to: 399.9, shortest: 1e-9, editions: both, hFalls: [], eRises: [{at: 10, factor: tenSecondsCornea}]},
-	{name: '400–700 nm (2014)', from: 400, to: 699.9, shortest: 1e-13, editions: [2014], hFalls: [{at: 5e-6, factor: visible2014}, {at: 10, factor: tenSecondsRetinal}], eRises: [{at: 1e-11, factor: picosecond2014}]},
-	{name: '400–700 nm (2007)', from: 400, to: 699.9, shortest: 1e-13, editions: [2007], hFalls: [{at: 1.8e-5, factor: visible2007}, {at: 10, factor: tenSecondsRetinal}], eRises: [{at: 1e-11, factor: picosecond2007}, {at: 1e-9, factor: nanosecond2007}]},
-	{name: '700–1050 nm (2014)', from: 700, to: 1049.9, shortest: 1e-13, editions: [2014], hFalls: [{at: 5e-6, factor: visible2014}, {at: 10, factor: tenSecondsRetinal}], eRises: [{at: 1e-11, factor: picosecond2014}]},
-	{name: '700–1050 nm (2007)', from: 700, to: 1049.9, shortest: 1e-13, editions: [2007], hFalls: [{at: 1.8e-5, factor: visible2007}, {at: 10, factor: tenSecondsRetinal}], eRises: [{at: 1e-11, factor: picosecond2007}, {at: 1e-9, factor: nanosecond2007}]},
-	{name: '1050–1400 nm (2014)', from: 1050, to: 1400, shortest: 1e-13, editions: [2014], hFalls: [{at: 1.3e-5, factor: nir2014}, {at: 10, factor: tenSecondsRetinal}], eRises: [{at: 1e-11, factor: picosecond2014}]},
-	{name: '1050–1400 nm (2007)', from: 1050, to: 1400, shortest: 1e-13, editions: [2007], hFalls: [{at: 10, factor: tenSecondsRetinal}], eRises: [{at: 1e-11, factor: picosecond2007}, {at: 1e-9, factor: nanosecond2007}, {at: 5e-5, factor: nir2007}]},
+	{name: '315–400 nm', from: 315.1, to: 399.9, shortest: 1e-9, editions: both, hFalls: [], eRises: [{at: 10, factor: tenSecondsCornea}]},
+	{name: '400–700 nm (2014)', from: 400.1, to: 699.9, shortest: 1e-13, editions: [2014], hFalls: [{at: 5e-6, factor: visible2014}, {at: 10, factor: tenSecondsRetinal}], eRises: [{at: 1e-11, factor: picosecond2014}]},
+	{name: '400–700 nm (2007)', from: 400.1, to: 699.9, shortest: 1e-13, editions: [2007], hFalls: [{at: 1.8e-5, factor: visible2007}, {at: 10, factor: tenSecondsRetinal}], eRises: [{at: 1e-11, factor: picosecond2007}, {at: 1e-9, factor: nanosecond2007}]},
+	{name: '700–1050 nm (2014)', from: 700.1, to: 1049.9, shortest: 1e-13, editions: [2014], hFalls: [{at: 5e-6, factor: visible2014}, {at: 10, factor: tenSecondsRetinal}], eRises: [{at: 1e-11, factor: picosecond2014}]},
+	{name: '700–1050 nm (2007)', from: 700.1, to: 1049.9, shortest: 1e-13, editions: [2007], hFalls: [{at: 1.8e-5, factor: visible2007}, {at: 10, factor: tenSecondsRetinal}], eRises: [{at: 1e-11, factor: picosecond2007}, {at: 1e-9, factor: nanosecond2007}]},
+	{name: '1050–1400 nm (2014)', from: 1050.1, to: 1399.9, shortest: 1e-13, editions: [2014], hFalls: [{at: 1.3e-5, factor: nir2014}, {at: 10, factor: tenSecondsRetinal}], eRises: [{at: 1e-11, factor: picosecond2014}]},
+	{name: '1050–1400 nm (2007)', from: 1050.1, to: 1399.9, shortest: 1e-13, editions: [2007], hFalls: [{at: 10, factor: tenSecondsRetinal}], eRises: [{at: 1e-11, factor: picosecond2007}, {at: 1e-9, factor: nanosecond2007}, {at: 5e-5, factor: nir2007}]},
 	{name: '1400–1500 nm', from: 1400.1, to: 1499.9, shortest: 1e-9, editions: both, hFalls: [{at: 1e-3, factor: millisecondCornea}], eRises: [{at: 10, factor: tenSecondsCornea}]},
-	{name: '1500–1800 nm', from: 1500, to: 1799.9, shortest: 1e-9, editions: both, hFalls: [], eRises: []},
-	{name: '1800–2600 nm', from: 1800, to: 2599.9, shortest: 1e-9, editions: both, hFalls: [{at: 1e-3, factor: millisecondCornea}], eRises: [{at: 10, factor: tenSecondsCornea}]},
-	{name: '2600 nm–1 mm', from: 2600, to: 1e6, shortest: 1e-9, editions: both, hFalls: [{at: 1e-7, factor: millisecondCornea}], eRises: [{at: 10, factor: tenSecondsCornea}]},
+	{name: '1500–1800 nm', from: 1500.1, to: 1799.9, shortest: 1e-9, editions: both, hFalls: [], eRises: []},
+	{name: '1800–2600 nm', from: 1800.1, to: 2599.9, shortest: 1e-9, editions: both, hFalls: [{at: 1e-3, factor: millisecondCornea}], eRises: [{at: 10, factor: tenSecondsCornea}]},
+	{name: '2600 nm–1 mm', from: 2600.1, to: 1e6, shortest: 1e-9, editions: both, hFalls: [{at: 1e-7, factor: millisecondCornea}], eRises: [{at: 10, factor: tenSecondsCornea}]},
 ];
 
 const bandCases = bands.flatMap((band) => band.editions.map((edition) => ({...band, edition})));
@@ -425,16 +434,20 @@ describe('ocular MPE refusals', () => {
 		expect(ocularMpe(180, 1e-9).radiantExposure).toBe(30); // IEC-2007 handout (seen)
 		expect(ocularMpe(1e6, 3e4).irradiance).toBe(1000); // from memory (high)
 		expect(ocularMpe(532, 1e-13, 2007).radiantExposure).toBe(1.5e-4); // IEC-2007 handout (seen)
-		expect(ocularMpe(1400, 1e-13, 2007).limit).toContain('retinal'); // 1400 nm is still retinal, so 10⁻¹³ s is covered
+		expect(ocularMpe(1399.9, 1e-13, 2007).limit).toContain('retinal'); // below 1400 nm the retinal rows cover 10⁻¹³ s
+		// exactly on 1400 nm both sides count, and the corneal rows start at 10⁻⁹ s (IEC-2007 handout, seen): refused
+		expect(() => ocularMpe(1400, 1e-13, 2007)).toThrow(NotCoveredError);
 	});
 });
 
 describe('limiting aperture', () => {
 	// prettier-ignore
 	const apertures = [
-		{wavelength: 400, duration: 0.25, metres: 7e-3}, // IEC/ANSI 7 mm for 400–1400 nm (from memory, high)
+		{wavelength: 400.1, duration: 0.25, metres: 7e-3}, // IEC/ANSI 7 mm for 400–1400 nm (from memory, high)
+		{wavelength: 400, duration: 0.25, metres: 1e-3}, // on the 400 nm edge the smaller of 1 mm (UV) and 7 mm: more exposure per area, the safer side
 		{wavelength: 532, duration: 100, metres: 7e-3}, // same
-		{wavelength: 1400, duration: 1, metres: 7e-3}, // same
+		{wavelength: 1399.9, duration: 1, metres: 7e-3}, // same
+		{wavelength: 1400, duration: 1, metres: 1.5e-3}, // on the 1400 nm edge the smaller of 7 mm and 1.5·1^(3/8) = 1.5 mm (far IR, from memory)
 		{wavelength: 180, duration: 1, metres: 1e-3}, // 1 mm for 180–400 nm (from memory, high)
 		{wavelength: 355, duration: 3e4, metres: 1e-3}, // same
 		{wavelength: 1550, duration: 1e-9, metres: 1e-3}, // far IR: 1 mm for t ≤ 0.35 s (IEC, from memory, medium–high)

@@ -8,7 +8,7 @@ const nm = 1e-9;
 // walks the whole table, its boundaries and its monotonicity.
 const cases = [
 	{name: '532 nm, 0.25 s', wavelength: 532 * nm, duration: 0.25, edition: 2014, irradiance: 25.4558, exposure: 6.36396}, // FoS-2015 and IEC-2007 handout (seen): H = 18·t^0.75 J/m², the well-known ≈25 W/m² (2.55 mW/cm²)
-	{name: '1064 nm, 1 ns, 2007 edition', wavelength: 1064 * nm, duration: 1e-9, edition: 2007, irradiance: 5e7, exposure: 0.05}, // training booklet OD example (seen): MPE 5×10⁻⁶ J/cm² = 0.05 J/m² (IEC 60825-1:2007)
+	{name: '1064 nm, 2 ns, 2007 edition', wavelength: 1064 * nm, duration: 2e-9, edition: 2007, irradiance: 2.5e7, exposure: 0.05}, // training booklet OD example (seen): MPE 5×10⁻⁶ J/cm² = 0.05 J/m² (IEC 60825-1:2007), its 10⁻⁹–5×10⁻⁵ s row taken inside, at 2 ns
 	{name: '450 nm, 1000 s, photochemical', wavelength: 450 * nm, duration: 1000, edition: 2014, irradiance: 1, exposure: 1000}, // IEC-2007 handout (seen): E = 1·C_B W/m², C_B = 1 at 450 nm
 	{name: '633 nm, 1000 s, thermal', wavelength: 633 * nm, duration: 1000, edition: 2014, irradiance: 10, exposure: 1e4}, // EU-AOR Table 2.3 / ANSI Z136.1-2014 (from memory, high): 1.0 mW/cm²
 	{name: '1064 nm, 100 s', wavelength: 1064 * nm, duration: 100, edition: 2014, irradiance: 50, exposure: 5000}, // ANSI Z136.1 (from memory, high): 5.0·C_C mW/cm² for 1050–1400 nm
