@@ -1,5 +1,7 @@
 import {fillPlaceholders} from '../problems.js';
 import {isQuantity} from '../quantities/engine.js';
+import {asDeclared} from '../quantities/dimension-value.js';
+import {alignTemperatures, isTemperature} from '../quantities/temperature-kind.js';
 import {MissingValueError} from '../quantities/expression-evaluate.js';
 import type {Answers} from './answers.js';
 import type {CompiledCheck, CompiledRules} from './compiled-rules.js';
@@ -69,8 +71,9 @@ export function evaluate(rules: CompiledRules, answers: Answers): Evaluation {
 	for (const {derived: entry, formula} of rules.derived) {
 		const result = compute(formula);
 		if (result.ok && isFiniteResult(result.value)) {
-			scope.set(entry.id, result.value);
-			derived.push({id: entry.id, label: entry.label, status: 'value', value: toShown(result.value, entry.dimension)});
+			const value = asDeclared(result.value, entry.dimension);
+			scope.set(entry.id, value);
+			derived.push({id: entry.id, label: entry.label, status: 'value', value: toShown(value, entry.dimension)});
 		} else if (!result.ok && result.needs) {
 			missing.set(entry.id, result.needs);
 			derived.push({id: entry.id, label: entry.label, status: 'open', needs: result.needs});
@@ -148,8 +151,15 @@ function judge(compiled: CompiledCheck, compute: (formula: CompiledFormula) => C
 		const message = fill({});
 		return {...base, verdict: notHeld, ...(message ? {message} : {})};
 	}
-	const [valueRaw, limitRaw] = results.map(({result}) => (result as {value: unknown}).value);
-	const dimension = inferDimension(valueRaw, check.dimension);
+	let [valueRaw, limitRaw] = results.map(({result}) => (result as {value: unknown}).value);
+	if (isTemperature(valueRaw) && isTemperature(limitRaw)) {
+		try {
+			[valueRaw, limitRaw] = alignTemperatures(valueRaw, limitRaw, 'the value and the limit are');
+		} catch (error) {
+			return failWith(classifyError(error).detail);
+		}
+	}
+	const dimension = inferDimension(valueRaw, check.dimension, limitRaw);
 	if (!dimension || !isFiniteResult(valueRaw) || !isFiniteResult(limitRaw)) return failWith('the value or the limit is not a finite number');
 	const value = toShown(valueRaw, dimension);
 	const limit = toShown(limitRaw, dimension);

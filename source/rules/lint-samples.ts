@@ -1,4 +1,6 @@
 import {dimensions} from '../quantities/dimensions.js';
+import {asDeclared} from '../quantities/dimension-value.js';
+import {alignTemperatures, isTemperature} from '../quantities/temperature-kind.js';
 import {isQuantity} from '../quantities/engine.js';
 import {hasDimension} from '../quantities/parse-quantity.js';
 import {problem, type Problem} from '../problems.js';
@@ -79,7 +81,7 @@ export function lintWithSamples(rules: CompiledRules, where: Where): Problem[] {
 		const fits = hasDimension(result.value, derived.dimension);
 		if (!fits) failed.add(derived.id);
 		if (!fits) problems.push(problem('wrong-dimension', {what: `derived value "${derived.id}"`, expected: info.noun, received: describeResult(result.value)}, where(path, undefined, formula.text)));
-		else scope.set(derived.id, result.value);
+		else scope.set(derived.id, asDeclared(result.value, derived.dimension));
 	}
 	const stepIndex = new Map(rules.rules.steps.map((step, index) => [step.id, index]));
 	for (const {input, step, when} of rules.inputs.values()) {
@@ -102,6 +104,14 @@ export function lintWithSamples(rules: CompiledRules, where: Where): Problem[] {
 		if (!comparable) {
 			problems.push(problem('compare-mismatch', {value: describeResult(value.value), limit: describeResult(limit.value)}, where(['checks', index, compiled.relation], undefined, check.at_most ?? check.at_least)));
 			return;
+		}
+		if (isTemperature(value.value) && isTemperature(limit.value)) {
+			try {
+				alignTemperatures(value.value, limit.value, 'the value and the limit are');
+			} catch (error) {
+				problems.push(problem('temperature-kind-mismatch', {detail: classifyError(error).detail}, where(['checks', index, compiled.relation], undefined, check.at_most ?? check.at_least)));
+				return;
+			}
 		}
 		if (check.dimension) {
 			const info = dimensions[check.dimension];

@@ -1,11 +1,10 @@
-import {dimensions, type Dimension} from '../quantities/dimensions.js';
-import {quantity} from '../quantities/engine.js';
+import type {Dimension} from '../quantities/dimensions.js';
+import {formulaValueOf} from '../quantities/dimension-value.js';
 import type {SiValue} from './compiled-rules.js';
 
-/** The value a formula sees for an SI number of a dimension: a unit value, or a plain number. */
+/** The value a formula sees for an SI number of a dimension: a unit value (a temperature of its kind), or a plain number. */
 export function toFormulaValue(value: SiValue): unknown {
-	const si = dimensions[value.dimension].si;
-	return si === '' ? value.si : quantity(value.si, si);
+	return formulaValueOf(value.si, value.dimension);
 }
 
 /** A representative value inside a range, for linting formulas with sample inputs. */
