@@ -60,6 +60,11 @@ function compare(op: string, left: FormulaValue, right: FormulaValue): boolean {
 	}
 	if (isTemperature(left) && isTemperature(right)) [left, right] = alignTemperatures(left, right, 'cannot compare');
 	const [a, b] = sameDimension(left, right, 'cannot compare');
+	// NaN compares false both ways, so `not (NaN > limit)` would read as true: refuse to decide.
+	if (!Number.isFinite(a.value) || !Number.isFinite(b.value)) {
+		const side = !Number.isFinite(a.value) ? `the left side (${describeNumber(a.value)})` : `the right side (${describeNumber(b.value)})`;
+		throw new EvaluationError('not-finite', `cannot compare with ${op}: ${side} is not a finite number`);
+	}
 	const tolerance = comparisonTolerance * Math.max(Math.abs(a.value), Math.abs(b.value));
 	const difference = a.value - b.value;
 	switch (op) {
@@ -76,6 +81,10 @@ function compare(op: string, left: FormulaValue, right: FormulaValue): boolean {
 		default:
 			return Math.abs(difference) > tolerance;
 	}
+}
+
+function describeNumber(value: number): string {
+	return Number.isNaN(value) ? 'not a number, as from 0/0' : value > 0 ? 'infinite' : 'minus infinite';
 }
 
 function truth(value: FormulaValue, what: string): boolean {
@@ -119,6 +128,12 @@ function positiveLog(value: number, fn: (x: number) => number, name: string): nu
 
 function extreme(given: FormulaValue[], name: string, better: (a: number, b: number) => boolean): FormulaValue {
 	const args = alignAll(given, `${name}() cannot mix`);
+	// A value that is not finite wins, so the comparison that uses the result refuses to decide.
+	const notFinite = args.find((arg) => !Number.isFinite(parts(arg)?.value ?? 0));
+	if (notFinite !== undefined) {
+		for (const candidate of args) sameDimension(candidate, notFinite, `${name}() cannot mix`);
+		return notFinite;
+	}
 	let best = args[0]!;
 	for (const candidate of args.slice(1)) {
 		const [a, b] = sameDimension(candidate, best, `${name}() cannot mix`);
