@@ -71,7 +71,8 @@ export function lintWithSamples(rules: CompiledRules, where: Where): Problem[] {
 		formula.parts.forEach((part, index) => {
 			if (part.pairedWith === undefined) return;
 			const [a, b] = [results[index], results[part.pairedWith]];
-			const same = (isQuantity(a) && isQuantity(b) && a.equalBase(b)) || (typeof a === typeof b && !isQuantity(a) && !isQuantity(b));
+			const pointAndStep = isTemperature(a) && isTemperature(b) && a.kind !== undefined && b.kind !== undefined && a.kind !== b.kind;
+			const same = (isQuantity(a) && isQuantity(b) && a.equalBase(b) && !pointAndStep) || (typeof a === typeof b && !isQuantity(a) && !isQuantity(b));
 			if (!same) problems.push(problem('dimension-mismatch', {detail: `the two branches of a ? b : c differ: ${describeResult(a)} and ${describeResult(b)}`}, where(path, undefined, formula.text)));
 		});
 		return {ok: true, value: tried.value};

@@ -152,3 +152,25 @@ add_checks:
 		expect(check.message).toBe('The spread 125 K is too wide.');
 	});
 });
+
+describe('branches and calls that mix points and steps', () => {
+	it('a ? b : c with an absolute temperature in one branch and a difference in the other is a load-time error', () => {
+		const loaded = loadRulesFromText(site('20 K', '"ambient_max > diode_temperature_min ? ambient_max - diode_temperature_min : ambient_max"'), 'site.yaml');
+		expect(loaded.ok).toBe(false);
+		if (!loaded.ok) expect(loaded.errors.map((entry) => entry.code)).toContain('dimension-mismatch');
+	});
+
+	it('a calculation refuses a difference where it needs an absolute temperature, naming what it got', () => {
+		const text = `format: 1
+extends: shipped
+add_derived:
+  - id: cold_threshold
+    label: Threshold with a spread passed as the temperature
+    dimension: current
+    formula: threshold(diode_threshold, diode_threshold_temperature, diode_t0, ambient_max - diode_temperature_min)
+`;
+		const loaded = loadRulesFromText(text, 'site.yaml');
+		expect(loaded.ok).toBe(false);
+		if (!loaded.ok) expect(loaded.errors.map((entry) => String(entry.data?.['detail']))).toEqual([expect.stringContaining('must be a temperature')]);
+	});
+});
