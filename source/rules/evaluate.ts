@@ -130,7 +130,8 @@ function judge(compiled: CompiledCheck, compute: (formula: CompiledFormula) => C
 
 	if (compiled.when) {
 		const condition = compute(compiled.when);
-		if (!condition.ok) return condition.needs ? {...base, verdict: 'open', needs: condition.needs} : failWith(condition.error);
+		// A condition that cannot be decided (a non-finite operand, a failed value) fails the check: it is never skipped.
+		if (!condition.ok) return condition.needs ? {...base, verdict: 'open', needs: condition.needs} : failWith(`its condition (when) cannot be decided: ${condition.error}`);
 		if (condition.value !== true) return {...base, verdict: 'skip'};
 	}
 	const formulas = [compiled.holds, compiled.value, compiled.limit].filter((formula): formula is CompiledFormula => formula !== undefined);

@@ -43,6 +43,10 @@ describe('temperature differences typed in degC or degF', () => {
 		// The coldest case at −30 °C with T0 = 60 K: 450 mA × exp(−55/60) ≈ 180 mA at the cold (hand arithmetic).
 		const kelvin = evaluateDocument(rules, withChanges(demo, {diode_t0: '60 K', diode_temperature_min: '-30 degC'}));
 		const celsius = evaluateDocument(rules, withChanges(demo, {diode_t0: '60 degC', diode_temperature_min: '-30 degC'}));
+		// hand arithmetic: I_th(−30 °C) = 450 mA × exp(−55/60) = 179.9 mA; P = 1.1 W/A × (2 A − 0.1799 A) = 2.002 W > 2 W,
+		// so the cold-power check stops; T0 misread as 333.15 K gave 1.1 × (2 − 0.3816) = 1.78 W and cleared.
+		expect(checkResult(kelvin, 'cold_power_at_limit').verdict).toBe('fail');
+		expect(kelvin.outcome).toBe('do_not_energize');
 		expect(celsius.outcome).toBe(kelvin.outcome);
 		expect(celsius.checks.map((check) => check.verdict)).toEqual(kelvin.checks.map((check) => check.verdict));
 	});
