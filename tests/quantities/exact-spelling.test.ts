@@ -1,5 +1,10 @@
-import {describe, expect, it} from 'vitest';
+import {mkdtempSync, rmSync, writeFileSync} from 'node:fs';
+import {tmpdir} from 'node:os';
+import {join} from 'node:path';
+import {afterAll, describe, expect, it} from 'vitest';
 import {stringify} from 'yaml';
+import {main} from '../../source/cli.js';
+import {fakeIo} from '../helpers/fake-io.js';
 import {findCalculation} from '../../source/calculations/registry.js';
 import {runCalculation} from '../../source/calculations/run-calculation.js';
 import type {Dimension} from '../../source/quantities/dimensions.js';
@@ -71,5 +76,50 @@ describe('every spelling of a value gives the same double', () => {
 	it('a negative literal in degC is the temperature below zero (−20 °C = 253.15 K)', () => {
 		const value = evaluateExpression(parseExpression('-20 degC'), new Map());
 		expect(isQuantity(value) && value.value).toBe(253.15); // SI Brochure 2.3.1: −20 + 273.15
+	});
+});
+
+describe('the commands see the same double for every spelling', () => {
+	const folder = mkdtempSync(join(tmpdir(), 'prelase-spelling-'));
+	afterAll(() => rmSync(folder, {recursive: true, force: true}));
+
+	/** `prelase check --answers FILE --json` on the clearing demo with some inputs re-spelled. */
+	const checkJson = (changes: Record<string, string>) => {
+		const file = join(folder, `${Object.values(changes).join('-').replaceAll(/[^\w.-]/g, '_')}.yaml`);
+		writeFileSync(file, stringify(withChanges(readDemo('bench3-808nm-clear.yaml'), changes)));
+		const io = fakeIo();
+		const code = main(['check', '--answers', file, '--json'], io);
+		const json = JSON.parse(io.stdout.text) as {outcome: string; checks: unknown[]; inputs: Record<string, {si?: number}>};
+		const si = Object.fromEntries(Object.entries(json.inputs).map(([id, entry]) => [id, entry.si]));
+		return {code, outcome: json.outcome, checks: json.checks, si};
+	};
+
+	it('check --answers --json gives the same inputs, outcome and checks for values spelled three ways', () => {
+		const reference = checkJson({diode_threshold: '450 mA', sense_resistance: '100 mohm', ambient_max: '35 degC', beam2_wavelength: '650 nm'});
+		// SI Brochure Table 7 (prefixes) and 2.3.1 (35 °C = 308.15 K); NIST SP 811 B.9 ((95 + 459.67)/1.8 = 308.15 K)
+		for (const changes of [
+			{diode_threshold: '450000 uA', sense_resistance: '100000 uohm', ambient_max: '95 degF', beam2_wavelength: '0.65 um'},
+			{diode_threshold: '4.5e-1 A', sense_resistance: '1e-1 ohm', ambient_max: '308.15 K', beam2_wavelength: '6.5e-7 m'},
+		]) {
+			const respelled = checkJson(changes);
+			expect(respelled.si).toEqual(reference.si);
+			expect(respelled.code).toBe(reference.code);
+			expect(respelled.outcome).toBe(reference.outcome);
+			expect(respelled.checks).toEqual(reference.checks);
+		}
+	});
+
+	it('calc headroom gives the same inputs and outputs for 100 mohm, 100000 uohm and 0.1 ohm', () => {
+		const outputs = ['100 mohm', '100000 uohm', '0.1 ohm', '1e-4 kohm'].map((sense) => {
+			const io = fakeIo();
+			main(['calc', 'headroom', 'supply=5V', 'tolerance=5%', 'cable_resistance=50mohm', `sense_resistance=${sense}`, 'driver_drop=0.8V', 'forward_voltage=1.9V', 'current=2A', '--json'], io);
+			return io.stdout.text;
+		});
+		expect(outputs[0]).toMatch(/"outputs"/);
+		const [first, ...others] = outputs.map((output) => JSON.parse(output) as {inputs: Record<string, {si: number}>; outputs: unknown});
+		for (const other of others) {
+			expect(other.inputs['sense_resistance']!.si).toBe(0.1); // SI Brochure Table 7
+			expect(other.outputs).toEqual(first!.outputs);
+		}
 	});
 });
