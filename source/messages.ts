@@ -26,6 +26,8 @@ export const messages = {
 	'wrong-dimension': 'the {{what}} should be {{expected}} but the formula gives {{received}}',
 	'compare-mismatch': 'the value is {{value}} but the limit is {{limit}}; they must have the same dimension',
 	'formula-failed': 'the formula fails on sample values: {{detail}}',
+	'temperature-kind-mismatch': 'the formula mixes temperatures: {{detail}}',
+	'formula-not-finite': 'the formula can only give a value that is not a finite number: {{detail}}; a comparison with it would never be decided',
 	'formula-syntax': 'the formula cannot be read: {{detail}}',
 	'formula-comment': 'the text after "#" is a YAML comment and not part of the formula; quote the formula or move the comment to its own line',
 	'missing-step': 'the step "{{step}}" does not exist; steps are {{allowed}}',

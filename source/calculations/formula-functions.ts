@@ -1,5 +1,6 @@
 import {dimensions} from '../quantities/dimensions.js';
-import {quantity, toUnit, type Quantity} from '../quantities/engine.js';
+import type {Quantity} from '../quantities/engine.js';
+import {formulaValueOf, siOf} from '../quantities/dimension-value.js';
 import {hasDimension} from '../quantities/parse-quantity.js';
 import {checkAllowed, formulaName, type Calculation} from './calculation.js';
 import {calculations} from './registry.js';
@@ -33,7 +34,7 @@ function toSi(calculation: Calculation, args: unknown[]): Record<string, number>
 			values[key] = arg;
 		} else {
 			if (!hasDimension(arg, input.dimension)) throw new FormulaCallError(`${name}(): argument ${index + 1} (${key}) must be ${info.noun}`);
-			values[key] = toUnit(arg as Quantity, info.si);
+			values[key] = siOf(arg as Quantity, input.dimension);
 		}
 	});
 	for (const key of keys.slice(args.length)) {
@@ -46,13 +47,12 @@ function toSi(calculation: Calculation, args: unknown[]): Record<string, number>
 /** The function a rule formula calls for a calculation: its main output as a unit value. */
 function asFormulaFunction(calculation: Calculation) {
 	const output = calculation.outputs[calculation.main]!;
-	const si = dimensions[output.dimension].si;
 	return (...args: unknown[]) => {
 		const values = toSi(calculation, args);
 		checkAllowed(calculation, values);
 		const result = calculation.compute(values)[calculation.main];
 		if (result === undefined) throw new FormulaCallError(`${formulaName(calculation)}() needs more arguments to give ${calculation.main}`);
-		return si === '' ? result : quantity(result, si);
+		return formulaValueOf(result, output.dimension);
 	};
 }
 

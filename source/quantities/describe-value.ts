@@ -12,6 +12,7 @@ export function describeValue(value: unknown): string {
 	if (typeof value === 'number') return 'a plain number';
 	if (typeof value === 'string') return 'text';
 	if (isQuantity(value)) {
+		if (value.kind === 'difference') return 'a temperature difference';
 		const known = nouns.find((entry) => sameExponents(entry.exponents, value.exponents));
 		if (known) return known.noun;
 		if (sameExponents(value.exponents, parseUnitExpression('C')!.exponents)) return 'a charge';

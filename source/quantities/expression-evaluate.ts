@@ -2,16 +2,11 @@ import {combine, isQuantity, quantityOrNumber, scale, dimensionless, Quantity, t
 import type {ExpressionNode} from './expression-syntax.js';
 import {findUnit} from './units.js';
 import {describeValue} from './describe-value.js';
+import {EvaluationError} from './evaluation-error.js';
+import {siFromDecimal} from './exact-scale.js';
+import {absoluteValueOfTemperature, addTemperatures, alignTemperatures, isTemperature, kelvinValue, negateTemperature, scaleTemperature, subtractTemperatures} from './temperature-kind.js';
 
-/** Why a formula could not be evaluated: a dimension clash, or another failure. */
-export class EvaluationError extends Error {
-	constructor(
-		readonly code: 'dimension-mismatch' | 'formula-failed',
-		readonly detail: string,
-	) {
-		super(detail);
-	}
-}
+export {EvaluationError};
 
 /**
  * A name with no value in the scope (an input not given): the caller decides what that means.
@@ -63,7 +58,13 @@ function compare(op: string, left: FormulaValue, right: FormulaValue): boolean {
 		if (typeof left !== 'boolean' || typeof right !== 'boolean' || (op !== '==' && op !== '!=')) throw new EvaluationError('dimension-mismatch', 'true/false can only be compared with true/false, using == or !=');
 		return op === '==' ? left === right : left !== right;
 	}
+	if (isTemperature(left) && isTemperature(right)) [left, right] = alignTemperatures(left, right, 'cannot compare');
 	const [a, b] = sameDimension(left, right, 'cannot compare');
+	// NaN compares false both ways, so `not (NaN > limit)` would read as true: refuse to decide.
+	if (!Number.isFinite(a.value) || !Number.isFinite(b.value)) {
+		const side = !Number.isFinite(a.value) ? `the left side (${describeNumber(a.value)})` : `the right side (${describeNumber(b.value)})`;
+		throw new EvaluationError('not-finite', `cannot compare with ${op}: ${side} is not a finite number`);
+	}
 	const tolerance = comparisonTolerance * Math.max(Math.abs(a.value), Math.abs(b.value));
 	const difference = a.value - b.value;
 	switch (op) {
@@ -82,6 +83,10 @@ function compare(op: string, left: FormulaValue, right: FormulaValue): boolean {
 	}
 }
 
+function describeNumber(value: number): string {
+	return Number.isNaN(value) ? 'not a number, as from 0/0' : value > 0 ? 'infinite' : 'minus infinite';
+}
+
 function truth(value: FormulaValue, what: string): boolean {
 	if (typeof value !== 'boolean') throw new EvaluationError('dimension-mismatch', `${what} needs true or false, got ${describeValue(value)}`);
 	return value;
@@ -97,6 +102,7 @@ const builtins: Record<string, (args: FormulaValue[]) => FormulaValue> = {
 	min: (args) => extreme(args, 'min', (a, b) => a < b),
 	max: (args) => extreme(args, 'max', (a, b) => a > b),
 	abs: ([value]) => {
+		if (isTemperature(value)) return absoluteValueOfTemperature(value);
 		const found = numeric(value!, 'abs()');
 		return quantityOrNumber(Math.abs(found.value), found.exponents);
 	},
@@ -120,7 +126,14 @@ function positiveLog(value: number, fn: (x: number) => number, name: string): nu
 	return fn(value);
 }
 
-function extreme(args: FormulaValue[], name: string, better: (a: number, b: number) => boolean): FormulaValue {
+function extreme(given: FormulaValue[], name: string, better: (a: number, b: number) => boolean): FormulaValue {
+	const args = alignAll(given, `${name}() cannot mix`);
+	// A value that is not finite wins, so the comparison that uses the result refuses to decide.
+	const notFinite = args.find((arg) => !Number.isFinite(parts(arg)?.value ?? 0));
+	if (notFinite !== undefined) {
+		for (const candidate of args) sameDimension(candidate, notFinite, `${name}() cannot mix`);
+		return notFinite;
+	}
 	let best = args[0]!;
 	for (const candidate of args.slice(1)) {
 		const [a, b] = sameDimension(candidate, best, `${name}() cannot mix`);
@@ -130,9 +143,19 @@ function extreme(args: FormulaValue[], name: string, better: (a: number, b: numb
 	return best;
 }
 
-function measure(value: number, unit: string): FormulaValue {
-	const definition = findUnit(unit)!;
-	return quantityOrNumber(value * definition.factor + (definition.offset ?? 0), definition.exponents);
+/** Temperatures among the arguments made comparable with each other (literals read as differences beside a difference). */
+function alignAll(args: FormulaValue[], what: string): FormulaValue[] {
+	const temperatures = args.filter(isTemperature);
+	if (temperatures.length < 2) return args;
+	const anchor = temperatures.find((value) => value.kind === 'difference') ?? temperatures.find((value) => value.kind === 'absolute') ?? temperatures[0]!;
+	return args.map((value) => (isTemperature(value) ? alignTemperatures(value, anchor, what)[0] : value));
+}
+
+function measure(text: string, unit: string): FormulaValue {
+	const definition = {offset: 0, ...findUnit(unit)!};
+	// A number typed in degC or degF carries both readings until what it meets decides.
+	if (definition.scale) return new Quantity(siFromDecimal(text, definition, 'absolute'), definition.exponents, undefined, siFromDecimal(text, definition, 'difference'));
+	return quantityOrNumber(siFromDecimal(text, definition), definition.exponents);
 }
 
 /** Evaluates a parsed formula against a scope of values and functions. */
@@ -143,7 +166,7 @@ export function evaluateExpression(node: ExpressionNode, scope: Scope): FormulaV
 		case 'boolean':
 			return node.value;
 		case 'measure':
-			return measure(node.value, node.unit);
+			return measure(node.text, node.unit);
 		case 'group':
 			return evaluateExpression(node.inner, scope);
 		case 'name': {
@@ -168,6 +191,7 @@ export function evaluateExpression(node: ExpressionNode, scope: Scope): FormulaV
 			const value = evaluateExpression(node.arg, scope);
 			if (node.op === 'not') return !truth(value, 'not');
 			const found = numeric(value, `unary ${node.op}`);
+			if (node.op === '-' && isTemperature(value)) return negateTemperature(value);
 			return node.op === '-' ? quantityOrNumber(-found.value, found.exponents) : value;
 		}
 		case 'conditional':
@@ -175,6 +199,20 @@ export function evaluateExpression(node: ExpressionNode, scope: Scope): FormulaV
 		case 'binary':
 			return binary(node.op, node.left, node.right, scope);
 	}
+}
+
+function product(op: '*' | '/', left: FormulaValue, right: FormulaValue): FormulaValue {
+	const a = numeric(left, op === '*' ? 'multiplying' : 'dividing');
+	const b = numeric(right, op === '*' ? 'multiplying' : 'dividing');
+	const value = op === '*' ? a.value * b.value : a.value / b.value;
+	const exponents = combine(a.exponents, b.exponents, op === '*' ? 1 : -1);
+	const result = quantityOrNumber(value, exponents);
+	if (!isTemperature(result)) return result;
+	// A temperature scaled by a plain number keeps what it was; kelvin made of other quantities
+	// (K/W × W, K/s × s) is a rise, a difference.
+	if (isTemperature(left) && typeof right === 'number') return scaleTemperature(left, op === '*' ? right : 1 / right);
+	if (isTemperature(right) && typeof left === 'number' && op === '*') return scaleTemperature(right, left);
+	return kelvinValue(value, 'difference');
 }
 
 function binary(op: string, leftNode: ExpressionNode, rightNode: ExpressionNode, scope: Scope): FormulaValue {
@@ -185,15 +223,13 @@ function binary(op: string, leftNode: ExpressionNode, rightNode: ExpressionNode,
 	switch (op) {
 		case '+':
 		case '-': {
+			if (isTemperature(left) && isTemperature(right)) return op === '+' ? addTemperatures(left, right) : subtractTemperatures(left, right);
 			const [a, b] = sameDimension(left, right, op === '+' ? 'cannot add' : 'cannot subtract');
 			return quantityOrNumber(op === '+' ? a.value + b.value : a.value - b.value, a.exponents);
 		}
 		case '*':
-		case '/': {
-			const a = numeric(left, op === '*' ? 'multiplying' : 'dividing');
-			const b = numeric(right, op === '*' ? 'multiplying' : 'dividing');
-			return quantityOrNumber(op === '*' ? a.value * b.value : a.value / b.value, combine(a.exponents, b.exponents, op === '*' ? 1 : -1));
-		}
+		case '/':
+			return product(op, left, right);
 		case '^': {
 			const base = numeric(left, 'a power');
 			const exponent = plainNumber(right, 'a power (^)');

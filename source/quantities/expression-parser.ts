@@ -149,6 +149,8 @@ export function parseExpression(text: string): ExpressionNode {
 		if (isOperator('-') || isOperator('+')) {
 			const token = next();
 			const arg = unary();
+			// -20 degC is the temperature 20 degrees below zero, not the negative of 293.15 K.
+			if (token.text === '-' && arg.kind === 'measure' && !arg.text.startsWith('-')) return {...arg, value: -arg.value, text: `-${arg.text}`, at: token.at};
 			return {kind: 'unary', op: token.text as '-' | '+', arg, at: token.at, end: arg.end};
 		}
 		return power();
@@ -168,7 +170,7 @@ export function parseExpression(text: string): ExpressionNode {
 			if (peek().type === 'name' && !keywords.has(peek().text) && tokens[position + 1]?.text !== '(') {
 				const unit = next();
 				if (!isUnitName(unit.text)) throw new FormulaSyntaxError('formula-syntax', `"${unit.text}" after a number is not a unit; write ${token.text} * ${unit.text} to multiply`, unit.at);
-				return {kind: 'measure', value, unit: unit.text, at: token.at, end: unit.end};
+				return {kind: 'measure', value, text: token.text, unit: unit.text, at: token.at, end: unit.end};
 			}
 			return {kind: 'number', value, at: token.at, end: token.end};
 		}

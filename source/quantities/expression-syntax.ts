@@ -1,7 +1,7 @@
 /** A node of a parsed formula; `at` and `end` are offsets into the formula text. */
 export type ExpressionNode = {at: number; end: number} & (
 	| {kind: 'number'; value: number}
-	| {kind: 'measure'; value: number; unit: string}
+	| {kind: 'measure'; value: number; text: string; unit: string}
 	| {kind: 'string'; value: string}
 	| {kind: 'boolean'; value: boolean}
 	| {kind: 'name'; name: string}

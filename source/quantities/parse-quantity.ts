@@ -1,6 +1,7 @@
 import {dimensions, type Dimension} from './dimensions.js';
 import {describeValue} from './describe-value.js';
-import {hasUnitDimension, quantity, toUnit} from './engine.js';
+import {hasUnitDimension, quantity} from './engine.js';
+import {siFromDecimal} from './exact-scale.js';
 import {normaliseEntry} from './normalise-entry.js';
 import {isQuantity, type Quantity} from './quantity.js';
 import {parseUnitExpression} from './units.js';
@@ -24,28 +25,39 @@ export function describeDimension(value: Quantity | number): string {
 	return describeValue(value);
 }
 
-/** True when a value (a quantity, or a plain number for ratio and number) has the given dimension. */
+/**
+ * True when a value (a quantity, or a plain number for ratio and number) has the given
+ * dimension. A temperature difference is not an absolute temperature, nor the other way round;
+ * a value in K of no particular kind is either.
+ */
 export function hasDimension(value: unknown, dimension: Dimension): boolean {
 	const si = dimensions[dimension].si;
 	if (si === '') return typeof value === 'number';
-	return isQuantity(value) && hasUnitDimension(value, si);
+	if (!isQuantity(value) || !hasUnitDimension(value, si)) return false;
+	if (dimension === 'temperature') return value.kind !== 'difference';
+	if (dimension === 'temperature_difference') return value.kind !== 'absolute';
+	return true;
 }
 
 /**
  * Reads an operator's entry (`250 mA`, `0.25A`, `25 degC`, `10 %`, `1.2 Ω`) as a quantity of
- * the expected dimension. Bare numbers are accepted only for plain numbers and ratios.
+ * the expected dimension. Bare numbers are accepted only for plain numbers and ratios. A
+ * temperature difference typed in degC or degF is a difference (50 degC = 50 K, 90 degF = 50 K).
+ * Power-of-ten units are applied to the decimal text, so every spelling of a value gives the
+ * same double (`700 nm`, `0.7 um`, `7e-7 m`).
  */
 export function parseQuantity(entered: string, expected: Dimension): {ok: true; value: ParsedQuantity} | {ok: false; problem: QuantityProblem} {
 	const text = normaliseEntry(entered);
 	if (text === '') return {ok: false, problem: {code: 'entry-empty'}};
 	const number = leadingNumber.exec(text);
 	if (!number) return {ok: false, problem: {code: 'entry-not-a-number', entered}};
-	const value = Number(number[0]);
+	const numberText = number[0];
+	const value = Number(numberText);
 	const unitText = text.slice(number[0].length).trim();
 	const plain = expected === 'ratio' || expected === 'number';
 	if (unitText === '%') {
 		if (expected !== 'ratio') return {ok: false, problem: {code: 'entry-wrong-dimension', entered, expected, received: 'a percentage'}};
-		return finite(value / 100, expected, entered);
+		return finite(siFromDecimal(numberText, {factor: 0.01, exponents: [0, 0, 0, 0, 0, 0], offset: 0, decade: -2}), expected, entered);
 	}
 	if (unitText === '') {
 		if (!plain) return {ok: false, problem: {code: 'entry-missing-unit', entered, expected}};
@@ -57,7 +69,8 @@ export function parseQuantity(entered: string, expected: Dimension): {ok: true; 
 	if (!hasDimension(read, expected)) {
 		return {ok: false, problem: {code: 'entry-wrong-dimension', entered, expected, received: describeValue(read)}};
 	}
-	return finite(plain ? (read as number) : toUnit(read, dimensions[expected].si), expected, entered);
+	// Every dimension's SI unit has a factor of one, so the SI value is the entry's in that unit.
+	return finite(siFromDecimal(numberText, unit, expected === 'temperature_difference' ? 'difference' : 'absolute'), expected, entered);
 }
 
 function finite(si: number, dimension: Dimension, entered: string) {

@@ -6,7 +6,18 @@ const baseSymbols = ['m', 'kg', 's', 'A', 'K', 'rad'] as const;
 /** Exponents of a dimensionless value. */
 export const dimensionless: Exponents = [0, 0, 0, 0, 0, 0];
 
-/** A physical quantity: its value in coherent SI units and the exponents of its dimension. */
+/**
+ * What a value in kelvin stands for: a point on the temperature scale (`absolute`), or a step
+ * between two points (`difference`). Absent when the formula cannot tell (a value typed in K,
+ * the sum of two absolute temperatures).
+ */
+export type TemperatureKind = 'absolute' | 'difference';
+
+/**
+ * A physical quantity: its value in coherent SI units and the exponents of its dimension. A
+ * temperature also carries its kind; a number typed in degC or degF inside a formula carries
+ * both readings (`value` as a point, `asDifference` as a step) until what it meets decides.
+ */
 export class Quantity {
 	/** Marks quantities without instanceof across bundles. */
 	readonly type = 'Quantity';
@@ -14,6 +25,8 @@ export class Quantity {
 	constructor(
 		readonly value: number,
 		readonly exponents: Exponents,
+		readonly kind?: TemperatureKind,
+		readonly asDifference?: number,
 	) {}
 
 	/** True when both have the same dimension (the same exponents). */

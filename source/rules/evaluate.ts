@@ -1,5 +1,7 @@
 import {fillPlaceholders} from '../problems.js';
 import {isQuantity} from '../quantities/engine.js';
+import {asDeclared} from '../quantities/dimension-value.js';
+import {alignTemperatures, isTemperature} from '../quantities/temperature-kind.js';
 import {MissingValueError} from '../quantities/expression-evaluate.js';
 import type {Answers} from './answers.js';
 import type {CompiledCheck, CompiledRules} from './compiled-rules.js';
@@ -69,8 +71,9 @@ export function evaluate(rules: CompiledRules, answers: Answers): Evaluation {
 	for (const {derived: entry, formula} of rules.derived) {
 		const result = compute(formula);
 		if (result.ok && isFiniteResult(result.value)) {
-			scope.set(entry.id, result.value);
-			derived.push({...shownWith(entry), status: 'value', value: toShown(result.value, entry.dimension)});
+			const value = asDeclared(result.value, entry.dimension);
+			scope.set(entry.id, value);
+			derived.push({...shownWith(entry), status: 'value', value: toShown(value, entry.dimension)});
 		} else if (!result.ok && result.needs) {
 			missing.set(entry.id, result.needs);
 			derived.push({...shownWith(entry), status: 'open', needs: result.needs});
@@ -132,7 +135,8 @@ function judge(compiled: CompiledCheck, compute: (formula: CompiledFormula) => C
 
 	if (compiled.when) {
 		const condition = compute(compiled.when);
-		if (!condition.ok) return condition.needs ? {...base, verdict: 'open', needs: condition.needs} : failWith(condition.error);
+		// A condition that cannot be decided (a non-finite operand, a failed value) fails the check: it is never skipped.
+		if (!condition.ok) return condition.needs ? {...base, verdict: 'open', needs: condition.needs} : failWith(`its condition (when) cannot be decided: ${condition.error}`);
 		if (condition.value !== true) return {...base, verdict: 'skip', ...(check.skip_reason ? {reason: check.skip_reason} : {})};
 	}
 	const formulas = [compiled.holds, compiled.value, compiled.limit].filter((formula): formula is CompiledFormula => formula !== undefined);
@@ -153,8 +157,15 @@ function judge(compiled: CompiledCheck, compute: (formula: CompiledFormula) => C
 		const message = fill({});
 		return {...base, verdict: notHeld, ...(message ? {message} : {})};
 	}
-	const [valueRaw, limitRaw] = results.map(({result}) => (result as {value: unknown}).value);
-	const dimension = inferDimension(valueRaw, check.dimension);
+	let [valueRaw, limitRaw] = results.map(({result}) => (result as {value: unknown}).value);
+	if (isTemperature(valueRaw) && isTemperature(limitRaw)) {
+		try {
+			[valueRaw, limitRaw] = alignTemperatures(valueRaw, limitRaw, 'the value and the limit are');
+		} catch (error) {
+			return failWith(classifyError(error).detail);
+		}
+	}
+	const dimension = inferDimension(valueRaw, check.dimension, limitRaw);
 	if (!dimension || !isFiniteResult(valueRaw) || !isFiniteResult(limitRaw)) return failWith('the value or the limit is not a finite number');
 	const value = toShown(valueRaw, dimension);
 	const limit = toShown(limitRaw, dimension);

@@ -1,4 +1,4 @@
-import {isUnitName, mathConstants} from '../quantities/engine.js';
+import {isQuantity, isUnitName, mathConstants, mathFunctions} from '../quantities/engine.js';
 import {evaluateExpression} from '../quantities/expression-evaluate.js';
 import {parseExpression} from '../quantities/expression-parser.js';
 import {FormulaSyntaxError, type ExpressionNode} from '../quantities/expression-syntax.js';
@@ -88,11 +88,55 @@ export function compileFormula(text: string, names: NameTable, functions: Readon
 		}
 	};
 	visit(tree);
+	const constant = nonFiniteConstant(tree, names);
+	if (constant) {
+		const fragment = text.slice(constant.node.at, constant.node.end);
+		problems.push({code: 'formula-not-finite', data: {detail: `${fragment} is ${constant.what}`}, name: fragment});
+	}
 	if (problems.length > 0) return {ok: false, problems};
 	return {
 		ok: true,
 		formula: {text, names: used, evaluate: (scope) => evaluateExpression(tree, scope), parts: lazyParts(tree, text)},
 	};
+}
+
+/** True when a part of a formula names no input, policy value or calculation: its value is fixed. */
+function isConstant(node: ExpressionNode, names: NameTable): boolean {
+	switch (node.kind) {
+		case 'name':
+			return !names.has(node.name);
+		case 'group':
+			return isConstant(node.inner, names);
+		case 'unary':
+			return isConstant(node.arg, names);
+		case 'binary':
+			return isConstant(node.left, names) && isConstant(node.right, names);
+		case 'conditional':
+			return [node.condition, node.then, node.otherwise].every((part) => isConstant(part, names));
+		case 'call':
+			return mathFunctions.has(node.name) && node.args.every((arg) => isConstant(arg, names));
+		default:
+			return true;
+	}
+}
+
+/** The outermost fixed part of a formula that is infinite or not a number (`1 A / 0`, `0/0`, `exp(1000)`). */
+function nonFiniteConstant(node: ExpressionNode, names: NameTable): {node: ExpressionNode; what: string} | undefined {
+	if (isConstant(node, names)) {
+		try {
+			const value = evaluateExpression(node, new Map());
+			const number = typeof value === 'number' ? value : isQuantity(value) ? value.value : 0;
+			if (!Number.isFinite(number)) return {node, what: Number.isNaN(number) ? 'not a number' : 'infinite'};
+		} catch {
+			// A fixed part that fails for another reason is reported by the sample lint.
+		}
+	}
+	const children = node.kind === 'group' ? [node.inner] : node.kind === 'unary' ? [node.arg] : node.kind === 'binary' ? [node.left, node.right] : node.kind === 'conditional' ? [node.condition, node.then, node.otherwise] : node.kind === 'call' ? node.args : [];
+	for (const child of children) {
+		const found = nonFiniteConstant(child, names);
+		if (found) return found;
+	}
+	return undefined;
 }
 
 function unwrap(node: ExpressionNode): ExpressionNode {

@@ -1,7 +1,7 @@
 import {CalculationInputError} from '../calculations/calculation.js';
 import {formulaFunctions, FormulaCallError} from '../calculations/formula-functions.js';
 import {describeValue} from '../quantities/describe-value.js';
-import {EvaluationError} from '../quantities/expression-evaluate.js';
+import {EvaluationError} from '../quantities/evaluation-error.js';
 
 /** A fresh formula scope holding the calculation functions. */
 export function newScope(): Map<string, unknown> {
@@ -9,10 +9,10 @@ export function newScope(): Map<string, unknown> {
 }
 
 /** Why a formula could not be evaluated, sorted into a dimension problem or another failure. */
-export function classifyError(error: unknown): {code: 'dimension-mismatch' | 'formula-failed'; detail: string} {
+export function classifyError(error: unknown): {code: 'dimension-mismatch' | 'temperature-kind-mismatch' | 'formula-not-finite' | 'formula-failed'; detail: string} {
 	if (error instanceof FormulaCallError) return {code: 'dimension-mismatch', detail: error.detail};
 	if (error instanceof CalculationInputError) return {code: 'formula-failed', detail: error.message};
-	if (error instanceof EvaluationError) return {code: error.code, detail: error.detail};
+	if (error instanceof EvaluationError) return {code: error.code === 'not-finite' ? 'formula-not-finite' : error.code, detail: error.detail};
 	return {code: 'formula-failed', detail: error instanceof Error ? error.message : String(error)};
 }
 
