@@ -76,9 +76,12 @@ export function FieldList({session, fields, focus, buffer, choice, message, note
 						</Text>
 						<FocusedValue session={session} field={field} buffer={buffer} choice={choice} noteMode={noteMode} stray={stray} />
 						{message ? (
-							<Text color="red" wrap="wrap">
-								{'  '}✗ {message}
-							</Text>
+							// Indented as a block, so that a message that wraps stays under the field.
+							<Box paddingLeft={2}>
+								<Text color="red" wrap="wrap">
+									✗ {message}
+								</Text>
+							</Box>
 						) : null}
 					</Box>
 				);
