@@ -34,10 +34,11 @@ const inChunk: Arrival = {alone: false};
  * Calls a key handler once per character of a multi-character chunk: a paste, or keys typed
  * faster than the terminal is read ("SN-0417\rX\ryyy" arrives as one event), become the
  * keys they were: characters, and Enter for each line break, each marked as not alone.
+ * `together`: the event came with others in one read, so even a single key is not alone.
  */
-export function eachLine<K extends KeyLike>(input: string, key: K, handle: (input: string, key: K, arrival: Arrival) => void): void {
+export function eachLine<K extends KeyLike>(input: string, key: K, handle: (input: string, key: K, arrival: Arrival) => void, together = false): void {
 	if ([...input].length <= 1) {
-		handle(input, key, alone);
+		handle(input, key, together ? inChunk : alone);
 		return;
 	}
 	const characters = [...input.replaceAll('\r\n', '\r')];

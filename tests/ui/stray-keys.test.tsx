@@ -96,6 +96,22 @@ describe('text typed at an unanswered confirmation', () => {
 		expect(draftAnswers(screen)).toEqual({});
 	});
 
+	// The terminal splits a chunk at each escape sequence (an arrow key), so "y↓y" reaches the
+	// screen as three events in one read: none of its keys was pressed alone.
+	const mixed = [
+		{name: 'y, ↓, y', chunk: `y${keys.down}y`, held: true},
+		{name: 'n, ↓, n, ↓', chunk: `n${keys.down}n${keys.down}`, held: false},
+		{name: '↓ then y', chunk: `${keys.down}y`, held: true},
+	];
+	it.each(mixed)('keys read together with an arrow key ($name) answer nothing', async ({chunk, held}) => {
+		const screen = await esdStep(strap.label);
+		const frame = await screen.paste(chunk);
+		// Text held on the confirmation in focus at the end is shown; moving away forgets it.
+		expect(flat(frame).includes('typed text is not an answer')).toBe(held);
+		for (const field of [strap, mat, leads]) expect(flat(frame)).not.toMatch(new RegExp(`${field.label}[^\\n]*(✓ yes|✗ NO)`));
+		expect(draftAnswers(screen)).toEqual({});
+	});
+
 	it('still answers one confirmation per key typed alone, one after the other', async () => {
 		const screen = await esdStep(strap.label);
 		await screen.press('y');
