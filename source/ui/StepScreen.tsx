@@ -58,10 +58,21 @@ function editorFor(session: Session, field: Field | undefined, focus: number): E
 }
 
 /** One step: its fields, typed into with the keyboard, and its checks updating as answers change. */
-export function StepScreen({session, getSession, stepIndex, rows, width, onSession, onStep, onBack, onHelp, active = true}: StepScreenProps) {
+export function StepScreen({session, getSession, stepIndex, rows, width, onSession, onStep: toStep, onBack: back, onHelp, active = true}: StepScreenProps) {
 	// Keys are handled against a ref, not render state: several keys can arrive before the next frame.
 	const editor = useRef<Editor | undefined>(undefined);
 	const [, rerender] = useReducer((count: number) => count + 1, 0);
+	// Once this step is left, keys still in the same read belong to the screen that follows, not to
+	// this step's fields: PgDn PgUp carry on from the step gone to, anything else is dropped.
+	const left = useRef<number | undefined>(undefined);
+	const onStep = (index: number) => {
+		left.current = index;
+		toStep(index);
+	};
+	const onBack = () => {
+		left.current = -1;
+		back();
+	};
 	if (!editor.current) editor.current = editorFor(session, stepFields(session, stepIndex)[0], 0);
 
 	const update = (changes: Partial<Editor>) => {
@@ -107,6 +118,13 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 	useKeystrokes(handleKey, {isActive: active});
 	function handleKey(input: string, key: Key, arrival: Arrival) {
 		if (key.ctrl) return;
+		if (left.current !== undefined) {
+			const gone = left.current;
+			const last = session.rules.rules.steps.length - 1;
+			if (gone >= 0 && gone <= last && key.pageDown) onStep(gone + 1);
+			else if (gone > 0 && gone <= last && key.pageUp) onStep(gone - 1);
+			return;
+		}
 		const state = editor.current!;
 		const fields = fieldsNow();
 		const field = fields[Math.min(state.focus, fields.length - 1)];

@@ -149,3 +149,20 @@ describe('text typed at a yes/no input', () => {
 		expect(loadDraft(screen.settings.folder)?.entries['reverse_protection']).toBeUndefined();
 	});
 });
+
+describe('keys typed ahead of a change of step', () => {
+	it('PgDn three times in one read goes three steps on', async () => {
+		const screen = await renderApp({startCheck: {}});
+		const frame = await screen.paste(keys.pageDown.repeat(3));
+		expect(frame).toContain('Step 4 of 9: Supply and wiring');
+	});
+
+	it('a value typed in the same read after PgDn is not entered into the step just left', async () => {
+		const screen = await renderApp({startCheck: {}});
+		await screen.paste(`${keys.pageDown}SN-9\r`);
+		expect(loadDraft(screen.settings.folder)?.entries['diode_serial']).toBeUndefined();
+		await screen.press(keys.pageUp);
+		expect(screen.frame()).toContain('Step 1 of 9');
+		expect(screen.frame()).not.toContain('SN-9');
+	});
+});
