@@ -1,6 +1,6 @@
 import {Box, Text, type Key} from 'ink';
 import {useKeystrokes, type Arrival} from './use-keystrokes.js';
-import {signAloneMessage} from './test-entry-keys.js';
+import {signAloneMessage} from './answer-key.js';
 import {useReducer, useRef} from 'react';
 import {outcomeWords} from '../rules/evaluation.js';
 import {stripControl} from '../text.js';

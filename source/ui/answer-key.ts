@@ -38,3 +38,6 @@ export function strayMessage(keys: string, after = ''): string {
 export function strayShown(stray: string): string {
 	return stray === '' ? '' : ` · typed "${stray}", not taken`;
 }
+
+/** Said when an Enter of a paste or of keys typed ahead reaches a sign line: signing takes an Enter pressed alone. */
+export const signAloneMessage = 'Enter arrived with other keys: press Enter on its own to sign';

@@ -2,7 +2,7 @@ import type {Key} from 'ink';
 import type {TestResults} from '../interlock/results-schema.js';
 import type {RecordedTest} from '../commands/plan-record.js';
 import {entryResults, hasEntries, peopleFields, signRow, stepEntryProblem, type StepMark, type TestEntry} from './test-entry.js';
-import {readAnswerKey, strayMessage} from './answer-key.js';
+import {readAnswerKey, signAloneMessage, strayMessage} from './answer-key.js';
 import {typeInto, type Arrival} from './text-buffer.js';
 
 /** What the test's keys need from outside: signing writes a record, leaving and help change the screen. */
@@ -15,8 +15,6 @@ export type TestEntryActions = {
 
 const marks: Record<string, StepMark> = {p: 'pass', f: 'fail', a: 'not_applicable'};
 
-/** Said when an Enter of a paste or of keys typed ahead reaches a sign line: signing takes an Enter pressed alone. */
-export const signAloneMessage = 'Enter arrived with other keys: press Enter on its own to sign';
 
 const withStep = (entry: TestEntry, changes: Partial<TestEntry['steps'][number]>): TestEntry => ({
 	...entry,
