@@ -1,6 +1,7 @@
 import {Box, Text} from 'ink';
 import {answeredByRecord, type Field, type Session} from './session.js';
 import {fieldHint} from './field-hint.js';
+import {strayShown} from './answer-key.js';
 import {confirmationStyle} from './verdict-style.js';
 import {stripControl} from '../text.js';
 
@@ -17,6 +18,8 @@ export type FieldListProps = {
 	message?: string;
 	/** True while a note for a confirmation is being typed. */
 	noteMode: boolean;
+	/** Text typed on a question answered by single keys, held and shown as not taken. @default '' */
+	stray?: string;
 	/** How many rows the list may use. */
 	rows: number;
 	width: number;
@@ -40,8 +43,9 @@ function truncate(text: string, width: number): string {
 }
 
 /** The fields of one step: the focused one open for editing, the others one line each. */
-export function FieldList({session, fields, focus, buffer, choice, message, noteMode, rows, width}: FieldListProps) {
-	const focusedHeight = 4;
+export function FieldList({session, fields, focus, buffer, choice, message, noteMode, stray = '', rows, width}: FieldListProps) {
+	// Label, hint, value, and the message (which may wrap) or a spare line.
+	const focusedHeight = 3 + (message ? Math.ceil((message.length + 4) / Math.max(20, width)) : 1);
 	const room = Math.max(1, rows - focusedHeight);
 	const start = Math.max(0, Math.min(focus - Math.floor(room / 2), fields.length - room - 1));
 	const visible = fields.slice(start, start + room + 1);
@@ -70,11 +74,14 @@ export function FieldList({session, fields, focus, buffer, choice, message, note
 							{'  '}
 							{noteMode ? 'note (required for not applicable) · Enter save · Esc cancel' : fieldHint(session.rules, field, answeredByRecord(session, field.id))}
 						</Text>
-						<FocusedValue session={session} field={field} buffer={buffer} choice={choice} noteMode={noteMode} />
+						<FocusedValue session={session} field={field} buffer={buffer} choice={choice} noteMode={noteMode} stray={stray} />
 						{message ? (
-							<Text color="red" wrap="wrap">
-								{'  '}✗ {message}
-							</Text>
+							// Indented as a block, so that a message that wraps stays under the field.
+							<Box paddingLeft={2}>
+								<Text color="red" wrap="wrap">
+									✗ {message}
+								</Text>
+							</Box>
 						) : null}
 					</Box>
 				);
@@ -84,12 +91,14 @@ export function FieldList({session, fields, focus, buffer, choice, message, note
 	);
 }
 
-function FocusedValue({session, field, buffer, choice, noteMode}: {session: Session; field: Field; buffer: string; choice: number; noteMode: boolean}) {
-	if (noteMode || field.kind === 'confirmation') {
+function FocusedValue({session, field, buffer, choice, noteMode, stray}: {session: Session; field: Field; buffer: string; choice: number; noteMode: boolean; stray: string}) {
+	if (noteMode) return <Text>  {buffer}▌</Text>;
+	if (field.kind === 'confirmation' || field.input.kind === 'yes_no') {
 		return (
-			<Text>
+			<Text wrap="truncate">
 				{'  '}
-				{noteMode ? `${buffer}▌` : currentValue(session, field)}
+				{currentValue(session, field)}
+				{stripControl(strayShown(stray))}
 			</Text>
 		);
 	}
@@ -106,6 +115,5 @@ function FocusedValue({session, field, buffer, choice, noteMode}: {session: Sess
 			</Text>
 		);
 	}
-	if (field.input.kind === 'yes_no') return <Text>  {currentValue(session, field)}</Text>;
 	return <Text>  {buffer}▌</Text>;
 }

@@ -16,7 +16,7 @@ import {testEntryKey} from './test-entry-keys.js';
 import {followTestEntry, type TestDrafts} from './test-drafts.js';
 import type {TestRecorder} from './test-recorder.js';
 import {testKeyLine, TestRecordScreen} from './TestRecordScreen.js';
-import {useKeystrokes} from './use-keystrokes.js';
+import {useKeystrokes, type Arrival} from './use-keystrokes.js';
 
 /** Props of the interlock planner. */
 export type PlannerScreenProps = {
@@ -63,10 +63,10 @@ function startTest(state: PlannerState, recorder: TestRecorder, drafts: TestDraf
 }
 
 /** One key while a test is entered; the planner's list comes back when it is left or recorded. */
-function recordKey(state: PlannerState, entry: TestEntry, input: string, key: Key, recorder: TestRecorder): PlannerState {
+function recordKey(state: PlannerState, entry: TestEntry, input: string, key: Key, arrival: Arrival, recorder: TestRecorder): PlannerState {
 	let left: string | undefined;
 	let help = false;
-	const next = testEntryKey(entry, input, key, {
+	const next = testEntryKey(entry, input, key, arrival, {
 		sign: (current, results) => recorder.sign(current.tested, results, current.people.witnessKey.trim() || undefined),
 		leave: (text) => (left = text),
 		help: () => (help = true),
@@ -88,17 +88,17 @@ export function PlannerScreen({editing, rulesName, rows, width, recorder, drafts
 	};
 	const actions: ListActions = {save, leave, recordTest: (current) => startTest(current, recorder, testDrafts)};
 	useKeystrokes(handleKey, {isActive: !state.current.help});
-	function handleKey(input: string, key: Key) {
+	function handleKey(input: string, key: Key, arrival: Arrival) {
 		if (key.ctrl) return;
 		const current = state.current;
 		const {view} = current;
 		let next = current;
 		if (view.name === 'list') next = listKey(current, input, key, actions);
 		else if (view.name === 'form') next = formKey(current, view.form, input, key);
-		else if (view.name === 'remove') next = removeKey(current, view.ref, input);
-		else if (view.name === 'leave') next = leaveKey(current, input, key, actions);
+		else if (view.name === 'remove') next = removeKey(current, view.ref, input, arrival);
+		else if (view.name === 'leave') next = leaveKey(current, input, key, arrival, actions);
 		else if (view.name === 'record') {
-			next = recordKey(current, view.entry, input, key, recorder);
+			next = recordKey(current, view.entry, input, key, arrival, recorder);
 			followTestEntry(testDrafts, view.entry, next.view.name === 'record' ? next.view.entry : undefined);
 		}
 		else if (key.escape) next = {...current, view: {name: 'list'}};

@@ -1,5 +1,6 @@
 import {Box, Text, type Key} from 'ink';
-import {useKeystrokes} from './use-keystrokes.js';
+import {useKeystrokes, type Arrival} from './use-keystrokes.js';
+import {signAloneMessage} from './answer-key.js';
 import {useReducer, useRef} from 'react';
 import {outcomeWords} from '../rules/evaluation.js';
 import {stripControl} from '../text.js';
@@ -30,7 +31,7 @@ export function SignOffScreen({session, initial, error, onSign, onBack}: {sessio
 	const setFocus = (focus: number) => set({focus});
 	const setMessage = (message: string | undefined) => set({message});
 	useKeystrokes(handleKey);
-	function handleKey(input: string, key: Key) {
+	function handleKey(input: string, key: Key, arrival: Arrival) {
 		const {form, focus} = state.current;
 		const onButton = focus === fields.length;
 		if (key.ctrl) return;
@@ -39,6 +40,8 @@ export function SignOffScreen({session, initial, error, onSign, onBack}: {sessio
 		if (key.downArrow) return setFocus(Math.min(fields.length, focus + 1));
 		if (onButton) {
 			if (!key.return) return;
+			// Signing is a deliberate act: an Enter of a paste or of keys typed ahead does not sign.
+			if (!arrival.alone) return setMessage(signAloneMessage);
 			if (!form.name.trim()) return setMessage('Your name is needed to sign.');
 			if (form.cosignName.trim() && !form.cosignKey.trim()) return setMessage("A second signer needs their private key file.");
 			setMessage(undefined);

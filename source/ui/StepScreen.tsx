@@ -1,5 +1,6 @@
 import {Box, Text, type Key} from 'ink';
-import {useKeystrokes} from './use-keystrokes.js';
+import {useKeystrokes, type Arrival} from './use-keystrokes.js';
+import {readAnswerKey, strayMessage} from './answer-key.js';
 import {useReducer, useRef} from 'react';
 import {shownDerived} from '../rules/shown-derived.js';
 import {stripControl} from '../text.js';
@@ -25,8 +26,17 @@ export type StepScreenProps = {
 	active?: boolean;
 };
 
-/** `suggested`: the buffer holds a default not typed by the operator; the first key replaces it. */
-type Editor = {focus: number; buffer: string; choice: number; message?: string; noteMode: boolean; suggested?: boolean};
+/**
+ * `suggested`: the buffer holds a default not typed by the operator; the first key replaces it.
+ * `stray`: text typed on a question answered by single keys; held, shown, and never an answer.
+ */
+type Editor = {focus: number; buffer: string; choice: number; message?: string; noteMode: boolean; suggested?: boolean; stray: string};
+
+const confirmationKeys = {y: 'yes', n: 'no', a: 'not_applicable'} as const;
+const yesNoKeys = {y: 'yes', n: 'no'} as const;
+
+/** The keys that answer a confirmation, as the messages name them. */
+const confirmationKeyWords = (field: Field) => (field.kind === 'confirmation' && field.confirmation.not_applicable === 'forbidden' ? 'y or n' : 'y, n or a');
 
 function initialBuffer(session: Session, field: Field | undefined): string {
 	if (!field || field.kind !== 'input') return '';
@@ -45,14 +55,25 @@ function initialChoice(session: Session, field: Field | undefined): number {
 
 function editorFor(session: Session, field: Field | undefined, focus: number): Editor {
 	const suggested = field?.kind === 'input' && session.entries[field.id] === undefined && initialBuffer(session, field) !== '';
-	return {focus, buffer: initialBuffer(session, field), choice: initialChoice(session, field), noteMode: false, suggested};
+	return {focus, buffer: initialBuffer(session, field), choice: initialChoice(session, field), noteMode: false, suggested, stray: ''};
 }
 
 /** One step: its fields, typed into with the keyboard, and its checks updating as answers change. */
-export function StepScreen({session, getSession, stepIndex, rows, width, onSession, onStep, onBack, onHelp, active = true}: StepScreenProps) {
+export function StepScreen({session, getSession, stepIndex, rows, width, onSession, onStep: toStep, onBack: back, onHelp, active = true}: StepScreenProps) {
 	// Keys are handled against a ref, not render state: several keys can arrive before the next frame.
 	const editor = useRef<Editor | undefined>(undefined);
 	const [, rerender] = useReducer((count: number) => count + 1, 0);
+	// Once this step is left, keys still in the same read belong to the screen that follows, not to
+	// this step's fields: PgDn PgUp carry on from the step gone to, anything else is dropped.
+	const left = useRef<number | undefined>(undefined);
+	const onStep = (index: number) => {
+		left.current = index;
+		toStep(index);
+	};
+	const onBack = () => {
+		left.current = -1;
+		back();
+	};
 	if (!editor.current) editor.current = editorFor(session, stepFields(session, stepIndex)[0], 0);
 
 	const update = (changes: Partial<Editor>) => {
@@ -96,8 +117,15 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 	};
 
 	useKeystrokes(handleKey, {isActive: active});
-	function handleKey(input: string, key: Key) {
+	function handleKey(input: string, key: Key, arrival: Arrival) {
 		if (key.ctrl) return;
+		if (left.current !== undefined) {
+			const gone = left.current;
+			const last = session.rules.rules.steps.length - 1;
+			if (gone >= 0 && gone <= last && key.pageDown) onStep(gone + 1);
+			else if (gone > 0 && gone <= last && key.pageUp) onStep(gone - 1);
+			return;
+		}
 		const state = editor.current!;
 		const fields = fieldsNow();
 		const field = fields[Math.min(state.focus, fields.length - 1)];
@@ -118,7 +146,7 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 			return;
 		}
 		const typing = field.kind === 'input' && (field.input.kind === 'quantity' || field.input.kind === 'text');
-		if (input === '?' && (!typing || state.buffer === '')) return onHelp();
+		if (input === '?' && arrival.alone && state.stray === '' && (!typing || state.buffer === '')) return onHelp();
 		if (key.upArrow || key.downArrow) {
 			if (typing && !commit(field, state.buffer)) return;
 			return move(key.upArrow ? -1 : 1);
@@ -129,21 +157,25 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 			return;
 		}
 		if (field.kind === 'confirmation') {
-			const answer = ({y: 'yes', n: 'no', a: 'not_applicable'} as const)[input.toLowerCase() as 'y' | 'n' | 'a'];
-			if (answer === 'not_applicable' && field.confirmation.not_applicable !== 'forbidden' && !getSession().confirmations[field.id]?.note) {
-				return update({buffer: '', noteMode: true});
-			}
-			if (answer) {
-				if (confirm(field, answer)) move(1);
+			const read = readAnswerKey(confirmationKeys, state.stray, input, key, arrival);
+			const words = confirmationKeyWords(field);
+			if (read.kind === 'refused') return update({stray: read.stray, message: strayMessage(words, '; Tab adds a note to an answer')});
+			if (read.kind === 'cleared') return update({stray: '', message: undefined});
+			if (read.kind === 'answer') {
+				if (read.answer === 'not_applicable' && field.confirmation.not_applicable !== 'forbidden' && !getSession().confirmations[field.id]?.note) {
+					return update({buffer: '', noteMode: true});
+				}
+				if (confirm(field, read.answer)) move(1);
 				return;
 			}
 			if (key.tab) {
 				const answered = getSession().confirmations[field.id];
 				// A note belongs to an answer: saving one must not answer the confirmation on the operator's behalf.
-				if (!answered) return update({message: 'answer first (y, n or a); Tab adds a note to the answer'});
-				return update({buffer: answered.note ?? '', noteMode: true, message: undefined});
+				if (!answered) return update({message: `answer first (${words}${state.stray ? ', once Backspace has cleared the typed text' : ''}); Tab adds a note to the answer`});
+				// Typed text becomes the note only now, on purpose, and is saved only with Enter.
+				return update({buffer: [answered.note, state.stray].filter(Boolean).join(' '), noteMode: true, stray: '', message: undefined});
 			}
-			if (key.return) move(1);
+			if (key.return) return state.stray ? update({message: strayMessage(words, '; Tab adds a note to an answer')}) : move(1);
 			return;
 		}
 		if (field.input.kind === 'choice') {
@@ -155,9 +187,11 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 			return;
 		}
 		if (field.input.kind === 'yes_no') {
-			const word = input.toLowerCase() === 'y' ? 'yes' : input.toLowerCase() === 'n' ? 'no' : undefined;
-			if (word && commit(field, word)) return move(1);
-			if (key.return) move(1);
+			const read = readAnswerKey(yesNoKeys, state.stray, input, key, arrival);
+			if (read.kind === 'refused') return update({stray: read.stray, message: strayMessage('y or n')});
+			if (read.kind === 'cleared') return update({stray: '', message: undefined});
+			if (read.kind === 'answer') return commit(field, read.answer) ? move(1) : undefined;
+			if (key.return) return state.stray ? update({message: strayMessage('y or n')}) : move(1);
 			return;
 		}
 		// A suggested default is accepted with Enter, or replaced by the first key typed.
@@ -195,6 +229,7 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 					choice={state.choice}
 					{...(state.message ? {message: state.message} : {})}
 					noteMode={state.noteMode}
+					stray={state.stray}
 					rows={Math.max(5, rows - panelRows - derived.length - (step.summary ? 7 : 5))}
 					width={width}
 				/>

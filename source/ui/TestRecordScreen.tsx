@@ -3,6 +3,7 @@ import {deferral} from '../deferral.js';
 import {displayPath} from '../display-path.js';
 import {interlockTestCaution} from '../interlock/test-record.js';
 import {stripControl} from '../text.js';
+import {strayShown} from './answer-key.js';
 import {entryCounts, entryOutcome, peopleFields, signRow, type StepEntry, type TestEntry} from './test-entry.js';
 
 const markStyle: Record<NonNullable<StepEntry['result']>, {label: string; color: string}> = {
@@ -92,6 +93,7 @@ function StepDetail({entry}: {entry: TestEntry}) {
 			<Labelled label="Expect" text={step.expect} />
 			<Text wrap="truncate">
 				{focus('result')}Result      {given.result ? markStyle[given.result].label : '(p pass · f fail · a n/a)'}
+				{entry.part === 'result' ? stripControl(strayShown(entry.stray ?? '')) : ''}
 			</Text>
 			<Text wrap="truncate">
 				{focus('time')}Stopped in  {stripControl(given.stoppedIn)}

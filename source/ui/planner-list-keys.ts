@@ -1,5 +1,6 @@
 import type {Key} from 'ink';
 import {moveDevice, removeItem} from '../interlock/plan-edit.js';
+import type {Arrival} from './text-buffer.js';
 import {focusField, itemId, itemRefs, selectionOf, type ItemRef, type PlannerState} from './planner-state.js';
 
 /** What the list's keys need from outside: saving writes a file, leaving changes screen, a test starts from the file on disk. */
@@ -44,9 +45,9 @@ export function listKey(state: PlannerState, input: string, key: Key, actions: L
 	return state;
 }
 
-/** One key on the question whether to remove an item: y removes, anything else keeps it. */
-export function removeKey(state: PlannerState, ref: ItemRef, input: string): PlannerState {
-	if (input.toLowerCase() !== 'y') return {...state, view: {name: 'list'}, notice: {text: 'Nothing removed'}};
+/** One key on the question whether to remove an item: y pressed alone removes, anything else (a y of a paste too) keeps it. */
+export function removeKey(state: PlannerState, ref: ItemRef, input: string, arrival: Arrival): PlannerState {
+	if (input.toLowerCase() !== 'y' || !arrival.alone) return {...state, view: {name: 'list'}, notice: {text: 'Nothing removed'}};
 	const id = itemId(state.editing, ref);
 	const removed = removeItem(state.editing, ref.list, ref.index);
 	if (!removed.ok) return {...state, view: {name: 'list'}, notice: {text: `${id} not removed: ${removed.message}`, error: true}};
@@ -54,8 +55,9 @@ export function removeKey(state: PlannerState, ref: ItemRef, input: string): Pla
 	return {...state, editing: removed.editing, selected: Math.min(state.selected, count - 1), view: {name: 'list'}, notice: {text: `Removed the ${what(ref)} ${id}`}};
 }
 
-/** One key on the question asked when leaving with unsaved changes: s save and leave, d discard and leave, Esc stay. */
-export function leaveKey(state: PlannerState, input: string, key: Key, actions: ListActions): PlannerState {
+/** One key on the question asked when leaving with unsaved changes: s save and leave, d discard and leave (each pressed alone), Esc stay. */
+export function leaveKey(state: PlannerState, input: string, key: Key, arrival: Arrival, actions: ListActions): PlannerState {
+	if (!arrival.alone) return state;
 	if (input === 's') {
 		const saved = actions.save({...state, view: {name: 'list'}});
 		if (!saved.editing.dirty) actions.leave();

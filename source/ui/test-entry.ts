@@ -39,6 +39,8 @@ export type TestEntry = {
 	part: 'result' | 'time' | 'note';
 	people: Record<PersonField, string>;
 	message?: string;
+	/** Text typed on a step's result: held, shown as not taken, and never a mark. */
+	stray?: string;
 	/** Said above the entries until the first change: entries restored from a draft, or why not. */
 	notice?: {text: string; error?: boolean};
 	/** Asking whether to discard the entries and leave. */

@@ -21,19 +21,30 @@ function clean(input: string): string {
 export type KeyLike = {return?: boolean; backspace?: boolean; delete?: boolean; [name: string]: unknown};
 
 /**
+ * How a key arrived. `alone`: it was the only key of its input event, as a key pressed on its
+ * own is. A key of a paste, or of keys typed faster than the terminal is read, is not alone,
+ * and never answers a question.
+ */
+export type Arrival = {alone: boolean};
+
+const alone: Arrival = {alone: true};
+const inChunk: Arrival = {alone: false};
+
+/**
  * Calls a key handler once per character of a multi-character chunk: a paste, or keys typed
  * faster than the terminal is read ("SN-0417\rX\ryyy" arrives as one event), become the
- * keys they were: characters, and Enter for each line break.
+ * keys they were: characters, and Enter for each line break, each marked as not alone.
+ * `together`: the event came with others in one read, so even a single key is not alone.
  */
-export function eachLine<K extends KeyLike>(input: string, key: K, handle: (input: string, key: K) => void): void {
+export function eachLine<K extends KeyLike>(input: string, key: K, handle: (input: string, key: K, arrival: Arrival) => void, together = false): void {
 	if ([...input].length <= 1) {
-		handle(input, key);
+		handle(input, key, together ? inChunk : alone);
 		return;
 	}
 	const characters = [...input.replaceAll('\r\n', '\r')];
 	for (const character of characters) {
-		if (character === '\r' || character === '\n') handle('', {...key, return: true});
-		else if (character === '\u007F' || character === '\b') handle('', {...key, return: false, backspace: true});
-		else handle(character, {...key, return: false});
+		if (character === '\r' || character === '\n') handle('', {...key, return: true}, inChunk);
+		else if (character === '\u007F' || character === '\b') handle('', {...key, return: false, backspace: true}, inChunk);
+		else handle(character, {...key, return: false}, inChunk);
 	}
 }

@@ -4,6 +4,8 @@ import {tmpdir} from 'node:os';
 import {join, resolve} from 'node:path';
 import {afterEach, beforeAll, describe, expect, it} from 'vitest';
 import {parse} from 'yaml';
+import {loadDraft} from '../../source/drafts/draft-store.js';
+import {openSettings} from '../../source/settings.js';
 import {haveTmux, TmuxSession} from './tmux-driver.js';
 
 type RuleFile = {steps: Array<{inputs?: Array<{id: string; label: string; kind?: string; options?: Record<string, string>}>; confirmations?: Array<{id: string; statement: string}>}>};
@@ -27,8 +29,8 @@ function focusedField(screen: string) {
 	return fields.find((field) => field.label.startsWith(shown) || shown.startsWith(field.label.slice(0, Math.min(field.label.length, 60))));
 }
 
-function start(name: string, home: string, args = ''): TmuxSession {
-	const session = new TmuxSession(name, `env -u CI -u CONTINUOUS_INTEGRATION PRELASE_HOME=${home} node ${program} ${args}; echo "EXITED $?"; sleep 30`);
+function start(name: string, home: string, args = '', size: [number, number] = [100, 32]): TmuxSession {
+	const session = new TmuxSession(name, `env -u CI -u CONTINUOUS_INTEGRATION PRELASE_HOME=${home} node ${program} ${args}; echo "EXITED $?"; sleep 30`, ...size);
 	sessions.push(session);
 	return session;
 }
@@ -131,5 +133,63 @@ describe.skipIf(!haveTmux())('the screens in a real terminal', () => {
 		expect(resumed).toContain(String(demo.inputs['diode_serial']));
 		expect(resumed).toContain(String(demo.inputs['driver_serial']));
 		expect(resumed).toContain(String(demo.inputs['location']));
+	});
+
+	it('takes no answer from a sentence typed at a confirmation, as a paste or key by key, at 80x24', {timeout: 60_000}, async () => {
+		const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
+		const session = start('sentence', home, 'check', [80, 24]);
+		await session.waitFor((screen) => screen.includes('Step 1 of'), 'the first step');
+		for (let step = 2; step <= 9; step += 1) {
+			session.press('PageDown');
+			await session.waitFor((screen) => screen.includes(`Step ${step} of 9`), `step ${step}`);
+		}
+		await session.waitFor((screen) => screen.includes('Step 9 of 9: ESD and transients'), 'the ESD step');
+		const strap = '› The wrist strap was tested today';
+		const mat = '› Work is on a grounded dissipative mat';
+		expect(await session.settle()).toContain(strap);
+		const esd = rules.steps.at(-1)!.confirmations!.map((confirmation) => confirmation.id);
+		const answered = () => Object.keys(loadDraft(openSettings({PRELASE_HOME: home}).folder)?.confirmations ?? {}).filter((id) => esd.includes(id));
+
+		// One chunk, as a paste or a fast typist delivers it; then Enter, which must not move on.
+		session.type('by Kim');
+		let screen = await session.settle();
+		expect(answered()).toEqual([]);
+		expect(screen).toContain(strap);
+		expect(screen).toContain('typed "by Kim", not taken');
+		expect(screen.replaceAll(/\s+/g, ' ')).toContain('typed text is not an answer');
+		session.press('Enter');
+		screen = await session.settle();
+		expect(screen).toContain(strap);
+		expect(screen).toMatch(/^ {2}\? unanswered · typed "by Kim", not taken/m);
+		expect(answered()).toEqual([]);
+
+		// Key by key, each its own keystroke, at the next confirmation.
+		session.press('BSpace', 'Down');
+		await session.waitFor((now) => now.includes(mat), 'the grounded-mat confirmation');
+		for (const character of 'Strap tester ST-3') {
+			const before = session.screen();
+			session.type(character);
+			await session.waitFor((now) => now !== before, `the screen to change after "${character}"`);
+		}
+		session.press('Enter');
+		screen = await session.settle();
+		expect(screen).toContain(mat);
+		expect(screen).toContain('typed "Strap tester ST-3", not taken');
+		expect(screen).not.toContain('note (required');
+		for (const line of screen.split('\n').filter((text) => /^ {2}(The wrist strap|The diode's leads|Connections were|Nothing is plugged)/.test(text))) expect(line).toMatch(/\? unanswered$/);
+		expect(answered()).toEqual([]);
+		// Nothing scrolled off the 24 lines: the title on top, the key line below the fields.
+		expect(screen.split('\n')[0]).toMatch(/^prelase · bench check/);
+		expect(screen).toContain('Step 9 of 9: ESD and transients');
+		expect(screen).toContain('Enter accept · ↑ ↓ field · PgDn PgUp step · Esc back · ? help');
+
+		// A y pressed on its own, once the typed text is cleared, answers that one confirmation.
+		session.press('BSpace');
+		await session.waitFor((now) => !now.includes('not taken'), 'the typed text cleared');
+		session.type('y');
+		screen = await session.waitFor((now) => /Work is on a grounded dissipative mat.*✓ yes/.test(now), 'the grounded-mat confirmation answered yes');
+		expect(answered()).toEqual(['grounded_mat']);
+		session.press('C-c');
+		await session.waitFor((now) => now.includes('EXITED 130'), 'the program to leave with 130');
 	});
 });
