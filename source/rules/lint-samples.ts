@@ -17,7 +17,7 @@ type Where = (path: Array<string | number>, name?: string, text?: string) => Pic
  */
 export function lintWithSamples(rules: CompiledRules, where: Where): Problem[] {
 	const problems: Problem[] = [];
-	const scope = newScope();
+	const scope = newScope(rules.optionLists);
 	for (const [id, value] of rules.policy) scope.set(id, toFormulaValue(value));
 	for (const [id, {input, range, defaultValue}] of rules.inputs) {
 		if (input.kind === 'quantity') scope.set(id, toFormulaValue(defaultValue ?? sampleWithin(range, input.dimension)));

@@ -10,6 +10,7 @@ import {evaluationToJson} from '../../source/rules/evaluation-json.js';
 import {loadAnswers} from '../../source/rules/load-answers.js';
 import {loadRules, loadRulesFromText, shippedRulesPath} from '../../source/rules/load.js';
 import type {RulesShow} from '../../source/rules/show.js';
+import {policyValueText} from '../../source/rules/schema.js';
 import {fakeIo} from '../helpers/fake-io.js';
 
 const clearDemo = resolve('docs/examples/bench3-808nm-clear.yaml');
@@ -115,7 +116,7 @@ describe('prelase rules init', () => {
 		if (!shipped.ok) throw new Error('shipped does not load');
 		for (const [id, entry] of Object.entries(shipped.value.rules.policy)) {
 			expect(text).toContain(`#   ${id}:\n`);
-			expect(text).toContain(`#     value: ${entry.value}\n`);
+			expect(text).toContain(`#     value: ${policyValueText(entry.value)}\n`);
 		}
 		expect(text).toContain('#   pin_configuration_supported: "Why it does not apply here, and who decided"');
 		expect(parse(text)).toEqual({format: 1, extends: 'shipped'});
