@@ -29,7 +29,9 @@ export function calculationHelp(calculation: Calculation, width = 100): string {
 		const info = dimensions[input.dimension];
 		const extra = input.default !== undefined ? ` (default ${formatQuantity(input.default, input.dimension)})` : input.optional ? ' (optional)' : '';
 		const range = input.range ? `; ${rangeShortText(input.range, input.dimension)}` : '';
-		lines.push(...definitionRow(key, `${input.description}; ${info.noun}, e.g. ${key}=${info.example.replace(' ', '')}${range}${extra}`, keyWidth, width));
+		// A whole-number input gets a whole example (awg=5, not awg=4.5).
+		const example = input.range?.whole ? String(Math.round(Number(info.example))) : info.example.replace(' ', '');
+		lines.push(...definitionRow(key, `${input.description}; ${info.noun}, e.g. ${key}=${example}${range}${extra}`, keyWidth, width));
 	}
 	for (const condition of calculation.conditions ?? []) lines.push(...wrap(`Refused unless ${condition.keys[0]} is ${condition.description}.`, width));
 	lines.push('', 'Outputs:');

@@ -92,6 +92,7 @@ describe('prelase calc', () => {
 		const {stdout} = run('calc', 'wire', '--help');
 		// NBS Handbook 100 AWG tables: 4/0 (−3) to 40
 		expect(stdout).toMatch(/awg[\s\S]*-3 to 40 \(whole\)/);
+		expect(stdout).not.toContain('awg=4.5'); // a whole-gauge input is not shown a fractional example
 	});
 
 	it('prints the caution with every exposure figure, in text and JSON', () => {
