@@ -99,9 +99,12 @@ export function rangeShortText(range: InputRange, dimension: Dimension): string 
 	return `${range.aboveMin ? 'above ' : ''}${min} to ${max}${range.whole ? ' (whole)' : ''}`;
 }
 
+/** Relative slack at a range edge, so an edge holds however it is spelled (−100 °C is 173.15 K). */
+const edgeSlack = 1e-12;
+
 function withinRange(value: number, range: InputRange): boolean {
-	const low = range.aboveMin ? value > range.min : value >= range.min;
-	return low && value <= range.max && (!range.whole || Number.isInteger(value));
+	const low = range.aboveMin ? value > range.min : value >= range.min - edgeSlack * Math.abs(range.min);
+	return low && value <= range.max + edgeSlack * Math.abs(range.max) && (!range.whole || Number.isInteger(value));
 }
 
 /**

@@ -88,6 +88,22 @@ describe('prelase calc', () => {
 		for (const words of says) expect(stderr).toContain(words);
 	});
 
+	// A range edge holds however the value is spelled: −100 °C is 173.15 K is −148 °F
+	// (hand arithmetic: −100 + 273.15 = 173.15; (−148 − 32) × 5/9 = −100).
+	it.each([
+		{argv: ['calc', 'wire', 'awg=18', 'length=1m', 'temperature=-100degC']},
+		{argv: ['calc', 'wire', 'awg=18', 'length=1m', 'temperature=173.15K']},
+		{argv: ['calc', 'wire', 'awg=18', 'length=1m', 'temperature=-148degF']},
+		{argv: ['calc', 'wire', 'awg=18', 'length=1m', 'temperature=250degC']},
+		{argv: ['calc', 'wire', 'awg=18', 'length=1m', 'temperature=482degF']},
+		{argv: ['calc', 'headroom', 'supply=5V', 'tolerance=50%', 'cable_resistance=0ohm', 'sense_resistance=0ohm', 'driver_drop=0V', 'forward_voltage=1V', 'current=1A']},
+		{argv: ['calc', 'headroom', 'supply=5V', 'tolerance=0.5', 'cable_resistance=0ohm', 'sense_resistance=0ohm', 'driver_drop=0V', 'forward_voltage=1V', 'current=1A']},
+	])('accepts a range edge however it is spelled: $argv', ({argv}) => {
+		const {code, stderr} = run(...argv);
+		expect(stderr).toBe('');
+		expect(code).toBe(0);
+	});
+
 	it('shows each input\'s range in --help', () => {
 		const {stdout} = run('calc', 'wire', '--help');
 		// NBS Handbook 100 AWG tables: 4/0 (−3) to 40
