@@ -1,17 +1,18 @@
 import type {Calculation} from './calculation.js';
+import {benchRanges} from './bench-ranges.js';
 
 /** The window a brownout trip must sit in: above the regulation floor, below the service minimum. */
 export const brownout: Calculation = {
 	name: 'brownout',
 	summary: 'Window between the lowest supply at which the driver still regulates the limit current and the lowest supply expected in service',
 	inputs: {
-		forward_voltage: {dimension: 'voltage', description: 'Diode forward voltage at the limit current'},
-		current: {dimension: 'current', description: 'Limit current'},
-		cable_resistance: {dimension: 'resistance', description: 'Cable resistance, both conductors'},
-		sense_resistance: {dimension: 'resistance', description: 'Current-sense resistance'},
-		driver_drop: {dimension: 'voltage', description: "Driver's own drop (dropout) at the limit"},
-		supply: {dimension: 'voltage', description: 'Supply voltage, nominal', allowed: 'positive'},
-		tolerance: {dimension: 'ratio', description: 'Supply tolerance each way', default: 0},
+		forward_voltage: {dimension: 'voltage', description: 'Diode forward voltage at the limit current', range: benchRanges.voltage},
+		current: {dimension: 'current', description: 'Limit current', range: benchRanges.current},
+		cable_resistance: {dimension: 'resistance', description: 'Cable resistance, both conductors', range: benchRanges.resistance},
+		sense_resistance: {dimension: 'resistance', description: 'Current-sense resistance', range: benchRanges.resistance},
+		driver_drop: {dimension: 'voltage', description: "Driver's own drop (dropout) at the limit", range: benchRanges.voltage},
+		supply: {dimension: 'voltage', description: 'Supply voltage, nominal', range: benchRanges.supply},
+		tolerance: {dimension: 'ratio', description: 'Supply tolerance each way', range: benchRanges.tolerance, default: 0},
 	},
 	outputs: {
 		regulation_floor: {dimension: 'voltage', description: 'Lowest supply at which the limit current is still regulated'},

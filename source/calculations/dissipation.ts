@@ -1,4 +1,5 @@
 import type {Calculation} from './calculation.js';
+import {benchRanges} from './bench-ranges.js';
 
 /**
  * Worst-case internal dissipation of a linear driver over 0…limit. With V_F(I) = knee + R_s·I,
@@ -9,10 +10,10 @@ export const dissipation: Calculation = {
 	name: 'dissipation',
 	summary: 'Worst-case internal dissipation of a linear driver over 0…limit, and with the output shorted',
 	inputs: {
-		supply: {dimension: 'voltage', description: 'Supply voltage (use the high tolerance for the worst case)'},
-		knee: {dimension: 'voltage', description: 'Knee voltage of the diode'},
-		series_resistance: {dimension: 'resistance', description: 'Series resistance of the diode'},
-		limit: {dimension: 'current', description: 'Current limit of the driver'},
+		supply: {dimension: 'voltage', description: 'Supply voltage (use the high tolerance for the worst case)', range: benchRanges.supply},
+		knee: {dimension: 'voltage', description: 'Knee voltage of the diode', range: benchRanges.voltage},
+		series_resistance: {dimension: 'resistance', description: 'Series resistance of the diode', range: benchRanges.resistance},
+		limit: {dimension: 'current', description: 'Current limit of the driver', range: benchRanges.current},
 	},
 	outputs: {
 		worst_power: {dimension: 'power', description: 'Largest dissipation in the driver for any current from 0 to the limit'},

@@ -1,6 +1,6 @@
 import {dimensions} from '../quantities/dimensions.js';
 import {formatQuantity} from '../quantities/format.js';
-import {formulaName} from './calculation.js';
+import {formulaName, rangeShortText} from './calculation.js';
 import {calculations} from './registry.js';
 
 const escape = (text: string) => text.replaceAll('|', '\\|');
@@ -17,8 +17,9 @@ export function calculationsMarkdown(): string {
 		'',
 		'Every calculation works on SI values and is the same code whether it runs from',
 		'`prelase calc NAME key=value ...`, from a rule formula (`NAME` with `-` written as `_`, the',
-		'inputs in the order below, returning the main output), or in a record. Values outside an',
-		"input's validity are refused, never guessed.",
+		'inputs in the order below, returning the main output), or in a record. A value outside an',
+		"input's range is refused, naming the key and the range (exit 2 from `calc`; in a rule formula the",
+		'check fails, or advises, with that reason): never guessed.',
 		'',
 		'| Calculation | Summary |',
 		'|---|---|',
@@ -27,12 +28,15 @@ export function calculationsMarkdown(): string {
 	for (const calculation of calculations) {
 		out.push('', `## ${calculation.name}`, '', calculation.summary + '.', '', `Formula: ${calculation.formula}`, '');
 		out.push(`In rule formulas: \`${formulaName(calculation)}(${Object.keys(calculation.inputs).join(', ')})\` gives \`${calculation.main}\`.`, '');
-		out.push('| Input | Dimension (SI unit) | Description | Default |', '|---|---|---|---|');
+		const ranged = Object.values(calculation.inputs).every((input) => input.range !== undefined);
+		out.push(ranged ? '| Input | Dimension (SI unit) | Description | Range | Default |' : '| Input | Dimension (SI unit) | Description | Default |', ranged ? '|---|---|---|---|---|' : '|---|---|---|---|');
 		for (const [key, input] of Object.entries(calculation.inputs)) {
 			const unit = dimensions[input.dimension].si || '1';
 			const fallback = input.default !== undefined ? formatQuantity(input.default, input.dimension) : input.optional ? 'optional' : '—';
-			out.push(`| \`${key}\` | ${input.dimension} (${unit}) | ${escape(input.description)} | ${fallback} |`);
+			const range = ranged && input.range ? ` ${rangeShortText(input.range, input.dimension)} |` : '';
+			out.push(`| \`${key}\` | ${input.dimension} (${unit}) | ${escape(input.description)} |${range} ${fallback} |`);
 		}
+		for (const condition of calculation.conditions ?? []) out.push('', `Refused unless \`${condition.keys[0]}\` is ${condition.description}.`);
 		out.push('', '| Output | Dimension (SI unit) | Description |', '|---|---|---|');
 		for (const [key, output] of Object.entries(calculation.outputs)) {
 			out.push(`| \`${key}\`${key === calculation.main ? ' (main)' : ''} | ${output.dimension} (${dimensions[output.dimension].si || '1'}) | ${escape(output.description)} |`);

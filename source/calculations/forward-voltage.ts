@@ -1,13 +1,14 @@
 import type {Calculation} from './calculation.js';
+import {benchRanges} from './bench-ranges.js';
 
 /** Diode forward voltage from the knee-plus-series-resistance model. */
 export const forwardVoltage: Calculation = {
 	name: 'forward-voltage',
 	summary: 'Diode forward voltage at a current from its knee voltage and series resistance',
 	inputs: {
-		knee: {dimension: 'voltage', description: 'Knee (turn-on) voltage of the diode'},
-		series_resistance: {dimension: 'resistance', description: 'Differential series resistance above the knee'},
-		current: {dimension: 'current', description: 'Forward current'},
+		knee: {dimension: 'voltage', description: 'Knee (turn-on) voltage of the diode', range: benchRanges.voltage},
+		series_resistance: {dimension: 'resistance', description: 'Differential series resistance above the knee', range: benchRanges.resistance},
+		current: {dimension: 'current', description: 'Forward current', range: benchRanges.current},
 	},
 	outputs: {forward_voltage: {dimension: 'voltage', description: 'Forward voltage at that current'}},
 	main: 'forward_voltage',

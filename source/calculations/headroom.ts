@@ -1,17 +1,18 @@
 import type {Calculation} from './calculation.js';
+import {benchRanges} from './bench-ranges.js';
 
 /** Compliance headroom at the limit current with the supply at its low tolerance. */
 export const headroom: Calculation = {
 	name: 'headroom',
 	summary: 'Voltage left for the diode at the limit current with the supply low, and the margin over its forward voltage',
 	inputs: {
-		supply: {dimension: 'voltage', description: 'Supply voltage, nominal', allowed: 'positive'},
-		tolerance: {dimension: 'ratio', description: 'Supply tolerance each way (5 % = 0.05)', default: 0},
-		cable_resistance: {dimension: 'resistance', description: 'Cable resistance, both conductors'},
-		sense_resistance: {dimension: 'resistance', description: 'Current-sense resistance in the output path'},
-		driver_drop: {dimension: 'voltage', description: "Driver's own drop (dropout) at the limit current"},
-		forward_voltage: {dimension: 'voltage', description: 'Diode forward voltage at the limit current'},
-		current: {dimension: 'current', description: 'Limit current'},
+		supply: {dimension: 'voltage', description: 'Supply voltage, nominal', range: benchRanges.supply},
+		tolerance: {dimension: 'ratio', description: 'Supply tolerance each way (5 % = 0.05)', range: benchRanges.tolerance, default: 0},
+		cable_resistance: {dimension: 'resistance', description: 'Cable resistance, both conductors', range: benchRanges.resistance},
+		sense_resistance: {dimension: 'resistance', description: 'Current-sense resistance in the output path', range: benchRanges.resistance},
+		driver_drop: {dimension: 'voltage', description: "Driver's own drop (dropout) at the limit current", range: benchRanges.voltage},
+		forward_voltage: {dimension: 'voltage', description: 'Diode forward voltage at the limit current', range: benchRanges.voltage},
+		current: {dimension: 'current', description: 'Limit current', range: benchRanges.current},
 	},
 	outputs: {
 		supply_low: {dimension: 'voltage', description: 'Supply at its low tolerance'},

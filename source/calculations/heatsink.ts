@@ -1,15 +1,16 @@
-import type {Calculation} from './calculation.js';
+import {above, type Calculation} from './calculation.js';
+import {benchRanges} from './bench-ranges.js';
 
 /** Largest heat-sink thermal resistance that keeps a junction or case within its maximum. */
 export const heatsink: Calculation = {
 	name: 'heatsink',
 	summary: 'Largest heat-sink-to-ambient thermal resistance that keeps the junction (or case) within its maximum',
 	inputs: {
-		power: {dimension: 'power', description: 'Dissipated power', allowed: 'positive'},
-		ambient: {dimension: 'temperature', description: 'Highest ambient temperature', allowed: 'positive'},
-		max_temperature: {dimension: 'temperature', description: 'Maximum junction (or case) temperature', allowed: 'positive'},
-		theta_jc: {dimension: 'thermal_resistance', description: 'Junction-to-case thermal resistance (0 when the maximum is a case temperature)', default: 0},
-		theta_cs: {dimension: 'thermal_resistance', description: 'Case-to-sink thermal resistance (interface material)', default: 0},
+		power: {dimension: 'power', description: 'Dissipated power', range: above(0, 1e5)},
+		ambient: {dimension: 'temperature', description: 'Highest ambient temperature', range: benchRanges.temperature},
+		max_temperature: {dimension: 'temperature', description: 'Maximum junction (or case) temperature', range: benchRanges.temperature},
+		theta_jc: {dimension: 'thermal_resistance', description: 'Junction-to-case thermal resistance (0 when the maximum is a case temperature)', range: benchRanges.thermalResistance, default: 0},
+		theta_cs: {dimension: 'thermal_resistance', description: 'Case-to-sink thermal resistance (interface material)', range: benchRanges.thermalResistance, default: 0},
 	},
 	outputs: {
 		theta_sa: {dimension: 'thermal_resistance', description: 'Largest allowed sink-to-ambient thermal resistance (zero or negative: no heat sink can do it)'},

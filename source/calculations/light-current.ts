@@ -1,14 +1,15 @@
-import {CalculationInputError, type Calculation} from './calculation.js';
+import {CalculationInputError, between, type Calculation} from './calculation.js';
+import {benchRanges} from './bench-ranges.js';
 
 /** Optical power above threshold from the linear light-current model, and its inverse. */
 export const lightCurrent: Calculation = {
 	name: 'light-current',
 	summary: 'Optical power at a current, and the current needed for a power (linear L-I model above threshold)',
 	inputs: {
-		slope_efficiency: {dimension: 'slope_efficiency', description: 'Slope efficiency above threshold'},
-		threshold: {dimension: 'current', description: 'Threshold current at the operating temperature'},
-		current: {dimension: 'current', description: 'Forward current (for the power at that current)', optional: true},
-		power: {dimension: 'power', description: 'Optical power (for the current needed to reach it)', optional: true},
+		slope_efficiency: {dimension: 'slope_efficiency', description: 'Slope efficiency above threshold', range: between(0, 100)},
+		threshold: {dimension: 'current', description: 'Threshold current at the operating temperature', range: benchRanges.current},
+		current: {dimension: 'current', description: 'Forward current (for the power at that current)', range: benchRanges.current, optional: true},
+		power: {dimension: 'power', description: 'Optical power (for the current needed to reach it)', range: benchRanges.power, optional: true},
 	},
 	outputs: {
 		power_at_current: {dimension: 'power', description: 'Optical output power at the current (zero below threshold)'},

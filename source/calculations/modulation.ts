@@ -1,16 +1,17 @@
-import type {Calculation} from './calculation.js';
+import {above, between, type Calculation} from './calculation.js';
+import {benchRanges} from './bench-ranges.js';
 
 /** Peak output current from a modulation source into the driver's modulation input. */
 export const modulation: Calculation = {
 	name: 'modulation',
 	summary: 'Peak modulation current from the transfer gain and a source loaded by the input impedance, with the single-pole roll-off',
 	inputs: {
-		transfer_gain: {dimension: 'transconductance', description: 'Output current per volt at the modulation input'},
-		source_amplitude: {dimension: 'voltage', description: "Source's open-circuit peak amplitude"},
-		source_impedance: {dimension: 'resistance', description: "Source's output impedance", default: 50},
-		input_impedance: {dimension: 'resistance', description: "Driver's modulation input impedance", allowed: 'positive', default: 50},
-		frequency: {dimension: 'frequency', description: 'Modulation frequency', default: 0},
-		bandwidth: {dimension: 'frequency', description: 'Modulation −3 dB bandwidth (single pole)', allowed: 'positive', optional: true},
+		transfer_gain: {dimension: 'transconductance', description: 'Output current per volt at the modulation input', range: between(0, 1000)},
+		source_amplitude: {dimension: 'voltage', description: "Source's open-circuit peak amplitude", range: benchRanges.voltage},
+		source_impedance: {dimension: 'resistance', description: "Source's output impedance", range: benchRanges.resistance, default: 50},
+		input_impedance: {dimension: 'resistance', description: "Driver's modulation input impedance", range: above(0, 1e9), default: 50},
+		frequency: {dimension: 'frequency', description: 'Modulation frequency', range: benchRanges.frequency, default: 0},
+		bandwidth: {dimension: 'frequency', description: 'Modulation −3 dB bandwidth (single pole)', range: benchRanges.bandwidth, optional: true},
 	},
 	outputs: {
 		peak_current: {dimension: 'current', description: 'Peak output current at that frequency'},

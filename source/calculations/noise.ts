@@ -1,13 +1,14 @@
-import type {Calculation} from './calculation.js';
+import {above, between, type Calculation} from './calculation.js';
+import {benchRanges} from './bench-ranges.js';
 
 /** RMS current noise from a white noise density over a bandwidth. */
 export const noise: Calculation = {
 	name: 'noise',
 	summary: 'RMS current noise from a noise density over a bandwidth, and as a fraction of the setpoint',
 	inputs: {
-		noise_density: {dimension: 'current_noise_density', description: 'Output current noise density (white)'},
-		bandwidth: {dimension: 'frequency', description: 'Measurement bandwidth (brick-wall)', allowed: 'positive'},
-		setpoint: {dimension: 'current', description: 'Current setpoint', allowed: 'positive', optional: true},
+		noise_density: {dimension: 'current_noise_density', description: 'Output current noise density (white)', range: between(0, 1)},
+		bandwidth: {dimension: 'frequency', description: 'Measurement bandwidth (brick-wall)', range: benchRanges.bandwidth},
+		setpoint: {dimension: 'current', description: 'Current setpoint', range: above(0, 1000), optional: true},
 	},
 	outputs: {
 		rms: {dimension: 'current', description: 'RMS noise current over the bandwidth (brick-wall)'},

@@ -1,13 +1,14 @@
-import {CalculationInputError, type Calculation} from './calculation.js';
+import {CalculationInputError, between, type Calculation} from './calculation.js';
+import {benchRanges} from './bench-ranges.js';
 
 /** Monitor photodiode current from responsivity, and optical power from monitor current. */
 export const photodiode: Calculation = {
 	name: 'photodiode',
 	summary: 'Monitor photodiode current at an optical power, and power from monitor current, from the measured responsivity',
 	inputs: {
-		responsivity: {dimension: 'responsivity', description: 'Monitor current per optical output power, measured for this unit'},
-		power: {dimension: 'power', description: 'Optical output power (for the monitor current)', optional: true},
-		monitor_current: {dimension: 'current', description: 'Monitor current (for the optical power)', optional: true},
+		responsivity: {dimension: 'responsivity', description: 'Monitor current per optical output power, measured for this unit', range: between(0, 100)},
+		power: {dimension: 'power', description: 'Optical output power (for the monitor current)', range: benchRanges.power, optional: true},
+		monitor_current: {dimension: 'current', description: 'Monitor current (for the optical power)', range: between(0, 10), optional: true},
 	},
 	outputs: {
 		current_at_power: {dimension: 'current', description: 'Monitor photodiode current at the power'},

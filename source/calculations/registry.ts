@@ -13,6 +13,7 @@ import {nohd} from './nohd.js';
 import {noise} from './noise.js';
 import {od} from './od.js';
 import {photodiode} from './photodiode.js';
+import {photonSlopeLimit} from './photon-slope-limit.js';
 import {risetime} from './risetime.js';
 import {threshold} from './threshold.js';
 import {wire} from './wire.js';
@@ -26,6 +27,7 @@ export const calculations: readonly Calculation[] = [
 	heatsink,
 	threshold,
 	lightCurrent,
+	photonSlopeLimit,
 	photodiode,
 	modulation,
 	risetime,

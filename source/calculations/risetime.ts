@@ -1,10 +1,11 @@
 import type {Calculation} from './calculation.js';
+import {benchRanges} from './bench-ranges.js';
 
 /** 10–90 % rise time of a single-pole response. */
 export const risetime: Calculation = {
 	name: 'risetime',
 	summary: '10–90 % rise time of a single-pole response from its −3 dB bandwidth',
-	inputs: {bandwidth: {dimension: 'frequency', description: '−3 dB bandwidth', allowed: 'positive'}},
+	inputs: {bandwidth: {dimension: 'frequency', description: '−3 dB bandwidth', range: benchRanges.bandwidth}},
 	outputs: {rise_time: {dimension: 'time', description: '10–90 % rise time'}},
 	main: 'rise_time',
 	formula: 't_r = ln 9/(2π·f_c) ≈ 0.3497/f_c',

@@ -1,14 +1,15 @@
-import type {Calculation} from './calculation.js';
+import {above, type Calculation} from './calculation.js';
+import {benchRanges} from './bench-ranges.js';
 
 /** Threshold current at a temperature from the characteristic-temperature model. */
 export const threshold: Calculation = {
 	name: 'threshold',
 	summary: 'Laser threshold current at a temperature from the characteristic temperature T0',
 	inputs: {
-		threshold_ref: {dimension: 'current', description: 'Threshold current at the reference temperature'},
-		temperature_ref: {dimension: 'temperature', description: 'Reference temperature of that threshold', allowed: 'positive'},
-		t0: {dimension: 'temperature_difference', description: 'Characteristic temperature T0 of the diode', allowed: 'positive'},
-		temperature: {dimension: 'temperature', description: 'Temperature of interest', allowed: 'positive'},
+		threshold_ref: {dimension: 'current', description: 'Threshold current at the reference temperature', range: benchRanges.current},
+		temperature_ref: {dimension: 'temperature', description: 'Reference temperature of that threshold', range: benchRanges.temperature},
+		t0: {dimension: 'temperature_difference', description: 'Characteristic temperature T0 of the diode', range: above(0, 1000)},
+		temperature: {dimension: 'temperature', description: 'Temperature of interest', range: benchRanges.temperature},
 	},
 	outputs: {threshold: {dimension: 'current', description: 'Threshold current at that temperature'}},
 	main: 'threshold',

@@ -1,4 +1,4 @@
-import type {Calculation} from './calculation.js';
+import {between, wholeBetween, type Calculation} from './calculation.js';
 
 const inch = 0.0254;
 /** Annealed copper, 100 % IACS, at 20 °C, in Ω·m. */
@@ -16,9 +16,9 @@ export const wire: Calculation = {
 	name: 'wire',
 	summary: 'Resistance of a solid copper conductor from its AWG size, length and temperature',
 	inputs: {
-		awg: {dimension: 'number', description: 'Gauge (AWG); 0 is 1/0, −1 is 2/0, −3 is 4/0', allowed: 'any'},
-		length: {dimension: 'length', description: 'Conductor length (one conductor; double it for a loop)'},
-		temperature: {dimension: 'temperature', description: 'Conductor temperature', allowed: 'positive', default: 293.15},
+		awg: {dimension: 'number', description: 'Gauge (AWG), whole gauges; 0 is 1/0, −1 is 2/0, −3 is 4/0', range: wholeBetween(-3, 40)},
+		length: {dimension: 'length', description: 'Conductor length (one conductor; double it for a loop)', range: between(0, 10e3)},
+		temperature: {dimension: 'temperature', description: 'Conductor temperature (the linear coefficient holds from about −100 °C to 250 °C)', range: between(173.15, 523.15), default: 293.15},
 	},
 	outputs: {
 		resistance: {dimension: 'resistance', description: 'Conductor resistance'},

@@ -1,5 +1,5 @@
 import {parseArgs} from 'node:util';
-import {formulaName, type Calculation} from '../calculations/calculation.js';
+import {formulaName, rangeShortText, type Calculation} from '../calculations/calculation.js';
 import {calculations, findCalculation} from '../calculations/registry.js';
 import {describeCalcProblem, runCalculation} from '../calculations/run-calculation.js';
 import {dimensions} from '../quantities/dimensions.js';
@@ -28,8 +28,12 @@ export function calculationHelp(calculation: Calculation, width = 100): string {
 	for (const [key, input] of Object.entries(calculation.inputs)) {
 		const info = dimensions[input.dimension];
 		const extra = input.default !== undefined ? ` (default ${formatQuantity(input.default, input.dimension)})` : input.optional ? ' (optional)' : '';
-		lines.push(...definitionRow(key, `${input.description}; ${info.noun}, e.g. ${key}=${info.example.replace(' ', '')}${extra}`, keyWidth, width));
+		const range = input.range ? `; ${rangeShortText(input.range, input.dimension)}` : '';
+		// A whole-number input gets a whole example (awg=5, not awg=4.5).
+		const example = input.range?.whole ? String(Math.round(Number(info.example))) : info.example.replace(' ', '');
+		lines.push(...definitionRow(key, `${input.description}; ${info.noun}, e.g. ${key}=${example}${range}${extra}`, keyWidth, width));
 	}
+	for (const condition of calculation.conditions ?? []) lines.push(...wrap(`Refused unless ${condition.keys[0]} is ${condition.description}.`, width));
 	lines.push('', 'Outputs:');
 	for (const [key, output] of Object.entries(calculation.outputs)) lines.push(...definitionRow(key, output.description, keyWidth, width));
 	lines.push('', ...wrap(`Formula: ${calculation.formula}`, width), '', 'Basis:');

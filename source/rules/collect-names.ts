@@ -27,7 +27,10 @@ export function collectNames(rules: RuleFile, source: YamlSource): {names: Map<s
 		places.set(id, place);
 		if (kind) names.set(id, kind);
 	};
-	for (const id of Object.keys(rules.policy)) claim(id, {kind: 'policy', source: 'policy'}, {path: ['policy', id], what: 'a policy value'});
+	for (const [id, entry] of Object.entries(rules.policy)) {
+		const kind: NameKind = entry.options_of === undefined ? {kind: 'policy', source: 'policy'} : {kind: 'option_list', source: 'policy', choice: entry.options_of};
+		claim(id, kind, {path: ['policy', id], what: 'a policy value'});
+	}
 	for (const id of Object.keys(rules.tables)) claim(id, {kind: 'table', source: 'table'}, {path: ['tables', id], what: 'a table'});
 	rules.steps.forEach((step, stepIndex) => {
 		step.inputs.forEach((input, index) => {

@@ -11,14 +11,14 @@ import type {CompiledCheck, CompiledConfirmation, CompiledDerived, CompiledInput
 import {compileFormula, type CompiledFormula} from './formula.js';
 import {lintWithSamples} from './lint-samples.js';
 import {locateInField} from './locate.js';
-import type {NameTable} from './names.js';
+import {didYouMean, type NameTable} from './names.js';
 import {wholeFileProvenance, type Place, type Provenance} from './provenance.js';
 import type {RuleFile} from './schema.js';
 
 type Path = Array<string | number>;
 
 /** Functions a rule formula may call: the math functions and every registered calculation. */
-export const formulaFunctionNames: ReadonlySet<string> = new Set([...mathFunctions, ...formulaFunctions.keys()]);
+export const formulaFunctionNames: ReadonlySet<string> = new Set([...mathFunctions, ...formulaFunctions.keys(), 'one_of']);
 
 /**
  * Compiles validated rules: parses policy values, ranges and defaults, compiles every
@@ -42,7 +42,22 @@ export function compileRules(
 
 	const quantity = (text: string | number, dimension: Dimension) => parseQuantity(String(text), dimension);
 	const policy = new Map<string, SiValue>();
+	const optionLists = new Map<string, readonly string[]>();
 	for (const [id, entry] of Object.entries(rules.policy)) {
+		if (Array.isArray(entry.value) || entry.dimension === undefined) {
+			const listed = Array.isArray(entry.value) ? entry.value : [];
+			const choice = entry.options_of === undefined ? undefined : names.get(entry.options_of);
+			if (choice?.kind !== 'choice') {
+				const choices = [...names].filter(([, kind]) => kind.kind === 'choice').map(([name]) => name);
+				problems.push(problem('policy-options-of', {id, name: entry.options_of ?? '', hint: didYouMean(entry.options_of ?? '', choices)}, where(['policy', id, 'options_of'])));
+				continue;
+			}
+			listed.forEach((option, index) => {
+				if (!choice.options.includes(option)) problems.push(problem('policy-option', {id, option, name: entry.options_of!, allowed: choice.options.join(', ')}, where(['policy', id, 'value', index])));
+			});
+			optionLists.set(id, listed);
+			continue;
+		}
 		const parsed = quantity(entry.value, entry.dimension);
 		if (parsed.ok) policy.set(id, {si: parsed.value.si, dimension: entry.dimension});
 		else problems.push(problem('policy-value', {id, detail: describeProblem(problem(parsed.problem.code, {...parsed.problem, label: id, hint: '', ...dimensionWords(entry.dimension)}))}, where(['policy', id, 'value'])));
@@ -147,6 +162,7 @@ export function compileRules(
 		rules,
 		names: names as NameTable,
 		policy,
+		optionLists,
 		tables: new Map(Object.entries(rules.tables)),
 		inputs,
 		confirmations,

@@ -34,6 +34,8 @@ export type CompiledRules = {
 	rules: RuleFile;
 	names: NameTable;
 	policy: ReadonlyMap<string, SiValue>;
+	/** Policy values that list options of a choice input (`options_of`), tested with one_of(). */
+	optionLists: ReadonlyMap<string, readonly string[]>;
 	tables: ReadonlyMap<string, Table>;
 	inputs: ReadonlyMap<string, CompiledInput>;
 	confirmations: ReadonlyMap<string, CompiledConfirmation>;

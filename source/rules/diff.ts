@@ -1,5 +1,5 @@
 import type {CompiledCheck, CompiledRules} from './compiled-rules.js';
-import type {Check} from './schema.js';
+import {policyKindText, policyValueText, type Check} from './schema.js';
 
 /** A part named by id, with the words a person reads. */
 export type Named = {id: string; title: string};
@@ -78,12 +78,12 @@ export function diffRules(a: CompiledRules, b: CompiledRules): RulesDiff {
 	for (const [id, entry] of Object.entries(b.rules.policy)) {
 		const old = a.rules.policy[id];
 		const toSi = b.policy.get(id)?.si ?? Number.NaN;
-		if (!old) policy.added.push({id, dimension: entry.dimension, value: String(entry.value)});
-		else if (old.dimension !== entry.dimension || a.policy.get(id)?.si !== toSi) {
-			policy.changed.push({id, dimension: entry.dimension, from: String(old.value), to: String(entry.value), fromSi: a.policy.get(id)?.si ?? Number.NaN, toSi});
+		if (!old) policy.added.push({id, dimension: policyKindText(entry), value: policyValueText(entry.value)});
+		else if (policyKindText(old) !== policyKindText(entry) || a.policy.get(id)?.si !== b.policy.get(id)?.si || policyValueText(a.optionLists.get(id) ?? []) !== policyValueText(b.optionLists.get(id) ?? [])) {
+			policy.changed.push({id, dimension: policyKindText(entry), from: policyValueText(old.value), to: policyValueText(entry.value), fromSi: a.policy.get(id)?.si ?? Number.NaN, toSi});
 		}
 	}
-	for (const [id, entry] of Object.entries(a.rules.policy)) if (!Object.hasOwn(b.rules.policy, id)) policy.removed.push({id, dimension: entry.dimension, value: String(entry.value)});
+	for (const [id, entry] of Object.entries(a.rules.policy)) if (!Object.hasOwn(b.rules.policy, id)) policy.removed.push({id, dimension: policyKindText(entry), value: policyValueText(entry.value)});
 
 	const onA = byId(a.checks);
 	const offA = byId(a.switchedOff);

@@ -21,7 +21,7 @@ type Computed = {ok: true; value: unknown} | {ok: false; needs: string[]} | {ok:
  * each confirmation's status, and the outcome. Pure: the same inputs give the same result.
  */
 export function evaluate(rules: CompiledRules, answers: Answers): Evaluation {
-	const scope = newScope();
+	const scope = newScope(rules.optionLists);
 	const missing = new Map<string, string[]>();
 	for (const [id, value] of rules.policy) scope.set(id, toFormulaValue(value));
 

@@ -6,7 +6,7 @@ import {didYouMean} from './names.js';
 import {PlaceBook, type Place, type Provenance, type SeverityChange} from './provenance.js';
 import {resolvedRuleText, type ChainEntry} from './resolved-text.js';
 import {readRuleSource, shippedRulesPath} from './rule-source.js';
-import {ruleFileSchema, type RuleFile} from './schema.js';
+import {policyKindText, policyValueText, ruleFileSchema, type RuleFile} from './schema.js';
 import {schemaProblems} from './schema-problems.js';
 import {siteFileSchema, type SiteFile} from './site-schema.js';
 
@@ -111,10 +111,14 @@ function mergeSite(base: ResolvedRules, site: SiteFile, source: YamlSource, sha2
 			continue;
 		}
 		if (change.dimension !== undefined && change.dimension !== entry.dimension) {
-			problems.push(at(['policy_changed', id, 'dimension'], 'extends-dimension-change', {id, dimension: entry.dimension, given: change.dimension}));
+			problems.push(at(['policy_changed', id, 'dimension'], 'extends-dimension-change', {id, dimension: policyKindText(entry), given: change.dimension}));
 			continue;
 		}
-		previousPolicy.set(id, {value: entry.value, file: book.fileOf(`policy.${id}.value`) ?? ''});
+		if (Array.isArray(change.value) !== Array.isArray(entry.value)) {
+			problems.push(at(['policy_changed', id, 'value'], 'extends-dimension-change', {id, dimension: policyKindText(entry), given: Array.isArray(change.value) ? 'a list of options' : 'a single value'}));
+			continue;
+		}
+		previousPolicy.set(id, {value: policyValueText(entry.value), file: book.fileOf(`policy.${id}.value`) ?? ''});
 		entry.value = change.value;
 		mapTo(['policy', id, 'value'], ['policy_changed', id, 'value']);
 		book.set(`policy.${id}.value`, source, ['policy_changed', id, 'value']);

@@ -55,6 +55,7 @@ export function compileFormula(text: string, names: NameTable, functions: Readon
 					used.add(node.name);
 					if (entry.kind === 'text') problems.push({code: 'text-in-formula', data: {name: node.name}, name: node.name});
 					if (entry.kind === 'choice' && !choiceAllowed) problems.push({code: 'choice-misuse', data: {name: node.name, allowed: entry.options.join(', ')}, name: node.name});
+					if (entry.kind === 'option_list') problems.push({code: 'options-misuse', data: {name: node.name, choice: entry.choice}, name: node.name});
 					return;
 				}
 				if (mathConstants.has(node.name) || isUnitName(node.name)) return;
@@ -73,6 +74,12 @@ export function compileFormula(text: string, names: NameTable, functions: Readon
 				visit(node.arg);
 				return;
 			case 'call':
+				if (node.name === 'one_of') {
+					const problem = oneOfProblem(node.args, names);
+					if (problem) problems.push({code: 'one-of-arguments', data: {detail: problem}, name: 'one_of'});
+					else for (const arg of node.args) used.add((unwrap(arg) as {name: string}).name);
+					return;
+				}
 				if (!functions.has(node.name)) {
 					problems.push({code: 'unknown-function', data: {name: node.name, allowed: [...functions].sort().join(', ')}, name: node.name});
 					return;
@@ -136,6 +143,18 @@ function nonFiniteConstant(node: ExpressionNode, names: NameTable): {node: Expre
 		const found = nonFiniteConstant(child, names);
 		if (found) return found;
 	}
+	return undefined;
+}
+
+/** Why a call of one_of() is not `one_of(choice, list of that choice's options)`, or undefined when it is. */
+function oneOfProblem(args: readonly ExpressionNode[], names: NameTable): string | undefined {
+	if (args.length !== 2) return `; it has ${args.length} argument${args.length === 1 ? '' : 's'}`;
+	const [choice, list] = args.map(unwrap) as [ExpressionNode, ExpressionNode];
+	const choiceEntry = choice.kind === 'name' ? names.get(choice.name) : undefined;
+	if (choice.kind !== 'name' || choiceEntry?.kind !== 'choice') return `; "${choice.kind === 'name' ? choice.name : 'its first argument'}" is not a choice input`;
+	const listEntry = list.kind === 'name' ? names.get(list.name) : undefined;
+	if (list.kind !== 'name' || listEntry?.kind !== 'option_list') return `; "${list.kind === 'name' ? list.name : 'its second argument'}" is not a policy list of options`;
+	if (listEntry.choice !== choice.name) return `; "${list.name}" lists options of ${listEntry.choice}, not of ${choice.name}`;
 	return undefined;
 }
 

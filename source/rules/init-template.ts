@@ -1,5 +1,6 @@
 import {dimensions} from '../quantities/dimensions.js';
 import type {CompiledRules} from './compiled-rules.js';
+import {policyValueText} from './schema.js';
 
 const comment = (text: string, width = 92) => {
 	const words = text.replaceAll(/\s+/g, ' ').trim().split(' ');
@@ -46,9 +47,10 @@ export function siteFileTemplate(shipped: CompiledRules): string {
 		'# policy_changed:',
 	];
 	for (const [id, entry] of Object.entries(shipped.rules.policy)) {
-		const unit = dimensions[entry.dimension].display;
-		const kind = `${dimensions[entry.dimension].noun}${unit ? `, for example ${dimensions[entry.dimension].example}` : ''}`;
-		lines.push(`#   ${id}:`, ...comment(`${entry.meaning}. Default ${entry.value} (${kind}).`).map((text) => `#     # ${text}`), `#     value: ${entry.value}`);
+		const dimension = entry.dimension === undefined ? undefined : dimensions[entry.dimension];
+		const kind = dimension ? `${dimension.noun}${dimension.display ? `, for example ${dimension.example}` : ''}` : `a list of options of ${entry.options_of}`;
+		const value = policyValueText(entry.value);
+		lines.push(`#   ${id}:`, ...comment(`${entry.meaning}. Default ${value} (${kind}).`).map((text) => `#     # ${text}`), `#     value: ${value}`);
 	}
 	lines.push(
 		'',

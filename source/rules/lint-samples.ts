@@ -143,7 +143,7 @@ export function lintWithSamples(rules: CompiledRules, where: Where): Problem[] {
 
 /** Inputs, policy values and tables at sample values: each quantity input at `fraction` of its range (the middle uses its default). */
 function sampleScope(rules: CompiledRules, fraction: number): Map<string, unknown> {
-	const scope = newScope();
+	const scope = newScope(rules.optionLists);
 	for (const [id, value] of rules.policy) scope.set(id, toFormulaValue(value));
 	for (const [id, {input, range, defaultValue}] of rules.inputs) {
 		if (input.kind === 'quantity') scope.set(id, toFormulaValue(fraction === 0.5 ? (defaultValue ?? sampleWithin(range, input.dimension)) : sampleWithin(range, input.dimension, fraction)));

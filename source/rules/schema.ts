@@ -10,14 +10,25 @@ const formula = string().trim().min(1, 'a formula cannot be empty');
 const quantityText = union([string(), number()]);
 const words = string().trim().min(1, 'this text cannot be empty');
 
-/** A site-tunable constant with its unit, meaning and basis. */
+/**
+ * A site-tunable constant with its meaning and basis: a quantity with its unit and dimension,
+ * or (with `options_of`) a list of options of a choice input, such as the laser classes a
+ * requirement applies to; formulas test it with `one_of(choice, list)`.
+ */
 export const policyValueSchema = object({
-		value: quantityText.describe('The value with its unit, e.g. "10 %" or "3 s"'),
-		dimension: oneOf(dimensionNames),
+		value: union([quantityText, array(identifier)]).describe('The value with its unit, e.g. "10 %" or "3 s"; or, with options_of, a list of options, e.g. [class_3b, class_4]'),
+		dimension: oneOf(dimensionNames).optional().describe('The dimension of a quantity value (not with options_of)'),
+		options_of: identifier.optional().describe('The choice input whose options the value lists (not with dimension)'),
 		meaning: words,
 		basis: words,
 	})
-	.strict();
+	.strict()
+	.superRefine((entry, context) => {
+		const list = Array.isArray(entry.value);
+		if (entry.options_of !== undefined && entry.dimension !== undefined) context.addIssue({code: 'custom', message: 'a policy value has either dimension (a quantity) or options_of (a list of options of a choice), not both'});
+		else if (entry.options_of === undefined && entry.dimension === undefined) context.addIssue({code: 'custom', message: 'a policy value needs dimension (a quantity) or options_of (a list of options of a choice)'});
+		else if (list !== (entry.options_of !== undefined)) context.addIssue({code: 'custom', message: list ? 'a list of options needs options_of: the choice input it lists options of' : 'with options_of the value is a list of options, e.g. [class_3b, class_4]'});
+	});
 
 const inputCommon = {
 	id: identifier,
@@ -154,3 +165,13 @@ export type Check = z.infer<typeof checkSchema>;
 export type Derived = z.infer<typeof derivedSchema>;
 export type Table = z.infer<typeof tableSchema>;
 export type PolicyValue = z.infer<typeof policyValueSchema>;
+
+/** A policy value as text: "10 %", or "[class_3b, class_4]" for a list of options. */
+export function policyValueText(value: string | number | readonly string[]): string {
+	return Array.isArray(value) ? `[${value.join(', ')}]` : String(value);
+}
+
+/** What kind of value a policy value is: its dimension, or "options of laser_class". */
+export function policyKindText(entry: Pick<PolicyValue, 'dimension' | 'options_of'>): string {
+	return entry.options_of !== undefined ? `options of ${entry.options_of}` : (entry.dimension ?? '');
+}

@@ -3,9 +3,14 @@ import {formulaFunctions, FormulaCallError} from '../calculations/formula-functi
 import {describeValue} from '../quantities/describe-value.js';
 import {EvaluationError} from '../quantities/evaluation-error.js';
 
-/** A fresh formula scope holding the calculation functions. */
-export function newScope(): Map<string, unknown> {
-	return new Map<string, unknown>(formulaFunctions);
+/** `one_of(choice, list)`: whether a choice's answer is one of the options a policy value lists. */
+function oneOf(option: unknown, list: unknown): boolean {
+	return typeof option === 'string' && Array.isArray(list) && list.includes(option);
+}
+
+/** A fresh formula scope holding the calculation functions, one_of() and the policy's option lists. */
+export function newScope(optionLists: ReadonlyMap<string, readonly string[]> = new Map()): Map<string, unknown> {
+	return new Map<string, unknown>([...formulaFunctions, ['one_of', oneOf], ...optionLists]);
 }
 
 /** Why a formula could not be evaluated, sorted into a dimension problem or another failure. */

@@ -1,7 +1,7 @@
 import {displayPath} from '../display-path.js';
 import type {CompiledRules} from './compiled-rules.js';
 import type {SeverityChange} from './provenance.js';
-import type {Check, Input} from './schema.js';
+import {policyKindText, policyValueText, type Check, type Input} from './schema.js';
 
 /** Where a part was written, as a person reads it. */
 export type ShowOrigin = {file: string; line: number};
@@ -92,8 +92,8 @@ export function showRules(rules: CompiledRules): RulesShow {
 			const previous = provenance.previousPolicy.get(id);
 			return {
 				id,
-				value: String(entry.value),
-				dimension: entry.dimension,
+				value: policyValueText(entry.value),
+				dimension: policyKindText(entry),
 				meaning: oneLine(entry.meaning),
 				basis: oneLine(entry.basis),
 				from: from(`policy.${id}.value`),

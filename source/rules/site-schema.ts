@@ -8,7 +8,7 @@ const words = string().trim().min(1, 'this text cannot be empty');
 
 /** A new value for a policy value the base has: the value, and optionally a new basis. The dimension stays. */
 export const policyChangeSchema = object({
-		value: union([string(), number()]).describe('The new value with its unit, e.g. "20 %"'),
+		value: union([string(), number(), array(identifier)]).describe('The new value with its unit, e.g. "20 %"; or a new list of options, e.g. [class_3r, class_3b, class_4]'),
 		dimension: oneOf(dimensionNames).optional().describe('May be given, but must be the base\'s dimension'),
 		basis: words.optional().describe('Why the site uses this value (keeps the base\'s basis when absent)'),
 	})

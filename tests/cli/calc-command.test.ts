@@ -57,8 +57,8 @@ describe('prelase calc', () => {
 		{name: 'a wrong dimension', argv: ['calc', 'risetime', 'bandwidth=1 ms'], says: ['bandwidth', 'is a time', 'a frequency']},
 		{name: 'a missing unit', argv: ['calc', 'risetime', 'bandwidth=1000'], says: ['bandwidth', 'has no unit']},
 		{name: 'a missing input', argv: ['calc', 'dissipation', 'supply=28V', 'knee=2V', 'series_resistance=0ohm'], says: ['dissipation needs limit', 'a current']},
-		{name: 'a value outside validity', argv: ['calc', 'risetime', 'bandwidth=0Hz'], says: ['bandwidth must be greater than zero']},
-		{name: 'a negative current', argv: ['calc', 'forward-voltage', 'knee=1.6V', 'series_resistance=0.1ohm', 'current=-1A'], says: ['current must be zero or more']},
+		{name: 'a value outside validity', argv: ['calc', 'risetime', 'bandwidth=0Hz'], says: ['bandwidth must be above 0 Hz']},
+		{name: 'a negative current', argv: ['calc', 'forward-voltage', 'knee=1.6V', 'series_resistance=0.1ohm', 'current=-1A'], says: ['current must be between 0 A and 1 kA']},
 		{name: 'not key=value', argv: ['calc', 'risetime', '1MHz'], says: ['"1MHz" is not key=value']},
 		{name: 'a repeated key', argv: ['calc', 'risetime', 'bandwidth=1MHz', 'bandwidth=2MHz'], says: ['"bandwidth" is given twice']},
 		{name: 'neither input of an inverse', argv: ['calc', 'photodiode', 'responsivity=0.5A/W'], says: ['power or monitor_current must be given']},
@@ -68,6 +68,47 @@ describe('prelase calc', () => {
 		expect(code).toBe(2);
 		for (const words of says) expect(stderr).toContain(words);
 		expect(stderr).not.toContain('internal error');
+	});
+
+	// Each input has a declared range; a value outside it is refused naming the key and the range,
+	// the same contract as a rule-file input (exit 2), never computed into a nonsense result.
+	it.each([
+		{name: 'gauge 100', argv: ['calc', 'wire', 'awg=100', 'length=1m'], says: ['awg must be', 'between -3 and 40']}, // NBS Handbook 100 tables run from 4/0 (−3) to 40 AWG
+		{name: 'gauge −50', argv: ['calc', 'wire', 'awg=-50', 'length=1m'], says: ['awg must be', 'between -3 and 40']}, // NBS Handbook 100: no gauge finer than 4/0 (−3)
+		{name: 'gauge 24.5', argv: ['calc', 'wire', 'awg=24.5', 'length=1m'], says: ['awg must be', 'whole']}, // NBS Handbook 100 lists whole gauges only
+		{name: 'copper at −250 °C', argv: ['calc', 'wire', 'awg=18', 'length=1m', 'temperature=-250degC'], says: ['temperature must be', 'between -100 °C and 250 °C']}, // hand arithmetic: 1 + 0.00393·(−270) < 0, a negative resistance
+		{name: 'a 150 % supply tolerance', argv: ['calc', 'headroom', 'supply=5V', 'tolerance=150%', 'cable_resistance=0ohm', 'sense_resistance=0ohm', 'driver_drop=0V', 'forward_voltage=2V', 'current=1A'], says: ['tolerance must be', '50 %']}, // hand arithmetic: 5 V × (1 − 1.5) = −2.5 V
+		{name: 'a 150 % brownout tolerance', argv: ['calc', 'brownout', 'forward_voltage=2V', 'current=1A', 'cable_resistance=0ohm', 'sense_resistance=0ohm', 'driver_drop=0V', 'supply=5V', 'tolerance=150%'], says: ['tolerance must be', '50 %']}, // hand arithmetic: a negative supply
+		{name: 'a threshold at 1000 °C', argv: ['calc', 'threshold', 'threshold_ref=10mA', 'temperature_ref=25degC', 't0=60K', 'temperature=1000degC'], says: ['temperature must be', '300 °C']}, // common practice: the T0 model is fitted over a diode's operating range, far below 1000 °C
+		{name: 'zero dissipation below the rated ambient', argv: ['calc', 'derating', 'rated_power=10W', 'rated_ambient=70degC', 'max_temperature=50degC', 'ambient=60degC'], says: ['max_temperature', 'rated_ambient', 'above']}, // common practice: a derating line falls from the rated ambient to a higher zero point
+	])('refuses $name with exit 2, naming the key and the range', ({argv, says}) => {
+		const {code, stdout, stderr} = run(...argv);
+		expect(code).toBe(2);
+		expect(stdout).toBe('');
+		for (const words of says) expect(stderr).toContain(words);
+	});
+
+	// A range edge holds however the value is spelled: −100 °C is 173.15 K is −148 °F
+	// (hand arithmetic: −100 + 273.15 = 173.15; (−148 − 32) × 5/9 = −100).
+	it.each([
+		{argv: ['calc', 'wire', 'awg=18', 'length=1m', 'temperature=-100degC']},
+		{argv: ['calc', 'wire', 'awg=18', 'length=1m', 'temperature=173.15K']},
+		{argv: ['calc', 'wire', 'awg=18', 'length=1m', 'temperature=-148degF']},
+		{argv: ['calc', 'wire', 'awg=18', 'length=1m', 'temperature=250degC']},
+		{argv: ['calc', 'wire', 'awg=18', 'length=1m', 'temperature=482degF']},
+		{argv: ['calc', 'headroom', 'supply=5V', 'tolerance=50%', 'cable_resistance=0ohm', 'sense_resistance=0ohm', 'driver_drop=0V', 'forward_voltage=1V', 'current=1A']},
+		{argv: ['calc', 'headroom', 'supply=5V', 'tolerance=0.5', 'cable_resistance=0ohm', 'sense_resistance=0ohm', 'driver_drop=0V', 'forward_voltage=1V', 'current=1A']},
+	])('accepts a range edge however it is spelled: $argv', ({argv}) => {
+		const {code, stderr} = run(...argv);
+		expect(stderr).toBe('');
+		expect(code).toBe(0);
+	});
+
+	it('shows each input\'s range in --help', () => {
+		const {stdout} = run('calc', 'wire', '--help');
+		// NBS Handbook 100 AWG tables: 4/0 (−3) to 40
+		expect(stdout).toMatch(/awg[\s\S]*-3 to 40 \(whole\)/);
+		expect(stdout).not.toContain('awg=4.5'); // a whole-gauge input is not shown a fractional example
 	});
 
 	it('prints the caution with every exposure figure, in text and JSON', () => {

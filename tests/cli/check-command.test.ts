@@ -15,7 +15,7 @@ import {fakeIo} from '../helpers/fake-io.js';
 
 const examples = resolve('docs/examples');
 const clearDemo = join(examples, 'bench3-808nm-clear.yaml');
-const failDemo = join(examples, 'bench5-rack-supply-dissipation-fail.yaml');
+const failDemo = join(examples, 'bench6-chilled-mount-cold-power-fail.yaml');
 const incompleteDemo = join(examples, 'bench3-808nm-incomplete.yaml');
 const clearText = readFileSync(clearDemo, 'utf8');
 const shippedRulesText = readFileSync(shippedRulesPath(), 'utf8');
@@ -76,7 +76,7 @@ function answerProblems(file: string): Problem[] {
 describe('prelase check: the demos', () => {
 	it.each([
 		{name: 'clear demo → 0', file: clearDemo, code: 0, outcome: 'clear_to_energize'},
-		{name: 'dissipation-fail demo → 1', file: failDemo, code: 1, outcome: 'do_not_energize'},
+		{name: 'cold-power fail demo → 1', file: failDemo, code: 1, outcome: 'do_not_energize'},
 		{name: 'incomplete demo → 1', file: incompleteDemo, code: 1, outcome: 'incomplete'},
 	])('$name', ({file, code, outcome}) => {
 		const text = run('check', '--answers', file);
@@ -92,15 +92,16 @@ describe('prelase check: the demos', () => {
 		expect(code).toBe(0);
 		expect(stdout).toContain('Outcome: CLEAR TO ENERGIZE');
 		expect(stdout).toContain('CAUTION');
-		expect(stdout).toContain('Summary: 0 fail · 2 advise · 0 open · 19 pass · 5 skip');
+		expect(stdout).toContain('Summary: 0 fail · 2 advise · 0 open · 22 pass · 5 skip');
 		expect(stdout).not.toMatch(/\u001B\[/);
 	});
 
 	it('lists the failing check first in the summary of the fail demo', () => {
 		const {stdout} = run('check', '--answers', failDemo);
 		const summary = stdout.slice(stdout.indexOf('Summary:'));
-		expect(summary).toMatch(/✗ FAIL\s+Worst-case driver dissipation/);
-		expect(summary).toContain('27.4 W, limit ≤ 9 W · over the limit by 18.4 W');
+		expect(summary).toMatch(/✗ FAIL\s+Optical power at the limit current, coldest case/);
+		// 1.05 W/A × (3 A − 0.6 A × exp(−20/110)) = 2.62 W against 2.5 W (T0 model, Coldren et al., from memory)
+		expect(summary).toContain('2.62 W, limit ≤ 2.5 W · over the limit by 125 mW');
 		expect(stdout).toContain('Outcome: DO NOT ENERGIZE');
 	});
 
@@ -122,7 +123,7 @@ describe('prelase check --json', () => {
 		expect(json['setup']).toBe('Fenwick Hollow bench 3 — FH-808-2 on LD-5L, constant current');
 		expect(json['outcome']).toBe('clear_to_energize');
 		expect(json['outcomeText']).toBe('clear to energize');
-		expect(json['counts']).toEqual({pass: 19, fail: 0, advise: 2, open: 0, skip: 5});
+		expect(json['counts']).toEqual({pass: 22, fail: 0, advise: 2, open: 0, skip: 5});
 		expect(json['caution']).toBe(rules.rules.caution);
 		expect(json['deferral']).toMatch(/laser safety officer/);
 	});
@@ -190,15 +191,17 @@ describe('prelase check --json', () => {
 
 	it('gives a failing check a negative margin', () => {
 		const {json} = runJson(failDemo);
-		const check = (json['checks'] as Array<Record<string, any>>).find((entry) => entry['id'] === 'dissipation_within_rating')!;
+		const check = (json['checks'] as Array<Record<string, any>>).find((entry) => entry['id'] === 'cold_power_at_limit')!;
 		expect(check['verdict']).toBe('fail');
-		// 28 V × 1.05 = 29.4 V; at the 1 A limit: (29.4 V − 1.8 V − 0.2 Ω × 1 A) × 1 A = 27.4 W against 9 W.
-		expect(check['value'].si).toBeCloseTo(27.4, 9);
-		expect(check['limit'].si).toBeCloseTo(9, 9);
-		expect(check['margin'].si).toBeCloseTo(9 - 27.4, 9);
-		expect(check['margin'].fraction).toBeCloseTo((9 - 27.4) / 9, 9);
-		expect(check['margin'].text).toBe('-18.4 W');
-		expect(json['counts']).toEqual({pass: 17, fail: 1, advise: 1, open: 0, skip: 7});
+		// T0 model (Coldren et al., from memory), by hand: 1.05 W/A × (3 A − 0.6 A × exp((5 − 25)/110)) = 2.6247357 W against 2.5 W.
+		const cold = 1.05 * (3 - 0.6 * Math.exp(-20 / 110));
+		expect(cold).toBeCloseTo(2.6247357, 6);
+		expect(check['value'].si).toBeCloseTo(cold, 9);
+		expect(check['limit'].si).toBeCloseTo(2.5, 9);
+		expect(check['margin'].si).toBeCloseTo(2.5 - cold, 9);
+		expect(check['margin'].fraction).toBeCloseTo((2.5 - cold) / 2.5, 9);
+		expect(check['margin'].text).toBe('-125 mW');
+		expect(json['counts']).toEqual({pass: 19, fail: 1, advise: 2, open: 0, skip: 7});
 	});
 
 	it('gives each confirmation its status, and open checks what they need', () => {
@@ -210,7 +213,7 @@ describe('prelase check --json', () => {
 		expect(confirmations.find((entry) => entry['id'] === 'use_authorised')).toMatchObject({status: 'yes'});
 
 		const incomplete = runJson(incompleteDemo).json;
-		expect(incomplete['counts']).toEqual({pass: 15, fail: 0, advise: 1, open: 4, skip: 6});
+		expect(incomplete['counts']).toEqual({pass: 18, fail: 0, advise: 1, open: 4, skip: 6});
 		expect(incomplete['missingInputs']).toEqual(['photodiode_responsivity', 'brownout_trip', 'beam1_eyewear_od']);
 		const open = (incomplete['checks'] as Array<Record<string, any>>).find((entry) => entry['id'] === 'brownout_before_control_lost')!;
 		expect(open).toMatchObject({verdict: 'open', needs: ['brownout_trip']});

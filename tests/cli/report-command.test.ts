@@ -6,7 +6,7 @@ import {main} from '../../source/cli.js';
 import {helpTexts} from '../../source/commands/help.js';
 import {fakeIo} from '../helpers/fake-io.js';
 
-const failDemo = resolve('docs/examples/bench5-rack-supply-dissipation-fail.yaml');
+const failDemo = resolve('docs/examples/bench6-chilled-mount-cold-power-fail.yaml');
 
 let folder: string;
 let signerHome: string;
@@ -45,9 +45,9 @@ afterAll(() => {
 
 describe('prelase report: printing a signed record', () => {
 	it.each([
-		{name: 'markdown by default', args: [], start: '# Bench check record: Fenwick Hollow bench 5', contains: ['**Outcome: DO NOT ENERGIZE**', '| **✗ FAIL** | Worst-case driver dissipation', '| 27.4 W | ≤ 9 W | over by 18.4 W | 204 % |']},
+		{name: 'markdown by default', args: [], start: '# Bench check record: Fenwick Hollow bench 6', contains: ['**Outcome: DO NOT ENERGIZE**', '| **✗ FAIL** | Optical power at the limit current, coldest case', '| 2.62 W | ≤ 2.5 W | over by 125 mW | 4.99 % |']},
 		{name: 'markdown asked for', args: ['--format', 'md'], start: '# Bench check record:', contains: ['> **CAUTION.**', 'have the final word.']},
-		{name: 'html asked for', args: ['--format', 'html'], start: '<!doctype html>', contains: ['<strong>DO NOT ENERGIZE</strong>', '<td class="number">27.4 W</td><td class="number">≤ 9 W</td>', 'have the final word.']},
+		{name: 'html asked for', args: ['--format', 'html'], start: '<!doctype html>', contains: ['<strong>DO NOT ENERGIZE</strong>', '<td class="number">2.62 W</td><td class="number">≤ 2.5 W</td>', 'have the final word.']},
 	])('$name', ({args, start, contains}) => {
 		const {code, stdout, stderr} = run(signerHome, 'report', recordPath, ...args);
 		expect(stderr).toBe('');
@@ -85,7 +85,7 @@ describe('prelase report --out', () => {
 		expect(code).toBe(0);
 		expect(stdout).toBe(`Report written: ${out}\n`);
 		expect(readFileSync(out, 'utf8').startsWith(start)).toBe(true);
-		expect(readFileSync(out, 'utf8')).toContain('27.4 W');
+		expect(readFileSync(out, 'utf8')).toContain('2.62 W');
 	});
 
 	it('refuses to overwrite an existing file and leaves it as it was', () => {
@@ -104,7 +104,7 @@ describe('prelase report: bad usage and records that fail their integrity check'
 		{name: 'two records', args: () => ['report', recordPath, recordPath], code: 2, says: 'one record at a time'},
 		{name: 'unknown format', args: () => ['report', recordPath, '--format', 'pdf'], code: 2, says: 'unknown format "pdf"'},
 		{name: 'unknown option', args: () => ['report', recordPath, '--fromat', 'md'], code: 2, says: 'unknown option --fromat (did you mean "--format"?)'},
-		{name: 'a changed value', args: () => ['report', writeTemp('altered.json', recordText.replace('"text": "27.4 W"', '"text": "7.4 W"'))], code: 3, says: 'signature 1 (Test Person): the signature does not match the content'},
+		{name: 'a changed value', args: () => ['report', writeTemp('altered.json', recordText.replace('"text": "2.62 W"', '"text": "1.62 W"'))], code: 3, says: 'signature 1 (Test Person): the signature does not match the content'},
 		{name: 'a changed verdict', args: () => ['report', writeTemp('verdict.json', recordText.replace('"verdict": "fail"', '"verdict": "pass"'))], code: 3, says: 'fails its integrity check'},
 		{name: 'no signatures', args: () => ['report', writeTemp('unsigned.json', JSON.stringify({...JSON.parse(recordText), signatures: []}))], code: 3, says: 'the record is unsigned'},
 		{name: 'not JSON', args: () => ['report', writeTemp('broken.json', recordText.slice(0, 200))], code: 3, says: 'not valid JSON'},
@@ -120,7 +120,7 @@ describe('prelase report: bad usage and records that fail their integrity check'
 
 	it('writes no file for a record that fails its integrity check', () => {
 		const out = join(folder, 'never.html');
-		const altered = writeTemp('altered-out.json', recordText.replace('"text": "27.4 W"', '"text": "7.4 W"'));
+		const altered = writeTemp('altered-out.json', recordText.replace('"text": "2.62 W"', '"text": "1.62 W"'));
 		expect(run(signerHome, 'report', altered, '--out', out).code).toBe(3);
 		expect(existsSync(out)).toBe(false);
 	});

@@ -10,6 +10,7 @@ import {evaluationToJson} from '../../source/rules/evaluation-json.js';
 import {loadAnswers} from '../../source/rules/load-answers.js';
 import {loadRules, loadRulesFromText, shippedRulesPath} from '../../source/rules/load.js';
 import type {RulesShow} from '../../source/rules/show.js';
+import {policyValueText} from '../../source/rules/schema.js';
 import {fakeIo} from '../helpers/fake-io.js';
 
 const clearDemo = resolve('docs/examples/bench3-808nm-clear.yaml');
@@ -51,7 +52,7 @@ describe('prelase rules validate', () => {
 		writeFileSync(bad, 'format: 1\nextends: shipped\npolicy_changed:\n  current_margin:\n    value: 2 A\nswitched_off:\n  pin_configuration_supported: ""\n  no_such_check: why\n');
 		const {code, stdout} = await run('rules', 'validate', sitePath, bad);
 		expect(code).toBe(1);
-		expect(stdout).toContain(`${sitePath}: ok (25 checks, 1 switched off, 65 inputs, 21 confirmations; extends 1 file(s))`);
+		expect(stdout).toContain(`${sitePath}: ok (28 checks, 1 switched off, 65 inputs, 21 confirmations; extends 1 file(s))`);
 		expect(stdout).toContain(`${bad}:7:3: error: switched_off.pin_configuration_supported: switching off the check "pin_configuration_supported" needs a reason`);
 		expect(stdout).toContain(`${bad}:8:3: error: switched_off.no_such_check: the base has no check "no_such_check"`);
 		expect(stdout).toContain(`${bad}:5:12: error: policy_changed.current_margin.value: the policy value "current_margin" is not valid`);
@@ -115,7 +116,7 @@ describe('prelase rules init', () => {
 		if (!shipped.ok) throw new Error('shipped does not load');
 		for (const [id, entry] of Object.entries(shipped.value.rules.policy)) {
 			expect(text).toContain(`#   ${id}:\n`);
-			expect(text).toContain(`#     value: ${entry.value}\n`);
+			expect(text).toContain(`#     value: ${policyValueText(entry.value)}\n`);
 		}
 		expect(text).toContain('#   pin_configuration_supported: "Why it does not apply here, and who decided"');
 		expect(parse(text)).toEqual({format: 1, extends: 'shipped'});

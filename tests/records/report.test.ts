@@ -35,7 +35,7 @@ function signed(body: RecordBody): {record: BenchRecord; signatures: SignatureSt
 }
 
 const ownTrust: TrustInfo = {own: operatorFingerprint, trusted: []};
-const failing = signed(demoBody('bench5-rack-supply-dissipation-fail'));
+const failing = signed(demoBody('bench6-chilled-mount-cold-power-fail'));
 
 const formats = [
 	{name: 'markdown', write: reportMarkdown, escape: (text: string) => markdownText(text)},
@@ -48,24 +48,24 @@ describe.each(formats)('$name report of the failing demo', ({write, escape}) => 
 
 	it.each([
 		{name: 'outcome in words', text: 'DO NOT ENERGIZE'},
-		{name: 'the failing check', text: 'Worst-case driver dissipation within its derated rating'},
-		{name: 'its value', text: '27.4 W'},
-		{name: 'its limit', text: '≤ 9 W'},
-		{name: 'its margin, as a miss', text: 'over by 18.4 W'},
-		{name: 'its fraction', text: '204 %'},
-		{name: 'its message', text: 'The driver would dissipate up to 27.4 W, above its derated rating 9 W.'},
-		{name: 'a passing check with its margin', text: '170 mA'},
+		{name: 'the failing check', text: 'Optical power at the limit current, coldest case'},
+		{name: 'its value', text: '2.62 W'}, // T0 model by hand: 1.05 W/A × (3 A − 0.6 A × exp(−20/110)) = 2.6247 W
+		{name: 'its limit', text: '≤ 2.5 W'},
+		{name: 'its margin, as a miss', text: 'over by 125 mW'},
+		{name: 'its fraction', text: '4.99 %'},
+		{name: 'its message', text: 'At the limit and 5 °C the diode would emit about 2.62 W, above its maximum 2.5 W.'},
+		{name: 'a passing check with its margin', text: '150 mA'}, // 3.5 A × 0.9 − 3 A
 		{name: 'an input as entered', text: '25 degC'},
 		{name: 'the same input in SI', text: '298.15 K'},
-		{name: 'a choice shown by its label', text: 'Class 3B'},
-		{name: 'a confirmation note', text: 'No bypass on bench 5.'},
-		{name: 'the counts', text: '1 fail · 1 advise · 0 open · 17 pass · 7 skip'},
+		{name: 'a choice shown by its label', text: 'Class 4'},
+		{name: 'a confirmation note', text: 'No bypass on bench 6.'},
+		{name: 'the counts', text: '1 fail · 2 advise · 0 open · 19 pass · 7 skip'},
 		{name: 'the rule file name', text: 'prelase bench policy (shipped default)'},
 		{name: 'the rule file SHA-256', text: rules.sha256},
 		{name: 'the setup fingerprint', text: body.setup.fingerprint},
 		{name: 'the operator and role', text: 'Test Person, test engineer'},
 		{name: 'the created time', text: body.createdAt},
-		{name: 'the step title from the rule file', text: '5. Driver dissipation'},
+		{name: 'the step title from the rule file', text: '2. Laser diode ratings'},
 		{name: 'the signature verified', text: '✓ verified'},
 		{name: 'the signer key', text: shortFingerprint(operatorFingerprint)},
 		{name: 'the signer key in full', text: operatorFingerprint},
@@ -84,13 +84,13 @@ describe.each(formats)('$name report of the failing demo', ({write, escape}) => 
 	});
 
 	it('puts the failure first in the summary, before the advisory check and before the steps', () => {
-		const fail = page.indexOf('Worst-case driver dissipation');
+		const fail = page.indexOf('Optical power at the limit current, coldest case');
 		const advise = page.indexOf('Dissipation with the output shorted');
 		expect(fail).toBeGreaterThan(page.indexOf('Summary'));
 		expect(fail).toBeLessThan(advise);
 		expect(advise).toBeLessThan(page.indexOf('1. Setup and authorisation'));
 		// The same check appears again in its step.
-		expect(page.indexOf('Worst-case driver dissipation', page.indexOf('5. Driver dissipation'))).toBeGreaterThan(0);
+		expect(page.indexOf('Optical power at the limit current, coldest case', page.indexOf('2. Laser diode ratings'))).toBeGreaterThan(0);
 	});
 
 	it('never calls the setup safe (outside the deferral that says so)', () => {
@@ -101,7 +101,7 @@ describe.each(formats)('$name report of the failing demo', ({write, escape}) => 
 });
 
 describe.each([
-	{name: 'clear demo', example: 'bench3-808nm-clear', outcome: 'CLEAR TO ENERGIZE', summary: /0 fail · 2 advise · 0 open · 19 pass · 5 skip/},
+	{name: 'clear demo', example: 'bench3-808nm-clear', outcome: 'CLEAR TO ENERGIZE', summary: /0 fail · 2 advise · 0 open · 22 pass · 5 skip/},
 	{name: 'incomplete demo', example: 'bench3-808nm-incomplete', outcome: 'INCOMPLETE', summary: /Inputs not given: (<code>|`)photodiode_responsivity(<\/code>|`), (<code>|`)brownout_trip/},
 ])('$name', ({example, outcome, summary}) => {
 	const {record, signatures} = signed(demoBody(example));
@@ -205,7 +205,7 @@ describe('amendments and unreadable rule text', () => {
 		const {record, signatures} = signed(body);
 		const page = reportMarkdown(record, signatures, ownTrust);
 		expect(page).toContain('## 1. driver');
-		expect(page).toContain('27.4 W');
+		expect(page).toContain('2.62 W');
 		expect(page).not.toContain('Driver dissipation\n');
 	});
 });

@@ -33,8 +33,9 @@ const constantPower = withChanges(
 // exit diameter, 0 at the eye, 10 mrad at the 1/e points, eyewear OD 4).
 const singleBeam = withChanges(clear, {second_beam: 'no', beam2_wavelength: null, beam2_power: null, beam2_diameter: null, beam2_eye_diameter: null, beam2_divergence: null, beam2_divergence_convention: null, beam2_eyewear_od: null, third_beam: null});
 const threeBeams = withChanges(clear, {third_beam: 'yes', beam3_wavelength: '1064 nm', beam3_power: '0.5 W', beam3_diameter: '0 mm', beam3_eye_diameter: '0 mm', beam3_divergence: '10 mrad', beam3_divergence_convention: 'one_over_e', beam3_eyewear_od: '4'});
-type Base = 'current' | 'power' | 'single' | 'three';
-const bases: Record<Base, AnswersDocument> = {current: clear, power: constantPower, single: singleBeam, three: threeBeams};
+const classTwo = withChanges(clear, {laser_class: 'class_2'});
+type Base = 'current' | 'power' | 'single' | 'three' | 'class2';
+const bases: Record<Base, AnswersDocument> = {current: clear, power: constantPower, single: singleBeam, three: threeBeams, class2: classTwo};
 
 type Kind = 'pass' | 'fail' | 'advise' | 'boundary';
 type Comparison = {check: string; kind: Kind; name: string; base?: Base; inputs?: Changes; value: number; limit: number; margin: number; fraction: number};
@@ -185,6 +186,26 @@ const comparisons: Comparison[] = [
 	// limit keeps the worst case below it: 1.1 W/A × (0.5 A − 0.4189783 A) = 0.0891 W.
 	{check: 'label_class_covers_output', kind: 'pass', name: '0.4 W under a Class 4 label', inputs: {beam1_power: '0.4 W', current_limit: '0.5 A', current_setpoint: '0.4 A', modulation_source_peak: '0.5 V'}, value: 4, limit: 5, margin: 1, fraction: 0.2},
 	{check: 'label_class_covers_output', kind: 'advise', name: 'Class 3B label on a 2 W beam', inputs: {laser_class: 'class_3b'}, value: 5, limit: 4, margin: -1, fraction: -0.25},
+
+	// Inputs that contradict each other (advice naming both numbers). beam_power_tolerance 10 %:
+	// 2 W beam vs 2 W × 1.1 = 2.2 W; margin 0.2 W, 0.2/2.2
+	{check: 'beam1_power_within_diode_maximum', kind: 'pass', name: 'demo beam at the diode maximum', value: 2, limit: 2.2, margin: 0.2, fraction: 0.2 / 2.2},
+	// 3 W vs 2.2 W: margin −0.8 W, −0.8/2.2
+	{check: 'beam1_power_within_diode_maximum', kind: 'advise', name: 'a 3 W beam from a 2 W diode', inputs: {beam1_power: '3 W'}, value: 3, limit: 2.2, margin: -0.8, fraction: -0.8 / 2.2},
+	{check: 'beam1_power_within_diode_maximum', kind: 'boundary', name: 'beam exactly 10 % above the diode maximum', inputs: {beam1_power: '2200 mW'}, value: 2.2, limit: 2.2, margin: 0, fraction: 0},
+	// h·c/(q·λ) with CODATA 2018 exact h, c, q: 1.2398419843320026e-6 V·m / 808 nm = 1.5344579014 W/A;
+	// 1.1 W/A: margin 0.4344579014 W/A, fraction 0.2831344548
+	{check: 'slope_efficiency_within_photon_limit', kind: 'pass', name: 'demo 1.1 W/A at 808 nm', value: 1.1, limit: 1.5344579014009934, margin: 0.4344579014009933, fraction: 0.283134454848402},
+	// 1.6 W/A at 808 nm: margin −0.0655420986 W/A, fraction −0.0427135202
+	{check: 'slope_efficiency_within_photon_limit', kind: 'advise', name: '1.6 W/A at 808 nm', inputs: {diode_slope_efficiency: '1.6 W/A'}, value: 1.6, limit: 1.5344579014009934, margin: -0.06554209859900673, fraction: -0.042713520220506125},
+	// 1.1 W/A is possible at 808 nm but not at 1550 nm: 1.2398419843320026e-6/1550e-9 = 0.7998980544 W/A
+	{check: 'slope_efficiency_within_photon_limit', kind: 'advise', name: '1.1 W/A at 1550 nm', inputs: {beam1_wavelength: '1550 nm'}, value: 1.1, limit: 0.7998980544077436, margin: -0.3001019455922564, fraction: -0.3001019455922564 / 0.7998980544077436},
+	{check: 'slope_efficiency_within_photon_limit', kind: 'boundary', name: 'slope exactly at the photon limit', inputs: {diode_slope_efficiency: '1.5344579014009934 W/A'}, value: 1.5344579014009934, limit: 1.5344579014009934, margin: 0, fraction: 0},
+	// 0.45 A threshold vs the 2 A limit: margin 1.55 A, 1.55/2 = 0.775
+	{check: 'threshold_below_limit', kind: 'pass', name: 'demo threshold', value: 0.45, limit: 2, margin: 1.55, fraction: 0.775},
+	// 2.5 A vs 2 A: margin −0.5 A, −0.25
+	{check: 'threshold_below_limit', kind: 'advise', name: 'threshold above the limit', inputs: {diode_threshold: '2.5 A'}, value: 2.5, limit: 2, margin: -0.5, fraction: -0.25},
+	{check: 'threshold_below_limit', kind: 'boundary', name: 'threshold equal to the limit', inputs: {diode_threshold: '2000 mA'}, value: 2, limit: 2, margin: 0, fraction: 0},
 ];
 
 // Checks that are a true/false condition: no value, limit or margin.
@@ -214,6 +235,9 @@ const withoutBoundary: Record<string, string> = {reverse_protection_fitted: 'a y
 
 // An input each check needs is left out: the check is open and names it.
 const opens: Array<{check: string; base?: Base; remove: string[]; needs: string[]}> = [
+	{check: 'beam1_power_within_diode_maximum', remove: ['diode_max_power'], needs: ['diode_max_power']},
+	{check: 'slope_efficiency_within_photon_limit', remove: ['beam1_wavelength'], needs: ['beam1_wavelength']},
+	{check: 'threshold_below_limit', remove: ['diode_threshold'], needs: ['diode_threshold']},
 	{check: 'limit_below_diode_maximum', remove: ['diode_max_current'], needs: ['diode_max_current']},
 	{check: 'limit_within_driver', remove: ['driver_max_current'], needs: ['driver_max_current']},
 	{check: 'setpoint_below_limit', remove: ['current_setpoint'], needs: ['current_setpoint']},
@@ -262,6 +286,7 @@ const skips: Array<{check: string; base: Base}> = [
 	{check: 'beam3_eyewear_sufficient', base: 'current'},
 	{check: 'beam3_hazard_distance', base: 'current'},
 	{check: 'beam3_eyewear_sufficient', base: 'single'},
+	{check: 'emission_delay_long_enough', base: 'class2'},
 ];
 
 const removing = (names: string[]): Changes => Object.fromEntries(names.map((name) => [name, null]));
@@ -340,11 +365,14 @@ describe('the shipped policy, check by check', () => {
 		expect(advisory.sort()).toEqual([
 			'beam1_hazard_distance',
 			'beam1_power_covers_worst_case',
+			'beam1_power_within_diode_maximum',
 			'beam2_hazard_distance',
 			'beam3_hazard_distance',
 			'brownout_clear_of_service_supply',
 			'label_class_covers_output',
 			'short_circuit_dissipation',
+			'slope_efficiency_within_photon_limit',
+			'threshold_below_limit',
 		]);
 		for (const id of advisory) expect(comparisons.some(({check, kind}) => check === id && kind === 'advise'), id).toBe(true);
 	});

@@ -1,4 +1,4 @@
-import {readdirSync} from 'node:fs';
+import {readdirSync, readFileSync} from 'node:fs';
 import {join} from 'node:path';
 import {describe, expect, it} from 'vitest';
 import {evaluate} from '../../source/rules/evaluate.js';
@@ -47,19 +47,35 @@ describe('the demo answers files', () => {
 		expect(evaluation.missingInputs).toEqual([]);
 	});
 
-	it('stops the rack-supply bench on driver dissipation alone', () => {
-		const evaluation = evaluateDemo('bench5-rack-supply-dissipation-fail.yaml');
-		expect(ids(evaluation, 'fail')).toEqual(['dissipation_within_rating']);
-		// supply high 28 V × 1.05 = 29.4 V; I* = (29.4 − 1.8)/(2 × 0.2) = 69 A > 1 A, so at the
-		// limit: (29.4 − 1.8 − 0.2 × 1) × 1 A = 27.4 W. Ambient 25 degC = rated ambient: 9 W.
-		// Margin 9 − 27.4 = −18.4 W, −18.4/9 = −2.0444444.
-		const dissipation = checkResult(evaluation, 'dissipation_within_rating');
-		expectClose(dissipation.value?.si, 27.4, 'value');
-		expectClose(dissipation.limit?.si, 9, 'limit');
-		expectClose(dissipation.margin?.si, -18.4, 'margin');
-		expectClose(dissipation.margin?.fraction, -18.4 / 9, 'margin fraction');
-		// short circuit: 29.4 V × 1 A = 29.4 W against 9 W
-		expectClose(checkResult(evaluation, 'short_circuit_dissipation').value?.si, 29.4, 'short-circuit value');
+	it('stops the chilled-mount bench on the cold power at the limit alone', () => {
+		const evaluation = evaluateDemo('bench6-chilled-mount-cold-power-fail.yaml');
+		expect(ids(evaluation, 'fail')).toEqual(['cold_power_at_limit']);
+		expect(ids(evaluation, 'advise')).toEqual(['short_circuit_dissipation']);
+		// Coldren et al. T0 model (from memory), hand arithmetic:
+		// threshold_cold = 0.6 A × exp((5 − 25)/110) = 0.6 × 0.83375292 = 0.50025175 A
+		// power_at_limit_cold = 1.05 W/A × (3 A − 0.50025175 A) = 2.62473566 W against 2.5 W
+		// margin 2.5 − 2.62473566 = −0.12473566 W, −0.12473566/2.5 = −0.04989427
+		const cold = checkResult(evaluation, 'cold_power_at_limit');
+		const power = 1.05 * (3 - 0.6 * Math.exp(-20 / 110));
+		expectClose(power, 2.6247356616, 'hand arithmetic');
+		expectClose(cold.value?.si, power, 'value');
+		expectClose(cold.limit?.si, 2.5, 'limit');
+		expectClose(cold.margin?.si, 2.5 - power, 'margin');
+		expectClose(cold.margin?.fraction, (2.5 - power) / 2.5, 'margin fraction');
+		// the electrical side holds: 6 V × 1.05 = 6.3 V; at the 3 A limit (6.3 − 1.5 − 0.12 × 3) × 3 = 13.32 W;
+		// allowed 18 W × (125 − 28)/(125 − 25) = 17.46 W (common practice, linear derating); shorted
+		// output 6.3 V × 3 A = 18.9 W above it: advice only
+		expectClose(checkResult(evaluation, 'dissipation_within_rating').value?.si, 13.32, 'dissipation');
+		expectClose(checkResult(evaluation, 'dissipation_within_rating').limit?.si, 17.46, 'derated rating');
+		expectClose(checkResult(evaluation, 'short_circuit_dissipation').value?.si, 18.9, 'short-circuit value');
+	});
+
+	it('keeps every demo its own: no demo or README uses the textbook 28 V supply with a 9 W driver', () => {
+		// common practice: the 28 V / 1 A / 9 W linear-driver example belongs in tests, not in the demo
+		for (const file of [...readdirSync(examplesFolder).filter((name) => /\.ya?ml$/.test(name)).map((name) => join(examplesFolder, name)), 'README.md']) {
+			const text = readFileSync(file, 'utf8');
+			expect(/(^|[^0-9.])28 V/.test(text) && /(^|[^0-9.])9 W/.test(text), file).toBe(false);
+		}
 	});
 
 	it('leaves the constant-power bench incomplete with nothing failing', () => {
