@@ -61,7 +61,7 @@ describe('prelase plan', () => {
 		const {code, stdout} = run('plan', demoFile, '--test-sheet', 'md');
 		expect(code).toBe(0);
 		expect(stdout).toMatch(/^# Interlock functional test — Fenwick Hollow/);
-		expect(stdout.split('\n').filter((line) => /^\| \d+ \|/.test(line))).toHaveLength(11);
+		expect(stdout.split('\n').filter((line) => /^\| \d+ \|/.test(line))).toHaveLength(9);
 	});
 
 	it.each([
