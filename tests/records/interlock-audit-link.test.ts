@@ -258,4 +258,22 @@ describe('a test answers only the bench check of its own location', () => {
 		const said = await check(bench.answers, forged);
 		expect(said.status).toBe('untested');
 	});
+
+	it('the audit reports a bench check at another location that used the test', async () => {
+		const bench = benchCase(demoPlanText, bench3);
+		recordTest(bench.records, bench.plan, demoPlanText, shipped, {createdAt: atOffset(hoursAgo(1), 0), testedOn: today()});
+		const signed = await run('check', '--answers', bench.answers, '--records', bench.records, '--sign', 'Ines Marlow', '--role', 'photonics engineer');
+		expect(signed.stdout).toContain('Outcome: CLEAR TO ENERGIZE');
+		const path = /Record written: (.+)/.exec(signed.stdout)?.[1];
+		if (!path) throw new Error(`no record written: ${signed.stdout}`);
+		// the bench record said to be of bench 4, signed again (as a check made before tests were bound to a bench could be)
+		const record = JSON.parse(readFileSync(path, 'utf8'));
+		record.body.inputs.location.entered = 'Room B.112, bench 4';
+		if (record.body.inputs.location.value !== undefined) record.body.inputs.location.value = 'Room B.112, bench 4';
+		rmSync(path);
+		writeRecord(bench.records, signRecord(record.body, [{signer: {name: 'Ines Marlow', role: 'photonics engineer', meaning: 'performed'}, key: operatorKey(home, false).privateKey}]));
+		const audited = await audit(bench.records);
+		expect(audited.code).toBe(1);
+		expect(codesOf(audited.report)).toContain('consistency:audit-interlock-bench-location');
+	});
 });
