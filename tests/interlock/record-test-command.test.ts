@@ -110,6 +110,19 @@ describe('prelase plan FILE --record-test RESULTS', () => {
 		expect(record.body.steps.every((step) => step.result === 'pass')).toBe(true);
 	});
 
+	it.each([
+		{name: 'a plan with its location', text: (plan: string) => plan, location: 'Room B.112, bench 3', warned: false},
+		{name: 'a plan without a location', text: (plan: string) => plan.replace(/^location: .*\n/m, ''), location: undefined, warned: true},
+	])('records $name: the record carries it; without one the output says no bench check can use the test', async ({text, location, warned}) => {
+		const {records} = newCase();
+		const planFile = join(dirname(records), 'plan.yaml');
+		writeFileSync(planFile, text(readFileSync(demoPlanFile, 'utf8')));
+		const {code, stdout} = await run('plan', planFile, '--record-test', demoResults, '--records', records);
+		expect(code).toBe(0);
+		expect(writtenRecord(stdout).record.body.location).toBe(location);
+		expect(stdout.includes('The plan names no location: no bench check can use this test. Add location: (room and bench) to the plan and test the loop again.\n')).toBe(warned);
+	});
+
 	it('refuses results with problems: exit 2, each problem with file:line, and no record', async () => {
 		const text = edited('{step: 4, concerns: door_switch,', '{step: 4, concerns: room_door,').replace('stopped_in: 16 ms', 'stopped_in: 25 ms');
 		const {results, records} = newCase(text);

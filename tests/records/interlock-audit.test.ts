@@ -61,6 +61,7 @@ describe('audit of a fresh interlock test record', () => {
 		expect(stderr).toBe('');
 		expect(code).toBe(0);
 		expect(stdout).toContain(`Plan tested    interlock test of Fenwick Hollow B.112 bench 3 — enclosure and room loop · plan sha256 ${sha256(readFileSync(demoPlan, 'utf8')).slice(0, 16)}`);
+		expect(stdout).toContain('Location       Room B.112, bench 3\n');
 		expect(stdout).toContain('Tested         2026-11-30 by Ines Marlow, photonics engineer, witnessed by Tomas Reyes, deputy laser safety officer');
 		expect(stdout).toContain('Outcome        Passed: every step of the functional test passed, and the plan has no stop finding. (as recorded)');
 		expect(stdout).toMatch(/Signature 1 {4}✓ Ines Marlow \(photonics engineer\), performed, .* · your own key/);
