@@ -15,7 +15,7 @@ export type PolicySource = {name: string; file: string; sha256: string};
 /** The analysis as the `--json` contract: loop figures, findings with subject and message, the verdict. */
 export function planJson(plan: Plan, analysis: PlanAnalysis, file: string, policySource: PolicySource) {
 	return {
-		plan: {name: plan.name, file},
+		plan: {name: plan.name, file, location: plan.location ?? null},
 		policy: {
 			rules: policySource,
 			max_response_time: figure(plan.policy.max_response_time, 'time'),
@@ -49,6 +49,7 @@ export function planText(plan: Plan, analysis: PlanAnalysis, file: string, polic
 	const current = plan.input.sense_current === undefined ? 'loop voltage over source resistance, loop shorted' : 'sense current';
 	const lines = [
 		`Interlock plan: ${stripControl(plan.name)} (${file})`,
+		`Location:       ${plan.location === undefined ? 'none given: add location (room and bench, as the bench check gives it), or no bench check can use a test of this plan' : stripControl(plan.location)}`,
 		`Policy from:    ${stripControl(policySource.name)} (${policySource.file})`,
 		'',
 		'Loop',

@@ -105,6 +105,7 @@ export const interlockInputSchema = object({
 export const planSchema = object({
 		format: literal(1),
 		name: words,
+		location: words.optional().describe('Room and bench of the loop, as the bench check gives its location; a test of this plan answers only a check at this location'),
 		laser_class: oneOf(['class_1', 'class_1m', 'class_2', 'class_2m', 'class_3r', 'class_3b', 'class_4']),
 		wire_temperature: quantityOf('temperature', 'positive'),
 		input: interlockInputSchema,

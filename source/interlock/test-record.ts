@@ -77,6 +77,7 @@ export function buildTestBody(input: {plan: Plan; planFile: string; planText: st
 		testedOn: results.tested_on,
 		tester: {name: results.tested_by.name, role: results.tested_by.role},
 		...(results.witness ? {witness: {name: results.witness.name, role: results.witness.role}} : {}),
+		...(plan.location === undefined ? {} : {location: plan.location}),
 		plan: {name: plan.name, file: displayPath(input.planFile), sha256: sha256Hex(input.planText), text: input.planText},
 		policy: recordedPolicy(plan.policy, input.rules),
 		planFindings: {stops: analysis.stops, advises: analysis.advises, codes: analysis.findings.map((entry) => entry.code)},

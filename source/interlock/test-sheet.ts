@@ -19,6 +19,12 @@ export function policyLine(sheet: TestSheet): string {
 /** The functional test of a plan, as data; rendered by testSheetMarkdown and testSheetHtml. */
 export type TestSheet = {name: string; limit: string; /** The largest response time, s. */ limitSeconds: number; /** The test interval as text, e.g. "90 days". */ interval: string; steps: TestStep[]};
 
+/** Devices whose opening opens an optical path or a connector: tested at reduced power, timed on the driver's current. */
+const opensAPath = new Set<Device['kind']>(['fibre_presence', 'remote_connector']);
+
+/** How to test a path or connector without exposing anyone: reduced power, the stop timed on the driver's current (common practice). */
+const reducedPower = "With the driver enabled at reduced power (the procedure's alignment power), watching the driver's output current on a meter and not the opening,";
+
 function openAction(device: Device): string {
 	const name = `${device.id} (${device.description})`;
 	switch (device.kind) {
@@ -26,9 +32,9 @@ function openAction(device: Device): string {
 		case 'lid_switch':
 			return `open ${name}, then close it again.`;
 		case 'key_switch':
-			return `turn ${name} to off, then back on.`;
+			return `turn ${name} to off and remove the key; try to enable emission; then put the key back and turn it on.`;
 		case 'emergency_stop':
-			return `press ${name}, then release it.`;
+			return `press ${name} from the operator's position, then release it.`;
 		case 'remote_connector':
 			return device.shorting_plug ? `pull the shorting plug out of ${name}, then put it back.` : `unplug ${name}, then plug it back in.`;
 		case 'fibre_presence':
@@ -44,40 +50,36 @@ function openAction(device: Device): string {
 
 /**
  * The functional test sheet: one step per device in wiring order (open it, emission stops
- * within the policy's largest response time, close it, nothing restarts until reset), then
- * emergency stop, key removal, a broken loop wire, power interruption and bypass time-out.
+ * within the policy's largest response time, close it; a reset is expected only of an input
+ * that latches), then a broken loop wire, power interruption and each bypass's time-out.
+ * A fibre or connector is opened at reduced power, the stop timed on the driver's output
+ * current; a key switch's step removes the key and tries to enable emission.
  */
 export function testSheet(plan: Plan): TestSheet {
 	const limit = formatQuantity(plan.policy.max_response_time, 'time');
 	const stops = `Emission stops within ${limit}.`;
-	const noRestart = 'After closing, emission stays off until the reset is pressed.';
+	const currentStops = `The driver's output current falls to zero within ${limit}.`;
+	const latches = plan.input.latches;
+	const afterClosing = (when: string) =>
+		latches ? `${when}, emission stays off until the reset is pressed.` : `The input does not latch: ${when.toLowerCase()}, emission may resume, so keep the beam path clear.`;
 	const steps: Array<Omit<TestStep, 'number'>> = [];
 	for (const device of plan.devices) {
 		if (device.kind === 'bypass_key') continue;
-		steps.push({subject: device.id, action: `With emission on, ${openAction(device)}`, expect: `${stops} ${noRestart}`});
+		const path = opensAPath.has(device.kind);
+		const action = path ? `${reducedPower} ${openAction(device)}` : `With emission on, ${openAction(device)}`;
+		const when = device.kind === 'emergency_stop' ? 'After release' : device.kind === 'key_switch' ? 'After the key is turned on again' : path ? 'After reconnecting' : 'After closing';
+		const keyOut = device.kind === 'key_switch' ? ' With the key out, emission cannot be enabled.' : '';
+		steps.push({subject: device.id, action, expect: `${path ? currentStops : stops}${keyOut} ${afterClosing(when)}`});
 	}
-	const of = (kind: Device['kind']) => plan.devices.filter((device) => device.kind === kind).map((device) => device.id);
-	const emergencyStops = of('emergency_stop');
-	steps.push({
-		subject: 'emergency stop',
-		action: emergencyStops.length > 0 ? `From the operator's position, with emission on, press each emergency stop in turn (${emergencyStops.join(', ')}) and release it.` : 'The plan has no emergency stop: write n/a and the reason the laser safety officer accepted.',
-		expect: `${stops} After release, emission stays off until the reset is pressed.`,
-	});
-	const keys = of('key_switch');
-	steps.push({
-		subject: 'key removal',
-		action: `With emission on, turn ${keys.length > 0 ? `the key of ${keys.join(', ')}` : "the driver's key"} off and remove the key; then try to enable emission.`,
-		expect: `${stops} With the key out, emission cannot be enabled.`,
-	});
 	steps.push({
 		subject: 'loop wire break',
-		action: 'With emission on, unplug the interlock loop at the input, then plug it back in.',
-		expect: `${stops} After plugging in, emission stays off until the reset is pressed.`,
+		action: `${reducedPower} unplug the interlock loop at the input, then plug it back in.`,
+		expect: `${currentStops} ${afterClosing('After plugging in')}`,
 	});
 	steps.push({
 		subject: 'power interruption',
 		action: "With emission on, switch off the driver's mains supply for 10 s, then switch it on again.",
-		expect: 'Emission stops; after power returns, emission stays off until it is enabled and reset by hand.',
+		expect: latches ? 'Emission stops; after power returns, emission stays off until it is enabled and reset by hand.' : 'Emission stops; after power returns, emission stays off until it is enabled by hand.',
 	});
 	const bypasses = plan.devices.filter((device) => device.kind === 'bypass_key' || device.shorting_plug);
 	for (const device of bypasses) {

@@ -1,9 +1,14 @@
 import {sha256Hex} from '../sha256.js';
 import {analysePlan} from '../interlock/analyse.js';
 import {loadPlanFromText} from '../interlock/load-plan.js';
+import {interlockPolicy} from '../interlock/policy.js';
+import {futureAllowanceMs, futureDated, normaliseLocation} from '../interlock/test-choice.js';
+import {reasonsUnderPolicy} from '../interlock/test-rejudge.js';
 import {policyFromRecord, testOutcome} from '../interlock/test-record.js';
 import {testSheet} from '../interlock/test-sheet.js';
 import {formatProblem} from '../problems.js';
+import type {CompiledRules} from '../rules/compiled-rules.js';
+import {isoWithOffset} from './sign.js';
 import {finding, type Finding} from './audit-findings.js';
 import type {InterlockTestBody} from './record-schema.js';
 
@@ -15,6 +20,8 @@ export type InterlockTestSummary = {
 	tester: InterlockTestBody['tester'];
 	witness: InterlockTestBody['tester'] | null;
 	plan: {name: string; file: string; sha256: string};
+	/** The loop's location the test was recorded for; null in records made before tests carried it. */
+	location: string | null;
 	outcome: InterlockTestBody['outcome'];
 	outcomeText: string;
 	/** Steps that failed or were accepted as not applicable, with their notes. */
@@ -30,6 +37,7 @@ export function summariseInterlockTest(body: InterlockTestBody): InterlockTestSu
 		tester: body.tester,
 		witness: body.witness ?? null,
 		plan: {name: body.plan.name, file: body.plan.file, sha256: body.plan.sha256},
+		location: body.location ?? null,
 		outcome: body.outcome,
 		outcomeText: body.outcomeText,
 		exceptions: body.steps.filter((step) => step.result !== 'pass').map((step) => ({number: step.number, subject: step.subject, result: step.result, ...(step.note ? {note: step.note} : {})})),
@@ -54,6 +62,10 @@ export function interlockTestConsistency(body: InterlockTestBody): {reevaluated:
 		const plan = {...loaded.value, policy: policyFromRecord(body.policy)};
 		const analysis = analysePlan(plan);
 		if (analysis.stops !== body.planFindings.stops) findings.push(finding('consistency', 'audit-plan-findings-mismatch', {recorded: stopsText(body.planFindings.stops), computed: stopsText(analysis.stops)}));
+		const planLocation = loaded.value.location;
+		if ((body.location ?? planLocation) !== undefined && (body.location === undefined || planLocation === undefined || normaliseLocation(body.location) !== normaliseLocation(planLocation))) {
+			findings.push(finding('consistency', 'audit-interlock-location-mismatch', {recorded: body.location ?? '(none)', plan: planLocation ?? '(none)'}));
+		}
 		const expected = testSheet(plan).steps.map((step) => `${step.number} ${step.subject}`);
 		const recorded = body.steps.map((step) => `${step.number} ${step.subject}`);
 		if (expected.join('\n') !== recorded.join('\n')) {
@@ -69,4 +81,22 @@ export function interlockTestConsistency(body: InterlockTestBody): {reevaluated:
 	const computed = testOutcome(body.planFindings.stops, body.steps);
 	if (computed !== body.outcome) findings.push(finding('consistency', 'audit-test-outcome-mismatch', {recorded: body.outcome, computed}));
 	return {reevaluated: loaded.ok, findings};
+}
+
+/**
+ * What an interlock test record answers today: a record dated after `now` (beyond the allowance
+ * for a fast clock) answers nothing; a test that passed under its recorded policy but would
+ * not under the current rules' interlock policy answers no bench check. The second is asked
+ * only of a `consistent` record: an inconsistent one is already a finding, whatever the policy.
+ */
+export function interlockTestToday(body: InterlockTestBody, current: CompiledRules, now: Date, consistent: boolean): Finding[] {
+	const findings: Finding[] = [];
+	const ahead = futureDated(body, now);
+	if (ahead !== undefined) findings.push(finding('history', 'audit-record-from-future', {dated: ahead, now: isoWithOffset(now), allowance: `${futureAllowanceMs / 60_000} min`}));
+	const policy = interlockPolicy(current);
+	if (consistent && body.outcome === 'passed' && policy.ok) {
+		const reasons = reasonsUnderPolicy(body, policy.value);
+		if (reasons.length > 0) findings.push(finding('policy', 'audit-interlock-test-policy', {rules: `${current.rules.name}, ${current.file}`, reasons: reasons.join('; ')}));
+	}
+	return findings;
 }

@@ -92,6 +92,7 @@ function interlockTestText(audit: RecordAudit, paint: Paint, width: number): str
 	const unverified = audit.authentic ? '' : ' (unverified)';
 	const out = [paint.bold(inline(displayPath(audit.file), 300))];
 	out.push(...row('Plan tested', `interlock test of ${inline(test.plan.name)}${unverified} · plan sha256 ${test.plan.sha256.slice(0, 16)}`, width));
+	out.push(...row('Location', test.location === null ? 'none recorded: this test answers no bench check' : `${inline(test.location, 200)}${unverified}`, width));
 	out.push(...row('Tested', `${inline(test.testedOn, 20)} by ${person(test.tester)}${test.witness ? `, witnessed by ${person(test.witness)}` : ''}${unverified}`, width));
 	out.push(...row('Created', `${inline(test.createdAt, 40)} with ${inline(test.tool.name, 20)} ${inline(test.tool.version, 20)}`, width));
 	out.push(...row('Outcome', `${inline(test.outcomeText, 300)} (as recorded${audit.authentic ? '' : ', unverified'})`, width));

@@ -11,10 +11,12 @@ import {consistencyFindings} from './audit-consistency.js';
 import {describeFinding, finding, notChecked, type Finding, type FindingKind} from './audit-findings.js';
 import {relateRecords, type History, type HistoryEntry} from './audit-history.js';
 import {KeyCache, readIntegrity} from './audit-integrity.js';
-import {interlockTestConsistency, summariseInterlockTest, type InterlockTestSummary} from './audit-interlock.js';
+import {interlockTestConsistency, interlockTestToday, summariseInterlockTest, type InterlockTestSummary} from './audit-interlock.js';
+import {linkInterlockTests} from './audit-interlock-link.js';
 import {policyReport, type PolicyReport} from './audit-policy.js';
 import {signatureReports, type SignatureReport, type Trust} from './audit-trust.js';
 import type {RecordBody} from './record-schema.js';
+import {locationInput} from '../interlock/plan-input.js';
 
 /** A finding with its message in words. */
 export type ReportedFinding = Finding & {text: string};
@@ -67,7 +69,7 @@ export type AuditReport = {
 };
 
 /** What the audit needs besides the files: the site's current rules and the keys the auditor trusts. */
-export type AuditOptions = {current: CompiledRules; trust: Trust; onProgress?: (done: number, total: number) => void};
+export type AuditOptions = {current: CompiledRules; trust: Trust; onProgress?: (done: number, total: number) => void; /** The time of the audit (records dated after it are reported). @default now */ now?: Date};
 
 /** Embedded rule texts loaded and compiled once each (a folder of records mostly shares one or two). */
 class RuleCache {
@@ -136,31 +138,6 @@ function auditContents(body: RecordBody, rules: RuleCache, current: CompiledRule
 	return {consistency, policy: policy.report, findings: [...findings, ...policy.findings]};
 }
 
-const testWords = (testedOn: string, outcome: string) => `tested ${testedOn}, ${outcome}`;
-
-/**
- * A bench check that answered its interlock confirmations from a test record names it by body
- * hash: when that record is among the authentic records audited, it must say what the check
- * used (test day and outcome); when it is not, the audit says so (not a finding).
- */
-function linkInterlockTests(audits: Array<Pick<RecordAudit, 'authentic' | 'bodySha256' | 'record' | 'interlockTest' | 'notChecked'> & {findings: Finding[]}>): void {
-	const tests = new Map(audits.filter((audit) => audit.authentic && audit.interlockTest && audit.bodySha256).map((audit) => [audit.bodySha256!, audit.interlockTest!]));
-	for (const audit of audits) {
-		if (!audit.authentic || !audit.record) continue;
-		const used = audit.record.interlockTest?.record;
-		if (!audit.record.interlockTest) {
-			audit.notChecked.push({item: 'interlock-test', text: describeFinding({code: 'audit-not-checked-interlock', data: {}})});
-		} else if (!used) {
-			// The check named a plan but found no usable test: its confirmations say no, and the consistency check covers that.
-		} else {
-			const data = {file: used.file, bodySha256: used.bodySha256, recorded: testWords(used.testedOn, used.outcome)};
-			const test = tests.get(used.bodySha256);
-			if (!test) audit.notChecked.push({item: 'interlock-test', text: describeFinding({code: 'audit-not-checked-interlock-record', data})});
-			else if (test.testedOn !== used.testedOn || test.outcome !== used.outcome) audit.findings.push(finding('consistency', 'audit-interlock-record-mismatch', {...data, actual: testWords(test.testedOn, test.outcome)}));
-		}
-	}
-}
-
 const emptyFindings = (): Record<FindingKind, number> => ({integrity: 0, trust: 0, consistency: 0, policy: 0, history: 0});
 
 /**
@@ -176,6 +153,7 @@ export function auditRecords(files: readonly string[], options: AuditOptions): A
 	const audits: Array<Omit<RecordAudit, 'findings'> & {findings: Finding[]}> = [];
 	const entries: HistoryEntry[] = [];
 	const entryOf: number[] = [];
+	const benchLocations = new Map<number, string | undefined>();
 	files.forEach((file, index) => {
 		const checked = readIntegrity(file, keys);
 		const body = checked.record?.body;
@@ -187,9 +165,11 @@ export function auditRecords(files: readonly string[], options: AuditOptions): A
 		} else if (checked.record.body.kind === 'interlock-test') {
 			const contents = interlockTestConsistency(checked.record.body);
 			const consistency = {reevaluated: contents.reevaluated, consistent: contents.findings.length === 0, rulesSha256: checked.record.body.policy.rules.sha256};
-			audits.push({file, authentic: true, bodySha256: checked.bodySha256, record, interlockTest, signatures: trust.signatures, consistency, currentPolicy: null, history: null, notChecked: [], findings: [...trust.findings, ...contents.findings]});
+			const today = interlockTestToday(checked.record.body, options.current, options.now ?? new Date(), contents.findings.length === 0);
+			audits.push({file, authentic: true, bodySha256: checked.bodySha256, record, interlockTest, signatures: trust.signatures, consistency, currentPolicy: null, history: null, notChecked: [], findings: [...trust.findings, ...contents.findings, ...today]});
 		} else {
 			const contents = auditContents(checked.record.body, rules, options.current);
+			benchLocations.set(audits.length, checked.record.body.inputs[locationInput]?.entered);
 			entryOf[entries.length] = audits.length;
 			entries.push(historyEntry(file, checked.bodySha256, checked.record.body));
 			audits.push({
@@ -208,7 +188,7 @@ export function auditRecords(files: readonly string[], options: AuditOptions): A
 		}
 		options.onProgress?.(index + 1, files.length);
 	});
-	linkInterlockTests(audits);
+	linkInterlockTests(audits, benchLocations);
 	relateRecords(entries).forEach(({history, findings}, index) => {
 		const audit = audits[entryOf[index]!]!;
 		audit.history = history;

@@ -23,7 +23,7 @@ describe('the demo plan', () => {
 		expect(planVerdict(analysis)).toBe('No stop findings, 0 advise findings: wire the loop, then prove it with the functional test sheet.');
 	});
 
-	it('has one test step per device, then emergency stop, key removal, wire break, power interruption and bypass time-out', () => {
+	it('has one test step per device (each emergency stop and key switch once), then wire break, power interruption and bypass time-out', () => {
 		const sheet = testSheet(demo());
 		expect(sheet.limit).toBe('20 ms');
 		expect(sheet.steps.map((step) => step.subject)).toEqual([
@@ -33,24 +33,22 @@ describe('the demo plan', () => {
 			'door_switch',
 			'chiller_flow',
 			'key_switch',
-			'emergency stop',
-			'key removal',
 			'loop wire break',
 			'power interruption',
 			'bypass time-out: alignment_bypass',
 		]);
-		expect(sheet.steps.map((step) => step.number)).toEqual([1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11]);
+		expect(sheet.steps.map((step) => step.number)).toEqual([1, 2, 3, 4, 5, 6, 7, 8, 9]);
 		expect(sheet.steps[0]).toMatchObject({action: 'With emission on, open lid_switch (FH-LS2 tongue switch on the enclosure lid), then close it again.', expect: 'Emission stops within 20 ms. After closing, emission stays off until the reset is pressed.'});
 		expect(sheet.steps[4]!.action).toContain('stop the coolant flow through chiller_flow');
-		expect(sheet.steps[6]!.action).toContain('(estop_bench)');
-		expect(sheet.steps[7]!.action).toContain('the key of key_switch');
-		expect(sheet.steps[10]!.action).toContain('wait 4 h');
+		expect(sheet.steps[2]!.action).toContain("press estop_bench (FH-ES1 mushroom emergency stop on the bench front) from the operator's position");
+		expect(sheet.steps[5]!.action).toContain('turn key_switch (FH-KS3 key switch on the driver shelf, key held by the bench owner) to off and remove the key');
+		expect(sheet.steps[8]!.action).toContain('wait 4 h');
 	});
 
 	it('prints the sheet with blanks for result, initials and date on every step', () => {
 		const markdown = testSheetMarkdown(testSheet(demo()));
 		const rows = markdown.split('\n').filter((line) => /^\| \d+ \|/.test(line));
-		expect(rows).toHaveLength(11);
+		expect(rows).toHaveLength(9);
 		for (const row of rows) expect(row.endsWith('|  |  |  |')).toBe(true);
 		expect(markdown).toContain('| # | Concerns | Do | Expect | Result (pass / fail) | Initials | Date |');
 		expect(markdown).toContain('every 180 days');

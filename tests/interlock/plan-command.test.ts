@@ -25,6 +25,16 @@ function faultyPlan(): string {
 }
 
 describe('prelase plan', () => {
+	it.each([
+		{name: 'the demo', text: (plan: string) => plan, line: 'Location:       Room B.112, bench 3', json: 'Room B.112, bench 3'},
+		{name: 'a plan without a location', text: (plan: string) => plan.replace(/^location: .*\n/m, ''), line: 'Location:       none given: add location (room and bench, as the bench check gives it), or no bench check can use a test of this plan', json: null},
+	])('names the location of $name, which ties its tests to a bench', ({text, line, json}) => {
+		const file = join(mkdtempSync(join(tmpdir(), 'prelase-plan-')), 'plan.yaml');
+		writeFileSync(file, text(readFileSync(demoFile, 'utf8')));
+		expect(run('plan', file).stdout).toContain(`${line}\n`);
+		expect((JSON.parse(run('plan', file, '--json').stdout) as {plan: {location: string | null}}).plan.location).toBe(json);
+	});
+
 	it('prints the loop figures, no findings and the verdict for the demo, exit 0', () => {
 		const {code, stdout, stderr} = run('plan', demoFile);
 		expect(stderr).toBe('');
@@ -61,7 +71,7 @@ describe('prelase plan', () => {
 		const {code, stdout} = run('plan', demoFile, '--test-sheet', 'md');
 		expect(code).toBe(0);
 		expect(stdout).toMatch(/^# Interlock functional test — Fenwick Hollow/);
-		expect(stdout.split('\n').filter((line) => /^\| \d+ \|/.test(line))).toHaveLength(11);
+		expect(stdout.split('\n').filter((line) => /^\| \d+ \|/.test(line))).toHaveLength(9);
 	});
 
 	it.each([

@@ -72,7 +72,7 @@ describe('prelase plan FILE --record-test RESULTS', () => {
 		expect(record.body.kind).toBe('interlock-test');
 		expect(record.body.outcome).toBe('passed');
 		expect(record.body.plan.file).toBe(demoPlanFile);
-		expect(record.body.steps).toHaveLength(11);
+		expect(record.body.steps).toHaveLength(9);
 		expect(record.signatures.map((signature) => [signature.signer.name, signature.signer.role, signature.meaning])).toEqual([['Ines Marlow', 'photonics engineer', 'performed']]);
 		expect(record.signatures[0]!.fingerprint).toBe(fingerprint(rawPublicKey(operatorKey(home, false).privateKey)));
 	});
@@ -108,6 +108,19 @@ describe('prelase plan FILE --record-test RESULTS', () => {
 		expect(record.body.outcome).toBe('failed');
 		expect(record.body.planFindings).toEqual({stops: 1, advises: 0, codes: ['interlock-normally-open']});
 		expect(record.body.steps.every((step) => step.result === 'pass')).toBe(true);
+	});
+
+	it.each([
+		{name: 'a plan with its location', text: (plan: string) => plan, location: 'Room B.112, bench 3', warned: false},
+		{name: 'a plan without a location', text: (plan: string) => plan.replace(/^location: .*\n/m, ''), location: undefined, warned: true},
+	])('records $name: the record carries it; without one the output says no bench check can use the test', async ({text, location, warned}) => {
+		const {records} = newCase();
+		const planFile = join(dirname(records), 'plan.yaml');
+		writeFileSync(planFile, text(readFileSync(demoPlanFile, 'utf8')));
+		const {code, stdout} = await run('plan', planFile, '--record-test', demoResults, '--records', records);
+		expect(code).toBe(0);
+		expect(writtenRecord(stdout).record.body.location).toBe(location);
+		expect(stdout.includes('The plan names no location: no bench check can use this test. Add location: (room and bench) to the plan and test the loop again.\n')).toBe(warned);
 	});
 
 	it('refuses results with problems: exit 2, each problem with file:line, and no record', async () => {
@@ -182,7 +195,7 @@ describe('prelase plan: options that go with --record-test, the sheet and the sc
 		expect(code).toBe(0);
 		expect(stdout).toMatch(/^<!doctype html>/i);
 		expect(stdout).toContain('Fenwick Hollow B.112 bench 3');
-		expect(stdout.match(/<tr>/g)?.length).toBeGreaterThanOrEqual(11);
+		expect(stdout.match(/<tr>/g)?.length).toBeGreaterThanOrEqual(9);
 	});
 
 	it.each([

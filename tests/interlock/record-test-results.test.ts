@@ -13,7 +13,7 @@ import {demoPlanFile, loadPlanUnderShippedPolicy} from './plan-fixture.js';
 
 const plan = loadPlanUnderShippedPolicy();
 const text = readFileSync(demoPlanFile, 'utf8');
-const subjects = ['lid_switch', 'fibre_sense', 'estop_bench', 'door_switch', 'chiller_flow', 'key_switch', 'emergency stop', 'key removal', 'loop wire break', 'power interruption', 'bypass time-out: alignment_bypass'];
+const subjects = ['lid_switch', 'fibre_sense', 'estop_bench', 'door_switch', 'chiller_flow', 'key_switch', 'loop wire break', 'power interruption', 'bypass time-out: alignment_bypass'];
 const now = new Date(2026, 11, 1, 10, 0, 0);
 
 /** Results as the screen holds them once validated: times in seconds, every step passed unless changed. */
@@ -57,7 +57,7 @@ describe('recordTestResults (results held in memory)', () => {
 	it.each([
 		{name: 'a pass slower than the policy', given: results({5: {stopped_in: 0.025}}), code: 'interlock-results-too-slow', field: 'steps.4.stopped_in', data: {step: 5, measured: '25 ms', limit: '20 ms'}},
 		{name: 'not applicable without a note', given: results({8: {result: 'not_applicable', stopped_in: undefined}}), code: 'interlock-results-na-note', field: 'steps.7.result', data: {step: 8}},
-		{name: 'a step missing', given: {...results(), steps: results().steps.slice(0, 10)}, code: 'interlock-results-step-missing', field: 'steps', data: {step: 11, subject: 'bypass time-out: alignment_bypass'}},
+		{name: 'a step missing', given: {...results(), steps: results().steps.slice(0, 8)}, code: 'interlock-results-step-missing', field: 'steps', data: {step: 9, subject: 'bypass time-out: alignment_bypass'}},
 		{name: 'a test day after today', given: {...results(), tested_on: '2026-12-02'}, code: 'interlock-results-future', field: 'tested_on', data: {date: '2026-12-02', today: '2026-12-01'}},
 	])('refuses $name with the same problem a file gets, and writes nothing', ({given, code, field, data}) => {
 		const home = mkdtempSync(join(tmpdir(), 'prelase-record-results-'));

@@ -33,31 +33,31 @@ describe('the demo results', () => {
 		expect(results.tested_on).toBe('2026-11-30');
 		expect(results.tested_by).toEqual({name: 'Ines Marlow', role: 'photonics engineer'});
 		expect(results.witness).toEqual({name: 'Tomas Reyes', role: 'deputy laser safety officer'});
-		expect(results.steps.map((entry) => entry.step)).toEqual([1, 2, 3, 4, 5, 6, 7, 8, 9, 10, 11]);
+		expect(results.steps.map((entry) => entry.step)).toEqual([1, 2, 3, 4, 5, 6, 7, 8, 9]);
 		expect(results.steps.map((entry) => entry.concerns)).toEqual(sheet.steps.map((step) => step.subject));
 		expect(results.steps.every((entry) => entry.result === 'pass')).toBe(true);
 		// 9 ms and 16 ms in seconds.
 		expect(results.steps[0]!.stopped_in).toBeCloseTo(0.009, 12);
 		expect(results.steps[4]!.stopped_in).toBeCloseTo(0.016, 12);
 		expect(results.steps[7]!.stopped_in).toBeUndefined();
-		expect(results.steps[10]!.note).toBe('key returned to the lock box at the end of the 8 h window');
+		expect(results.steps[8]!.note).toBe('key returned to the lock box at the end of the 8 h window');
 	});
 
-	it('the sheet they are held against is the shipped policy\'s: 11 steps, 20 ms', () => {
-		expect(sheet.steps).toHaveLength(11);
+	it('the sheet they are held against is the shipped policy\'s: 9 steps, 20 ms', () => {
+		expect(sheet.steps).toHaveLength(9);
 		expect(sheet.limit).toBe('20 ms');
 		expect(sheet.limitSeconds).toBe(0.02);
 	});
 });
 
 const step5 = '{step: 5, concerns: chiller_flow, result: pass, stopped_in: 16 ms}';
-const step8 = '{step: 8, concerns: key removal, result: pass}';
+const step8 = '{step: 8, concerns: power interruption, result: pass}';
 const lastLine = 'note: key returned to the lock box at the end of the 8 h window\n';
 
 const valid = [
 	{name: 'a pass exactly at the 20 ms limit', text: edit(step5, '{step: 5, concerns: chiller_flow, result: pass, stopped_in: 20 ms}'), at: now},
 	{name: 'a slow step marked fail', text: edit(step5, '{step: 5, concerns: chiller_flow, result: fail, stopped_in: 25 ms}'), at: now},
-	{name: 'not_applicable with a note', text: edit(step8, '{step: 8, concerns: key removal, result: not_applicable, note: "no key switch on this driver, accepted by the LSO"}'), at: now},
+	{name: 'not_applicable with a note', text: edit(step8, '{step: 8, concerns: power interruption, result: not_applicable, note: "driver on a bench supply with no mains switch, accepted by the LSO"}'), at: now},
 	{name: 'tested today', text: demo, at: new Date(2026, 10, 30, 0, 0, 1)},
 	{name: 'the steps in another order', text: edit(`  - ${step5}\n`, '').replace(lastLine, `${lastLine}  - ${step5}\n`), at: now},
 	{name: 'no witness', text: edit('witness: {name: Tomas Reyes, role: deputy laser safety officer}\n', ''), at: now},
@@ -73,24 +73,24 @@ describe('results that load', () => {
 type Case = {name: string; text: string; at?: Date; code: string; field: string; needle: string; data: Record<string, unknown>};
 
 const invalid: Case[] = (() => {
-	const extraStep = `${demo}  - {step: 12, concerns: lid_switch, result: pass}\n`;
+	const extraStep = `${demo}  - {step: 10, concerns: lid_switch, result: pass}\n`;
 	const repeated = `${demo}  - {step: 3, concerns: estop_bench, result: pass, stopped_in: 6 ms}  # again\n`;
 	return [
-		{name: 'an unknown step number', text: extraStep, code: 'interlock-results-step-unknown', field: 'steps.11.step', needle: 'step: 12', data: {step: 12, count: 11}},
+		{name: 'an unknown step number', text: extraStep, code: 'interlock-results-step-unknown', field: 'steps.9.step', needle: 'step: 10', data: {step: 10, count: 9}},
 		{
 			name: 'a step given twice',
 			text: repeated,
 			code: 'interlock-results-step-twice',
-			field: 'steps.11.step',
+			field: 'steps.9.step',
 			needle: '# again',
 			// The first step 3 is on the demo's own line for it.
 			data: {step: 3, first: `line ${lineOf(demo, '{step: 3,')}`},
 		},
 		// The step list is where a missing step is reported: its first entry.
-		{name: 'a missing step', text: edit(`  - ${step8}\n`, ''), code: 'interlock-results-step-missing', field: 'steps', needle: '- {step: 1,', data: {step: 8, subject: 'key removal'}},
+		{name: 'a missing step', text: edit(`  - ${step8}\n`, ''), code: 'interlock-results-step-missing', field: 'steps', needle: '- {step: 1,', data: {step: 8, subject: 'power interruption'}},
 		{name: '`concerns` naming another subject', text: edit('{step: 4, concerns: door_switch,', '{step: 4, concerns: room_door,'), code: 'interlock-results-concerns', field: 'steps.3.concerns', needle: 'room_door', data: {step: 4, expected: 'door_switch', given: 'room_door'}},
 		{name: 'a pass slower than the 20 ms limit', text: edit(step5, '{step: 5, concerns: chiller_flow, result: pass, stopped_in: 25 ms}'), code: 'interlock-results-too-slow', field: 'steps.4.stopped_in', needle: '25 ms', data: {step: 5, measured: '25 ms', limit: '20 ms'}},
-		{name: 'not_applicable without a note', text: edit(step8, '{step: 8, concerns: key removal, result: not_applicable}'), code: 'interlock-results-na-note', field: 'steps.7.result', needle: 'not_applicable}', data: {step: 8}},
+		{name: 'not_applicable without a note', text: edit(step8, '{step: 8, concerns: power interruption, result: not_applicable}'), code: 'interlock-results-na-note', field: 'steps.7.result', needle: 'not_applicable}', data: {step: 8}},
 		{name: 'tested_on after today', text: demo, at: new Date(2026, 10, 29, 23, 59, 0), code: 'interlock-results-future', field: 'tested_on', needle: '2026-11-30', data: {date: '2026-11-30', today: '2026-11-29'}},
 		{name: 'a date that is not on the calendar', text: edit('tested_on: 2026-11-30', 'tested_on: 2026-02-30'), code: 'schema', field: 'tested_on', needle: '2026-02-30', data: {detail: 'not a calendar date'}},
 		{name: 'a date not written YYYY-MM-DD', text: edit('tested_on: 2026-11-30', 'tested_on: 30.11.2026'), code: 'schema', field: 'tested_on', needle: '30.11.2026', data: {detail: 'write the date as YYYY-MM-DD, e.g. 2026-11-30'}},
@@ -98,7 +98,7 @@ const invalid: Case[] = (() => {
 		{name: 'a missing tested_by', text: edit('tested_by: {name: Ines Marlow, role: photonics engineer}\n', ''), code: 'schema', field: 'tested_by', needle: 'format: 1', data: {detail: 'required field missing: expected object'}},
 		{name: 'an unknown field in a step', text: edit('{step: 1, concerns: lid_switch, result: pass, stopped_in: 9 ms}', '{step: 1, concerns: lid_switch, result: pass, stoped_in: 9 ms}'), code: 'schema', field: 'steps.0', needle: 'stoped_in', data: {detail: expect.stringContaining('unknown field "stoped_in"')}},
 		{name: 'an unknown top-level field', text: edit('format: 1\n', 'format: 1\nroom_temperature: 21 degC\n'), code: 'schema', field: '(top level)', needle: 'room_temperature', data: {detail: expect.stringContaining('unknown field "room_temperature"')}},
-		{name: 'a result that is not pass, fail or not_applicable', text: edit(step8, '{step: 8, concerns: key removal, result: ok}'), code: 'schema', field: 'steps.7.result', needle: 'result: ok', data: {detail: 'expected one of "pass", "fail", "not_applicable"'}},
+		{name: 'a result that is not pass, fail or not_applicable', text: edit(step8, '{step: 8, concerns: power interruption, result: ok}'), code: 'schema', field: 'steps.7.result', needle: 'result: ok', data: {detail: 'expected one of "pass", "fail", "not_applicable"'}},
 	];
 })();
 
@@ -113,7 +113,7 @@ describe('results that are refused', () => {
 	});
 
 	it('reports every problem of a file at once, each where it is', () => {
-		const text = edit(step5, '{step: 5, concerns: flow_switch, result: pass, stopped_in: 25 ms}').replace(step8, '{step: 8, concerns: key removal, result: not_applicable}');
+		const text = edit(step5, '{step: 5, concerns: flow_switch, result: pass, stopped_in: 25 ms}').replace(step8, '{step: 8, concerns: power interruption, result: not_applicable}');
 		const loaded = loadResultsFromText(text, 'results.yaml', sheet, now);
 		expect(loaded.ok ? [] : loaded.errors.map((found) => [found.code, found.line])).toEqual([
 			['interlock-results-concerns', lineOf(text, 'flow_switch')],
@@ -134,7 +134,7 @@ describe('the results loader on mutated files', () => {
 		fc.assert(
 			fc.property(mutated, (text) => {
 				const result = loadResultsFromText(text, 'results.yaml', sheet, now);
-				if (result.ok) return [...result.value.steps.map((entry) => entry.step)].sort((a, b) => a - b).join(',') === '1,2,3,4,5,6,7,8,9,10,11';
+				if (result.ok) return [...result.value.steps.map((entry) => entry.step)].sort((a, b) => a - b).join(',') === '1,2,3,4,5,6,7,8,9';
 				return result.errors.length > 0 && result.errors.every((found) => found.file === 'results.yaml' && typeof found.line === 'number' && found.line >= 1);
 			}),
 			{numRuns: 300},

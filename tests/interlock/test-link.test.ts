@@ -50,6 +50,9 @@ function store(body: InterlockTestBody, key = ours): string {
 	return writeRecord(join(folder, 'records'), signRecord(body, [{signer: {name: 'Ines Marlow', role: 'photonics engineer', meaning: 'performed'}, key}]));
 }
 
+/** The demo's location, as its plan and its bench check give it. */
+const bench3 = 'Room B.112, bench 3';
+
 const context = (at: Date = now): LinkContext => ({base: folder, folder: join(folder, 'records'), trusted: new Set([fingerprintOf(ours)]), now: at});
 
 describe('addDays', () => {
@@ -69,7 +72,7 @@ describe('addDays', () => {
 describe('the bench check and the interlock test record', () => {
 	it('within the interval: current, and the record is named', () => {
 		const path = store(testBody('2026-11-30'));
-		const link = interlockLink(planPath, rules, context());
+		const link = interlockLink(planPath, rules, context(), bench3);
 		expect(link.status).toBe('current');
 		expect(link.record).toMatchObject({file: expect.stringContaining('interlock-test-fenwick-hollow') as string, testedOn: '2026-11-30', outcome: 'passed', dueBy: '2027-05-29'});
 		expect(link.text).toContain(path.split('/').at(-1)!);
@@ -81,8 +84,9 @@ describe('the bench check and the interlock test record', () => {
 		{name: 'the day after the interval', at: '2026-11-29T00:30:00', status: 'overdue'},
 		{name: 'long overdue', at: '2027-06-01T12:00:00', status: 'overdue'},
 	])('$name: $status', ({at, status}) => {
-		store(testBody('2026-06-01'));
-		const link = interlockLink(planPath, rules, context(new Date(at)));
+		// recorded on the test day: a record dated after the check's time would answer nothing
+		store(testBody('2026-06-01', undefined, new Date('2026-06-01T17:00:00')));
+		const link = interlockLink(planPath, rules, context(new Date(at)), bench3);
 		expect(link.status).toBe(status);
 		expect(link.record?.dueBy).toBe('2026-11-28');
 		if (status === 'overdue') expect(link.text).toContain('OVERDUE');
@@ -96,7 +100,7 @@ describe('the bench check and the interlock test record', () => {
 		{name: 'no test at all', tests: [], status: 'untested'},
 	])('$name: $status', ({tests, status}) => {
 		for (const test of tests as Array<{on: string; failed?: number; at?: string}>) store(testBody(test.on, test.failed, test.at ? new Date(test.at) : undefined));
-		const link = interlockLink(planPath, rules, context());
+		const link = interlockLink(planPath, rules, context(), bench3);
 		expect(link.status).toBe(status);
 		if (status === 'failed') expect(link.text).toMatch(/FAILED: Failed: step \d \(/);
 	});
@@ -104,20 +108,20 @@ describe('the bench check and the interlock test record', () => {
 	it('a test of the plan before it changed does not count', () => {
 		store(testBody('2026-11-30'));
 		writeFileSync(planPath, `${readFileSync(planPath, 'utf8')}\n# a comment added after the test\n`);
-		const link = interlockLink(planPath, rules, context());
+		const link = interlockLink(planPath, rules, context(), bench3);
 		expect(link.status).toBe('untested');
 		expect(link.text).toContain('the plan has changed since its last test');
 	});
 
 	it('a test signed with a key the operator does not trust is passed over, and said so', () => {
 		store(testBody('2026-11-30'), stranger);
-		const link = interlockLink(planPath, rules, context());
+		const link = interlockLink(planPath, rules, context(), bench3);
 		expect(link.status).toBe('untested');
 		expect(link.text).toContain('1 test record signed with keys you do not trust were passed over');
 	});
 
 	it('a plan that cannot be read', () => {
-		const link = interlockLink(join(folder, 'no-such-plan.yaml'), rules, context());
+		const link = interlockLink(join(folder, 'no-such-plan.yaml'), rules, context(), bench3);
 		expect(link).toMatchObject({status: 'unreadable', record: null, plan: {sha256: null}});
 	});
 });

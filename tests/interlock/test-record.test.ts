@@ -75,7 +75,7 @@ describe('the body of the demo test record', () => {
 		expect(body.deferral).toBe(deferral);
 	});
 
-	it('has the 11 steps in sheet order, each with its result, time and note', () => {
+	it('has the 9 steps in sheet order, each with its result, time and note', () => {
 		expect(body.steps.map((step) => [step.number, step.subject, step.result])).toEqual([
 			[1, 'lid_switch', 'pass'],
 			[2, 'fibre_sense', 'pass'],
@@ -83,15 +83,13 @@ describe('the body of the demo test record', () => {
 			[4, 'door_switch', 'pass'],
 			[5, 'chiller_flow', 'pass'],
 			[6, 'key_switch', 'pass'],
-			[7, 'emergency stop', 'pass'],
-			[8, 'key removal', 'pass'],
-			[9, 'loop wire break', 'pass'],
-			[10, 'power interruption', 'pass'],
-			[11, 'bypass time-out: alignment_bypass', 'pass'],
+			[7, 'loop wire break', 'pass'],
+			[8, 'power interruption', 'pass'],
+			[9, 'bypass time-out: alignment_bypass', 'pass'],
 		]);
-		expect(body.steps.map((step) => step.stoppedIn?.text)).toEqual(['9 ms', '4 ms', '6 ms', '8 ms', '16 ms', '5 ms', '6 ms', undefined, '2 ms', undefined, undefined]);
+		expect(body.steps.map((step) => step.stoppedIn?.text)).toEqual(['9 ms', '4 ms', '6 ms', '8 ms', '16 ms', '5 ms', '2 ms', undefined, undefined]);
 		expect(body.steps[0]!.stoppedIn).toEqual({si: expect.closeTo(0.009, 12) as number, unit: 's', text: '9 ms'});
-		expect(body.steps[10]!.note).toBe('key returned to the lock box at the end of the 8 h window');
+		expect(body.steps[8]!.note).toBe('key returned to the lock box at the end of the 8 h window');
 		expect(body.steps.filter((step) => step.note !== undefined)).toHaveLength(1);
 		expect(body.steps[0]!.action).toBe('With emission on, open lid_switch (FH-LS2 tongue switch on the enclosure lid), then close it again.');
 		expect(body.steps[0]!.expect).toBe('Emission stops within 20 ms. After closing, emission stays off until the reset is pressed.');

@@ -61,6 +61,7 @@ describe('audit of a fresh interlock test record', () => {
 		expect(stderr).toBe('');
 		expect(code).toBe(0);
 		expect(stdout).toContain(`Plan tested    interlock test of Fenwick Hollow B.112 bench 3 — enclosure and room loop · plan sha256 ${sha256(readFileSync(demoPlan, 'utf8')).slice(0, 16)}`);
+		expect(stdout).toContain('Location       Room B.112, bench 3\n');
 		expect(stdout).toContain('Tested         2026-11-30 by Ines Marlow, photonics engineer, witnessed by Tomas Reyes, deputy laser safety officer');
 		expect(stdout).toContain('Outcome        Passed: every step of the functional test passed, and the plan has no stop finding. (as recorded)');
 		expect(stdout).toMatch(/Signature 1 {4}✓ Ines Marlow \(photonics engineer\), performed, .* · your own key/);
@@ -169,21 +170,21 @@ describe('audit of re-signed, altered interlock test records: authentic, with co
 			change: (body: InterlockTestBody) => {
 				body.steps.splice(7, 1);
 			},
-			findings: [['audit-test-steps-mismatch', {detail: 'step 8: the sheet has "8 key removal", the record "9 loop wire break"'}]],
+			findings: [['audit-test-steps-mismatch', {detail: 'step 8: the sheet has "8 power interruption", the record "9 bypass time-out: alignment_bypass"'}]],
 		},
 		{
 			name: 'the last step dropped',
 			change: (body: InterlockTestBody) => {
 				body.steps.pop();
 			},
-			findings: [['audit-test-steps-mismatch', {detail: 'step 11: the sheet has "11 bypass time-out: alignment_bypass", the record "(no step)"'}]],
+			findings: [['audit-test-steps-mismatch', {detail: 'step 9: the sheet has "9 bypass time-out: alignment_bypass", the record "(no step)"'}]],
 		},
 		{
 			name: 'a step added',
 			change: (body: InterlockTestBody) => {
-				body.steps.push({...body.steps[0]!, number: 12, subject: 'extra'});
+				body.steps.push({...body.steps[0]!, number: 10, subject: 'extra'});
 			},
-			findings: [['audit-test-steps-mismatch', {detail: 'step 12: the sheet has "(no step)", the record "12 extra"'}]],
+			findings: [['audit-test-steps-mismatch', {detail: 'step 10: the sheet has "(no step)", the record "10 extra"'}]],
 		},
 	])('$name', async ({change, findings}) => {
 		const {code, report} = await auditJson(writeRecordFile(resigned(change)));

@@ -36,7 +36,7 @@ describe('prelase report on an interlock test record', () => {
 			expect(lines).toContain(row);
 		}
 		const steps = stdout.slice(stdout.indexOf('## Steps'), stdout.indexOf('## Signatures')).split('\n').filter((line) => /^\| \d+ \| /.test(line));
-		expect(steps.map((line) => line.split(' | ')[1])).toEqual(['lid_switch', 'fibre_sense', 'estop_bench', 'door_switch', 'chiller_flow', 'key_switch', 'emergency stop', 'key removal', 'loop wire break', 'power interruption', 'bypass time-out: alignment_bypass']);
+		expect(steps.map((line) => line.split(' | ')[1])).toEqual(['lid_switch', 'fibre_sense', 'estop_bench', 'door_switch', 'chiller_flow', 'key_switch', 'loop wire break', 'power interruption', 'bypass time-out: alignment_bypass']);
 		expect(steps[4]).toContain('| **✓ pass** | 16 ms |');
 		expect(stdout).not.toContain('## Steps not passed');
 		expect(stdout).toMatch(/\| 1 \| Ines Marlow \| photonics engineer \| performed \| .+ \| \*\*✓ verified\*\* \| ✓ your own key \|/);
@@ -66,7 +66,7 @@ describe('prelase report on an interlock test record', () => {
 		expect(page).not.toContain('\u0007');
 		expect(page).not.toMatch(/\b(src|href)=/);
 		expect(page).toContain('Outcome: <strong>PASSED</strong>');
-		expect(page.match(/<tr class="answer-yes">/g)).toHaveLength(11);
+		expect(page.match(/<tr class="answer-yes">/g)).toHaveLength(9);
 		const again = await runIn(home, ['report', path, '--out', out]);
 		expect(again.code).toBe(2);
 		expect(again.stderr).toContain('already exists; prelase does not overwrite it');

@@ -46,7 +46,8 @@ describe('the on-screen check and the interlock test record', () => {
 		let session = startSession(rules, {}, cachedLinker(rules, context));
 		const answered = answerConfirmation(session, 'interlock_loop_tested', 'yes');
 		if (!answered.ok) throw new Error(answered.message);
-		session = entered(answered.session, 'interlock_plan', 'plan.yaml');
+		// the check's location, as the demo plan names it (a test answers only a check there)
+		session = entered(entered(answered.session, 'location', 'Room B.112, bench 3'), 'interlock_plan', 'plan.yaml');
 		expect(session.interlockTest?.status).toBe('untested');
 		expect(status(session, 'interlock_loop_tested')).toBe('no');
 		expect(session.answers.confirmations.get('interlock_loop_tested')?.note).toContain('no interlock test record of this plan');

@@ -239,6 +239,12 @@ describe('moving around', () => {
 describe('a confirmation answered from the interlock test record', () => {
 	it('says so on the field, and y or n typed there is not taken', async () => {
 		const screen = await renderApp({startCheck: {}});
+		// the bench's location, as the demo plan names it (a test answers only a check there)
+		await screen.press(keys.down);
+		await screen.press(keys.down);
+		expect(screen.frame()).toContain('› Room and bench');
+		await screen.type('Room B.112, bench 3');
+		await screen.press(keys.enter);
 		for (let step = 1; step < 7; step += 1) await screen.press(keys.pageDown);
 		expect(screen.frame()).toContain('Step 7 of 9: Enclosure interlock');
 		// the demo plan, named by its absolute path; the screen's records folder has no test record of it
