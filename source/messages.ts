@@ -153,6 +153,7 @@ export const messages = {
 	'interlock-results-na-note': 'step {{step}} is marked not_applicable: add a note saying why (and who accepted it)',
 	'interlock-results-future': 'tested_on {{date}} is after today ({{today}})',
 	'interlock-run-missing': 'no wire run is given {{where}}, so the loop resistance leaves it out; add {{field}}',
+	'interlock-plan-no-location': 'the plan names no location (room and bench), so no bench check can use a test of it; add location: as the bench check gives it',
 } as const;
 
 /** Code of a user-facing problem. */

@@ -22,6 +22,8 @@ export function loopFindings(plan: Plan, resistance: LoopResistance, current: nu
 			}),
 		);
 	}
+	// A test answers only a bench check at its plan's location: without one, no check can use it.
+	if (plan.location === undefined) found.push(finding('interlock-plan-no-location', 'advise', {kind: 'loop'}));
 	if (!plan.input.wire_to_first) found.push(finding('interlock-run-missing', 'advise', {kind: 'input'}, {where: 'from the input to the first device', field: 'input.wire_to_first'}));
 	for (const device of plan.devices) {
 		if (inSeriesPath(device) && !device.wire_to_next) found.push(finding('interlock-run-missing', 'advise', {kind: 'device', id: device.id}, {where: 'from this device to the next', field: 'wire_to_next'}));
