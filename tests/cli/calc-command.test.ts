@@ -169,6 +169,13 @@ describe('prelase calc', () => {
 		expect(stdout).not.toContain('awg=4.5'); // a whole-gauge input is not shown a fractional example
 	});
 
+	it('shows an example inside the range in --help', () => {
+		const {stdout} = run('calc', 'mpe', '--help');
+		// IEC 60825-1 editions 2007 and 2014: an example outside 2007–2014 would be refused
+		expect(stdout).not.toContain('edition=5');
+		expect(stdout).toContain('edition=2014');
+	});
+
 	it('prints the caution with every exposure figure, in text and JSON', () => {
 		const text = run('calc', 'od', 'power=2W', 'diameter=3mm', 'wavelength=808nm', 'duration=10s');
 		expect(text.code).toBe(0);
