@@ -1,9 +1,6 @@
 import type {Dimension} from '../quantities/dimensions.js';
 import {formatQuantity} from '../quantities/format.js';
 
-/** What values an input of a calculation may take, in SI. */
-export type Allowed = 'positive' | 'non-negative' | 'any';
-
 /**
  * The values an input is valid for, in SI: from `min` to `max` (both included unless
  * `aboveMin`), whole numbers only when `whole`. Shown as text in errors, --help and the docs.
@@ -36,9 +33,7 @@ export type CalculationInput = {
 	dimension: Dimension;
 	description: string;
 	/** The values this input is valid for; values outside are refused, naming the key and the range. */
-	range?: InputRange;
-	/** Used only where no range is declared yet. @default 'non-negative' */
-	allowed?: Allowed;
+	range: InputRange;
 	/** Default value in SI, used by `calc` when the key is left out. */
 	default?: number;
 	/** May be left out; outputs that need it are then not given. */
@@ -108,21 +103,15 @@ function withinRange(value: number, range: InputRange): boolean {
 }
 
 /**
- * Refuses inputs outside each input's range (or, where no range is declared yet, its allowed
- * values), then inputs that contradict each other; throws a CalculationInputError naming the key.
+ * Refuses inputs outside each input's range, then inputs that contradict each other; throws a
+ * CalculationInputError naming the key.
  */
 export function checkAllowed(calculation: Calculation, values: Record<string, number>): void {
 	for (const [key, input] of Object.entries(calculation.inputs)) {
 		const value = values[key];
 		if (value === undefined && input.optional) continue;
 		if (value === undefined || !Number.isFinite(value)) throw new CalculationInputError(calculation.name, key, 'a finite number');
-		if (input.range) {
-			if (!withinRange(value, input.range)) throw new CalculationInputError(calculation.name, key, `${rangeText(input.range, input.dimension)} (${formatQuantity(value, input.dimension)} given)`);
-			continue;
-		}
-		const allowed = input.allowed ?? 'non-negative';
-		if (allowed === 'positive' && !(value > 0)) throw new CalculationInputError(calculation.name, key, 'greater than zero');
-		if (allowed === 'non-negative' && !(value >= 0)) throw new CalculationInputError(calculation.name, key, 'zero or more');
+		if (!withinRange(value, input.range)) throw new CalculationInputError(calculation.name, key, `${rangeText(input.range, input.dimension)} (${formatQuantity(value, input.dimension)} given)`);
 	}
 	for (const condition of calculation.conditions ?? []) {
 		if (condition.keys.some((key) => values[key] === undefined)) continue;

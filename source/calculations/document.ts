@@ -28,13 +28,11 @@ export function calculationsMarkdown(): string {
 	for (const calculation of calculations) {
 		out.push('', `## ${calculation.name}`, '', calculation.summary + '.', '', `Formula: ${calculation.formula}`, '');
 		out.push(`In rule formulas: \`${formulaName(calculation)}(${Object.keys(calculation.inputs).join(', ')})\` gives \`${calculation.main}\`.`, '');
-		const ranged = Object.values(calculation.inputs).every((input) => input.range !== undefined);
-		out.push(ranged ? '| Input | Dimension (SI unit) | Description | Range | Default |' : '| Input | Dimension (SI unit) | Description | Default |', ranged ? '|---|---|---|---|---|' : '|---|---|---|---|');
+		out.push('| Input | Dimension (SI unit) | Description | Range | Default |', '|---|---|---|---|---|');
 		for (const [key, input] of Object.entries(calculation.inputs)) {
 			const unit = dimensions[input.dimension].si || '1';
 			const fallback = input.default !== undefined ? formatQuantity(input.default, input.dimension) : input.optional ? 'optional' : '—';
-			const range = ranged && input.range ? ` ${rangeShortText(input.range, input.dimension)} |` : '';
-			out.push(`| \`${key}\` | ${input.dimension} (${unit}) | ${escape(input.description)} |${range} ${fallback} |`);
+			out.push(`| \`${key}\` | ${input.dimension} (${unit}) | ${escape(input.description)} | ${rangeShortText(input.range, input.dimension)} | ${fallback} |`);
 		}
 		for (const condition of calculation.conditions ?? []) out.push('', `Refused unless \`${condition.keys[0]}\` is ${condition.description}.`);
 		out.push('', '| Output | Dimension (SI unit) | Description |', '|---|---|---|');

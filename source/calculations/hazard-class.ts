@@ -2,6 +2,7 @@ import {CalculationInputError, type Calculation} from './calculation.js';
 import {nanometres} from './optical/edges.js';
 import {classCovered, continuousLimits, limitsOnEverySide, rankOf} from './optical/emission-limits.js';
 import {opticalCaution} from './optical/optical-caution.js';
+import {opticalRanges} from './optical/optical-ranges.js';
 
 export {continuousLimits} from './optical/emission-limits.js';
 
@@ -13,8 +14,8 @@ export const hazardClass: Calculation = {
 	name: 'hazard-class',
 	summary: 'Indicative hazard class of a CW beam from its power and wavelength (180 nm to 1 mm); the manufacturer’s classification is what counts',
 	inputs: {
-		power: {dimension: 'power', description: 'Largest accessible CW output power'},
-		wavelength: {dimension: 'length', description: 'Wavelength, 180 nm to 1 mm', allowed: 'positive'},
+		power: {dimension: 'power', description: 'Largest accessible CW output power', range: opticalRanges.power},
+		wavelength: {dimension: 'length', description: 'Wavelength', range: opticalRanges.wavelength},
 	},
 	outputs: {
 		class_rank: {dimension: 'number', description: 'Indicative class: 1 = Class 1, 2 = Class 2, 3 = Class 3R, 4 = Class 3B, 5 = Class 4'},

@@ -3,14 +3,15 @@ import {covered, editionInput, readEdition, refuseRepetition, repetitionInput} f
 import {ocularMpe} from './optical/ocular-mpe.js';
 import {nanometres} from './optical/edges.js';
 import {opticalCaution} from './optical/optical-caution.js';
+import {opticalRanges} from './optical/optical-ranges.js';
 
 /** Maximum permissible exposure of the eye to a point source. */
 export const mpe: Calculation = {
 	name: 'mpe',
 	summary: 'Maximum permissible exposure of the eye to a point source, by wavelength and exposure duration',
 	inputs: {
-		wavelength: {dimension: 'length', description: 'Wavelength, 180 nm to 1 mm', allowed: 'positive'},
-		duration: {dimension: 'time', description: 'Exposure duration (pulse duration for a single pulse): 0.25 s for an accidental visible exposure, 10 s otherwise', allowed: 'positive'},
+		wavelength: {dimension: 'length', description: 'Wavelength', range: opticalRanges.wavelength},
+		duration: {dimension: 'time', description: 'Exposure duration (pulse duration for a single pulse): 0.25 s for an accidental visible exposure, 10 s otherwise; at least 1 ns outside 400–1400 nm', range: opticalRanges.duration},
 		edition: editionInput,
 		repetition_rate: repetitionInput,
 	},

@@ -2,17 +2,18 @@ import type {Calculation} from './calculation.js';
 import {covered, editionInput, readEdition} from './optical/edition-input.js';
 import {ocularMpe} from './optical/ocular-mpe.js';
 import {opticalCaution} from './optical/optical-caution.js';
+import {opticalRanges} from './optical/optical-ranges.js';
 
 /** Nominal ocular hazard distance of a diverging beam. */
 export const nohd: Calculation = {
 	name: 'nohd',
 	summary: 'Nominal ocular hazard distance: how far from the exit the beam stays above the MPE',
 	inputs: {
-		power: {dimension: 'power', description: 'Largest output power: at least what the setup can emit at its current limit when coldest'},
-		diameter: {dimension: 'length', description: 'Beam diameter at the exit (1/e points; 0 for a bare diode)'},
-		divergence: {dimension: 'angle', description: 'Full-angle divergence at the 1/e points: a datasheet FWHM figure × 1.2011, a 1/e² figure ÷ √2 (Gaussian beam); for an elliptical beam the smaller angle is the cautious one', allowed: 'positive'},
-		wavelength: {dimension: 'length', description: 'Wavelength', allowed: 'positive'},
-		duration: {dimension: 'time', description: 'Exposure duration for the MPE', allowed: 'positive'},
+		power: {dimension: 'power', description: 'Largest output power: at least what the setup can emit at its current limit when coldest', range: opticalRanges.power},
+		diameter: {dimension: 'length', description: 'Beam diameter at the exit (1/e points; 0 for a bare diode)', range: opticalRanges.diameter},
+		divergence: {dimension: 'angle', description: 'Full-angle divergence at the 1/e points: a datasheet FWHM figure × 1.2011, a 1/e² figure ÷ √2 (Gaussian beam); for an elliptical beam the smaller angle is the cautious one', range: opticalRanges.divergence},
+		wavelength: {dimension: 'length', description: 'Wavelength', range: opticalRanges.wavelength},
+		duration: {dimension: 'time', description: 'Exposure duration for the MPE (at least 1 ns outside 400–1400 nm)', range: opticalRanges.duration},
 		edition: editionInput,
 	},
 	outputs: {

@@ -2,16 +2,17 @@ import type {Calculation} from './calculation.js';
 import {covered, editionInput, readEdition, refuseRepetition, repetitionInput} from './optical/edition-input.js';
 import {limitingAperture, ocularMpe} from './optical/ocular-mpe.js';
 import {opticalCaution} from './optical/optical-caution.js';
+import {opticalRanges} from './optical/optical-ranges.js';
 
 /** Optical density protective eyewear needs for a beam. */
 export const od: Calculation = {
 	name: 'od',
 	summary: 'Optical density eyewear needs: log10 of the worst-case exposure over the limiting aperture divided by the MPE',
 	inputs: {
-		power: {dimension: 'power', description: 'Largest power that can reach the eye: at least what the setup can emit at its current limit when coldest (peak power over the duration for a single pulse)'},
-		diameter: {dimension: 'length', description: 'Narrowest beam diameter where it can reach the eye, at the 1/e points (0, the worst case, when a lens could focus it into the aperture; not the exit diameter of a wide beam)'},
-		wavelength: {dimension: 'length', description: 'Wavelength', allowed: 'positive'},
-		duration: {dimension: 'time', description: 'Exposure duration (pulse duration for a single pulse)', allowed: 'positive'},
+		power: {dimension: 'power', description: 'Largest power that can reach the eye: at least what the setup can emit at its current limit when coldest (peak power over the duration for a single pulse)', range: opticalRanges.power},
+		diameter: {dimension: 'length', description: 'Narrowest beam diameter where it can reach the eye, at the 1/e points (0, the worst case, when a lens could focus it into the aperture; not the exit diameter of a wide beam)', range: opticalRanges.diameter},
+		wavelength: {dimension: 'length', description: 'Wavelength', range: opticalRanges.wavelength},
+		duration: {dimension: 'time', description: 'Exposure duration (pulse duration for a single pulse; at least 1 ns outside 400–1400 nm)', range: opticalRanges.duration},
 		edition: editionInput,
 		repetition_rate: repetitionInput,
 	},

@@ -1,4 +1,5 @@
-import {between, type Calculation} from './calculation.js';
+import type {Calculation} from './calculation.js';
+import {opticalRanges} from './optical/optical-ranges.js';
 
 /** Planck constant, J·s (CODATA 2018, exact by the 2019 SI definition). */
 const planck = 6.62607015e-34;
@@ -15,7 +16,7 @@ const charge = 1.602176634e-19;
 export const photonSlopeLimit: Calculation = {
 	name: 'photon-slope-limit',
 	summary: 'Largest possible slope efficiency of one emitter at a wavelength (one photon per electron)',
-	inputs: {wavelength: {dimension: 'length', description: 'Emission wavelength', range: between(180e-9, 1e-3)}},
+	inputs: {wavelength: {dimension: 'length', description: 'Emission wavelength', range: opticalRanges.wavelength}},
 	outputs: {slope_limit: {dimension: 'slope_efficiency', description: 'Photon-energy limit of the slope efficiency, h·c/(q·λ)'}},
 	main: 'slope_limit',
 	formula: 'η_max = h·c/(q·λ) = 1.23984 µm·W/A ÷ λ (the photon energy in eV, read as W/A)',

@@ -1,5 +1,5 @@
 import {parseArgs} from 'node:util';
-import {formulaName, rangeShortText, type Calculation} from '../calculations/calculation.js';
+import {formulaName, rangeShortText, type Calculation, type CalculationInput} from '../calculations/calculation.js';
 import {calculations, findCalculation} from '../calculations/registry.js';
 import {describeCalcProblem, runCalculation} from '../calculations/run-calculation.js';
 import {dimensions} from '../quantities/dimensions.js';
@@ -21,6 +21,16 @@ export function calculationList(): string {
 	].join('\n');
 }
 
+/**
+ * A whole-number input gets a whole example inside its range (awg=5, not awg=4.5; edition=2014,
+ * its default, not edition=5).
+ */
+function wholeExample(input: CalculationInput): string | undefined {
+	if (!input.range.whole) return undefined;
+	const rounded = Math.round(Number(dimensions[input.dimension].example));
+	return String(rounded >= input.range.min && rounded <= input.range.max ? rounded : (input.default ?? input.range.min));
+}
+
 /** The help of one calculation: inputs with dimension, description and default; outputs; formula; basis. */
 export function calculationHelp(calculation: Calculation, width = 100): string {
 	const keyWidth = Math.max(...[...Object.keys(calculation.inputs), ...Object.keys(calculation.outputs)].map((key) => key.length));
@@ -28,9 +38,8 @@ export function calculationHelp(calculation: Calculation, width = 100): string {
 	for (const [key, input] of Object.entries(calculation.inputs)) {
 		const info = dimensions[input.dimension];
 		const extra = input.default !== undefined ? ` (default ${formatQuantity(input.default, input.dimension)})` : input.optional ? ' (optional)' : '';
-		const range = input.range ? `; ${rangeShortText(input.range, input.dimension)}` : '';
-		// A whole-number input gets a whole example (awg=5, not awg=4.5).
-		const example = input.range?.whole ? String(Math.round(Number(info.example))) : info.example.replace(' ', '');
+		const range = `; ${rangeShortText(input.range, input.dimension)}`;
+		const example = wholeExample(input) ?? info.example.replace(' ', '');
 		lines.push(...definitionRow(key, `${input.description}; ${info.noun}, e.g. ${key}=${example}${range}${extra}`, keyWidth, width));
 	}
 	for (const condition of calculation.conditions ?? []) lines.push(...wrap(`Refused unless ${condition.keys[0]} is ${condition.description}.`, width));

@@ -104,11 +104,76 @@ describe('prelase calc', () => {
 		expect(code).toBe(0);
 	});
 
+	// The optical calculations declare a range on every input too: the wavelengths and durations
+	// the exposure-limit and class tables cover, and bench ranges for power, diameter and angle.
+	it.each([
+		{name: 'a 100 nm wavelength', argv: ['calc', 'mpe', 'wavelength=100nm', 'duration=1s'], says: ['wavelength must be between 180 nm and 1 mm (100 nm given)']}, // IEC 60825-1:2014 Annex A tables start at 180 nm (from memory)
+		{name: 'a 2 mm wavelength', argv: ['calc', 'nohd', 'power=1W', 'diameter=1mm', 'divergence=1mrad', 'wavelength=2mm', 'duration=10s'], says: ['wavelength must be between 180 nm and 1 mm (2 mm given)']}, // IEC 60825-1:2014 Annex A tables end at 1 mm (from memory)
+		{name: 'a 150 nm class', argv: ['calc', 'hazard-class', 'power=1mW', 'wavelength=150nm'], says: ['wavelength must be between 180 nm and 1 mm (150 nm given)']}, // IEC 60825-1:2014 Table 3 starts at 180 nm (from memory)
+		{name: 'a 10⁵ s exposure', argv: ['calc', 'mpe', 'wavelength=532nm', 'duration=1e5s'], says: ['duration must be between 100 fs and 30 ks']}, // IEC 60825-1 Table A.1 durations end at 3×10⁴ s (from memory)
+		{name: 'a 10 fs pulse', argv: ['calc', 'od', 'power=1W', 'diameter=1mm', 'wavelength=800nm', 'duration=10fs'], says: ['duration must be between 100 fs and 30 ks']}, // IEC 60825-1 Table A.1 durations start at 10⁻¹³ s (from memory)
+		{name: 'a negative power', argv: ['calc', 'od', 'power=-1W', 'diameter=1mm', 'wavelength=808nm', 'duration=10s'], says: ['power must be between 0 W and 100 kW']}, // hand arithmetic: a power below zero has no meaning
+		{name: 'a 1 MW class', argv: ['calc', 'hazard-class', 'power=1MW', 'wavelength=808nm'], says: ['power must be between 0 W and 100 kW (1 MW given)']}, // common practice: a diode bench is far below 100 kW; a megawatt is a unit slip
+		{name: 'a 2 m beam', argv: ['calc', 'od', 'power=1W', 'diameter=2m', 'wavelength=808nm', 'duration=10s'], says: ['diameter must be between 0 m and 1 m (2 m given)']}, // common practice: a bench beam is far narrower than 1 m (the shipped rule file allows 0.3 m)
+		{name: 'a 2 m exit beam', argv: ['calc', 'nohd', 'power=1W', 'diameter=2m', 'divergence=1mrad', 'wavelength=808nm', 'duration=10s'], says: ['diameter must be between 0 m and 1 m']}, // common practice: a bench beam is far narrower than 1 m
+		{name: 'no divergence', argv: ['calc', 'nohd', 'power=1W', 'diameter=1mm', 'divergence=0rad', 'wavelength=808nm', 'duration=10s'], says: ['divergence must be between 1 µrad and 6.28 rad']}, // hand arithmetic: NOHD = (√(4P/πE) − a)/φ is infinite at φ = 0
+		{name: 'more than a full turn', argv: ['calc', 'nohd', 'power=1W', 'diameter=1mm', 'divergence=400deg', 'wavelength=808nm', 'duration=10s'], says: ['divergence must be between 1 µrad and 6.28 rad']}, // hand arithmetic: a full angle is at most 360° = 2π rad = 6.283 rad
+		{name: 'an edition that does not exist', argv: ['calc', 'mpe', 'wavelength=532nm', 'duration=1s', 'edition=2020'], says: ['edition must be a whole number between 2007 and 2014']}, // IEC 60825-1 editions 2007 (2nd) and 2014 (3rd)
+		{name: 'an edition between the two', argv: ['calc', 'mpe', 'wavelength=532nm', 'duration=1s', 'edition=2010'], says: ['edition must be 2014 or 2007']}, // IEC 60825-1: no edition in 2010 (from memory)
+		{name: 'a negative repetition rate', argv: ['calc', 'od', 'power=1W', 'diameter=1mm', 'wavelength=808nm', 'duration=1ns', 'repetition_rate=-1kHz'], says: ['repetition_rate must be between 0 Hz and 1 THz']}, // hand arithmetic: a rate below zero has no meaning
+	])('refuses an optical input outside its range with exit 2: $name', ({argv, says}) => {
+		const {code, stdout, stderr} = run(...argv);
+		expect(code).toBe(2);
+		expect(stdout).toBe('');
+		for (const words of says) expect(stderr).toContain(words);
+	});
+
+	// The edges of the optical ranges hold however they are spelled (hand arithmetic:
+	// 180 nm = 0.18 µm = 1.8×10⁻⁷ m; 1 mm = 1000 µm = 10⁶ nm; 10⁻¹³ s = 0.1 ps = 100 fs;
+	// 3×10⁴ s = 30 ks = 500 min; 100 kW = 10⁵ W = 0.1 MW; 1 m = 100 cm = 1000 mm; 1 µrad =
+	// 0.001 mrad; 360° = 2π rad).
+	it.each([
+		{argv: ['calc', 'mpe', 'wavelength=180nm', 'duration=1ns']},
+		{argv: ['calc', 'mpe', 'wavelength=0.18um', 'duration=1ns']},
+		{argv: ['calc', 'mpe', 'wavelength=1.8e-7m', 'duration=1ns']},
+		{argv: ['calc', 'mpe', 'wavelength=1mm', 'duration=10s']},
+		{argv: ['calc', 'mpe', 'wavelength=1000um', 'duration=10s']},
+		{argv: ['calc', 'mpe', 'wavelength=1e6nm', 'duration=10s']},
+		{argv: ['calc', 'mpe', 'wavelength=532nm', 'duration=1e-13s']},
+		{argv: ['calc', 'mpe', 'wavelength=532nm', 'duration=0.1ps']},
+		{argv: ['calc', 'mpe', 'wavelength=532nm', 'duration=100fs']},
+		{argv: ['calc', 'mpe', 'wavelength=1550nm', 'duration=3e4s']},
+		{argv: ['calc', 'mpe', 'wavelength=1550nm', 'duration=30ks']},
+		{argv: ['calc', 'mpe', 'wavelength=375nm', 'duration=500min']},
+		{argv: ['calc', 'mpe', 'wavelength=532nm', 'duration=1s', 'edition=2007']},
+		{argv: ['calc', 'od', 'power=100kW', 'diameter=1m', 'wavelength=808nm', 'duration=10s']},
+		{argv: ['calc', 'od', 'power=1e5W', 'diameter=100cm', 'wavelength=808nm', 'duration=10s']},
+		{argv: ['calc', 'od', 'power=0W', 'diameter=0mm', 'wavelength=0.18um', 'duration=30ks']},
+		{argv: ['calc', 'nohd', 'power=1W', 'diameter=1000mm', 'divergence=1urad', 'wavelength=808nm', 'duration=10s']},
+		{argv: ['calc', 'nohd', 'power=1W', 'diameter=0m', 'divergence=0.001mrad', 'wavelength=808nm', 'duration=10s']},
+		{argv: ['calc', 'nohd', 'power=1W', 'diameter=1mm', 'divergence=360deg', 'wavelength=808nm', 'duration=10s']},
+		{argv: ['calc', 'hazard-class', 'power=0.1MW', 'wavelength=180nm']},
+		{argv: ['calc', 'hazard-class', 'power=0W', 'wavelength=0.1cm']},
+		{argv: ['calc', 'photon-slope-limit', 'wavelength=0.18um']},
+		{argv: ['calc', 'photon-slope-limit', 'wavelength=1000um']},
+	])('accepts an optical range edge however it is spelled: $argv', ({argv}) => {
+		const {code, stderr} = run(...argv);
+		expect(stderr).toBe('');
+		expect(code).toBe(0);
+	});
+
 	it('shows each input\'s range in --help', () => {
 		const {stdout} = run('calc', 'wire', '--help');
 		// NBS Handbook 100 AWG tables: 4/0 (−3) to 40
 		expect(stdout).toMatch(/awg[\s\S]*-3 to 40 \(whole\)/);
 		expect(stdout).not.toContain('awg=4.5'); // a whole-gauge input is not shown a fractional example
+	});
+
+	it('shows an example inside the range in --help', () => {
+		const {stdout} = run('calc', 'mpe', '--help');
+		// IEC 60825-1 editions 2007 and 2014: an example outside 2007–2014 would be refused
+		expect(stdout).not.toContain('edition=5');
+		expect(stdout).toContain('edition=2014');
 	});
 
 	it('prints the caution with every exposure figure, in text and JSON', () => {

@@ -81,3 +81,71 @@ describe('the shipped policy with a derating line that rises', () => {
 		expect(evaluation.outcome).toBe('do_not_energize');
 	});
 });
+
+// The optical calculations' ranges are at least as wide as the shipped rule file's beam inputs
+// (after the divergence conversion), so a beam typed at any edge the rule file allows gets a
+// number from every people check, never a refusal.
+describe('the shipped policy with beam 1 at the edges of its input ranges', () => {
+	const peopleChecks = ['beam1_eyewear_sufficient', 'beam1_hazard_distance', 'label_class_covers_output', 'slope_efficiency_within_photon_limit'];
+	it.each([
+		{name: '180 nm typed as 0.18 um', changes: {beam1_wavelength: '0.18 um'}}, // IEC 60825-1:2014 Annex A tables start at 180 nm (from memory)
+		{name: '1 mm typed as 1000 um', changes: {beam1_wavelength: '1000 um'}}, // IEC 60825-1:2014 Annex A tables end at 1 mm (from memory)
+		{name: 'a 1 kW beam', changes: {beam1_power: '1 kW'}}, // common practice: the rule file's beam power range ends at 1 kW
+		{name: 'a 0.3 m beam at the exit and at the eye', changes: {beam1_diameter: '30 cm', beam1_eye_diameter: '300 mm'}}, // common practice: the rule file's diameter range ends at 0.3 m
+		{name: '3 rad FWHM', changes: {beam1_divergence: '3 rad', beam1_divergence_convention: 'fwhm'}}, // hand arithmetic: 3 rad / √(ln 2) = 3.60 rad at the 1/e points, below 2π
+		{name: '0.01 mrad at 1/e²', changes: {beam1_divergence: '0.01 mrad', beam1_divergence_convention: 'one_over_e_squared'}}, // hand arithmetic: 0.01 mrad / √2 = 7.07 µrad, above 1 µrad
+	])('$name: every people check is evaluated', ({changes}) => {
+		const evaluation = evaluateDocument(shippedRules(), withChanges(readDemo('bench3-808nm-clear.yaml'), changes));
+		for (const id of peopleChecks) expect(checkResult(evaluation, id).error, id).toBeUndefined();
+	});
+});
+
+describe('an optical calculation called from a rule formula outside its range', () => {
+	const optical = `format: 1
+name: optical range fixture
+caution: Test fixture only.
+steps:
+  - id: people
+    title: People
+    inputs:
+      - id: spot
+        label: Beam diameter at the eye
+        dimension: length
+        range: [0 m, 10 m]
+      - id: eyewear
+        label: Eyewear optical density
+        dimension: number
+        range: [0, 15]
+checks:
+  - id: eyewear_enough
+    step: people
+    title: Eyewear at or above the required optical density
+    value: eyewear
+    at_least: od(1 W, spot, 808 nm, 10 s)
+    dimension: number
+    severity: stop
+    explanation: fixture
+    basis: common practice
+`;
+	const loaded = loadRulesFromText(optical, 'optical.yaml');
+	if (!loaded.ok) throw new Error(loaded.errors.map((found) => found.code).join(', '));
+	const rules = loaded.value;
+	const run = (spot: string) => {
+		const answers = loadAnswersFromText(stringify({inputs: {spot, eyewear: '5'}, confirmations: {}}), 'case.yaml', rules);
+		if (!answers.ok) throw new Error(answers.errors.map((found) => found.code).join(', '));
+		return evaluate(rules, answers.value);
+	};
+
+	it('fails the check, naming the key and the range', () => {
+		// common practice: a bench beam is far narrower than 1 m; 2 m is a unit slip
+		const result = checkResult(run('2 m'), 'eyewear_enough');
+		expect(result.verdict).toBe('fail');
+		expect(result.error).toMatch(/diameter must be between 0 m and 1 m/);
+	});
+
+	it('passes inside the range', () => {
+		// hand arithmetic: 1 W over a 1 m beam is 1.27 W/m², below the 808 nm MPE at 10 s,
+		// 18·C_A·t^0.75/t = 16.6 W/m² with C_A = 10^(0.002·108) (IEC 60825-1:2014 Table A.1), so OD 0 < 5
+		expect(checkResult(run('1 m'), 'eyewear_enough').verdict).toBe('pass');
+	});
+});

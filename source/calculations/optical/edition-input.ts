@@ -1,11 +1,12 @@
 import {CalculationInputError, type CalculationInput} from '../calculation.js';
 import {NotCoveredError, type Edition} from './ocular-mpe.js';
+import {opticalRanges} from './optical-ranges.js';
 
 /** The `edition` input shared by the optical calculations: 2014 (default) or 2007. */
 export const editionInput: CalculationInput = {
 	dimension: 'number',
 	description: 'Edition of the exposure limits: 2014 (IEC 60825-1:2014 = ICNIRP 2013 = ANSI Z136.1-2014) or 2007',
-	allowed: 'any',
+	range: opticalRanges.edition,
 	default: 2014,
 };
 
@@ -13,6 +14,7 @@ export const editionInput: CalculationInput = {
 export const repetitionInput: CalculationInput = {
 	dimension: 'frequency',
 	description: 'Pulse repetition rate. Repetitive pulses (the single-pulse, average-power and pulse-train rules) are not covered: give one pulse as the duration, and ask the laser safety officer for the pulse train',
+	range: opticalRanges.repetitionRate,
 	optional: true,
 };
 
