@@ -193,7 +193,7 @@ async function buildGenerator() {
 const generatorSource = `
 import {mkdirSync, writeFileSync} from 'node:fs';
 import {join} from 'node:path';
-import {buildRecordBody, bodySha256} from './source/records/build-body.js';
+import {buildRecordBody, bodySha256} from './source/services/build-body.js';
 import {writeTrusted} from './source/records/key-store.js';
 import {fingerprint, generateKeyPair, rawPublicKey} from './source/records/keys.js';
 import {signRecord} from './source/records/sign-record.js';

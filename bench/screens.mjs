@@ -59,7 +59,7 @@ await build({
 		contents: `
 import {loadRules, shippedRulesPath} from './source/rules/load.ts';
 import {loadAnswers} from './source/rules/load-answers.ts';
-import {startSession, enterInput} from './source/ui/session.ts';
+import {startSession, enterInput} from './source/ui/bench-check/session.ts';
 import {parse} from 'yaml';
 import {readFileSync} from 'node:fs';
 const rules = loadRules(shippedRulesPath());

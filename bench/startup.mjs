@@ -150,7 +150,7 @@ if (values.strict && !holds) process.exitCode = 1;
  * erased by the compiler and do not count.
  */
 function inkOnCheckPath() {
-	const roots = ['source/main.ts', 'source/commands/check.ts'];
+	const roots = ['source/main.ts', 'source/cli/commands/check.ts'];
 	const isInk = (specifier) => /^ink(-[\w-]+)?(\/|$)/.test(specifier);
 	/** @type {Map<string, string | undefined>} module → the module that first imported it */
 	const seen = new Map(roots.map((root) => [root, undefined]));

@@ -1,5 +1,5 @@
 import chalk from 'chalk';
-import {main} from './cli.js';
+import {main} from './cli/dispatch.js';
 
 // Ink's chalk ignores NO_COLOR; turn colour off for every chalk user before anything draws.
 if (process.env['NO_COLOR'] !== undefined && process.env['NO_COLOR'] !== '') chalk.level = 0;

@@ -2,7 +2,7 @@ import {mkdtempSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {join} from 'node:path';
 import {describe, expect, it} from 'vitest';
-import {openSettings, readSettings, settingsFile} from '../source/settings.js';
+import {openSettings, readSettings, settingsFile} from '../source/services/settings.js';
 
 describe('settings', () => {
 	it('reads quickly from the same file the store writes', () => {
@@ -17,7 +17,7 @@ describe('settings', () => {
 
 describe('the rule file in force', () => {
 	it('is the setting when --rules is not given', async () => {
-		const {main} = await import('../source/cli.js');
+		const {main} = await import('../source/cli/dispatch.js');
 		const {fakeIo} = await import('./helpers/fake-io.js');
 		const {writeFileSync} = await import('node:fs');
 		const home = mkdtempSync(join(tmpdir(), 'prelase-settings-'));

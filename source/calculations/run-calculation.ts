@@ -1,10 +1,10 @@
 import {dimensions} from '../quantities/dimensions.js';
 import {formatQuantity} from '../quantities/format.js';
 import {parseQuantity} from '../quantities/parse-quantity.js';
-import {describeProblem, problem, type Problem} from '../problems.js';
+import {describeProblem, problem, type Problem} from '../shared/problems.js';
 import {didYouMean} from '../rules/names.js';
 import {dimensionWords} from '../rules/collect-names.js';
-import {failure, success, type Result} from '../result.js';
+import {failure, success, type Result} from '../shared/result.js';
 import {CalculationInputError, checkAllowed, type Calculation} from './calculation.js';
 
 /** One value in a calculation's result: SI number, SI unit, formatted text. */

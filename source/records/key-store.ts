@@ -3,7 +3,7 @@ import {createPrivateKey, createPublicKey, type KeyObject} from 'node:crypto';
 import {join} from 'node:path';
 // Named imports (not the z namespace) let the bundler leave out the parts of zod not used.
 import {array, object, string} from 'zod';
-import {UsageError} from '../usage-error.js';
+import {UsageError} from '../cli/usage-error.js';
 import {fingerprint, generateKeyPair, rawPublicKey} from './keys.js';
 
 /** A colleague's public key that this operator trusts. */

@@ -1,4 +1,4 @@
-import {sha256Hex} from '../sha256.js';
+import {sha256Hex} from '../shared/sha256.js';
 import {createPrivateKey, createPublicKey, generateKeyPairSync, type KeyObject} from 'node:crypto';
 
 const spkiPrefix = Buffer.from('302a300506032b6570032100', 'hex');

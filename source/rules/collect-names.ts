@@ -1,7 +1,7 @@
 import {dimensions} from '../quantities/dimensions.js';
 import {isUnitName} from '../quantities/engine.js';
-import {problem, type Problem} from '../problems.js';
-import type {YamlSource} from '../yaml-source.js';
+import {problem, type Problem} from '../shared/problems.js';
+import type {YamlSource} from '../shared/yaml-source.js';
 import type {NameKind} from './names.js';
 import type {RuleFile} from './schema.js';
 

@@ -1,11 +1,11 @@
-import {sha256Hex} from '../sha256.js';
+import {sha256Hex} from '../shared/sha256.js';
 import {formulaFunctions} from '../calculations/formula-functions.js';
-import {describeProblem, problem, warning, type Problem} from '../problems.js';
+import {describeProblem, problem, warning, type Problem} from '../shared/problems.js';
 import {mathFunctions} from '../quantities/engine.js';
 import {parseQuantity} from '../quantities/parse-quantity.js';
 import type {Dimension} from '../quantities/dimensions.js';
-import {failure, success, type Result} from '../result.js';
-import type {YamlSource} from '../yaml-source.js';
+import {failure, success, type Result} from '../shared/result.js';
+import type {YamlSource} from '../shared/yaml-source.js';
 import {collectNames, dimensionWords} from './collect-names.js';
 import type {CompiledCheck, CompiledConfirmation, CompiledDerived, CompiledInput, CompiledRules, SiValue} from './compiled-rules.js';
 import {compileFormula, type CompiledFormula} from './formula.js';

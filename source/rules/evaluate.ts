@@ -1,4 +1,4 @@
-import {fillPlaceholders} from '../problems.js';
+import {fillPlaceholders} from '../shared/problems.js';
 import {isQuantity} from '../quantities/engine.js';
 import {asDeclared} from '../quantities/dimension-value.js';
 import {alignTemperatures, isTemperature} from '../quantities/temperature-kind.js';

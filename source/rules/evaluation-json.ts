@@ -1,5 +1,5 @@
-import {version} from '../version.js';
-import {deferral} from '../deferral.js';
+import {version} from '../shared/version.js';
+import {deferral} from '../shared/deferral.js';
 import {dimensions} from '../quantities/dimensions.js';
 import type {Answers} from './answers.js';
 import type {CompiledRules} from './compiled-rules.js';

@@ -1,7 +1,7 @@
 import {dirname, resolve} from 'node:path';
-import {displayPath} from '../display-path.js';
-import {problem, type Problem} from '../problems.js';
-import type {YamlSource} from '../yaml-source.js';
+import {displayPath} from '../shared/display-path.js';
+import {problem, type Problem} from '../shared/problems.js';
+import type {YamlSource} from '../shared/yaml-source.js';
 import {didYouMean} from './names.js';
 import {PlaceBook, type Place, type Provenance, type SeverityChange} from './provenance.js';
 import {resolvedRuleText, type ChainEntry} from './resolved-text.js';

@@ -2,7 +2,7 @@ import {isQuantity, isUnitName, mathConstants, mathFunctions} from '../quantitie
 import {evaluateExpression} from '../quantities/expression-evaluate.js';
 import {parseExpression} from '../quantities/expression-parser.js';
 import {FormulaSyntaxError, type ExpressionNode} from '../quantities/expression-syntax.js';
-import type {ProblemCode} from '../messages.js';
+import type {ProblemCode} from '../shared/messages.js';
 import {didYouMean, type NameTable} from './names.js';
 
 /** A problem with a formula, before the caller adds where the formula is; `name` is the text to point at. */

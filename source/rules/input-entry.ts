@@ -3,7 +3,7 @@ import {parseQuantity} from '../quantities/parse-quantity.js';
 import type {ConfirmationAnswer, InputAnswer} from './answers.js';
 import {dimensionWords} from './collect-names.js';
 import type {CompiledConfirmation, CompiledInput} from './compiled-rules.js';
-import type {ProblemCode} from '../messages.js';
+import type {ProblemCode} from '../shared/messages.js';
 
 /** Why an entry was refused: a message code and what fills it. */
 export type EntryProblem = {code: ProblemCode; data: Record<string, string | number>};

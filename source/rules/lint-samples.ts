@@ -3,7 +3,7 @@ import {asDeclared} from '../quantities/dimension-value.js';
 import {alignTemperatures, isTemperature} from '../quantities/temperature-kind.js';
 import {isQuantity} from '../quantities/engine.js';
 import {hasDimension} from '../quantities/parse-quantity.js';
-import {problem, type Problem} from '../problems.js';
+import {problem, type Problem} from '../shared/problems.js';
 import {CalculationInputError} from '../calculations/calculation.js';
 import type {CompiledRules} from './compiled-rules.js';
 import type {CompiledFormula} from './formula.js';

@@ -1,6 +1,6 @@
-import {problem, type Problem} from '../problems.js';
-import {failure, success, type Result} from '../result.js';
-import {parseYamlSource, readTextFile, type YamlSource} from '../yaml-source.js';
+import {problem, type Problem} from '../shared/problems.js';
+import {failure, success, type Result} from '../shared/result.js';
+import {parseYamlSource, readTextFile, type YamlSource} from '../shared/yaml-source.js';
 import type {Answers, ConfirmationAnswer, InputAnswer} from './answers.js';
 import type {CompiledRules} from './compiled-rules.js';
 import {parseConfirmationEntry, parseInputEntry} from './input-entry.js';

@@ -1,6 +1,6 @@
-import type {Problem} from '../problems.js';
-import {failure, type Result} from '../result.js';
-import {readTextFile, type YamlSource} from '../yaml-source.js';
+import type {Problem} from '../shared/problems.js';
+import {failure, type Result} from '../shared/result.js';
+import {readTextFile, type YamlSource} from '../shared/yaml-source.js';
 import {compileRules} from './compile.js';
 import type {CompiledRules} from './compiled-rules.js';
 import {extendsBase, mergedSource, resolveRules} from './extends.js';

@@ -1,4 +1,4 @@
-import type {YamlSource} from '../yaml-source.js';
+import type {YamlSource} from '../shared/yaml-source.js';
 
 /**
  * Where a name sits inside a formula field: the field's position, moved to the name's own

@@ -1,4 +1,4 @@
-import type {YamlSource} from '../yaml-source.js';
+import type {YamlSource} from '../shared/yaml-source.js';
 import type {RuleFile} from './schema.js';
 
 type Path = ReadonlyArray<string | number>;

@@ -1,10 +1,10 @@
-import {sha256Hex} from '../sha256.js';
+import {sha256Hex} from '../shared/sha256.js';
 import {existsSync} from 'node:fs';
 import {dirname, join, resolve} from 'node:path';
 import {fileURLToPath} from 'node:url';
-import type {Problem} from '../problems.js';
-import {success, type Result} from '../result.js';
-import {parseYamlSource, preparsedYamlSource, readTextFile, type YamlSource} from '../yaml-source.js';
+import type {Problem} from '../shared/problems.js';
+import {success, type Result} from '../shared/result.js';
+import {parseYamlSource, preparsedYamlSource, readTextFile, type YamlSource} from '../shared/yaml-source.js';
 import {shippedRulesData} from './shipped-rules.js';
 
 /** What the loader expects a rule file to be, for its messages. */

@@ -1,6 +1,6 @@
 import type {z} from 'zod';
-import {problem, type Problem} from '../problems.js';
-import type {YamlSource} from '../yaml-source.js';
+import {problem, type Problem} from '../shared/problems.js';
+import type {YamlSource} from '../shared/yaml-source.js';
 
 /** Turns zod issues into problems located in the YAML source. */
 export function schemaProblems(issues: readonly z.core.$ZodIssue[], source: YamlSource, reference = 'prelase rules schema'): Problem[] {

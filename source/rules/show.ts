@@ -1,4 +1,4 @@
-import {displayPath} from '../display-path.js';
+import {displayPath} from '../shared/display-path.js';
 import type {CompiledRules} from './compiled-rules.js';
 import type {SeverityChange} from './provenance.js';
 import {policyKindText, policyValueText, type Check, type Input} from './schema.js';

@@ -1,8 +1,8 @@
 import {Box, Text} from 'ink';
 import {useKeystrokes} from './use-keystrokes.js';
 import {useState} from 'react';
-import {deferral} from '../deferral.js';
-import {stripControl} from '../text.js';
+import {deferral} from '../shared/deferral.js';
+import {stripControl} from '../shared/text.js';
 import {outcomeStyle} from './verdict-style.js';
 
 /** After signing: where the record is, and saving the inputs as a named setup. */

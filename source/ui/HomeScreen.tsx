@@ -1,7 +1,7 @@
 import {Box, Text} from 'ink';
 import SelectInput from 'ink-select-input';
-import {deferral} from '../deferral.js';
-import {stripControl} from '../text.js';
+import {deferral} from '../shared/deferral.js';
+import {stripControl} from '../shared/text.js';
 
 /** What the home screen can lead to. */
 export type HomeChoice = {action: 'start'} | {action: 'resume'} | {action: 'setup'; name: string} | {action: 'audit'} | {action: 'planner'} | {action: 'rules'} | {action: 'settings'} | {action: 'quit'};

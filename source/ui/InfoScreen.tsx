@@ -1,6 +1,6 @@
 import {Box, Text} from 'ink';
 import {useKeystrokes} from './use-keystrokes.js';
-import {stripControl} from '../text.js';
+import {stripControl} from '../shared/text.js';
 
 /** A page of lines (rules in force, audit results, messages); Esc or Enter goes back. */
 export function InfoScreen({title, lines, onBack}: {title: string; lines: string[]; onBack(): void}) {

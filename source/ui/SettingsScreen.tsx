@@ -1,7 +1,7 @@
 import {Box, Text, type Key} from 'ink';
 import {useKeystrokes} from './use-keystrokes.js';
 import {useReducer, useRef} from 'react';
-import type {Settings} from '../settings.js';
+import type {Settings} from '../services/settings.js';
 import {typeInto} from './text-buffer.js';
 
 const fields: Array<{key: keyof Settings; label: string}> = [

@@ -1,9 +1,9 @@
 import {render} from 'ink';
 import {loadRules, shippedRulesPath} from '../rules/load.js';
-import {formatProblem} from '../problems.js';
-import {openSettings} from '../settings.js';
+import {formatProblem} from '../shared/problems.js';
+import {openSettings} from '../services/settings.js';
 import {App} from './App.js';
-import {plain} from '../paint.js';
+import {plain} from '../shared/paint.js';
 
 
 /** Options of the screens: where they start. */
@@ -24,9 +24,9 @@ export async function runScreens(options: ScreenOptions): Promise<number> {
 		(async (folder: string) => {
 			// The audit is loaded when asked for, not before the home screen's first frame.
 			const [{listRecordFiles}, {auditRecords}, {auditText}, {ownFingerprint, readTrusted}] = await Promise.all([
-				import('../records/audit-files.js'),
-				import('../records/audit.js'),
-				import('../records/audit-text.js'),
+				import('../audit/audit-files.js'),
+				import('../audit/audit.js'),
+				import('../render/audit-text.js'),
 				import('../records/key-store.js'),
 			]);
 			const {files} = listRecordFiles([folder]);

@@ -2,13 +2,13 @@ import {copyFileSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSyn
 import {tmpdir} from 'node:os';
 import {join, resolve} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
-import {main} from '../../source/cli.js';
-import {helpTexts} from '../../source/commands/help.js';
+import {main} from '../../source/cli/dispatch.js';
+import {helpTexts} from '../../source/cli/commands/help.js';
 import {operatorKey} from '../../source/records/key-store.js';
 import type {BenchRecord, RecordBody} from '../../source/records/record-schema.js';
 import {signRecord} from '../../source/records/sign-record.js';
 import {shippedRulesPath} from '../../source/rules/load.js';
-import {openSettings} from '../../source/settings.js';
+import {openSettings} from '../../source/services/settings.js';
 import {fakeIo, fakeStream} from '../helpers/fake-io.js';
 
 const clearDemo = resolve('docs/examples/bench3-808nm-clear.yaml');

@@ -1,5 +1,5 @@
 import {describe, expect, it} from 'vitest';
-import {main} from '../../source/cli.js';
+import {main} from '../../source/cli/dispatch.js';
 import {calculations} from '../../source/calculations/registry.js';
 import {fakeIo} from '../helpers/fake-io.js';
 

@@ -2,8 +2,8 @@ import {copyFileSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSyn
 import {tmpdir} from 'node:os';
 import {join, resolve} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
-import {main} from '../../source/cli.js';
-import {localDay} from '../../source/interlock/load-results.js';
+import {main} from '../../source/cli/dispatch.js';
+import {localDay} from '../../source/interlock/functional-test/load-results.js';
 import {operatorKey} from '../../source/records/key-store.js';
 import type {BenchRecord} from '../../source/records/record-schema.js';
 import {signRecord} from '../../source/records/sign-record.js';

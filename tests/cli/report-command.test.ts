@@ -2,8 +2,8 @@ import {existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSyn
 import {tmpdir} from 'node:os';
 import {join, resolve} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
-import {main} from '../../source/cli.js';
-import {helpTexts} from '../../source/commands/help.js';
+import {main} from '../../source/cli/dispatch.js';
+import {helpTexts} from '../../source/cli/commands/help.js';
 import {fakeIo} from '../helpers/fake-io.js';
 
 const failDemo = resolve('docs/examples/bench6-chilled-mount-cold-power-fail.yaml');

@@ -2,7 +2,7 @@ import {mkdirSync, mkdtempSync, statSync, writeFileSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {dirname, join} from 'node:path';
 import {describe, expect, it} from 'vitest';
-import {loadPlanDraft, planDraftPath, removePlanDraft, savePlanDraft} from '../../source/drafts/plan-draft-store.js';
+import {loadPlanDraft, planDraftPath, removePlanDraft, savePlanDraft} from '../../source/services/drafts/plan-draft-store.js';
 
 const plan = '/lab/bench3/plan.yaml';
 const base = 'format: 1\nname: bench 3\n';

@@ -2,8 +2,8 @@ import {existsSync, mkdirSync, mkdtempSync, readFileSync, statSync, writeFileSyn
 import {tmpdir} from 'node:os';
 import {dirname, join} from 'node:path';
 import {describe, expect, it} from 'vitest';
-import {loadTestDraft, removeTestDraft, saveTestDraft, setTestDraftAside, testDraftPath, type TestDraftPeople, type TestDraftStep} from '../../source/drafts/test-draft-store.js';
-import {sha256Hex} from '../../source/sha256.js';
+import {loadTestDraft, removeTestDraft, saveTestDraft, setTestDraftAside, testDraftPath, type TestDraftPeople, type TestDraftStep} from '../../source/services/drafts/test-draft-store.js';
+import {sha256Hex} from '../../source/shared/sha256.js';
 
 const plan = '/lab/bench3/plan.yaml';
 const planText = 'format: 1\nname: Fenwick Hollow bench 3\n';

@@ -4,8 +4,8 @@ import {tmpdir} from 'node:os';
 import {join, resolve} from 'node:path';
 import {afterEach, beforeAll, describe, expect, it} from 'vitest';
 import {parse} from 'yaml';
-import {loadDraft} from '../../source/drafts/draft-store.js';
-import {openSettings} from '../../source/settings.js';
+import {loadDraft} from '../../source/services/drafts/draft-store.js';
+import {openSettings} from '../../source/services/settings.js';
 import {haveTmux, TmuxSession} from './tmux-driver.js';
 
 type RuleFile = {steps: Array<{inputs?: Array<{id: string; label: string; kind?: string; options?: Record<string, string>}>; confirmations?: Array<{id: string; statement: string}>}>};

@@ -1,4 +1,4 @@
-import type {Io} from '../../source/commands/check.js';
+import type {Io} from '../../source/cli/commands/check.js';
 
 /** A write stream that keeps what was written, for asserting on a command's output. */
 export type FakeStream = NodeJS.WriteStream & {

@@ -1,6 +1,6 @@
 import {mkdirSync, writeFileSync} from 'node:fs';
 import {join} from 'node:path';
-import {main} from '../../source/cli.js';
+import {main} from '../../source/cli/dispatch.js';
 import {fakeIo} from './fake-io.js';
 
 /** What a command said and its exit status. */

@@ -5,12 +5,12 @@ import {stripVTControlCharacters} from 'node:util';
 import {render} from 'ink-testing-library';
 import {createElement, type ReactElement} from 'react';
 import {parse} from 'yaml';
-import {saveDraft} from '../../source/drafts/draft-store.js';
+import {saveDraft} from '../../source/services/drafts/draft-store.js';
 import type {CompiledRules} from '../../source/rules/compiled-rules.js';
 import {loadRules, shippedRulesPath} from '../../source/rules/load.js';
-import {openSettings, type Settings, type SettingsStore} from '../../source/settings.js';
+import {openSettings, type Settings, type SettingsStore} from '../../source/services/settings.js';
 import {App, type AppProps} from '../../source/ui/App.js';
-import type {Prefill} from '../../source/ui/session.js';
+import type {Prefill} from '../../source/ui/bench-check/session.js';
 
 /** The keys a test presses, as a terminal sends them. */
 export const keys = {

@@ -1,7 +1,7 @@
 import {readFileSync} from 'node:fs';
 import {describe, expect, it} from 'vitest';
-import {loadPlanFromText} from '../../source/interlock/load-plan.js';
-import {describeProblem} from '../../source/problems.js';
+import {loadPlanFromText} from '../../source/interlock/plan/load-plan.js';
+import {describeProblem} from '../../source/shared/problems.js';
 
 const demo = readFileSync('docs/examples/interlock/bench3-interlock-plan.yaml', 'utf8');
 

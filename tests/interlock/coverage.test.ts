@@ -1,5 +1,5 @@
 import {describe, expect, it} from 'vitest';
-import {coverageFindings} from '../../source/interlock/coverage.js';
+import {coverageFindings} from '../../source/interlock/analysis/coverage.js';
 import {doorSwitch, makePlan} from './plan-fixture.js';
 
 const point = (changes: Record<string, unknown>) => ({id: 'hatch', description: 'a hatch', beam_reachable: true, secured_by: 'interlock', device: 'door_switch', ...changes});

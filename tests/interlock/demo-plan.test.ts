@@ -1,8 +1,8 @@
 import {describe, expect, it} from 'vitest';
-import {deferral} from '../../source/deferral.js';
-import {analysePlan, planVerdict} from '../../source/interlock/analyse.js';
-import {testSheet} from '../../source/interlock/test-sheet.js';
-import {testSheetMarkdown} from '../../source/interlock/test-sheet-markdown.js';
+import {deferral} from '../../source/shared/deferral.js';
+import {analysePlan, planVerdict} from '../../source/interlock/analysis/analyse.js';
+import {testSheet} from '../../source/interlock/functional-test/test-sheet.js';
+import {testSheetMarkdown} from '../../source/render/test-sheet-markdown.js';
 
 import {loadPlanUnderShippedPolicy as demo} from './plan-fixture.js';
 

@@ -1,8 +1,8 @@
 import {describe, expect, it} from 'vitest';
-import {analysePlan} from '../../source/interlock/analyse.js';
-import {deviceFailSafeFindings, failSafeFindings} from '../../source/interlock/fail-safe.js';
-import {deviceKinds} from '../../source/interlock/plan-schema.js';
-import {deviceSchema} from '../../source/interlock/plan-schema.js';
+import {analysePlan} from '../../source/interlock/analysis/analyse.js';
+import {deviceFailSafeFindings, failSafeFindings} from '../../source/interlock/analysis/fail-safe.js';
+import {deviceKinds} from '../../source/interlock/plan/plan-schema.js';
+import {deviceSchema} from '../../source/interlock/plan/plan-schema.js';
 import {doorSwitch, makePlan} from './plan-fixture.js';
 
 const complete = {owner: 'bench owner', reason: 'alignment', time_limit: '1 h'};

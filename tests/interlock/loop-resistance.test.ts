@@ -1,6 +1,6 @@
 import {describe, expect, it} from 'vitest';
-import {analysePlan} from '../../source/interlock/analyse.js';
-import {loopCurrent, loopResistance, wireRunResistance} from '../../source/interlock/loop-resistance.js';
+import {analysePlan} from '../../source/interlock/analysis/analyse.js';
+import {loopCurrent, loopResistance, wireRunResistance} from '../../source/interlock/analysis/loop-resistance.js';
 import {doorSwitch, makePlan} from './plan-fixture.js';
 
 const at75 = 348.15;

@@ -2,7 +2,7 @@ import {mkdtempSync, readFileSync, writeFileSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {join} from 'node:path';
 import {describe, expect, it} from 'vitest';
-import {main} from '../../source/cli.js';
+import {main} from '../../source/cli/dispatch.js';
 import {fakeIo} from '../helpers/fake-io.js';
 
 const demoFile = 'docs/examples/interlock/bench3-interlock-plan.yaml';

@@ -2,9 +2,9 @@ import {copyFileSync, mkdtempSync, readdirSync, readFileSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {join} from 'node:path';
 import {describe, expect, it} from 'vitest';
-import {loadPlan} from '../../source/interlock/load-plan.js';
-import {addItem, moveDevice, openPlanForEditing, planEditingText, removeItem, setItemField, type EditResult, type PlanEditing} from '../../source/interlock/plan-edit.js';
-import {savePlanEditing} from '../../source/interlock/save-plan.js';
+import {loadPlan} from '../../source/interlock/plan/load-plan.js';
+import {addItem, moveDevice, openPlanForEditing, planEditingText, removeItem, setItemField, type EditResult, type PlanEditing} from '../../source/interlock/plan/plan-edit.js';
+import {savePlanEditing} from '../../source/interlock/plan/save-plan.js';
 import {loadRules, shippedRulesPath} from '../../source/rules/load.js';
 import {demoPlanFile} from './plan-fixture.js';
 

@@ -1,6 +1,6 @@
-import {planSchema, type Plan} from '../../source/interlock/plan-schema.js';
-import {loadPlan} from '../../source/interlock/load-plan.js';
-import {interlockPolicy, type InterlockPolicy} from '../../source/interlock/policy.js';
+import {planSchema, type Plan} from '../../source/interlock/plan/plan-schema.js';
+import {loadPlan} from '../../source/interlock/plan/load-plan.js';
+import {interlockPolicy, type InterlockPolicy} from '../../source/interlock/plan/policy.js';
 import {loadRules, shippedRulesPath} from '../../source/rules/load.js';
 
 /** The demo plan of the invented Fenwick Hollow lab. */

@@ -1,8 +1,8 @@
 import {readFileSync} from 'node:fs';
 import fc from 'fast-check';
 import {describe, expect, it} from 'vitest';
-import {analysePlan} from '../../source/interlock/analyse.js';
-import {loadPlanFromText} from '../../source/interlock/load-plan.js';
+import {analysePlan} from '../../source/interlock/analysis/analyse.js';
+import {loadPlanFromText} from '../../source/interlock/plan/load-plan.js';
 import {testPolicy} from './plan-fixture.js';
 
 const demo = readFileSync('docs/examples/interlock/bench3-interlock-plan.yaml', 'utf8');

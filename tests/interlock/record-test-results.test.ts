@@ -2,12 +2,12 @@ import {mkdtempSync, readdirSync, readFileSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {join} from 'node:path';
 import {describe, expect, it} from 'vitest';
-import {recordTestResults} from '../../source/commands/plan-record.js';
-import type {TestResults} from '../../source/interlock/results-schema.js';
-import {sha256Hex} from '../../source/sha256.js';
+import {recordTestResults} from '../../source/services/record-functional-test.js';
+import type {TestResults} from '../../source/interlock/functional-test/results-schema.js';
+import {sha256Hex} from '../../source/shared/sha256.js';
 import {readRecord} from '../../source/records/read-record.js';
 import type {InterlockTestRecord} from '../../source/records/record-schema.js';
-import {UsageError} from '../../source/usage-error.js';
+import {UsageError} from '../../source/cli/usage-error.js';
 import {shippedRules} from '../helpers/screen-driver.js';
 import {demoPlanFile, loadPlanUnderShippedPolicy} from './plan-fixture.js';
 

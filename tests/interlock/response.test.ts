@@ -1,6 +1,6 @@
 import {describe, expect, it} from 'vitest';
-import {analysePlan} from '../../source/interlock/analyse.js';
-import {responseFindings, responses} from '../../source/interlock/response.js';
+import {analysePlan} from '../../source/interlock/analysis/analyse.js';
+import {responseFindings, responses} from '../../source/interlock/analysis/response.js';
 import {doorSwitch, makePlan} from './plan-fixture.js';
 
 describe('response budget', () => {

@@ -1,8 +1,8 @@
 import {readFileSync} from 'node:fs';
 import fc from 'fast-check';
 import {describe, expect, it} from 'vitest';
-import {loadResults, loadResultsFromText, resultsAgainstSheet} from '../../source/interlock/load-results.js';
-import {testSheet} from '../../source/interlock/test-sheet.js';
+import {loadResults, loadResultsFromText, resultsAgainstSheet} from '../../source/interlock/functional-test/load-results.js';
+import {testSheet} from '../../source/interlock/functional-test/test-sheet.js';
 import {loadPlanUnderShippedPolicy} from './plan-fixture.js';
 
 const resultsFile = 'docs/examples/interlock/bench3-interlock-test-results.yaml';

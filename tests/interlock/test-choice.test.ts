@@ -1,5 +1,5 @@
 import {describe, expect, it} from 'vitest';
-import {compareTests, futureAllowanceMs, futureDated, instantOf, latestTest, normaliseLocation} from '../../source/interlock/test-choice.js';
+import {compareTests, futureAllowanceMs, futureDated, instantOf, latestTest, normaliseLocation} from '../../source/interlock/functional-test/test-choice.js';
 import type {InterlockTestBody} from '../../source/records/record-schema.js';
 
 describe('instantOf: the absolute instant of a date-time with its UTC offset (ISO 8601 / RFC 3339)', () => {

@@ -2,11 +2,11 @@ import {copyFileSync, mkdtempSync, readFileSync, rmSync, writeFileSync} from 'no
 import {tmpdir} from 'node:os';
 import {join} from 'node:path';
 import {afterEach, beforeEach, describe, expect, it} from 'vitest';
-import {analysePlan} from '../../source/interlock/analyse.js';
-import {loadResults} from '../../source/interlock/load-results.js';
-import {addDays, answerFromInterlockTest, interlockLink, type LinkContext} from '../../source/interlock/test-link.js';
-import {buildTestBody, testOutcome} from '../../source/interlock/test-record.js';
-import {testSheet} from '../../source/interlock/test-sheet.js';
+import {analysePlan} from '../../source/interlock/analysis/analyse.js';
+import {loadResults} from '../../source/interlock/functional-test/load-results.js';
+import {addDays, answerFromInterlockTest, interlockLink, type LinkContext} from '../../source/interlock/functional-test/test-link.js';
+import {buildTestBody, testOutcome} from '../../source/interlock/functional-test/test-record.js';
+import {testSheet} from '../../source/interlock/functional-test/test-sheet.js';
 import {fingerprint, generateKeyPair, rawPublicKey} from '../../source/records/keys.js';
 import type {InterlockTestBody} from '../../source/records/record-schema.js';
 import {signRecord} from '../../source/records/sign-record.js';

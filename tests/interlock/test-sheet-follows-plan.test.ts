@@ -1,5 +1,5 @@
 import {describe, expect, it} from 'vitest';
-import {testSheet} from '../../source/interlock/test-sheet.js';
+import {testSheet} from '../../source/interlock/functional-test/test-sheet.js';
 import {doorSwitch, makePlan} from './plan-fixture.js';
 
 /** A plan's input with `latches` set, the rest as the fixture has it. */

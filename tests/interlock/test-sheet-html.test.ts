@@ -1,7 +1,7 @@
 import {describe, expect, it} from 'vitest';
-import {deferral} from '../../source/deferral.js';
-import {testSheet} from '../../source/interlock/test-sheet.js';
-import {testSheetHtml} from '../../source/interlock/test-sheet-html.js';
+import {deferral} from '../../source/shared/deferral.js';
+import {testSheet} from '../../source/interlock/functional-test/test-sheet.js';
+import {testSheetHtml} from '../../source/render/test-sheet-html.js';
 import {loadPlanUnderShippedPolicy as demo, doorSwitch, makePlan} from './plan-fixture.js';
 
 /** The cells of each row in the table body, as written in the page. */

@@ -2,14 +2,14 @@ import {readFileSync} from 'node:fs';
 import {resolve} from 'node:path';
 import fc from 'fast-check';
 import {beforeAll, describe, expect, it} from 'vitest';
-import {messages} from '../../source/messages.js';
-import type {Problem} from '../../source/problems.js';
+import {messages} from '../../source/shared/messages.js';
+import type {Problem} from '../../source/shared/problems.js';
 import type {Dimension} from '../../source/quantities/dimensions.js';
 import {parseQuantity} from '../../source/quantities/parse-quantity.js';
 import type {CompiledRules} from '../../source/rules/compiled-rules.js';
 import {loadAnswersFromText} from '../../source/rules/load-answers.js';
 import {loadRules, loadRulesFromText} from '../../source/rules/load.js';
-import type {Result} from '../../source/result.js';
+import type {Result} from '../../source/shared/result.js';
 
 const rulesText = readFileSync(resolve('rules/default.yaml'), 'utf8');
 const answersText = readFileSync(resolve('docs/examples/bench3-808nm-clear.yaml'), 'utf8');

@@ -3,7 +3,7 @@ import {tmpdir} from 'node:os';
 import {join} from 'node:path';
 import {afterAll, describe, expect, it} from 'vitest';
 import {stringify} from 'yaml';
-import {main} from '../../source/cli.js';
+import {main} from '../../source/cli/dispatch.js';
 import {fakeIo} from '../helpers/fake-io.js';
 import {findCalculation} from '../../source/calculations/registry.js';
 import {runCalculation} from '../../source/calculations/run-calculation.js';

@@ -2,7 +2,7 @@ import {mkdtempSync, readFileSync, readdirSync, rmSync, writeFileSync} from 'nod
 import {tmpdir} from 'node:os';
 import {join} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
-import {main} from '../../source/cli.js';
+import {main} from '../../source/cli/dispatch.js';
 import {readRecord} from '../../source/records/read-record.js';
 import type {BenchRecord} from '../../source/records/record-schema.js';
 import {writeRecord} from '../../source/records/store.js';

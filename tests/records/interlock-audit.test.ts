@@ -3,7 +3,7 @@ import {mkdtempSync, readFileSync, rmSync, writeFileSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {join} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
-import type {AuditReport} from '../../source/records/audit.js';
+import type {AuditReport} from '../../source/audit/audit.js';
 import {operatorKey} from '../../source/records/key-store.js';
 import {generateKeyPair} from '../../source/records/keys.js';
 import type {InterlockTestBody, InterlockTestRecord} from '../../source/records/record-schema.js';

@@ -1,12 +1,12 @@
 import {describe, expect, it} from 'vitest';
-import {deferral} from '../../source/deferral.js';
-import {buildRecordBody} from '../../source/records/build-body.js';
+import {deferral} from '../../source/shared/deferral.js';
+import {buildRecordBody} from '../../source/services/build-body.js';
 import {checkRecordText} from '../../source/records/read-record.js';
 import {fingerprint, generateKeyPair, rawPublicKey, shortFingerprint} from '../../source/records/keys.js';
 import type {BenchRecord, RecordBody} from '../../source/records/record-schema.js';
-import {htmlText, reportHtml} from '../../source/records/report-html.js';
-import {markdownText, reportMarkdown} from '../../source/records/report-markdown.js';
-import type {SignatureStatus, TrustInfo} from '../../source/records/report-model.js';
+import {htmlText, reportHtml} from '../../source/render/report-html.js';
+import {markdownText, reportMarkdown} from '../../source/render/report-markdown.js';
+import type {SignatureStatus, TrustInfo} from '../../source/render/report-model.js';
 import {signRecord} from '../../source/records/sign-record.js';
 import {evaluate} from '../../source/rules/evaluate.js';
 import {loadAnswers} from '../../source/rules/load-answers.js';

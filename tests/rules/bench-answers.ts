@@ -7,8 +7,8 @@ import {evaluate} from '../../source/rules/evaluate.js';
 import type {CheckResult, Evaluation} from '../../source/rules/evaluation.js';
 import {loadAnswersFromText} from '../../source/rules/load-answers.js';
 import {loadRules, shippedRulesPath} from '../../source/rules/load.js';
-import type {Problem} from '../../source/problems.js';
-import type {Result} from '../../source/result.js';
+import type {Problem} from '../../source/shared/problems.js';
+import type {Result} from '../../source/shared/result.js';
 import type {Answers} from '../../source/rules/answers.js';
 
 /** An answers file as plain data, before it is read against the rules. */

@@ -1,7 +1,7 @@
 import {readFileSync} from 'node:fs';
 import {resolve} from 'node:path';
 import {describe, expect, it} from 'vitest';
-import {main} from '../../source/cli.js';
+import {main} from '../../source/cli/dispatch.js';
 import {loadRulesFromText} from '../../source/rules/load.js';
 import {fakeIo} from '../helpers/fake-io.js';
 import {evaluateDocument, readDemo, shippedRules} from './bench-answers.js';

@@ -2,7 +2,7 @@ import {mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync} from 'node:
 import {tmpdir} from 'node:os';
 import {join} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
-import {displayPath} from '../../source/display-path.js';
+import {displayPath} from '../../source/shared/display-path.js';
 import type {CompiledRules} from '../../source/rules/compiled-rules.js';
 import {loadRules, loadRulesFromText, shippedRulesPath} from '../../source/rules/load.js';
 

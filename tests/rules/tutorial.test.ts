@@ -2,7 +2,7 @@ import {cpSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync} fro
 import {tmpdir} from 'node:os';
 import {join, resolve} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
-import {main} from '../../source/cli.js';
+import {main} from '../../source/cli/dispatch.js';
 import {fakeIo} from '../helpers/fake-io.js';
 
 /** One fenced block of the tutorial, in page order. */

@@ -1,7 +1,7 @@
 import {cleanup, render} from 'ink-testing-library';
 import {afterEach, describe, expect, it} from 'vitest';
 import type {CheckResult} from '../../source/rules/evaluation.js';
-import {ChecksPanel} from '../../source/ui/ChecksPanel.js';
+import {ChecksPanel} from '../../source/ui/bench-check/ChecksPanel.js';
 
 afterEach(() => cleanup());
 

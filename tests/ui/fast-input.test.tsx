@@ -4,7 +4,7 @@ import {join} from 'node:path';
 import {render, cleanup} from 'ink-testing-library';
 import {afterEach, expect, it} from 'vitest';
 import {loadRules, shippedRulesPath} from '../../source/rules/load.js';
-import {openSettings} from '../../source/settings.js';
+import {openSettings} from '../../source/services/settings.js';
 import {App} from '../../source/ui/App.js';
 
 afterEach(() => cleanup());

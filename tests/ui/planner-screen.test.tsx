@@ -4,8 +4,8 @@ import {tmpdir} from 'node:os';
 import {join, resolve} from 'node:path';
 import {cleanup} from 'ink-testing-library';
 import {afterEach, describe, expect, it} from 'vitest';
-import {loadPlan} from '../../source/interlock/load-plan.js';
-import {openSettings} from '../../source/settings.js';
+import {loadPlan} from '../../source/interlock/plan/load-plan.js';
+import {openSettings} from '../../source/services/settings.js';
 import {keys, renderApp, type AppScreen} from '../helpers/screen-driver.js';
 import {demoPlanFile} from '../interlock/plan-fixture.js';
 

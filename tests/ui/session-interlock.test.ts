@@ -2,9 +2,9 @@ import {copyFileSync, mkdtempSync, rmSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {join} from 'node:path';
 import {afterEach, beforeEach, describe, expect, it} from 'vitest';
-import {cachedLinker, type LinkContext} from '../../source/interlock/test-link.js';
+import {cachedLinker, type LinkContext} from '../../source/interlock/functional-test/test-link.js';
 import {loadRules, shippedRulesPath} from '../../source/rules/load.js';
-import {answerConfirmation, enterInput, startSession, type Session} from '../../source/ui/session.js';
+import {answerConfirmation, enterInput, startSession, type Session} from '../../source/ui/bench-check/session.js';
 import {demoPlanFile} from '../interlock/plan-fixture.js';
 
 const loaded = loadRules(shippedRulesPath());

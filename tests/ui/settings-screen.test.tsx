@@ -1,6 +1,6 @@
 import {cleanup} from 'ink-testing-library';
 import {afterEach, describe, expect, it} from 'vitest';
-import {openSettings} from '../../source/settings.js';
+import {openSettings} from '../../source/services/settings.js';
 import {keys, renderApp} from '../helpers/screen-driver.js';
 
 afterEach(() => cleanup());

@@ -3,11 +3,11 @@ import {tmpdir} from 'node:os';
 import {join} from 'node:path';
 import {cleanup} from 'ink-testing-library';
 import {afterEach, describe, expect, it} from 'vitest';
-import {draftPath} from '../../source/drafts/draft-store.js';
-import {listSetups} from '../../source/drafts/setup-store.js';
+import {draftPath} from '../../source/services/drafts/draft-store.js';
+import {listSetups} from '../../source/services/drafts/setup-store.js';
 import {readRecord} from '../../source/records/read-record.js';
-import type {Settings} from '../../source/settings.js';
-import type {Prefill} from '../../source/ui/session.js';
+import type {Settings} from '../../source/services/settings.js';
+import type {Prefill} from '../../source/ui/bench-check/session.js';
 import {clearDemo, keys, prefillFromAnswers, renderApp, type AppScreen} from '../helpers/screen-driver.js';
 
 afterEach(() => cleanup());

@@ -1,6 +1,6 @@
 import {cleanup} from 'ink-testing-library';
 import {afterEach, describe, expect, it} from 'vitest';
-import {loadDraft} from '../../source/drafts/draft-store.js';
+import {loadDraft} from '../../source/services/drafts/draft-store.js';
 import {focusOn, keys, renderApp, type AppScreen} from '../helpers/screen-driver.js';
 
 afterEach(() => cleanup());

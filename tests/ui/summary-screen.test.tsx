@@ -1,6 +1,6 @@
 import {cleanup} from 'ink-testing-library';
 import {afterEach, describe, expect, it} from 'vitest';
-import type {Prefill} from '../../source/ui/session.js';
+import type {Prefill} from '../../source/ui/bench-check/session.js';
 import {clearDemo, keys, prefillFromAnswers, renderApp, type AppScreen} from '../helpers/screen-driver.js';
 
 afterEach(() => cleanup());

@@ -1,0 +1,53 @@
+import {compareTests, instantOf, normaliseLocation} from '../interlock/functional-test/test-choice.js';
+import {describeFinding, finding, type Finding} from './audit-findings.js';
+import type {InterlockTestSummary} from './audit-interlock.js';
+import type {RecordSummary} from './audit.js';
+
+/** What linkInterlockTests reads and adds to of each record's audit. */
+type Audited = {file: string; authentic: boolean; bodySha256: string | null; record: RecordSummary | null; interlockTest: InterlockTestSummary | null; notChecked: Array<{item: string; text: string}>; findings: Finding[]};
+
+const testWords = (testedOn: string, outcome: string) => `tested ${testedOn}, ${outcome}`;
+const sameLocation = (a: string | null | undefined, b: string | null | undefined) => (a ?? undefined) === undefined ? (b ?? undefined) === undefined : (b ?? undefined) !== undefined && normaliseLocation(a!) === normaliseLocation(b!);
+
+/**
+ * A bench check that answered its interlock confirmations from a test record names it by body
+ * hash. When that record is among the authentic records audited: it must say what the check
+ * used (test day and outcome), be of the check's location, and be the latest test of its plan
+ * and location recorded before the check (by the absolute instant). When it is not among them,
+ * the audit says so (not a finding). `benchLocations` gives the location input of each bench
+ * record by its index in `audits`.
+ */
+export function linkInterlockTests(audits: Audited[], benchLocations: ReadonlyMap<number, string | undefined>): void {
+	const authenticTests = audits.filter((audit) => audit.authentic && audit.interlockTest && audit.bodySha256);
+	const tests = new Map(authenticTests.map((audit) => [audit.bodySha256!, audit]));
+	audits.forEach((audit, index) => {
+		if (!audit.authentic || !audit.record) return;
+		const used = audit.record.interlockTest?.record;
+		if (!audit.record.interlockTest) {
+			audit.notChecked.push({item: 'interlock-test', text: describeFinding({code: 'audit-not-checked-interlock', data: {}})});
+			return;
+		}
+		// The check named a plan but found no usable test: its confirmations say no, and the consistency check covers that.
+		if (!used) return;
+		const data = {file: used.file, bodySha256: used.bodySha256, recorded: testWords(used.testedOn, used.outcome)};
+		const found = tests.get(used.bodySha256);
+		if (!found) {
+			audit.notChecked.push({item: 'interlock-test', text: describeFinding({code: 'audit-not-checked-interlock-record', data})});
+			return;
+		}
+		const test = found.interlockTest!;
+		if (test.testedOn !== used.testedOn || test.outcome !== used.outcome) audit.findings.push(finding('consistency', 'audit-interlock-record-mismatch', {...data, actual: testWords(test.testedOn, test.outcome)}));
+		const bench = benchLocations.get(index);
+		if (test.location !== null && !sameLocation(bench, test.location)) audit.findings.push(finding('consistency', 'audit-interlock-bench-location', {bench: bench ?? '(none)', file: used.file, test: test.location ?? '(none)'}));
+		const checkedAt = instantOf(audit.record.createdAt);
+		const later = authenticTests
+			.map((entry) => entry.interlockTest!)
+			.filter((other) => other !== test && other.plan.sha256 === test.plan.sha256 && sameLocation(other.location, test.location) && instantOf(other.createdAt) <= checkedAt && compareTests(other, test) > 0)
+			.sort(compareTests)
+			.at(-1);
+		if (later) {
+			const file = authenticTests.find((entry) => entry.interlockTest === later)!.file;
+			audit.findings.push(finding('consistency', 'audit-interlock-not-latest', {file: used.file, used: testWords(test.testedOn, test.outcome), later: file, laterWords: `${testWords(later.testedOn, later.outcome)}, recorded ${later.createdAt}`}));
+		}
+	});
+}

@@ -1,0 +1,42 @@
+// Named imports (not the z namespace) let the bundler drop the parts of zod prelase does not use.
+import {array, literal, number, object, string, enum as oneOf} from 'zod';
+import type {z} from 'zod';
+import {quantityOf} from '../plan/plan-schema.js';
+
+const words = string().trim().min(1, 'this text cannot be empty');
+const person = object({name: words, role: string().trim().default('')}).strict();
+
+const dayPattern = /^\d{4}-\d{2}-\d{2}$/;
+
+/** A calendar date as written on a test sheet. */
+const isoDate = string().regex(dayPattern, 'write the date as YYYY-MM-DD, e.g. 2026-11-30').refine((text) => {
+	// Text not written YYYY-MM-DD already has its problem; one mistake, one message.
+	if (!dayPattern.test(text)) return true;
+	const date = new Date(`${text}T00:00:00Z`);
+	return !Number.isNaN(date.getTime()) && date.toISOString().startsWith(text);
+}, 'not a calendar date');
+
+/** One step of a filled-in test sheet. */
+export const stepResultSchema = object({
+		step: number().int().positive().describe('The step number on the test sheet'),
+		concerns: words.describe('What the step concerns, as on the sheet (a device id, "emergency stop", ...): guards against results for another sheet'),
+		result: oneOf(['pass', 'fail', 'not_applicable']),
+		stopped_in: quantityOf('time').optional().describe('Measured time until emission stopped'),
+		note: words.optional(),
+	})
+	.strict();
+
+/** The results of one functional test of an interlock loop, as the tester wrote them down. */
+export const testResultsSchema = object({
+		format: literal(1),
+		tested_on: isoDate.describe('The day of the test, YYYY-MM-DD'),
+		tested_by: person,
+		witness: person.optional(),
+		steps: array(stepResultSchema).min(1, 'the results need the steps of the test sheet'),
+	})
+	.strict();
+
+/** Validated test results, every quantity in SI. */
+export type TestResults = z.output<typeof testResultsSchema>;
+/** One validated step result. */
+export type StepResult = TestResults['steps'][number];

@@ -1,0 +1,142 @@
+import {isMap, isSeq, type Document} from 'yaml';
+import {describeProblem, type Problem} from '../../shared/problems.js';
+import {failure, success, type Result} from '../../shared/result.js';
+import type {CompiledRules} from '../../rules/compiled-rules.js';
+import {readTextFile} from '../../shared/yaml-source.js';
+import {analysePlan, type PlanAnalysis} from '../analysis/analyse.js';
+import {loadPlanFromText, planFileExpected} from './load-plan.js';
+import type {Plan} from './plan-schema.js';
+import {planDocument, planDocumentText} from './plan-yaml.js';
+import {interlockPolicy, type InterlockPolicy} from './policy.js';
+
+/** The two lists of a plan that the planner edits item by item. */
+export type PlanList = 'access_points' | 'devices';
+
+/**
+ * A plan open for editing: its YAML document (comments and key order kept), the plan it
+ * validates to under the policy in force, and the analysis of that plan. Never invalid: an
+ * edit that the plan schema refuses is not applied.
+ */
+export type PlanEditing = {
+	file: string;
+	/** The text as read or last saved; unchanged lines keep their layout from it. */
+	original: string;
+	document: Document;
+	policy: InterlockPolicy;
+	plan: Plan;
+	analysis: PlanAnalysis;
+	/** True when there are edits not yet saved. */
+	dirty: boolean;
+};
+
+/** An edit applied, or refused with the message to show beside the field. */
+export type EditResult = {ok: true; editing: PlanEditing} | {ok: false; message: string; field?: string};
+
+/** Opens a plan file for editing under the interlock policy of the rule file in force. */
+export function openPlanForEditing(file: string, rules: CompiledRules): Result<PlanEditing, Problem> {
+	const policy = interlockPolicy(rules);
+	if (!policy.ok) return policy;
+	const text = readTextFile(file, planFileExpected);
+	if (!text.ok) return text;
+	return planEditingFromText(text.value, file, policy.value);
+}
+
+/** The same, for text already in hand (and after a save). */
+export function planEditingFromText(text: string, file: string, policy: InterlockPolicy): Result<PlanEditing, Problem> {
+	const loaded = loadPlanFromText(text, file);
+	if (!loaded.ok) return loaded;
+	const plan = {...loaded.value, policy};
+	return success({file, original: text, document: planDocument(text), policy, plan, analysis: analysePlan(plan), dirty: false}, loaded.warnings);
+}
+
+/** The text the plan would be saved as. */
+export function planEditingText(editing: PlanEditing): string {
+	return planDocumentText(editing.document, editing.original);
+}
+
+/**
+ * Applies a change to a copy of the document and validates the whole plan again, exactly as
+ * loading the file would. `field` (a dotted path) picks the problem to report when refused.
+ */
+function attempt(editing: PlanEditing, change: (document: Document) => void, field?: string): EditResult {
+	const document = editing.document.clone();
+	change(document);
+	const loaded = loadPlanFromText(planDocumentText(document, editing.original), editing.file);
+	if (!loaded.ok) return refusal(loaded.errors, field);
+	const plan = {...loaded.value, policy: editing.policy};
+	return {ok: true, editing: {...editing, document, plan, analysis: analysePlan(plan), dirty: true}};
+}
+
+function related(problemField: string | undefined, field: string): boolean {
+	if (problemField === undefined) return false;
+	return problemField === field || field.startsWith(`${problemField}.`) || problemField.startsWith(`${field}.`);
+}
+
+function refusal(problems: Problem[], field: string | undefined): EditResult {
+	const found = (field === undefined ? undefined : problems.find((entry) => related(entry.field, field))) ?? problems[0]!;
+	const message = found.field === undefined || found.field === field ? describeProblem(found) : `${found.field}: ${describeProblem(found)}`;
+	return {ok: false, message, ...(found.field === undefined ? {} : {field: found.field})};
+}
+
+/** Sets (or, with undefined, removes) one field of an item; a nested map left empty is removed too. */
+export function setItemField(editing: PlanEditing, list: PlanList, index: number, path: readonly string[], value: unknown): EditResult {
+	const at = [list, index, ...path];
+	return attempt(
+		editing,
+		(document) => {
+			if (value !== undefined) return document.setIn(at, value);
+			document.deleteIn(at);
+			const parent = at.slice(0, -1);
+			const left = path.length > 1 ? document.getIn(parent) : undefined;
+			if (isMap(left) && left.items.length === 0) document.deleteIn(parent);
+		},
+		at.join('.'),
+	);
+}
+
+/** Adds an item at the end of its list (a device: at the end of the wiring order). Wire runs are written as flow maps. */
+export function addItem(editing: PlanEditing, list: PlanList, values: Record<string, unknown>): EditResult {
+	const index = list === 'devices' ? editing.plan.devices.length : editing.plan.access_points.length;
+	return attempt(editing, (document) => {
+		const node = document.createNode(values);
+		for (const pair of node.items) if (isMap(pair.value) && String(pair.key) === 'wire_to_next') pair.value.flow = true;
+		document.addIn([list], node);
+	}, `${list}.${index}`);
+}
+
+/** The problem with one field of an item not yet added, or undefined when that field is fine (other fields may still be missing). */
+export function draftFieldProblem(editing: PlanEditing, list: PlanList, values: Record<string, unknown>, path: readonly string[]): string | undefined {
+	const index = list === 'devices' ? editing.plan.devices.length : editing.plan.access_points.length;
+	const field = [list, index, ...path].join('.');
+	const result = attempt(editing, (document) => document.addIn([list], document.createNode(values)), field);
+	if (result.ok || !related(result.field, field) || result.field === `${list}.${index}`) return undefined;
+	return result.message;
+}
+
+/** Removes an item. Removing the last device is refused (a loop needs one). */
+export function removeItem(editing: PlanEditing, list: PlanList, index: number): EditResult {
+	return attempt(editing, (document) => document.deleteIn([list, index]), list);
+}
+
+/** Moves a device one place earlier (-1) or later (+1) in the wiring order; its comments move with it. */
+export function moveDevice(editing: PlanEditing, index: number, delta: -1 | 1): EditResult {
+	const target = index + delta;
+	if (target < 0 || target >= editing.plan.devices.length) return {ok: false, message: delta < 0 ? 'already first in the wiring order' : 'already last in the wiring order'};
+	return attempt(editing, (document) => {
+		const devices = document.get('devices', true);
+		if (!isSeq(devices)) return;
+		const [moved] = devices.items.splice(index, 1);
+		devices.items.splice(target, 0, moved);
+	});
+}
+
+/** An item's value at a path as written in the file (a string, number or boolean), or undefined. */
+export function itemValue(editing: PlanEditing, list: PlanList, index: number, path: readonly string[]): unknown {
+	return editing.document.getIn([list, index, ...path]);
+}
+
+/** The editing state after a save of `text`: nothing left unsaved. */
+export function savedEditing(editing: PlanEditing, text: string): Result<PlanEditing, Problem> {
+	const reopened = planEditingFromText(text, editing.file, editing.policy);
+	return reopened.ok ? success(reopened.value) : failure(reopened.errors);
+}

@@ -1,0 +1,212 @@
+import {verdictWords} from '../rules/verdict-words.js';
+import {formatQuantity, roundedText} from '../quantities/format.js';
+import {outcomeWords} from '../rules/evaluation.js';
+import {stripControl} from '../shared/text.js';
+import {shortFingerprint} from '../records/keys.js';
+import type {TrustedKey} from '../records/key-store.js';
+import type {AnyRecord, BenchRecord, RecordBody} from '../records/record-schema.js';
+import {ruleOutline} from './report-rule-outline.js';
+
+type RecordCheck = RecordBody['checks'][number];
+type RecordConfirmation = RecordBody['confirmations'][number];
+
+/** How each signature fared when the record was read (from the integrity check). */
+export type SignatureStatus = {index: number; valid: boolean; reason?: string};
+
+/** Whose keys the reader holds: their own key's fingerprint and the colleagues' keys they trust. */
+export type TrustInfo = {own?: string; trusted: readonly TrustedKey[]};
+
+/** Verdicts and answers as a word with a symbol, so they read without colour. */
+/** Confirmation answers as a word with a symbol. */
+export const answerWords = {yes: '✓ yes', no: '✗ NO', not_applicable: '– not applicable', unanswered: '? unanswered', skip: '– skip', open: '? open'} as const;
+
+/** One check, every piece of text already stripped of control characters. */
+export type CheckRow = {
+	id: string;
+	verdict: RecordCheck['verdict'];
+	verdictText: string;
+	title: string;
+	severity: string;
+	value: string;
+	limit: string;
+	margin: string;
+	fraction: string;
+	/** Message, needs and error: what the check says beyond its figures. */
+	notes: string[];
+	explanation: string;
+	basis: string;
+};
+
+/** One confirmation with its answer and note. */
+export type ConfirmationRow = {id: string; status: RecordConfirmation['status']; answerText: string; statement: string; note: string};
+
+/** One input as entered and as recorded. */
+export type InputRow = {id: string; label: string; entered: string; value: string; si: string};
+
+/** One signature: who, what it means, when, which key, verified or not, trusted or not. */
+export type SignatureRow = {number: number; name: string; role: string; meaning: string; signedAt: string; key: string; fingerprint: string; verified: boolean; verifiedText: string; trusted: boolean; trustText: string};
+
+/** Everything a printed report shows, in the order it shows it; the writers only lay it out. */
+export type ReportModel = {
+	title: string;
+	setupName: string;
+	/** The setup fingerprint short enough to read aloud (hex digits in groups of four). */
+	setupKey: string;
+	outcome: RecordBody['outcome'];
+	outcomeText: string;
+	caution: string;
+	deferral: string;
+	countsText: string;
+	/** Failing, advisory and open checks, failures first. */
+	attention: CheckRow[];
+	/** Confirmations answered no, then those unanswered or open. */
+	attentionConfirmations: ConfirmationRow[];
+	missingInputs: string[];
+	details: Array<[string, string]>;
+	amendment?: {record: string; bodySha256: string; reason: string};
+	steps: Array<{id: string; title: string; inputs: InputRow[]; checks: CheckRow[]; confirmations: ConfirmationRow[]}>;
+	derived: Array<{id: string; label: string; value: string}>;
+	signatures: SignatureRow[];
+};
+
+const attentionOrder = {fail: 0, advise: 1, open: 2, pass: 3, skip: 4} as const;
+
+const clean = (text: string | null | undefined): string => stripControl(text ?? '');
+
+function checkRow(check: RecordCheck): CheckRow {
+	const sign = check.relation === 'at_least' ? '≥' : '≤';
+	let margin = '';
+	if (check.margin) {
+		const amount = clean(check.margin.text).replace(/^[-\u2212]/, '');
+		margin = check.verdict === 'pass' ? amount : `${check.relation === 'at_least' ? 'short by' : 'over by'} ${amount}`;
+	}
+	const fraction = check.margin?.fraction === null || check.margin?.fraction === undefined ? '' : formatQuantity(Math.abs(check.margin.fraction), 'ratio');
+	const notes = [check.message, check.needs?.length ? `needs ${check.needs.join(', ')}` : undefined, check.error].filter((entry): entry is string => Boolean(entry)).map(clean);
+	return {
+		id: clean(check.id),
+		verdict: check.verdict,
+		verdictText: verdictWords[check.verdict],
+		title: clean(check.title),
+		severity: check.severity,
+		value: check.value ? clean(check.value.text) : '',
+		limit: check.limit ? `${sign} ${clean(check.limit.text)}` : '',
+		margin,
+		fraction,
+		notes,
+		explanation: clean(check.explanation),
+		basis: clean(check.basis),
+	};
+}
+
+function confirmationRow(entry: RecordConfirmation): ConfirmationRow {
+	const needs = entry.needs?.length ? `needs ${entry.needs.join(', ')}` : '';
+	return {id: clean(entry.id), status: entry.status, answerText: answerWords[entry.status], statement: clean(entry.statement), note: clean(entry.note ?? needs)};
+}
+
+/** One signature of a record with its verification and trust, for printing. */
+export function signatureRow(record: AnyRecord, status: SignatureStatus | undefined, index: number, trust: TrustInfo): SignatureRow {
+	const signature = record.signatures[index]!;
+	const verified = status?.valid === true;
+	const trustedKey = trust.trusted.find((key) => key.fingerprint === signature.fingerprint);
+	const own = trust.own === signature.fingerprint;
+	return {
+		number: index + 1,
+		name: clean(signature.signer.name),
+		role: clean(signature.signer.role),
+		meaning: signature.meaning,
+		signedAt: clean(signature.signedAt),
+		key: shortFingerprint(signature.fingerprint),
+		fingerprint: signature.fingerprint,
+		verified,
+		verifiedText: verified ? '✓ verified' : `✗ NOT VERIFIED${status?.reason ? `: ${clean(status.reason)}` : ''}`,
+		trusted: own || Boolean(trustedKey),
+		trustText: own ? '✓ your own key' : trustedKey ? `✓ trusted as ${clean(trustedKey.name)}` : '! not among your trusted keys',
+	};
+}
+
+/**
+ * Prepares a record for printing: every text from the record is stripped of control
+ * characters, checks are grouped by step in the rule file's order, failures are gathered
+ * for the summary, and each signature carries its verification and trust status.
+ */
+export function reportModel(record: BenchRecord, signatures: readonly SignatureStatus[], trust: TrustInfo): ReportModel {
+	const body = record.body;
+	const outline = ruleOutline(body.rules.text);
+	const setupName = body.setup.name === null ? '(no setup name)' : clean(body.setup.name);
+	const outcomeText = outcomeWords[body.outcome];
+	const checks = body.checks.map(checkRow);
+	const confirmations = body.confirmations.map(confirmationRow);
+
+	const stepIds = [...outline.steps.map((step) => step.id)];
+	const inputStep = (id: string) => outline.labels.get(id)?.step ?? '';
+	for (const id of [...body.checks.map((check) => check.step), ...body.confirmations.map((entry) => entry.step), ...Object.keys(body.inputs).map(inputStep)]) {
+		if (!stepIds.includes(id)) stepIds.push(id);
+	}
+	const titles = new Map(outline.steps.map((step) => [step.id, step.title]));
+	const steps = stepIds
+		.map((id) => ({
+			id: clean(id),
+			title: clean(id === '' ? 'Other inputs' : (titles.get(id) ?? id)),
+			inputs: Object.entries(body.inputs)
+				.filter(([inputId]) => inputStep(inputId) === id)
+				.map(([inputId, input]): InputRow => {
+					const known = outline.labels.get(inputId);
+					const option = input.option === undefined ? undefined : (known?.options?.[input.option] ?? input.option);
+					const value = input.text ?? option ?? (typeof input.value === 'boolean' ? (input.value ? 'yes' : 'no') : (input.value ?? ''));
+					const si = input.si === undefined ? '' : `${roundedText(input.si, 6)} ${input.unit ?? ''}`.trim();
+					return {id: clean(inputId), label: clean(known?.label ?? inputId), entered: clean(input.entered), value: clean(value), si: clean(si)};
+				}),
+			checks: checks.filter((_, index) => body.checks[index]!.step === id),
+			confirmations: confirmations.filter((_, index) => body.confirmations[index]!.step === id),
+		}))
+		.filter((step) => step.inputs.length + step.checks.length + step.confirmations.length > 0);
+
+	const counts = body.counts;
+	const countsText = ['fail', 'advise', 'open', 'pass', 'skip'].map((verdict) => `${counts[verdict] ?? 0} ${verdict}`).join(' · ');
+	const signatureRows = signatureRowsOf(record, signatures, trust);
+
+	return {
+		title: `Bench check record: ${setupName}`,
+		setupName,
+		setupKey: shortFingerprint(body.setup.fingerprint),
+		outcome: body.outcome,
+		outcomeText,
+		caution: clean(body.caution),
+		deferral: clean(body.deferral),
+		countsText,
+		attention: checks.filter((check) => attentionOrder[check.verdict] < 3).sort((a, b) => attentionOrder[a.verdict] - attentionOrder[b.verdict]),
+		attentionConfirmations: [...confirmations.filter((entry) => entry.status === 'no'), ...confirmations.filter((entry) => entry.status === 'unanswered' || entry.status === 'open')],
+		missingInputs: body.missingInputs.map(clean),
+		details: [
+			['Setup', setupName],
+			['Setup fingerprint', `${shortFingerprint(body.setup.fingerprint)} (${body.setup.fingerprint})`],
+			['Identifying inputs', body.setup.identifying.map(clean).join(', ')],
+			['Operator', [clean(body.operator.name), clean(body.operator.role)].filter(Boolean).join(', ')],
+			['Created', clean(body.createdAt)],
+			['Tool', `${clean(body.tool.name)} ${clean(body.tool.version)}`],
+			['Rule file', clean(body.rules.name)],
+			['Rule file path', clean(body.rules.file)],
+			['Rule file SHA-256', body.rules.sha256],
+			['Signatures', signaturesSummary(signatureRows)],
+		],
+		...(body.amends ? {amendment: {record: clean(body.amends.record), bodySha256: body.amends.bodySha256, reason: clean(body.amends.reason)}} : {}),
+		steps,
+		derived: Object.entries(body.derived).map(([id, entry]) => ({
+			id: clean(id),
+			label: clean(outline.labels.get(id)?.label ?? id),
+			value: clean('text' in entry ? entry.text : 'open' in entry ? `open: needs ${entry.open.join(', ')}` : `error: ${entry.error}`),
+		})),
+		signatures: signatureRows,
+	};
+}
+
+/** Every signature of a record as a row to print. */
+export function signatureRowsOf(record: AnyRecord, signatures: readonly SignatureStatus[], trust: TrustInfo): SignatureRow[] {
+	return record.signatures.map((_, index) => signatureRow(record, signatures.find((entry) => entry.index === index), index, trust));
+}
+
+/** How many signatures, and whether all verified. */
+export function signaturesSummary(rows: readonly SignatureRow[]): string {
+	const verified = rows.filter((row) => row.verified).length;
+	return `${rows.length}, ${verified === rows.length ? 'all verified' : `${rows.length - verified} NOT VERIFIED`}`;
+}

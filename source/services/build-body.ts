@@ -1,0 +1,51 @@
+import {sha256Hex} from '../shared/sha256.js';
+import type {Answers} from '../rules/answers.js';
+import type {CompiledRules} from '../rules/compiled-rules.js';
+import type {Evaluation} from '../rules/evaluation.js';
+import {evaluationToJson} from '../rules/evaluation-json.js';
+import {canonicalBytes} from '../records/canonical.js';
+import type {InterlockLink} from '../interlock/functional-test/test-link.js';
+import {recordBodySchema, type AnyBody, type RecordBody} from '../records/record-schema.js';
+import {isoWithOffset} from '../records/sign.js';
+import {displayPath} from '../shared/display-path.js';
+
+/** A correction: the record it corrects (file name and body hash) and why. */
+export type Amendment = {record: string; bodySha256: string; reason: string};
+
+/**
+ * The fingerprint of a setup: SHA-256 over the canonical form of the inputs the rules mark
+ * as identifying (diode, driver, supply, wiring, location), so an audit can tell when a later
+ * record is for a changed setup.
+ */
+export function setupFingerprint(rules: CompiledRules, answers: Answers): {fingerprint: string; identifying: string[]} {
+	const identifying = [...rules.inputs.values()].filter(({input}) => input.identifies).map(({input}) => input.id);
+	const values: Record<string, unknown> = {};
+	for (const id of identifying) {
+		const answer = answers.inputs.get(id);
+		values[id] = !answer ? null : answer.kind === 'quantity' ? answer.si : answer.kind === 'choice' ? answer.option : answer.value;
+	}
+	return {fingerprint: `sha256:${sha256Hex(canonicalBytes(values))}`, identifying};
+}
+
+/** SHA-256 (hex) of the canonical form of a record body: how amendments and audits name a body. */
+export function bodySha256(body: AnyBody): string {
+	return sha256Hex(canonicalBytes(body));
+}
+
+/** Builds the body of a bench-check record, validated as plain data before anyone signs it. */
+export function buildRecordBody(input: {rules: CompiledRules; answers: Answers; evaluation: Evaluation; operator: {name: string; role: string}; amends?: Amendment; interlockTest?: InterlockLink | null; now?: Date}): RecordBody {
+	const {rules, answers, evaluation, operator, amends} = input;
+	const {tool, rules: _rulesSummary, setup, ...evaluated} = evaluationToJson(rules, answers, evaluation);
+	const body = {
+		kind: 'bench-check' as const,
+		tool,
+		createdAt: isoWithOffset(input.now ?? new Date()),
+		operator,
+		setup: {name: setup, ...setupFingerprint(rules, answers)},
+		...(amends ? {amends} : {}),
+		rules: {name: rules.rules.name, file: displayPath(rules.file), sha256: rules.sha256, text: rules.text},
+		...evaluated,
+		...(input.interlockTest ? {interlockTest: input.interlockTest} : {}),
+	};
+	return recordBodySchema.parse(JSON.parse(JSON.stringify(body)));
+}

@@ -1,0 +1,62 @@
+import {Box, Text} from 'ink';
+import {checkFigures} from '../../render/check-text.js';
+import type {CheckResult} from '../../rules/evaluation.js';
+import type {ShownDerived} from '../../rules/shown-derived.js';
+import {stripControl} from '../../shared/text.js';
+import {wrap} from '../../shared/wrap.js';
+import {verdictStyle} from '../verdict-style.js';
+
+const indent = '          ';
+
+/** The detail lines of a check, wrapped in full (an error or reason is never cut mid-sentence). */
+export function checkDetailLines(check: CheckResult, width: number): string[] {
+	const detail = checkFigures(check) ?? (check.needs?.length ? `needs ${check.needs.join(', ')}` : check.error ?? check.reason ?? '');
+	return detail ? wrap(stripControl(detail), width, indent) : [];
+}
+
+/**
+ * The checks of the current step, as the core evaluated them: verdict, figures, what is missing;
+ * above them, one line for each derived value the step shows (a converted or worst-case figure).
+ * As many checks as fit in `rows` are shown whole; the rest are counted and left to the summary.
+ */
+export function ChecksPanel({checks, rows, width = 80, derived = []}: {checks: CheckResult[]; rows: number; width?: number; derived?: ShownDerived[]}) {
+	if (checks.length === 0 && derived.length === 0) return <Text dimColor>No checks in this step; its confirmations are listed above.</Text>;
+	const shown: Array<{check: CheckResult; title: string[]; detail: string[]}> = [];
+	let used = 0;
+	for (const check of checks) {
+		const title = wrap(stripControl(check.title), width, indent).map((line, index) => (index === 0 ? line.trimStart() : line));
+		const detail = checkDetailLines(check, width);
+		if (shown.length > 0 && used + title.length + detail.length > rows) break;
+		shown.push({check, title, detail});
+		used += title.length + detail.length;
+	}
+	return (
+		<Box flexDirection="column">
+			{derived.map(({entry, text}) => (
+				<Text key={entry.id} dimColor wrap="truncate">
+					{`= ${stripControl(text)}`.padEnd(10)} {stripControl(entry.label)}
+				</Text>
+			))}
+			{shown.map(({check, title, detail}) => {
+				const style = verdictStyle[check.verdict];
+				return (
+					<Box key={check.id} flexDirection="column">
+						<Text>
+							<Text color={style.color}>{style.label.padEnd(10)}</Text>
+							{title[0]}
+						</Text>
+						{title.slice(1).map((line, index) => (
+							<Text key={`title-${index}`}>{line}</Text>
+						))}
+						{detail.map((line, index) => (
+							<Text key={index} dimColor>
+								{line}
+							</Text>
+						))}
+					</Box>
+				);
+			})}
+			{checks.length > shown.length ? <Text dimColor>{indent}… {checks.length - shown.length} more in the summary</Text> : null}
+		</Box>
+	);
+}

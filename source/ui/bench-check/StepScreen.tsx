@@ -1,0 +1,242 @@
+import {Box, Text, type Key} from 'ink';
+import {useKeystrokes, type Arrival} from '../use-keystrokes.js';
+import {readAnswerKey, strayMessage} from '../answer-key.js';
+import {useReducer, useRef} from 'react';
+import {shownDerived} from '../../rules/shown-derived.js';
+import {stripControl} from '../../shared/text.js';
+import {ChecksPanel} from './ChecksPanel.js';
+import {FieldList} from './FieldList.js';
+import {answerConfirmation, answeredByRecord, enterInput, stepFields, type Field, type Session} from './session.js';
+import {typeInto} from '../text-buffer.js';
+
+/** Props of one step of the bench check. */
+export type StepScreenProps = {
+	session: Session;
+	/** The latest session, even before React has re-rendered (keys can arrive faster than frames). */
+	getSession(): Session;
+	stepIndex: number;
+	rows: number;
+	width: number;
+	onSession(session: Session): void;
+	/** Go to another step; past the last one means the summary. */
+	onStep(index: number): void;
+	onBack(): void;
+	onHelp(): void;
+	/** False while the help overlay covers the step: keys go to the overlay, and the field in focus is kept. @default true */
+	active?: boolean;
+};
+
+/**
+ * `suggested`: the buffer holds a default not typed by the operator; the first key replaces it.
+ * `stray`: text typed on a question answered by single keys; held, shown, and never an answer.
+ */
+type Editor = {focus: number; buffer: string; choice: number; message?: string; noteMode: boolean; suggested?: boolean; stray: string};
+
+const confirmationKeys = {y: 'yes', n: 'no', a: 'not_applicable'} as const;
+const yesNoKeys = {y: 'yes', n: 'no'} as const;
+
+/** The keys that answer a confirmation, as the messages name them. */
+const confirmationKeyWords = (field: Field) => (field.kind === 'confirmation' && field.confirmation.not_applicable === 'forbidden' ? 'y or n' : 'y, n or a');
+
+function initialBuffer(session: Session, field: Field | undefined): string {
+	if (!field || field.kind !== 'input') return '';
+	const entry = session.entries[field.id];
+	if (entry !== undefined) return entry;
+	const fallback = field.input.kind === 'quantity' ? field.input.default : undefined;
+	return fallback === undefined ? '' : String(fallback);
+}
+
+function initialChoice(session: Session, field: Field | undefined): number {
+	if (!field || field.kind !== 'input' || field.input.kind !== 'choice') return 0;
+	const options = Object.keys(field.input.options);
+	const current = session.entries[field.id] ?? field.input.default;
+	return Math.max(0, current === undefined ? 0 : options.indexOf(current));
+}
+
+function editorFor(session: Session, field: Field | undefined, focus: number): Editor {
+	const suggested = field?.kind === 'input' && session.entries[field.id] === undefined && initialBuffer(session, field) !== '';
+	return {focus, buffer: initialBuffer(session, field), choice: initialChoice(session, field), noteMode: false, suggested, stray: ''};
+}
+
+/** One step: its fields, typed into with the keyboard, and its checks updating as answers change. */
+export function StepScreen({session, getSession, stepIndex, rows, width, onSession, onStep: toStep, onBack: back, onHelp, active = true}: StepScreenProps) {
+	// Keys are handled against a ref, not render state: several keys can arrive before the next frame.
+	const editor = useRef<Editor | undefined>(undefined);
+	const [, rerender] = useReducer((count: number) => count + 1, 0);
+	// Once this step is left, keys still in the same read belong to the screen that follows, not to
+	// this step's fields: PgDn PgUp carry on from the step gone to, anything else is dropped.
+	const left = useRef<number | undefined>(undefined);
+	const onStep = (index: number) => {
+		left.current = index;
+		toStep(index);
+	};
+	const onBack = () => {
+		left.current = -1;
+		back();
+	};
+	if (!editor.current) editor.current = editorFor(session, stepFields(session, stepIndex)[0], 0);
+
+	const update = (changes: Partial<Editor>) => {
+		editor.current = {...editor.current!, ...changes};
+		rerender();
+	};
+	const fieldsNow = () => stepFields(getSession(), stepIndex);
+	const focusTo = (index: number) => {
+		const current = getSession();
+		editor.current = editorFor(current, stepFields(current, stepIndex)[index], index);
+		rerender();
+	};
+	const move = (delta: number) => {
+		const next = editor.current!.focus + delta;
+		const count = fieldsNow().length;
+		if (next >= count) onStep(stepIndex + 1);
+		else if (next < 0) {
+			if (stepIndex > 0) onStep(stepIndex - 1);
+		} else focusTo(next);
+	};
+	const apply = (result: ReturnType<typeof enterInput>): boolean => {
+		if (!result.ok) {
+			update({message: result.message});
+			return false;
+		}
+		editor.current = {...editor.current!, message: undefined};
+		onSession(result.session);
+		return true;
+	};
+	/** Commits what was typed; false when it was refused (the cursor stays). */
+	const commit = (field: Field, text: string): boolean => {
+		if (field.kind !== 'input') return true;
+		const current = getSession();
+		if ((current.entries[field.id] ?? '') === text.trim()) return true;
+		return apply(enterInput(current, field.id, text));
+	};
+	const confirm = (field: Field, answer: 'yes' | 'no' | 'not_applicable', note?: string): boolean => {
+		if (field.kind !== 'confirmation') return false;
+		const current = getSession();
+		return apply(answerConfirmation(current, field.id, answer, note ?? current.confirmations[field.id]?.note));
+	};
+
+	useKeystrokes(handleKey, {isActive: active});
+	function handleKey(input: string, key: Key, arrival: Arrival) {
+		if (key.ctrl) return;
+		if (left.current !== undefined) {
+			const gone = left.current;
+			const last = session.rules.rules.steps.length - 1;
+			if (gone >= 0 && gone <= last && key.pageDown) onStep(gone + 1);
+			else if (gone > 0 && gone <= last && key.pageUp) onStep(gone - 1);
+			return;
+		}
+		const state = editor.current!;
+		const fields = fieldsNow();
+		const field = fields[Math.min(state.focus, fields.length - 1)];
+		if (state.noteMode && field) {
+			if (key.escape) return update({noteMode: false});
+			const change = typeInto(state.buffer, input, key);
+			update({buffer: change.text});
+			if (!change.submit) return;
+			const answered = field.kind === 'confirmation' ? getSession().confirmations[field.id]?.answer : undefined;
+			if (confirm(field, answered ?? 'not_applicable', change.text)) move(1);
+			return;
+		}
+		if (key.pageDown) return onStep(stepIndex + 1);
+		if (key.pageUp) return stepIndex > 0 ? onStep(stepIndex - 1) : undefined;
+		if (key.escape) return onBack();
+		if (!field) {
+			if (key.return) onStep(stepIndex + 1);
+			return;
+		}
+		const typing = field.kind === 'input' && (field.input.kind === 'quantity' || field.input.kind === 'text');
+		if (input === '?' && arrival.alone && state.stray === '' && (!typing || state.buffer === '')) return onHelp();
+		if (key.upArrow || key.downArrow) {
+			if (typing && !commit(field, state.buffer)) return;
+			return move(key.upArrow ? -1 : 1);
+		}
+		if (field.kind === 'confirmation' && answeredByRecord(getSession(), field.id)) {
+			// The interlock test record answers it; a key typed here would be overruled, so it is not taken.
+			if (key.return) move(1);
+			return;
+		}
+		if (field.kind === 'confirmation') {
+			const read = readAnswerKey(confirmationKeys, state.stray, input, key, arrival);
+			const words = confirmationKeyWords(field);
+			if (read.kind === 'refused') return update({stray: read.stray, message: strayMessage(words, '; Tab adds a note to an answer')});
+			if (read.kind === 'cleared') return update({stray: '', message: undefined});
+			if (read.kind === 'answer') {
+				if (read.answer === 'not_applicable' && field.confirmation.not_applicable !== 'forbidden' && !getSession().confirmations[field.id]?.note) {
+					return update({buffer: '', noteMode: true});
+				}
+				if (confirm(field, read.answer)) move(1);
+				return;
+			}
+			if (key.tab) {
+				const answered = getSession().confirmations[field.id];
+				// A note belongs to an answer: saving one must not answer the confirmation on the operator's behalf.
+				if (!answered) return update({message: `answer first (${words}${state.stray ? ', once Backspace has cleared the typed text' : ''}); Tab adds a note to the answer`});
+				// Typed text becomes the note only now, on purpose, and is saved only with Enter.
+				return update({buffer: [answered.note, state.stray].filter(Boolean).join(' '), noteMode: true, stray: '', message: undefined});
+			}
+			if (key.return) return state.stray ? update({message: strayMessage(words, '; Tab adds a note to an answer')}) : move(1);
+			return;
+		}
+		if (field.input.kind === 'choice') {
+			const options = Object.keys(field.input.options);
+			if (key.leftArrow || key.rightArrow) return update({choice: (state.choice + (key.rightArrow ? 1 : options.length - 1)) % options.length});
+			const digit = Number(input);
+			if (digit >= 1 && digit <= options.length) return update({choice: digit - 1});
+			if (key.return && commit(field, options[state.choice]!)) move(1);
+			return;
+		}
+		if (field.input.kind === 'yes_no') {
+			const read = readAnswerKey(yesNoKeys, state.stray, input, key, arrival);
+			if (read.kind === 'refused') return update({stray: read.stray, message: strayMessage('y or n')});
+			if (read.kind === 'cleared') return update({stray: '', message: undefined});
+			if (read.kind === 'answer') return commit(field, read.answer) ? move(1) : undefined;
+			if (key.return) return state.stray ? update({message: strayMessage('y or n')}) : move(1);
+			return;
+		}
+		// A suggested default is accepted with Enter, or replaced by the first key typed.
+		const start = state.suggested && !key.return && (input !== '' || key.backspace || key.delete) ? '' : state.buffer;
+		const change = typeInto(start, input, key);
+		editor.current = {...state, buffer: change.text, suggested: false};
+		if (change.submit && commit(field, change.text)) return move(1);
+		rerender();
+	}
+
+	const fields = stepFields(session, stepIndex);
+	const step = session.rules.rules.steps[stepIndex]!;
+	const state = editor.current;
+	const checks = session.evaluation.checks.filter((check) => check.step === step.id);
+	// On a short terminal the checks panel gives way so that more fields stay in view.
+	const panelRows = Math.min(rows < 30 ? 6 : 8, Math.max(2, checks.length * 2));
+	const derived = shownDerived(session.evaluation, step.id);
+	return (
+		<Box flexDirection="column">
+			<Text bold>
+				Step {stepIndex + 1} of {session.rules.rules.steps.length}: {stripControl(step.title)}
+			</Text>
+			{step.summary ? (
+				<Text dimColor wrap="wrap">
+					{stripControl(step.summary)}
+				</Text>
+			) : null}
+			<Box marginTop={1} flexDirection="column">
+				{fields.length === 0 ? <Text dimColor>Nothing to answer in this step for this setup. Enter or PgDn to go on.</Text> : null}
+				<FieldList
+					session={session}
+					fields={fields}
+					focus={Math.min(state.focus, Math.max(0, fields.length - 1))}
+					buffer={state.buffer}
+					choice={state.choice}
+					{...(state.message ? {message: state.message} : {})}
+					noteMode={state.noteMode}
+					stray={state.stray}
+					rows={Math.max(5, rows - panelRows - derived.length - (step.summary ? 7 : 5))}
+					width={width}
+				/>
+			</Box>
+			<Box marginTop={1} flexDirection="column">
+				<ChecksPanel checks={checks} rows={panelRows} derived={derived} width={width} />
+			</Box>
+		</Box>
+	);
+}

@@ -1,0 +1,45 @@
+import {recordTestResults, type PlanAsTested, type RecordedTest} from '../../services/record-functional-test.js';
+import {loadPlanAndText} from '../../interlock/plan/plan-in-force.js';
+import type {TestResults} from '../../interlock/functional-test/results-schema.js';
+import {describeProblem, formatProblem} from '../../shared/problems.js';
+import type {CompiledRules} from '../../rules/compiled-rules.js';
+import type {SettingsStore} from '../../services/settings.js';
+import {UsageError} from '../../cli/usage-error.js';
+
+/** What the planner needs to record a test: the plan as saved on disk, and signing. */
+export type TestRecorder = {
+	/** The tester as the settings remember them. */
+	tester(): {name: string; role: string};
+	/** Reads the plan file as it is on disk now: a test is of the plan as wired. */
+	open(file: string): {ok: true; tested: PlanAsTested} | {ok: false; message: string};
+	/** Signs and writes the record (the witness too, with their key file), if the file on disk is still the text tested. */
+	sign(tested: PlanAsTested, results: TestResults, witnessKey?: string): {ok: true; recorded: RecordedTest} | {ok: false; message: string};
+};
+
+/** The recorder of the screens: the rule file in force, the settings, and the shared recordTestResults. */
+export function testRecorder(rules: CompiledRules, settings: SettingsStore, env: NodeJS.ProcessEnv): TestRecorder {
+	const open: TestRecorder['open'] = (file) => {
+		const loaded = loadPlanAndText(file, rules);
+		if (!loaded.ok) return {ok: false, message: formatProblem(loaded.errors[0]!)};
+		return {ok: true, tested: {file, ...loaded.value}};
+	};
+	return {
+		tester() {
+			const saved = settings.read();
+			return {name: saved.operator ?? '', role: saved.role ?? ''};
+		},
+		open,
+		sign(tested, results, witnessKey) {
+			const now = open(tested.file);
+			if (!now.ok || now.tested.text !== tested.text) return {ok: false, message: `${tested.file} changed on disk since this test was started; leave (Esc) and start the test again on the plan as it is now`};
+			try {
+				const recorded = recordTestResults(tested, rules, results, {witnessKey, witnessKeyName: 'the witness key file'}, env);
+				settings.write({operator: results.tested_by.name, role: results.tested_by.role});
+				return {ok: true, recorded};
+			} catch (error) {
+				if (!(error instanceof UsageError)) throw error;
+				return {ok: false, message: error.problems[0] ? describeProblem(error.problems[0]) : error.message};
+			}
+		},
+	};
+}
