@@ -6,4 +6,4 @@ declare const PRELASE_VERSION: string | undefined;
 export const version: string =
 	typeof PRELASE_VERSION === 'string'
 		? PRELASE_VERSION
-		: (JSON.parse(readFileSync(new URL('../package.json', import.meta.url), 'utf8')) as {version: string}).version;
+		: (JSON.parse(readFileSync(new URL('../../package.json', import.meta.url), 'utf8')) as {version: string}).version;
