@@ -4,6 +4,7 @@ import {readAnswerKey, strayMessage} from '../answer-key.js';
 import {useReducer, useRef} from 'react';
 import {shownDerived} from '../../rules/shown-derived.js';
 import {stripControl} from '../../shared/text.js';
+import {wrap} from '../../shared/wrap.js';
 import {ChecksPanel} from './ChecksPanel.js';
 import {FieldList} from './FieldList.js';
 import {answerConfirmation, answeredByRecord, enterInput, stepFields, type Field, type Session} from './session.js';
@@ -215,9 +216,7 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 				Step {stepIndex + 1} of {session.rules.rules.steps.length}: {stripControl(step.title)}
 			</Text>
 			{step.summary ? (
-				<Text dimColor wrap="wrap">
-					{stripControl(step.summary)}
-				</Text>
+				<Text dimColor>{wrap(stripControl(step.summary), width).join('\n')}</Text>
 			) : null}
 			<Box marginTop={1} flexDirection="column">
 				{fields.length === 0 ? <Text dimColor>Nothing to answer in this step for this setup. Enter or PgDn to go on.</Text> : null}
