@@ -10,6 +10,7 @@ import {signRecord} from '../../source/records/sign-record.js';
 import {shippedRulesPath} from '../../source/rules/load.js';
 import {openSettings} from '../../source/services/settings.js';
 import {fakeIo, fakeStream} from '../helpers/fake-io.js';
+import {runCli, unwrap} from '../helpers/run-cli.js';
 
 const clearDemo = resolve('docs/examples/bench3-808nm-clear.yaml');
 
@@ -21,14 +22,8 @@ let strictRules: string;
 
 /** Runs the program in-process with the test's settings folder and returns what it said. */
 async function run(argv: string[], env: NodeJS.ProcessEnv = {PRELASE_HOME: home}) {
-	const io = fakeIo(env);
-	const code = await main(argv, io);
-	return {code, stdout: unwrap(io.stdout.text), stderr: io.stderr.text};
-}
-
-/** Joins the wrapped continuation lines of the text output, so assertions need not know the width. */
-function unwrap(text: string): string {
-	return text.startsWith('{') ? text : text.replaceAll(/\n {17,}/g, ' ');
+	const result = await runCli(argv, env);
+	return {...result, stdout: unwrap(result.stdout)};
 }
 
 let counter = 0;

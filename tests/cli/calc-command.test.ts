@@ -1,12 +1,9 @@
 import {describe, expect, it} from 'vitest';
-import {main} from '../../source/cli/dispatch.js';
 import {calculations} from '../../source/calculations/registry.js';
-import {fakeIo} from '../helpers/fake-io.js';
+import {runCliNow} from '../helpers/run-cli.js';
 
 function run(...argv: string[]) {
-	const io = fakeIo();
-	const code = main(argv, io);
-	return {code, stdout: io.stdout.text, stderr: io.stderr.text};
+	return runCliNow(argv);
 }
 
 describe('prelase calc', () => {

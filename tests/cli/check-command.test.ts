@@ -11,7 +11,7 @@ import {loadAnswers} from '../../source/rules/load-answers.js';
 import {loadRules, shippedRulesPath} from '../../source/rules/load.js';
 import type {CompiledRules} from '../../source/rules/compiled-rules.js';
 import {version} from '../../source/shared/version.js';
-import {fakeIo} from '../helpers/fake-io.js';
+import {runCliNow} from '../helpers/run-cli.js';
 
 const examples = resolve('docs/examples');
 const clearDemo = join(examples, 'bench3-808nm-clear.yaml');
@@ -22,9 +22,7 @@ const shippedRulesText = readFileSync(shippedRulesPath(), 'utf8');
 
 /** Runs the program in-process and returns what it said. */
 function run(...argv: string[]) {
-	const io = fakeIo();
-	const code = main(argv, io);
-	return {code, stdout: io.stdout.text, stderr: io.stderr.text};
+	return runCliNow(argv);
 }
 
 /** Runs `check --json` and parses stdout. */

@@ -2,12 +2,11 @@ import {copyFileSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSyn
 import {tmpdir} from 'node:os';
 import {join, resolve} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
-import {main} from '../../source/cli/dispatch.js';
 import {localDay} from '../../source/interlock/functional-test/load-results.js';
 import {operatorKey} from '../../source/records/key-store.js';
 import type {BenchRecord} from '../../source/records/record-schema.js';
 import {signRecord} from '../../source/records/sign-record.js';
-import {fakeIo} from '../helpers/fake-io.js';
+import {runCli} from '../helpers/run-cli.js';
 
 // The demo: plan → test sheet → recorded test → a bench check that uses it → the audit.
 const demo = resolve('docs/examples/interlock');
@@ -17,9 +16,8 @@ let records: string;
 let benchPath: string;
 
 async function run(...argv: string[]) {
-	const io = fakeIo({PRELASE_HOME: home});
-	const code = await main(argv, io);
-	return {code, stdout: io.stdout.text.replaceAll(/\n {3,}/g, ' '), stderr: io.stderr.text};
+	const result = await runCli(argv, {PRELASE_HOME: home});
+	return {...result, stdout: result.stdout.replaceAll(/\n {3,}/g, ' ')};
 }
 
 /** The demo results, tested on `day`, with a step failed if asked. */

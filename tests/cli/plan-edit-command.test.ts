@@ -1,13 +1,10 @@
 import {describe, expect, it} from 'vitest';
-import {main} from '../../source/cli/dispatch.js';
-import {fakeIo} from '../helpers/fake-io.js';
 import {demoPlanFile} from '../interlock/plan-fixture.js';
+import {runCliNow} from '../helpers/run-cli.js';
 
+/** Without a terminal, plan --edit answers at once. */
 function run(...argv: string[]) {
-	const io = fakeIo();
-	const code = main(argv, io);
-	if (typeof code !== 'number') throw new Error('without a terminal, plan --edit answers at once');
-	return {code, stdout: io.stdout.text, stderr: io.stderr.text};
+	return runCliNow(argv);
 }
 
 describe('prelase plan FILE --edit', () => {

@@ -4,7 +4,7 @@ import {join, resolve} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
 import {main} from '../../source/cli/dispatch.js';
 import {helpTexts} from '../../source/cli/commands/help.js';
-import {fakeIo} from '../helpers/fake-io.js';
+import {runCliNow} from '../helpers/run-cli.js';
 
 const failDemo = resolve('docs/examples/bench6-chilled-mount-cold-power-fail.yaml');
 
@@ -16,9 +16,7 @@ let recordText: string;
 
 /** Runs the program in-process with a settings folder; returns what it said. */
 function run(home: string, ...argv: string[]) {
-	const io = fakeIo({PRELASE_HOME: home});
-	const code = main(argv, io);
-	return {code, stdout: io.stdout.text, stderr: io.stderr.text};
+	return runCliNow(argv, {PRELASE_HOME: home});
 }
 
 function writeTemp(name: string, content: string): string {

@@ -3,7 +3,6 @@ import {tmpdir} from 'node:os';
 import {join, resolve} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
 import {parse} from 'yaml';
-import {main} from '../../source/cli/dispatch.js';
 import {auditRecords} from '../../source/audit/audit.js';
 import {evaluate} from '../../source/rules/evaluate.js';
 import {evaluationToJson} from '../../source/rules/evaluation-json.js';
@@ -11,7 +10,7 @@ import {loadAnswers} from '../../source/rules/load-answers.js';
 import {loadRules, loadRulesFromText, shippedRulesPath} from '../../source/rules/load.js';
 import type {RulesShow} from '../../source/rules/show.js';
 import {policyValueText} from '../../source/rules/schema.js';
-import {fakeIo} from '../helpers/fake-io.js';
+import {runCli} from '../helpers/run-cli.js';
 
 const clearDemo = resolve('docs/examples/bench3-808nm-clear.yaml');
 const siteText = `format: 1
@@ -41,9 +40,7 @@ beforeAll(() => {
 afterAll(() => rmSync(folder, {recursive: true, force: true}));
 
 async function run(...argv: string[]) {
-	const io = fakeIo({PRELASE_HOME: home});
-	const code = await main(argv, io);
-	return {code, stdout: io.stdout.text, stderr: io.stderr.text};
+	return runCli(argv, {PRELASE_HOME: home});
 }
 
 describe('prelase rules validate', () => {

@@ -6,11 +6,24 @@ import {fakeIo} from './fake-io.js';
 /** What a command said and its exit status. */
 export type CliRun = {code: number; stdout: string; stderr: string};
 
-/** Runs the program in-process with its settings, keys and records folder under `home` (PRELASE_HOME). */
-export async function runIn(home: string, argv: string[]): Promise<CliRun> {
-	const io = fakeIo({PRELASE_HOME: home});
+/** Runs the program in-process with `env` as its whole environment; waits when the command answers later. */
+export async function runCli(argv: string[], env: NodeJS.ProcessEnv = {}): Promise<CliRun> {
+	const io = fakeIo(env);
 	const code = await main(argv, io);
 	return {code, stdout: io.stdout.text, stderr: io.stderr.text};
+}
+
+/** Runs a command that answers at once (no terminal, no signing); fails the test if it answers later. */
+export function runCliNow(argv: string[], env: NodeJS.ProcessEnv = {}): CliRun {
+	const io = fakeIo(env);
+	const code = main(argv, io);
+	if (typeof code !== 'number') throw new Error(`prelase ${argv.join(' ')} did not answer at once`);
+	return {code, stdout: io.stdout.text, stderr: io.stderr.text};
+}
+
+/** Runs the program in-process with its settings, keys and records folder under `home` (PRELASE_HOME). */
+export async function runIn(home: string, argv: string[]): Promise<CliRun> {
+	return runCli(argv, {PRELASE_HOME: home});
 }
 
 /** Joins the wrapped continuation lines of text output, so assertions need not know the width; JSON is left as it is. */

@@ -3,15 +3,13 @@ import {tmpdir} from 'node:os';
 import {join} from 'node:path';
 import {describe, expect, it} from 'vitest';
 import {main} from '../../source/cli/dispatch.js';
-import {fakeIo} from '../helpers/fake-io.js';
+import {runCliNow} from '../helpers/run-cli.js';
 
 const demoFile = 'docs/examples/interlock/bench3-interlock-plan.yaml';
 
+/** plan answers at once. */
 function run(...argv: string[]) {
-	const io = fakeIo();
-	const code = main(argv, io);
-	if (typeof code !== 'number') throw new Error('plan is synchronous');
-	return {code, stdout: io.stdout.text, stderr: io.stderr.text};
+	return runCliNow(argv);
 }
 
 /** The demo with the emergency stop wired normally open and the side panel left unsecured. */

@@ -92,7 +92,7 @@ function spellings(entered: string, dimension: Dimension): string[] {
 	return Object.entries(prefixes).flatMap(([prefix, decade]) => withUnit(numberSpellings(shift(si, -decade)), symbolSpellings(prefix + base)));
 }
 
-function run(document: AnswersDocument): Evaluation {
+function evaluateDocument(document: AnswersDocument): Evaluation {
 	const answers = loadAnswersFromText(stringify(document), 'case.yaml', rules);
 	if (!answers.ok) throw new Error(`refused: ${answers.errors.map((found) => `${found.code} ${found.field ?? ''} ${JSON.stringify(found.data)}`).join('; ')}`);
 	return evaluate(rules, answers.value);
@@ -114,7 +114,7 @@ describe('re-spelled demo inputs', () => {
 
 	it.each(demos)('%s: any re-spelling of every input gives the same outcome and verdicts', (name) => {
 		const document = readDemo(name);
-		const reference = run(document);
+		const reference = evaluateDocument(document);
 		const quantityInputs = Object.entries(document.inputs).filter(([id, raw]) => rules.inputs.get(id)?.input.kind === 'quantity' && raw !== null && raw !== '');
 		const choices = Object.fromEntries(
 			quantityInputs.map(([id, raw]) => {
@@ -124,7 +124,7 @@ describe('re-spelled demo inputs', () => {
 		);
 		fc.assert(
 			fc.property(fc.record(choices), (respelled) => {
-				const evaluation = run({...document, inputs: {...document.inputs, ...respelled}});
+				const evaluation = evaluateDocument({...document, inputs: {...document.inputs, ...respelled}});
 				expect(evaluation.outcome).toBe(reference.outcome);
 				expect(verdicts(evaluation)).toEqual(verdicts(reference));
 				evaluation.checks.forEach((check, index) => {

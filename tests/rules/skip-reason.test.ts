@@ -40,7 +40,7 @@ checks:
     basis: common practice
 `;
 
-function run(wavelength: string) {
+function evaluateAt(wavelength: string) {
 	const rules = loadRulesFromText(ruleText, 'fixture.yaml');
 	if (!rules.ok) throw new Error(JSON.stringify(rules.errors));
 	const answers = loadAnswersFromText(`inputs:\n  wavelength: ${wavelength}\n  power: 1 mW\n`, 'answers.yaml', rules.value);
@@ -50,20 +50,20 @@ function run(wavelength: string) {
 
 describe('a check skipped by its condition says why', () => {
 	it('skips with the rule file’s reason where no class can be indicated (150 nm)', () => {
-		const {evaluation} = run('150 nm');
+		const {evaluation} = evaluateAt('150 nm');
 		const check = evaluation.checks[0]!;
 		expect(check.verdict).toBe('skip');
 		expect(check.reason).toContain('outside 180 nm to 1 mm');
 	});
 
 	it('is evaluated, with no reason, inside the tables (1550 nm, 1 mW is Class 1: 9.62 mW limit by hand)', () => {
-		const {evaluation} = run('1550 nm');
+		const {evaluation} = evaluateAt('1550 nm');
 		expect(evaluation.checks[0]!.verdict).toBe('pass');
 		expect(evaluation.checks[0]!.reason).toBeUndefined();
 	});
 
 	it('carries the reason into the JSON evaluation (and so into the record)', () => {
-		const {rules, answers, evaluation} = run('150 nm');
+		const {rules, answers, evaluation} = evaluateAt('150 nm');
 		const json = evaluationToJson(rules, answers, evaluation) as {checks: Array<{reason?: string}>};
 		expect(json.checks[0]!.reason).toContain('ask the laser safety officer');
 	});
