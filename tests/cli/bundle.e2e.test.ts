@@ -1,6 +1,6 @@
-import {execFileSync, spawnSync} from 'node:child_process';
+import {spawnSync} from 'node:child_process';
 import {resolve} from 'node:path';
-import {beforeAll, describe, expect, it} from 'vitest';
+import {describe, expect, it} from 'vitest';
 
 const root = resolve('.');
 const bundle = resolve('dist/prelase.js');
@@ -12,10 +12,6 @@ function cleanEnv(): NodeJS.ProcessEnv {
 	for (const name of ['CI', 'CONTINUOUS_INTEGRATION', 'FORCE_COLOR', 'NO_COLOR']) delete env[name];
 	return env;
 }
-
-beforeAll(() => {
-	execFileSync(process.execPath, ['scripts/build.mjs'], {cwd: root, stdio: 'pipe'});
-}, 60_000);
 
 describe('the built bundle', () => {
 	it('check --answers <clear demo> --json exits 0 and prints parseable JSON', () => {

@@ -2,7 +2,7 @@ import {execFileSync, spawnSync} from 'node:child_process';
 import {mkdtempSync, readdirSync, readFileSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {join, resolve} from 'node:path';
-import {afterEach, beforeAll, describe, expect, it} from 'vitest';
+import {afterEach, describe, expect, it} from 'vitest';
 import {parse} from 'yaml';
 import {loadDraft} from '../../source/services/drafts/draft-store.js';
 import {openSettings} from '../../source/services/settings.js';
@@ -65,10 +65,6 @@ async function answerFocused(session: TmuxSession): Promise<boolean> {
 	await session.waitFor((now) => now !== before, `the screen to change after answering ${field.id}`);
 	return true;
 }
-
-beforeAll(() => {
-	execFileSync('node', ['scripts/build.mjs']);
-});
 
 afterEach(() => {
 	for (const session of sessions.splice(0)) session.kill();
@@ -191,5 +187,24 @@ describe.skipIf(!haveTmux())('the screens in a real terminal', () => {
 		expect(answered()).toEqual(['grounded_mat']);
 		session.press('C-c');
 		await session.waitFor((now) => now.includes('EXITED 130'), 'the program to leave with 130');
+	});
+
+	// no-color.org: "Command-line software which adds ANSI color to its output by default should
+	// check for a NO_COLOR environment variable that, when present and not an empty string
+	// (regardless of its value), prevents the addition of ANSI color." ECMA-48 §5.4: every control
+	// sequence of a colour or attribute starts with ESC [ (CSI).
+	it.each([
+		{colour: 'NO_COLOR unset', env: '', expectEscapes: true},
+		{colour: 'NO_COLOR=1', env: 'NO_COLOR=1', expectEscapes: false},
+	])('the first step drawn by the built bundle with $colour and FORCE_COLOR unset', {timeout: 30_000}, async ({env, expectEscapes}) => {
+		const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
+		const session = new TmuxSession(`colour-${expectEscapes ? 'on' : 'off'}`, `env -u CI -u CONTINUOUS_INTEGRATION -u FORCE_COLOR -u NO_COLOR ${env} PRELASE_HOME=${home} node ${program} check; sleep 30`);
+		sessions.push(session);
+		await session.waitFor((screen) => screen.includes('Step 1 of'), 'the first step');
+		await session.settle();
+		const raw = session.rawScreen();
+		// The same screen is coloured without NO_COLOR (so the check below can fail), and has not one CSI with it.
+		expect(raw.includes('\u001B['), raw).toBe(expectEscapes);
+		expect(raw).toContain('Step 1 of 9');
 	});
 });

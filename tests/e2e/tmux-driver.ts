@@ -19,6 +19,11 @@ export class TmuxSession {
 		return spawnSync('tmux', ['-L', this.socket, 'capture-pane', '-p'], {encoding: 'utf8'}).stdout ?? '';
 	}
 
+	/** The screen with its colour and attribute escapes, as the terminal holds it. */
+	rawScreen(): string {
+		return spawnSync('tmux', ['-L', this.socket, 'capture-pane', '-p', '-e'], {encoding: 'utf8'}).stdout ?? '';
+	}
+
 	/** Types literal text (no key names), as a paste would. */
 	type(text: string): void {
 		execFileSync('tmux', ['-L', this.socket, 'send-keys', '-l', text]);
