@@ -1,6 +1,7 @@
 import {runAudit} from './commands/audit.js';
 import {runCalc} from './commands/calc.js';
-import {runCheck, type Io} from './commands/check.js';
+import {runCheck} from './commands/check.js';
+import type {Io} from './io.js';
 import {helpTexts} from './commands/help.js';
 import {runKeys} from './commands/keys.js';
 import {runPlan} from './commands/plan.js';
@@ -8,7 +9,7 @@ import {runReport} from './commands/report.js';
 import {runRules} from './commands/rules.js';
 import {formatProblem} from '../shared/problems.js';
 import {isInteractive, startScreens} from './screens.js';
-import {didYouMean} from '../rules/names.js';
+import {didYouMean} from '../shared/did-you-mean.js';
 import {UsageError} from './usage-error.js';
 import {version} from '../shared/version.js';
 

@@ -17,9 +17,7 @@ import {helpTexts} from './help.js';
 import {signAndWrite} from '../../services/sign-check.js';
 import {terminalSafeJson} from '../../shared/text.js';
 import {isInteractive, startScreens} from '../screens.js';
-
-/** Where a command writes; tests pass their own. */
-export type Io = {stdout: NodeJS.WriteStream; stderr: NodeJS.WriteStream; env: NodeJS.ProcessEnv; stdin?: {isTTY?: boolean}};
+import type {Io} from '../io.js';
 
 /** `prelase check --answers FILE [--rules FILE] [--json]`: returns the exit status. */
 export function runCheck(args: string[], io: Io): number | Promise<number> {

@@ -7,7 +7,7 @@ import {isoWithOffset} from '../../records/sign.js';
 import {openSettings} from '../../services/settings.js';
 import {stripControl} from '../../shared/text.js';
 import {UsageError} from '../usage-error.js';
-import type {Io} from './check.js';
+import type {Io} from '../io.js';
 import {helpTexts} from './help.js';
 
 /** `prelase keys [export|trust|list|forget]`: returns the exit status. */

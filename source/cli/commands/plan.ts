@@ -15,7 +15,7 @@ import {stripControl, terminalSafeJson} from '../../shared/text.js';
 import {deferral} from '../../shared/deferral.js';
 import {interlockTestCaution} from '../../interlock/functional-test/test-record.js';
 import {UsageError} from '../usage-error.js';
-import type {Io} from './check.js';
+import type {Io} from '../io.js';
 import {helpTexts} from './help.js';
 import {editPlan} from './plan-screen.js';
 
