@@ -6,7 +6,7 @@ import {main} from '../../source/cli/dispatch.js';
 import {auditRecords, type AuditReport, type RecordAudit} from '../../source/audit/audit.js';
 import {listRecordFiles} from '../../source/audit/audit-files.js';
 import {relateRecords} from '../../source/audit/audit-history.js';
-import {KeyCache, bytesToVerify, checkIntegrity} from '../../source/audit/audit-integrity.js';
+import {KeyCache, bytesToVerify, checkIntegrity} from '../../source/records/integrity.js';
 import {canonicalBytes} from '../../source/records/canonical.js';
 import {bodySha256} from '../../source/services/build-body.js';
 import {operatorKey, ownFingerprint} from '../../source/records/key-store.js';
