@@ -1,5 +1,5 @@
 import {basename} from 'node:path';
-import {buildRecordBody} from './build-body.js';
+import {buildRecordBody} from '../records/build-body.js';
 import {keyFromFile, operatorKey} from '../records/key-store.js';
 import {fingerprint, rawPublicKey, shortFingerprint} from '../records/keys.js';
 import {readRecord} from '../records/read-record.js';

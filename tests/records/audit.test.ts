@@ -8,7 +8,7 @@ import {listRecordFiles} from '../../source/audit/audit-files.js';
 import {relateRecords} from '../../source/audit/audit-history.js';
 import {KeyCache, bytesToVerify, checkIntegrity} from '../../source/records/integrity.js';
 import {canonicalBytes} from '../../source/records/canonical.js';
-import {bodySha256} from '../../source/services/build-body.js';
+import {bodySha256} from '../../source/records/build-body.js';
 import {operatorKey, ownFingerprint} from '../../source/records/key-store.js';
 import {fingerprint, generateKeyPair, rawPublicKey} from '../../source/records/keys.js';
 import {readRecord} from '../../source/records/read-record.js';
