@@ -11,7 +11,7 @@ import type {Answers} from '../../rules/answers.js';
 import type {CompiledRules} from '../../rules/compiled-rules.js';
 import {recordsFolder, trustedFingerprints} from '../../services/records-folder.js';
 import {dirname} from 'node:path';
-import {UsageError} from '../usage-error.js';
+import {UsageError, valueOrUsageError} from '../usage-error.js';
 import {checkText} from '../../render/check-text.js';
 import {helpTexts} from './help.js';
 import {signAndWrite} from '../../services/sign-check.js';
@@ -82,7 +82,8 @@ function finishCheck(rules: CompiledRules, linked: {answers: Answers; link: Inte
 	const written =
 		values.sign === undefined
 			? undefined
-			: signAndWrite(
+			: valueOrUsageError(
+					signAndWrite(
 					rules,
 					linked.answers,
 					evaluation,
@@ -98,6 +99,7 @@ function finishCheck(rules: CompiledRules, linked: {answers: Answers; link: Inte
 					},
 					io.env,
 					linked.link,
+				),
 				);
 	if (values.json) {
 		const json = {...evaluationToJson(rules, linked.answers, evaluation), ...(linked.link ? {interlockTest: linked.link} : {}), ...(written ? {record: {path: written.path, fingerprint: written.fingerprint}} : {})};

@@ -6,7 +6,7 @@ import {fingerprint, rawPublicKey, shortFingerprint} from '../../records/keys.js
 import {isoWithOffset} from '../../records/sign.js';
 import {openSettings} from '../../services/settings.js';
 import {stripControl} from '../../shared/text.js';
-import {UsageError} from '../usage-error.js';
+import {UsageError, valueOrUsageError} from '../usage-error.js';
 import type {Io} from '../io.js';
 import {helpTexts} from './help.js';
 
@@ -21,12 +21,12 @@ export function runKeys(args: string[], io: Io): number {
 	const settings = openSettings(io.env);
 	switch (action) {
 		case 'show': {
-			const {privateKey, created, path} = operatorKey(settings.folder, true);
+			const {privateKey, created, path} = valueOrUsageError(operatorKey(settings.folder, true));
 			io.stdout.write(`${created ? 'Created your signing key' : 'Your signing key'}: ${path}\nFingerprint: ${shortFingerprint(fingerprint(rawPublicKey(privateKey)))} (${fingerprint(rawPublicKey(privateKey))})\n`);
 			return 0;
 		}
 		case 'export': {
-			const {privateKey} = operatorKey(settings.folder, true);
+			const {privateKey} = valueOrUsageError(operatorKey(settings.folder, true));
 			io.stdout.write(publicKeyPem(privateKey));
 			return 0;
 		}
