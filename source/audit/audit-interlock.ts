@@ -8,7 +8,7 @@ import {policyFromRecord, testOutcome} from '../interlock/functional-test/test-r
 import {testSheet} from '../interlock/functional-test/test-sheet.js';
 import {formatProblem} from '../shared/problems.js';
 import type {CompiledRules} from '../rules/compiled-rules.js';
-import {isoWithOffset} from '../records/sign.js';
+import {isoWithOffset} from '../shared/iso-time.js';
 import {finding, type Finding} from '../records/findings.js';
 import type {InterlockTestBody} from '../records/record-schema.js';
 

@@ -5,7 +5,7 @@ import type {Evaluation} from '../rules/evaluation.js';
 import {evaluationToJson} from '../rules/evaluation-json.js';
 import {canonicalBytes} from './canonical.js';
 import {recordBodySchema, type AnyBody, type RecordBody} from './record-schema.js';
-import {isoWithOffset} from './sign.js';
+import {isoWithOffset} from '../shared/iso-time.js';
 import {displayPath} from '../shared/display-path.js';
 
 /** A correction: the record it corrects (file name and body hash) and why. */

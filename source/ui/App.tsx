@@ -9,7 +9,7 @@ import {listSetups, loadSetup, saveSetup} from '../services/drafts/setup-store.j
 import {displayPath} from '../shared/display-path.js';
 import {openPlanForEditing, planEditingFromText, planEditingText, type PlanEditing} from '../interlock/plan/plan-edit.js';
 import {loadPlanDraft, removePlanDraft, savePlanDraft} from '../services/drafts/plan-draft-store.js';
-import {isoWithOffset} from '../records/sign.js';
+import {isoWithOffset} from '../shared/iso-time.js';
 import {describeProblem, formatProblem} from '../shared/problems.js';
 import type {CompiledRules} from '../rules/compiled-rules.js';
 import type {SettingsStore} from '../services/settings.js';

@@ -3,7 +3,7 @@ import {createPublicKey} from 'node:crypto';
 import {parseArgs} from 'node:util';
 import {operatorKey, ownFingerprint, publicKeyPem, readTrusted, writeTrusted} from '../../records/key-store.js';
 import {fingerprint, rawPublicKey, shortFingerprint} from '../../records/keys.js';
-import {isoWithOffset} from '../../records/sign.js';
+import {isoWithOffset} from '../../shared/iso-time.js';
 import {openSettings} from '../../services/settings.js';
 import {stripControl} from '../../shared/text.js';
 import {UsageError, valueOrUsageError} from '../usage-error.js';
