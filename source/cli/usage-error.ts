@@ -18,9 +18,5 @@ export class UsageError extends Error {
 export function valueOrUsageError<T>(result: Result<T, Problem>): T {
 	if (result.ok) return result.value;
 	const headline = result.errors.at(-1);
-	return throwUsage(headline ? describeProblem(headline) : 'refused', result.errors.slice(0, -1));
-}
-
-function throwUsage(message: string, problems: readonly Problem[]): never {
-	throw new UsageError(message, problems);
+	throw new UsageError(headline ? describeProblem(headline) : 'refused', result.errors.slice(0, -1));
 }

@@ -84,22 +84,22 @@ function finishCheck(rules: CompiledRules, linked: {answers: Answers; link: Inte
 			? undefined
 			: valueOrUsageError(
 					signAndWrite(
-					rules,
-					linked.answers,
-					evaluation,
-					{
-						name: values.sign,
-						...(values.role === undefined ? {} : {role: values.role}),
-						...(values.records === undefined ? {} : {records: values.records}),
-						...(values.amends === undefined ? {} : {amends: values.amends}),
-						...(values.reason === undefined ? {} : {reason: values.reason}),
-						...(values.cosign === undefined
-							? {}
-							: {cosign: {name: values.cosign, key: values['cosign-key']!, meaning: values['cosign-meaning'] ?? 'verified', ...(values['cosign-role'] === undefined ? {} : {role: values['cosign-role']})}}),
-					},
-					io.env,
-					linked.link,
-				),
+						rules,
+						linked.answers,
+						evaluation,
+						{
+							name: values.sign,
+							...(values.role === undefined ? {} : {role: values.role}),
+							...(values.records === undefined ? {} : {records: values.records}),
+							...(values.amends === undefined ? {} : {amends: values.amends}),
+							...(values.reason === undefined ? {} : {reason: values.reason}),
+							...(values.cosign === undefined
+								? {}
+								: {cosign: {name: values.cosign, key: values['cosign-key']!, meaning: values['cosign-meaning'] ?? 'verified', ...(values['cosign-role'] === undefined ? {} : {role: values['cosign-role']})}}),
+						},
+						io.env,
+						linked.link,
+					),
 				);
 	if (values.json) {
 		const json = {...evaluationToJson(rules, linked.answers, evaluation), ...(linked.link ? {interlockTest: linked.link} : {}), ...(written ? {record: {path: written.path, fingerprint: written.fingerprint}} : {})};
