@@ -1,6 +1,7 @@
 import {runAudit} from './commands/audit.js';
 import {runCalc} from './commands/calc.js';
-import {runCheck, type Io} from './commands/check.js';
+import {runCheck} from './commands/check.js';
+import type {Io} from './io.js';
 import {helpTexts} from './commands/help.js';
 import {runKeys} from './commands/keys.js';
 import {runPlan} from './commands/plan.js';
@@ -8,8 +9,9 @@ import {runReport} from './commands/report.js';
 import {runRules} from './commands/rules.js';
 import {formatProblem} from '../shared/problems.js';
 import {isInteractive, startScreens} from './screens.js';
-import {didYouMean} from '../rules/names.js';
+import {didYouMean} from '../shared/did-you-mean.js';
 import {UsageError} from './usage-error.js';
+import {ProblemError} from '../shared/problem-error.js';
 import {version} from '../shared/version.js';
 
 const commands: Record<string, (args: string[], io: Io) => number | Promise<number>> = {check: runCheck, calc: runCalc, rules: runRules, keys: runKeys, report: runReport, audit: runAudit, plan: runPlan};
@@ -62,6 +64,10 @@ function isArgumentError(error: unknown): error is Error & {code: string} {
 function report(error: unknown, io: Io): number {
 	if (error instanceof UsageError) {
 		for (const found of error.problems) io.stderr.write(`${formatProblem(found)}\n`);
+		io.stderr.write(`prelase: ${error.message}\n`);
+		return 2;
+	}
+	if (error instanceof ProblemError) {
 		io.stderr.write(`prelase: ${error.message}\n`);
 		return 2;
 	}

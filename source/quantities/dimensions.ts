@@ -50,3 +50,8 @@ export const dimensionNames = Object.keys(dimensions) as [Dimension, ...Dimensio
 export function isDimension(name: string): name is Dimension {
 	return Object.hasOwn(dimensions, name);
 }
+
+/** The noun and example of a dimension, to fill entry messages. */
+export function dimensionWords(dimension: keyof typeof dimensions) {
+	return {noun: dimensions[dimension].noun, example: dimensions[dimension].example};
+}

@@ -9,8 +9,8 @@ import {listSetups, loadSetup, saveSetup} from '../services/drafts/setup-store.j
 import {displayPath} from '../shared/display-path.js';
 import {openPlanForEditing, planEditingFromText, planEditingText, type PlanEditing} from '../interlock/plan/plan-edit.js';
 import {loadPlanDraft, removePlanDraft, savePlanDraft} from '../services/drafts/plan-draft-store.js';
-import {isoWithOffset} from '../records/sign.js';
-import {formatProblem} from '../shared/problems.js';
+import {isoWithOffset} from '../shared/iso-time.js';
+import {describeProblem, formatProblem} from '../shared/problems.js';
 import type {CompiledRules} from '../rules/compiled-rules.js';
 import type {SettingsStore} from '../services/settings.js';
 import {stripControl} from '../shared/text.js';
@@ -160,30 +160,31 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 	};
 
 	const sign = (form: SignOffForm) => {
-		try {
-			const named = nameSetup(session, form.setup);
-			setSession(named);
-			const result = signAndWrite(
-				rules,
-				named.answers,
-				named.evaluation,
-				{
-					name: form.name,
-					role: form.role,
-					...(form.cosignName.trim() ? {cosign: {name: form.cosignName, role: form.cosignRole, key: form.cosignKey.trim(), meaning: 'verified'}} : {}),
-				},
-				env,
-				named.interlockTest,
-			);
-			settings.write({operator: form.name.trim(), role: form.role.trim()});
-			removeDraft(settings.folder);
-			setDraft(undefined);
-			setWritten({path: result.path, fingerprint: result.fingerprint});
-			setSignError(undefined);
-			setScreen('done');
-		} catch (error) {
-			setSignError((error as Error).message);
+		const named = nameSetup(session, form.setup);
+		setSession(named);
+		const result = signAndWrite(
+			rules,
+			named.answers,
+			named.evaluation,
+			{
+				name: form.name,
+				role: form.role,
+				...(form.cosignName.trim() ? {cosign: {name: form.cosignName, role: form.cosignRole, key: form.cosignKey.trim(), meaning: 'verified'}} : {}),
+			},
+			env,
+			named.interlockTest,
+		);
+		// A mistake in the form comes back as a failure and is shown on the form; anything thrown is a bug and propagates.
+		if (!result.ok) {
+			setSignError(describeProblem(result.errors.at(-1)!));
+			return;
 		}
+		settings.write({operator: form.name.trim(), role: form.role.trim()});
+		removeDraft(settings.folder);
+		setDraft(undefined);
+		setWritten({path: result.value.path, fingerprint: result.value.fingerprint});
+		setSignError(undefined);
+		setScreen('done');
 	};
 
 	const header = (

@@ -9,7 +9,7 @@ import {loadRules, shippedRulesPath} from '../../rules/load.js';
 import {openSettings} from '../../services/settings.js';
 import {terminalSafeJson} from '../../shared/text.js';
 import {UsageError} from '../usage-error.js';
-import type {Io} from './check.js';
+import type {Io} from '../io.js';
 import {helpTexts} from './help.js';
 
 /** Records audited before a progress line is worth showing. */

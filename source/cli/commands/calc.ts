@@ -5,11 +5,11 @@ import {describeCalcProblem, runCalculation} from '../../calculations/run-calcul
 import {dimensions} from '../../quantities/dimensions.js';
 import {formatQuantity} from '../../quantities/format.js';
 import {problem} from '../../shared/problems.js';
-import {didYouMean} from '../../rules/names.js';
+import {didYouMean} from '../../shared/did-you-mean.js';
 import {UsageError} from '../usage-error.js';
 import {terminalSafeJson} from '../../shared/text.js';
 import {definitionRow, wrap} from '../../shared/wrap.js';
-import type {Io} from './check.js';
+import type {Io} from '../io.js';
 import {helpTexts} from './help.js';
 
 /** The list printed by `prelase calc` alone. */

@@ -11,15 +11,13 @@ import type {Answers} from '../../rules/answers.js';
 import type {CompiledRules} from '../../rules/compiled-rules.js';
 import {recordsFolder, trustedFingerprints} from '../../services/records-folder.js';
 import {dirname} from 'node:path';
-import {UsageError} from '../usage-error.js';
+import {UsageError, valueOrUsageError} from '../usage-error.js';
 import {checkText} from '../../render/check-text.js';
 import {helpTexts} from './help.js';
 import {signAndWrite} from '../../services/sign-check.js';
 import {terminalSafeJson} from '../../shared/text.js';
 import {isInteractive, startScreens} from '../screens.js';
-
-/** Where a command writes; tests pass their own. */
-export type Io = {stdout: NodeJS.WriteStream; stderr: NodeJS.WriteStream; env: NodeJS.ProcessEnv; stdin?: {isTTY?: boolean}};
+import type {Io} from '../io.js';
 
 /** `prelase check --answers FILE [--rules FILE] [--json]`: returns the exit status. */
 export function runCheck(args: string[], io: Io): number | Promise<number> {
@@ -84,22 +82,24 @@ function finishCheck(rules: CompiledRules, linked: {answers: Answers; link: Inte
 	const written =
 		values.sign === undefined
 			? undefined
-			: signAndWrite(
-					rules,
-					linked.answers,
-					evaluation,
-					{
-						name: values.sign,
-						...(values.role === undefined ? {} : {role: values.role}),
-						...(values.records === undefined ? {} : {records: values.records}),
-						...(values.amends === undefined ? {} : {amends: values.amends}),
-						...(values.reason === undefined ? {} : {reason: values.reason}),
-						...(values.cosign === undefined
-							? {}
-							: {cosign: {name: values.cosign, key: values['cosign-key']!, meaning: values['cosign-meaning'] ?? 'verified', ...(values['cosign-role'] === undefined ? {} : {role: values['cosign-role']})}}),
-					},
-					io.env,
-					linked.link,
+			: valueOrUsageError(
+					signAndWrite(
+						rules,
+						linked.answers,
+						evaluation,
+						{
+							name: values.sign,
+							...(values.role === undefined ? {} : {role: values.role}),
+							...(values.records === undefined ? {} : {records: values.records}),
+							...(values.amends === undefined ? {} : {amends: values.amends}),
+							...(values.reason === undefined ? {} : {reason: values.reason}),
+							...(values.cosign === undefined
+								? {}
+								: {cosign: {name: values.cosign, key: values['cosign-key']!, meaning: values['cosign-meaning'] ?? 'verified', ...(values['cosign-role'] === undefined ? {} : {role: values['cosign-role']})}}),
+						},
+						io.env,
+						linked.link,
+					),
 				);
 	if (values.json) {
 		const json = {...evaluationToJson(rules, linked.answers, evaluation), ...(linked.link ? {interlockTest: linked.link} : {}), ...(written ? {record: {path: written.path, fingerprint: written.fingerprint}} : {})};

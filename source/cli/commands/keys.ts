@@ -3,11 +3,11 @@ import {createPublicKey} from 'node:crypto';
 import {parseArgs} from 'node:util';
 import {operatorKey, ownFingerprint, publicKeyPem, readTrusted, writeTrusted} from '../../records/key-store.js';
 import {fingerprint, rawPublicKey, shortFingerprint} from '../../records/keys.js';
-import {isoWithOffset} from '../../records/sign.js';
+import {isoWithOffset} from '../../shared/iso-time.js';
 import {openSettings} from '../../services/settings.js';
 import {stripControl} from '../../shared/text.js';
-import {UsageError} from '../usage-error.js';
-import type {Io} from './check.js';
+import {UsageError, valueOrUsageError} from '../usage-error.js';
+import type {Io} from '../io.js';
 import {helpTexts} from './help.js';
 
 /** `prelase keys [export|trust|list|forget]`: returns the exit status. */
@@ -21,12 +21,12 @@ export function runKeys(args: string[], io: Io): number {
 	const settings = openSettings(io.env);
 	switch (action) {
 		case 'show': {
-			const {privateKey, created, path} = operatorKey(settings.folder, true);
+			const {privateKey, created, path} = valueOrUsageError(operatorKey(settings.folder, true));
 			io.stdout.write(`${created ? 'Created your signing key' : 'Your signing key'}: ${path}\nFingerprint: ${shortFingerprint(fingerprint(rawPublicKey(privateKey)))} (${fingerprint(rawPublicKey(privateKey))})\n`);
 			return 0;
 		}
 		case 'export': {
-			const {privateKey} = operatorKey(settings.folder, true);
+			const {privateKey} = valueOrUsageError(operatorKey(settings.folder, true));
 			io.stdout.write(publicKeyPem(privateKey));
 			return 0;
 		}

@@ -14,8 +14,8 @@ import {formatProblem} from '../../shared/problems.js';
 import {stripControl, terminalSafeJson} from '../../shared/text.js';
 import {deferral} from '../../shared/deferral.js';
 import {interlockTestCaution} from '../../interlock/functional-test/test-record.js';
-import {UsageError} from '../usage-error.js';
-import type {Io} from './check.js';
+import {UsageError, valueOrUsageError} from '../usage-error.js';
+import type {Io} from '../io.js';
 import {helpTexts} from './help.js';
 import {editPlan} from './plan-screen.js';
 
@@ -90,7 +90,7 @@ export function runPlan(args: string[], io: Io): number | Promise<number> {
 		return 0;
 	}
 	if (values['record-test'] !== undefined) {
-		const recorded = recordTest(plan, file, text, rules.value, {results: values['record-test'], records: values.records, witnessKey: values['witness-key']}, io.env);
+		const recorded = valueOrUsageError(recordTest(plan, file, text, rules.value, {results: values['record-test'], records: values.records, witnessKey: values['witness-key']}, io.env));
 		const verdict = recorded.outcome === 'passed' ? 'PASSED' : 'FAILED';
 		io.stdout.write(
 			[

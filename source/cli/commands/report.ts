@@ -9,7 +9,7 @@ import {reportMarkdown} from '../../render/report-markdown.js';
 import {openSettings} from '../../services/settings.js';
 import {stripControl} from '../../shared/text.js';
 import {UsageError} from '../usage-error.js';
-import type {Io} from './check.js';
+import type {Io} from '../io.js';
 import {helpTexts} from './help.js';
 
 const writers = {md: reportMarkdown, html: reportHtml} as const;

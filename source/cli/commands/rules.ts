@@ -12,7 +12,7 @@ import {siteFileSchema} from '../../rules/site-schema.js';
 import {openSettings} from '../../services/settings.js';
 import {terminalSafeJson} from '../../shared/text.js';
 import {UsageError} from '../usage-error.js';
-import type {Io} from './check.js';
+import type {Io} from '../io.js';
 import {helpTexts} from './help.js';
 import {diffText} from '../../render/rules-diff-text.js';
 import {showText} from '../../render/rules-show-text.js';

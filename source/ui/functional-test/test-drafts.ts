@@ -1,5 +1,5 @@
 import {loadTestDraft, removeTestDraft, saveTestDraft, setTestDraftAside} from '../../services/drafts/test-draft-store.js';
-import {isoWithOffset} from '../../records/sign.js';
+import {isoWithOffset} from '../../shared/iso-time.js';
 import {resumeTestEntry, type TestEntry} from './test-entry.js';
 
 /** Where the planner keeps the entries of a test in progress, so that a crash or Ctrl-C loses none. */
