@@ -1,7 +1,6 @@
 import {parseArgs} from 'node:util';
 import {analysePlan} from '../../interlock/analysis/analyse.js';
-import {toJSONSchema} from 'zod';
-import {loadPlanAndText} from '../../interlock/plan/plan-in-force.js';
+import {loadPlanAndText} from '../../interlock/plan/plan-and-text.js';
 import {planSchema} from '../../interlock/plan/plan-schema.js';
 import {testResultsSchema} from '../../interlock/functional-test/results-schema.js';
 import {rulesInForce} from '../../services/rules-in-force.js';
@@ -11,6 +10,7 @@ import {testSheetHtml} from '../../render/test-sheet-html.js';
 import {testSheetMarkdown} from '../../render/test-sheet-markdown.js';
 import {recordTest} from '../../services/record-functional-test.js';
 import {formatProblem} from '../../shared/problems.js';
+import {editorJsonSchema} from '../../shared/json-schema.js';
 import {stripControl, terminalSafeJson} from '../../shared/text.js';
 import {deferral} from '../../shared/deferral.js';
 import {interlockTestCaution} from '../../interlock/functional-test/test-record.js';
@@ -21,19 +21,10 @@ import {editPlan} from './plan-screen.js';
 
 const sheetWriters = {md: testSheetMarkdown, html: testSheetHtml};
 
-/** A value with its unit is checked by prelase's own parser; to an editor it is text (or a bare number). */
-const jsonSchemaOptions = {
-	io: 'input',
-	unrepresentable: 'any',
-	override(context: {zodSchema: {_zod: {def: {type: string}}}; jsonSchema: Record<string, unknown>}) {
-		if (context.zodSchema._zod.def.type === 'custom') context.jsonSchema['type'] = ['string', 'number'];
-	},
-} as const;
-
 /** JSON Schemas of the files the planner reads, for editors. */
 const schemas = {
-	plan: () => ({title: 'prelase interlock plan', ...toJSONSchema(planSchema, jsonSchemaOptions)}),
-	results: () => ({title: 'prelase interlock test results', ...toJSONSchema(testResultsSchema, jsonSchemaOptions)}),
+	plan: () => editorJsonSchema('prelase interlock plan', planSchema),
+	results: () => editorJsonSchema('prelase interlock test results', testResultsSchema),
 };
 
 /**

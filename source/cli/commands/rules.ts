@@ -1,14 +1,12 @@
 import {writeFileSync} from 'node:fs';
 import {parseArgs} from 'node:util';
-import {toJSONSchema} from 'zod';
 import {formatProblem} from '../../shared/problems.js';
 import type {CompiledRules} from '../../rules/compiled-rules.js';
 import {diffRules} from '../../rules/diff.js';
 import {siteFileTemplate} from '../../rules/init-template.js';
 import {loadRules, shippedRulesPath} from '../../rules/load.js';
-import {ruleFileSchema} from '../../rules/schema.js';
+import {ruleFileJsonSchema, siteFileJsonSchema} from '../../rules/rule-json-schema.js';
 import {showRules} from '../../rules/show.js';
-import {siteFileSchema} from '../../rules/site-schema.js';
 import {openSettings} from '../../services/settings.js';
 import {terminalSafeJson} from '../../shared/text.js';
 import {UsageError} from '../usage-error.js';
@@ -16,31 +14,6 @@ import type {Io} from '../io.js';
 import {helpTexts} from './help.js';
 import {diffText} from '../../render/rules-diff-text.js';
 import {showText} from '../../render/rules-show-text.js';
-
-/** Removes `kind` from the required fields of quantity inputs, as the loader allows. */
-function relaxKind(node: unknown): void {
-	if (!node || typeof node !== 'object') return;
-	const record = node as Record<string, unknown>;
-	const properties = record['properties'] as Record<string, {const?: unknown}> | undefined;
-	if (properties?.['kind']?.const === 'quantity' && Array.isArray(record['required'])) {
-		record['required'] = (record['required'] as string[]).filter((key) => key !== 'kind');
-	}
-	for (const value of Object.values(record)) relaxKind(value);
-}
-
-/** The JSON Schema of rule files, with `kind` optional on quantity inputs as the loader allows. */
-export function ruleFileJsonSchema(): Record<string, unknown> {
-	const schema = toJSONSchema(ruleFileSchema, {io: 'input', unrepresentable: 'any'}) as Record<string, unknown>;
-	relaxKind(schema);
-	return {title: 'prelase rule file', ...schema};
-}
-
-/** The JSON Schema of site rule files (those with `extends`). */
-export function siteFileJsonSchema(): Record<string, unknown> {
-	const schema = toJSONSchema(siteFileSchema, {io: 'input', unrepresentable: 'any'}) as Record<string, unknown>;
-	relaxKind(schema);
-	return {title: 'prelase site rule file (extends a base)', ...schema};
-}
 
 /** A rule file named on the command line: `shipped` is the shipped policy. */
 function ruleFileArgument(name: string): string {

@@ -1,5 +1,5 @@
 import {recordTestResults, type PlanAsTested, type RecordedTest} from '../../services/record-functional-test.js';
-import {loadPlanAndText} from '../../interlock/plan/plan-in-force.js';
+import {loadPlanAndText} from '../../interlock/plan/plan-and-text.js';
 import type {TestResults} from '../../interlock/functional-test/results-schema.js';
 import {describeProblem, formatProblem} from '../../shared/problems.js';
 import type {CompiledRules} from '../../rules/compiled-rules.js';
