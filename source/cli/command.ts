@@ -66,7 +66,10 @@ export function commandHelp(command: Pick<Command, 'options' | 'help'>): string 
 	return [command.help.intro, optionsHelp(command.options), ...(command.help.notes === undefined ? [] : [command.help.notes])].join('\n\n');
 }
 
-/** Every spelling of a command's options, for did-you-mean: `--rules`, `-h`. */
+/**
+ * The long spellings of a command's options, for did-you-mean (`--rules`). Short letters are left
+ * out: every unknown letter is one edit from each of them, so guessing one would be noise.
+ */
 export function optionSpellings(options: OptionSpecs): string[] {
-	return Object.entries(options).flatMap(([name, spec]) => [`--${name}`, ...(spec.short === undefined ? [] : [`-${spec.short}`])]);
+	return Object.keys(options).map((name) => `--${name}`);
 }

@@ -81,6 +81,13 @@ describe('did-you-mean comes from the declared commands and options', () => {
 		expect(code).toBe(2);
 		expect(stderr).toContain(says);
 	});
+
+	it('offers no guess for an unknown short letter (any letter is one edit from -h)', () => {
+		const {code, stderr} = run('check', '-x');
+		expect(code).toBe(2);
+		expect(stderr).toContain('unknown option -x for prelase check');
+		expect(stderr).not.toContain('did you mean');
+	});
 });
 
 describe('the main help lists every command with its usage', () => {
