@@ -7,14 +7,18 @@ import {isoWithOffset} from '../../shared/iso-time.js';
 import {openSettings} from '../../services/settings.js';
 import {stripControl} from '../../shared/text.js';
 import {UsageError, valueOrUsageError} from '../usage-error.js';
-import type {Io} from '../io.js';
-import {helpTexts} from './help.js';
+import {commandHelp, helpOption, parseOptions, type Command, type Io} from '../command.js';
+
+const options = {
+	name: {type: 'string', value: 'NAME', summary: 'With trust: the name the colleague\'s key is trusted under'},
+	help: helpOption,
+} as const;
 
 /** `prelase keys [export|trust|list|forget]`: returns the exit status. */
 export function runKeys(args: string[], io: Io): number {
-	const {values, positionals} = parseArgs({args, options: {name: {type: 'string'}, help: {type: 'boolean', short: 'h'}}, allowPositionals: true, strict: true});
+	const {values, positionals} = parseArgs({args, options: parseOptions(options), allowPositionals: true, strict: true});
 	if (values.help) {
-		io.stdout.write(`${helpTexts.keys}\n`);
+		io.stdout.write(`${commandHelp(keysCommand)}\n`);
 		return 0;
 	}
 	const [action = 'show', ...rest] = positionals;
@@ -68,3 +72,24 @@ export function runKeys(args: string[], io: Io): number {
 			throw new UsageError(`unknown keys action "${action}"; use export, trust, list or forget (prelase keys --help)`);
 	}
 }
+
+export const keysCommand: Command = {
+	name: 'keys',
+	summary: 'Your signing key, and the colleagues\' keys you trust',
+	usage: 'prelase keys [export | trust FILE --name NAME | list | forget NAME]',
+	options,
+	help: {
+		intro: `prelase keys — signing keys
+
+Usage:
+  prelase keys                          Show your key's fingerprint (create the key on first use)
+  prelase keys export                   Print your public key (PEM) to give to colleagues
+  prelase keys trust FILE --name NAME   Trust a colleague's public key (PEM file)
+  prelase keys list                     List your key and the keys you trust
+  prelase keys forget NAME              Stop trusting a colleague's key
+
+Keys live in the settings folder (PRELASE_HOME overrides it), readable only by you; a private
+key file that others can read is refused.`,
+	},
+	run: runKeys,
+};
