@@ -3,8 +3,8 @@ import {formatQuantity} from '../quantities/format.js';
 import type {CompiledRules} from '../rules/compiled-rules.js';
 import {outcomeWords, type Evaluation, type Shown, type Verdict} from '../rules/evaluation.js';
 import type {RecordAnswers} from './audit-answers.js';
-import {finding, type Finding} from './audit-findings.js';
-import {setupFingerprint} from '../services/build-body.js';
+import {finding, type Finding} from '../records/findings.js';
+import {setupFingerprint} from '../records/build-body.js';
 import type {RecordBody} from '../records/record-schema.js';
 
 type RecordedShown = {si: number; text: string} | undefined;

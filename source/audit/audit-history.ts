@@ -1,4 +1,4 @@
-import {finding, type Finding} from './audit-findings.js';
+import {finding, type Finding} from '../records/findings.js';
 
 /** What the audit keeps of an authentic record to relate it to the others. */
 export type HistoryEntry = {

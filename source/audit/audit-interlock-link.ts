@@ -1,7 +1,7 @@
 import {compareTests, instantOf, normaliseLocation} from '../interlock/functional-test/test-choice.js';
-import {describeFinding, finding, type Finding} from './audit-findings.js';
+import {describeFinding, finding, type Finding} from '../records/findings.js';
 import type {InterlockTestSummary} from './audit-interlock.js';
-import type {RecordSummary} from './audit.js';
+import type {RecordSummary} from './record-summary.js';
 
 /** What linkInterlockTests reads and adds to of each record's audit. */
 type Audited = {file: string; authentic: boolean; bodySha256: string | null; record: RecordSummary | null; interlockTest: InterlockTestSummary | null; notChecked: Array<{item: string; text: string}>; findings: Finding[]};

@@ -8,8 +8,8 @@ import {policyFromRecord, testOutcome} from '../interlock/functional-test/test-r
 import {testSheet} from '../interlock/functional-test/test-sheet.js';
 import {formatProblem} from '../shared/problems.js';
 import type {CompiledRules} from '../rules/compiled-rules.js';
-import {isoWithOffset} from '../records/sign.js';
-import {finding, type Finding} from './audit-findings.js';
+import {isoWithOffset} from '../shared/iso-time.js';
+import {finding, type Finding} from '../records/findings.js';
 import type {InterlockTestBody} from '../records/record-schema.js';
 
 /** The facts of an interlock test record an auditor reads first. */

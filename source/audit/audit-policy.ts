@@ -1,7 +1,7 @@
 import type {CompiledRules} from '../rules/compiled-rules.js';
 import {outcomeWords, type Evaluation, type Outcome, type Verdict} from '../rules/evaluation.js';
 import type {RecordAnswers, RefusedInput} from './audit-answers.js';
-import {finding, type Finding} from './audit-findings.js';
+import {finding, type Finding} from '../records/findings.js';
 import type {RecordBody} from '../records/record-schema.js';
 
 /** A check whose verdict would differ under the current rules (null: the check is not in that rule file). */

@@ -1,5 +1,5 @@
-import type {SignatureCheck} from './audit-integrity.js';
-import {finding, type Finding} from './audit-findings.js';
+import type {SignatureCheck} from '../records/integrity.js';
+import {finding, type Finding} from '../records/findings.js';
 import type {TrustedKey} from '../records/key-store.js';
 import type {AnyRecord, Signature} from '../records/record-schema.js';
 

@@ -3,16 +3,18 @@ import {formatProblem, type Problem} from '../shared/problems.js';
 import type {Result} from '../shared/result.js';
 import type {CompiledRules} from '../rules/compiled-rules.js';
 import {evaluate} from '../rules/evaluate.js';
-import type {Evaluation, Outcome} from '../rules/evaluation.js';
+import type {Evaluation} from '../rules/evaluation.js';
 import {loadRulesFromText} from '../rules/load.js';
 import {version} from '../shared/version.js';
 import {answersFromRecord, type RecordAnswers} from './audit-answers.js';
 import {consistencyFindings} from './audit-consistency.js';
-import {describeFinding, finding, notChecked, type Finding, type FindingKind} from './audit-findings.js';
+import {describeFinding, finding, type Finding, type FindingKind} from '../records/findings.js';
+import {notChecked} from './audit-findings.js';
 import {relateRecords, type History, type HistoryEntry} from './audit-history.js';
-import {KeyCache, readIntegrity} from './audit-integrity.js';
+import {KeyCache, readIntegrity} from '../records/integrity.js';
 import {interlockTestConsistency, interlockTestToday, summariseInterlockTest, type InterlockTestSummary} from './audit-interlock.js';
 import {linkInterlockTests} from './audit-interlock-link.js';
+import type {RecordSummary} from './record-summary.js';
 import {policyReport, type PolicyReport} from './audit-policy.js';
 import {signatureReports, type SignatureReport, type Trust} from './audit-trust.js';
 import type {RecordBody} from '../records/record-schema.js';
@@ -21,19 +23,7 @@ import {locationInput} from '../interlock/plan/plan-input.js';
 /** A finding with its message in words. */
 export type ReportedFinding = Finding & {text: string};
 
-/** The facts of a record an auditor reads first. */
-export type RecordSummary = {
-	createdAt: string;
-	tool: RecordBody['tool'];
-	operator: RecordBody['operator'];
-	setup: {name: string | null; fingerprint: string};
-	outcome: Outcome;
-	rules: {name: string; file: string; sha256: string};
-	/** The interlock test record the check's confirmations were answered from, if it named a plan. */
-	interlockTest: NonNullable<RecordBody['interlockTest']> | null;
-	/** Confirmations answered no or not applicable, with their notes: what an auditor reads closely. */
-	exceptions: Array<{id: string; statement: string; status: string; note?: string}>;
-};
+export type {RecordSummary} from './record-summary.js';
 
 /** Everything the audit found about one record file. */
 export type RecordAudit = {

@@ -2,8 +2,8 @@ import {dimensions} from '../quantities/dimensions.js';
 import {formatQuantity} from '../quantities/format.js';
 import {parseQuantity} from '../quantities/parse-quantity.js';
 import {describeProblem, problem, type Problem} from '../shared/problems.js';
-import {didYouMean} from '../rules/names.js';
-import {dimensionWords} from '../rules/collect-names.js';
+import {didYouMean} from '../shared/did-you-mean.js';
+import {dimensionWords} from '../quantities/dimensions.js';
 import {failure, success, type Result} from '../shared/result.js';
 import {CalculationInputError, checkAllowed, type Calculation} from './calculation.js';
 

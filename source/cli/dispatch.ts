@@ -1,18 +1,13 @@
-import {runAudit} from './commands/audit.js';
-import {runCalc} from './commands/calc.js';
-import {runCheck, type Io} from './commands/check.js';
-import {helpTexts} from './commands/help.js';
-import {runKeys} from './commands/keys.js';
-import {runPlan} from './commands/plan.js';
-import {runReport} from './commands/report.js';
-import {runRules} from './commands/rules.js';
+import {optionSpellings, type Command, type Io} from './command.js';
+import {commands, mainHelp} from './commands/help.js';
 import {formatProblem} from '../shared/problems.js';
 import {isInteractive, startScreens} from './screens.js';
-import {didYouMean} from '../rules/names.js';
+import {didYouMean} from '../shared/did-you-mean.js';
 import {UsageError} from './usage-error.js';
+import {ProblemError} from '../shared/problem-error.js';
 import {version} from '../shared/version.js';
 
-const commands: Record<string, (args: string[], io: Io) => number | Promise<number>> = {check: runCheck, calc: runCalc, rules: runRules, keys: runKeys, report: runReport, audit: runAudit, plan: runPlan};
+const byName = new Map(commands.map((command) => [command.name, command]));
 
 /** Runs the program with its arguments; returns the exit status. Never throws. */
 export function main(argv: string[], io: Io): number | Promise<number> {
@@ -20,7 +15,7 @@ export function main(argv: string[], io: Io): number | Promise<number> {
 		const [first, ...rest] = argv;
 		if (first === undefined && isInteractive(io)) return startScreens(io, {});
 		if (first === undefined || first === '--help' || first === '-h' || first === 'help') {
-			io.stdout.write(`${helpTexts.main}\n`);
+			io.stdout.write(`${mainHelp()}\n`);
 			if (first === undefined) io.stderr.write('prelase: the home screen needs a terminal; for scripts use prelase check --answers FILE\n');
 			return first === undefined ? 2 : 0;
 		}
@@ -29,13 +24,13 @@ export function main(argv: string[], io: Io): number | Promise<number> {
 			return 0;
 		}
 		if (first.startsWith('-')) throw new UsageError(`unknown option ${first}; options go after a command (prelase --help)`);
-		const command = Object.hasOwn(commands, first) ? commands[first] : undefined;
-		if (!command) throw new UsageError(`unknown command "${first}"${didYouMean(first, Object.keys(commands))}; commands are ${Object.keys(commands).join(', ')} (prelase --help)`);
+		const command = byName.get(first);
+		if (!command) throw new UsageError(`unknown command "${first}"${didYouMean(first, [...byName.keys()])}; commands are ${[...byName.keys()].join(', ')} (prelase --help)`);
 		try {
-			const result = command(rest, io);
+			const result = command.run(rest, io);
 			return typeof result === 'number' ? result : result.catch((error: unknown) => report(error, io));
 		} catch (error) {
-			if (isArgumentError(error)) throw new UsageError(argumentMessage(error, first));
+			if (isArgumentError(error)) throw new UsageError(argumentMessage(error, command));
 			throw error;
 		}
 	} catch (error) {
@@ -43,15 +38,13 @@ export function main(argv: string[], io: Io): number | Promise<number> {
 	}
 }
 
-/** Node's parseArgs message, shortened, with a "did you mean" from the command's own help text. */
-function argumentMessage(error: Error & {code: string}, command: string): string {
-	const help = (helpTexts as Record<string, string>)[command] ?? '';
+/** Node's parseArgs message, shortened, with a "did you mean" from the command's declared options. */
+function argumentMessage(error: Error & {code: string}, command: Command): string {
 	const unknown = /Unknown option '([^']+)'/.exec(error.message)?.[1];
 	if (error.code === 'ERR_PARSE_ARGS_UNKNOWN_OPTION' && unknown) {
-		const known = [...new Set(help.match(/--[a-z][a-z-]*/g) ?? [])];
-		return `unknown option ${unknown}${didYouMean(unknown, known)} for prelase ${command} (prelase ${command} --help)`;
+		return `unknown option ${unknown}${didYouMean(unknown, optionSpellings(command.options))} for prelase ${command.name} (prelase ${command.name} --help)`;
 	}
-	return `${error.message.split('. To specify')[0]} (prelase ${command} --help)`;
+	return `${error.message.split('. To specify')[0]} (prelase ${command.name} --help)`;
 }
 
 function isArgumentError(error: unknown): error is Error & {code: string} {
@@ -62,6 +55,10 @@ function isArgumentError(error: unknown): error is Error & {code: string} {
 function report(error: unknown, io: Io): number {
 	if (error instanceof UsageError) {
 		for (const found of error.problems) io.stderr.write(`${formatProblem(found)}\n`);
+		io.stderr.write(`prelase: ${error.message}\n`);
+		return 2;
+	}
+	if (error instanceof ProblemError) {
 		io.stderr.write(`prelase: ${error.message}\n`);
 		return 2;
 	}

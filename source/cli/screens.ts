@@ -1,4 +1,4 @@
-import type {Io} from './commands/check.js';
+import type {Io} from './io.js';
 
 /** True when both ends are a terminal, so the screens can run. */
 export function isInteractive(io: Io): boolean {

@@ -46,7 +46,7 @@ export type Dimension = keyof typeof dimensions;
 /** All dimension names, for schemas and help. */
 export const dimensionNames = Object.keys(dimensions) as [Dimension, ...Dimension[]];
 
-/** True when the text names a known dimension. */
-export function isDimension(name: string): name is Dimension {
-	return Object.hasOwn(dimensions, name);
+/** The noun and example of a dimension, to fill entry messages. */
+export function dimensionWords(dimension: keyof typeof dimensions) {
+	return {noun: dimensions[dimension].noun, example: dimensions[dimension].example};
 }

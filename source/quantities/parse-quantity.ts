@@ -3,7 +3,7 @@ import {describeValue} from './describe-value.js';
 import {hasUnitDimension, quantity} from './engine.js';
 import {siFromDecimal} from './exact-scale.js';
 import {normaliseEntry} from './normalise-entry.js';
-import {isQuantity, type Quantity} from './quantity.js';
+import {isQuantity} from './quantity.js';
 import {parseUnitExpression} from './units.js';
 
 /** Why an entry could not be read as a quantity of the expected dimension. */
@@ -19,11 +19,6 @@ export type QuantityProblem =
 export type ParsedQuantity = {si: number; dimension: Dimension; entered: string};
 
 const leadingNumber = /^[-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?/;
-
-/** Names the dimension of a value in words, for error messages. */
-export function describeDimension(value: Quantity | number): string {
-	return describeValue(value);
-}
 
 /**
  * True when a value (a quantity, or a plain number for ratio and number) has the given

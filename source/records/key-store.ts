@@ -3,7 +3,9 @@ import {createPrivateKey, createPublicKey, type KeyObject} from 'node:crypto';
 import {join} from 'node:path';
 // Named imports (not the z namespace) let the bundler leave out the parts of zod not used.
 import {array, object, string} from 'zod';
-import {UsageError} from '../cli/usage-error.js';
+import {problem, type Problem} from '../shared/problems.js';
+import {ProblemError} from '../shared/problem-error.js';
+import {failure, success, type Result} from '../shared/result.js';
 import {fingerprint, generateKeyPair, rawPublicKey} from './keys.js';
 
 /** A colleague's public key that this operator trusts. */
@@ -17,41 +19,43 @@ export function keyFolder(settingsFolder: string): string {
 }
 
 /** Refuses a private key file that someone other than its owner can read or write. */
-function assertPrivate(path: string): void {
-	if (process.platform === 'win32') return;
+function notPrivate(path: string): Problem | undefined {
+	if (process.platform === 'win32') return undefined;
 	const mode = statSync(path).mode & 0o777;
-	if (mode & 0o077) throw new UsageError(`the key file ${path} can be read by others (mode ${mode.toString(8)}); run: chmod 600 ${path}`);
+	return mode & 0o077 ? problem('key-file-open', {path, mode: mode.toString(8)}) : undefined;
 }
 
 /** The operator's private key, created on first use with owner-only permissions. */
-export function operatorKey(settingsFolder: string, create: boolean): {privateKey: KeyObject; created: boolean; path: string} {
+export function operatorKey(settingsFolder: string, create: boolean): Result<{privateKey: KeyObject; created: boolean; path: string}, Problem> {
 	const folder = keyFolder(settingsFolder);
 	const path = join(folder, 'operator.key');
 	if (!existsSync(path)) {
-		if (!create) throw new UsageError(`no signing key yet; create one with: prelase keys`);
+		if (!create) return failure([problem('key-none-yet')]);
 		mkdirSync(folder, {recursive: true, mode: 0o700});
 		const {privateKey} = generateKeyPair();
 		writeFileSync(path, privateKey.export({format: 'pem', type: 'pkcs8'}), {mode: 0o600, flag: 'wx'});
 		chmodSync(path, 0o600);
 		writeFileSync(join(folder, 'operator.pub'), publicKeyPem(privateKey), {mode: 0o644});
-		return {privateKey, created: true, path};
+		return success({privateKey, created: true, path});
 	}
-	assertPrivate(path);
+	const open = notPrivate(path);
+	if (open) return failure([open]);
 	try {
-		return {privateKey: createPrivateKey(readFileSync(path)), created: false, path};
+		return success({privateKey: createPrivateKey(readFileSync(path)), created: false, path});
 	} catch (error) {
-		throw new UsageError(`the key file ${path} cannot be read as a private key (${(error as Error).message})`);
+		return failure([problem('key-file-unreadable', {path, detail: (error as Error).message})]);
 	}
 }
 
 /** A private key from a file another person gave (a second signer's key on this machine). */
-export function keyFromFile(path: string): KeyObject {
-	if (!existsSync(path)) throw new UsageError(`no key file at ${path}`);
-	assertPrivate(path);
+export function keyFromFile(path: string): Result<KeyObject, Problem> {
+	if (!existsSync(path)) return failure([problem('key-file-missing', {path})]);
+	const open = notPrivate(path);
+	if (open) return failure([open]);
 	try {
-		return createPrivateKey(readFileSync(path));
+		return success(createPrivateKey(readFileSync(path)));
 	} catch (error) {
-		throw new UsageError(`${path} is not a private key (${(error as Error).message})`);
+		return failure([problem('key-file-not-private', {path, detail: (error as Error).message})]);
 	}
 }
 
@@ -69,7 +73,7 @@ export function readTrusted(settingsFolder: string): TrustedKey[] {
 	const path = trustedPath(settingsFolder);
 	if (!existsSync(path)) return [];
 	const parsed = trustedSchema.safeParse(JSON.parse(readFileSync(path, 'utf8')));
-	if (!parsed.success) throw new UsageError(`the trusted keys file ${path} is not valid; fix or remove it`);
+	if (!parsed.success) throw new ProblemError(problem('key-trusted-invalid', {path}));
 	return parsed.data;
 }
 

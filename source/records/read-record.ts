@@ -1,6 +1,6 @@
 import {readFileSync} from 'node:fs';
-import {describeFinding} from '../audit/audit-findings.js';
-import {checkIntegrity, KeyCache, type SignatureCheck} from '../audit/audit-integrity.js';
+import {describeFinding} from './findings.js';
+import {checkIntegrity, KeyCache, type SignatureCheck} from './integrity.js';
 import type {AnyRecord} from './record-schema.js';
 
 /** What integrity checking found: the record, or why it cannot be trusted at all. */

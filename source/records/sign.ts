@@ -2,6 +2,7 @@ import {sign, verify, type KeyObject} from 'node:crypto';
 import {canonicalBytes} from './canonical.js';
 import {fingerprint, rawPublicKey} from './keys.js';
 import type {AnyBody, Signature} from './record-schema.js';
+import {isoWithOffset} from '../shared/iso-time.js';
 
 /** Who is signing and what the signature means. */
 export type Signer = {name: string; role: string; meaning: Signature['meaning']};
@@ -30,12 +31,4 @@ export function signBody(body: AnyBody, signer: Signer, privateKey: KeyObject, n
 	const statement = {signer: {name: signer.name, role: signer.role}, meaning: signer.meaning, signedAt: isoWithOffset(now), algorithm: 'Ed25519' as const, publicKey: raw.toString('base64')};
 	const value = signBytes(signedBytes(body, statement), privateKey).toString('base64');
 	return {...statement, fingerprint: fingerprint(raw), value};
-}
-
-/** An ISO 8601 timestamp with the local offset: 2026-12-01T18:49:07+01:00. */
-export function isoWithOffset(date: Date): string {
-	const pad = (value: number, width = 2) => String(Math.abs(value)).padStart(width, '0');
-	const offset = -date.getTimezoneOffset();
-	const sign = offset >= 0 ? '+' : '-';
-	return `${date.getFullYear()}-${pad(date.getMonth() + 1)}-${pad(date.getDate())}T${pad(date.getHours())}:${pad(date.getMinutes())}:${pad(date.getSeconds())}${sign}${pad(Math.floor(Math.abs(offset) / 60))}:${pad(Math.abs(offset) % 60)}`;
 }

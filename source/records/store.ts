@@ -2,7 +2,7 @@ import {linkSync, mkdirSync, unlinkSync} from 'node:fs';
 import {join} from 'node:path';
 import {fsyncFolder, writeSyncedTemporary} from '../shared/atomic-file.js';
 import type {AnyRecord} from './record-schema.js';
-import {bodySha256} from '../services/build-body.js';
+import {bodySha256} from './build-body.js';
 
 /** A short, file-name-safe form of a setup name. */
 function slug(text: string | null): string {

@@ -4,7 +4,8 @@ import type {Dimension} from '../quantities/dimensions.js';
 import {stripControl} from '../shared/text.js';
 import {planVerdict, type PlanAnalysis} from '../interlock/analysis/analyse.js';
 import {durationText} from '../interlock/analysis/duration-text.js';
-import {describeFinding, subjectText} from '../interlock/analysis/finding.js';
+import {subjectText} from '../interlock/analysis/finding.js';
+import {describeProblem} from '../shared/problems.js';
 import type {Plan} from '../interlock/plan/plan-schema.js';
 
 const figure = (si: number, dimension: Dimension) => ({si, text: formatQuantity(si, dimension)});
@@ -36,7 +37,7 @@ export function planJson(plan: Plan, analysis: PlanAnalysis, file: string, polic
 			limit: figure(plan.policy.max_response_time, 'time'),
 			devices: analysis.responses.map((entry) => ({device: entry.device, ...figure(entry.total, 'time')})),
 		},
-		findings: analysis.findings.map((entry) => ({severity: entry.severity, code: entry.code, subject: entry.subject, message: describeFinding(entry), data: entry.data})),
+		findings: analysis.findings.map((entry) => ({severity: entry.severity, code: entry.code, subject: entry.subject, message: describeProblem(entry), data: entry.data})),
 		verdict: {stops: analysis.stops, advises: analysis.advises, text: planVerdict(analysis)},
 		deferral,
 	};
@@ -61,7 +62,7 @@ export function planText(plan: Plan, analysis: PlanAnalysis, file: string, polic
 			: '  response    no series device',
 		'',
 		`Findings (${analysis.findings.length})`,
-		...(analysis.findings.length === 0 ? ['  none'] : analysis.findings.map((entry) => `  ${entry.severity === 'stop' ? 'STOP  ' : 'ADVISE'}  ${subjectText(entry.subject)}: ${stripControl(describeFinding(entry))}`)),
+		...(analysis.findings.length === 0 ? ['  none'] : analysis.findings.map((entry) => `  ${entry.severity === 'stop' ? 'STOP  ' : 'ADVISE'}  ${subjectText(entry.subject)}: ${stripControl(describeProblem(entry))}`)),
 		'',
 		`Verdict: ${planVerdict(analysis)}`,
 		'',

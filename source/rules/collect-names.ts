@@ -1,4 +1,3 @@
-import {dimensions} from '../quantities/dimensions.js';
 import {isUnitName} from '../quantities/engine.js';
 import {problem, type Problem} from '../shared/problems.js';
 import type {YamlSource} from '../shared/yaml-source.js';
@@ -57,9 +56,4 @@ export function collectNames(rules: RuleFile, source: YamlSource): {names: Map<s
 		} else stepIds.set(step.id, index);
 	});
 	return {names, problems};
-}
-
-/** The noun and example of a dimension, to fill entry messages. */
-export function dimensionWords(dimension: keyof typeof dimensions) {
-	return {noun: dimensions[dimension].noun, example: dimensions[dimension].example};
 }

@@ -6,12 +6,14 @@ import {parseQuantity} from '../quantities/parse-quantity.js';
 import type {Dimension} from '../quantities/dimensions.js';
 import {failure, success, type Result} from '../shared/result.js';
 import type {YamlSource} from '../shared/yaml-source.js';
-import {collectNames, dimensionWords} from './collect-names.js';
+import {dimensionWords} from '../quantities/dimensions.js';
+import {collectNames} from './collect-names.js';
 import type {CompiledCheck, CompiledConfirmation, CompiledDerived, CompiledInput, CompiledRules, SiValue} from './compiled-rules.js';
 import {compileFormula, type CompiledFormula} from './formula.js';
 import {lintWithSamples} from './lint-samples.js';
 import {locateInField} from './locate.js';
-import {didYouMean, type NameTable} from './names.js';
+import {didYouMean} from '../shared/did-you-mean.js';
+import type {NameTable} from './names.js';
 import {wholeFileProvenance, type Place, type Provenance} from './provenance.js';
 import type {RuleFile} from './schema.js';
 

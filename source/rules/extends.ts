@@ -2,7 +2,7 @@ import {dirname, resolve} from 'node:path';
 import {displayPath} from '../shared/display-path.js';
 import {problem, type Problem} from '../shared/problems.js';
 import type {YamlSource} from '../shared/yaml-source.js';
-import {didYouMean} from './names.js';
+import {didYouMean} from '../shared/did-you-mean.js';
 import {PlaceBook, type Place, type Provenance, type SeverityChange} from './provenance.js';
 import {resolvedRuleText, type ChainEntry} from './resolved-text.js';
 import {readRuleSource, shippedRulesPath} from './rule-source.js';

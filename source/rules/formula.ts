@@ -3,7 +3,8 @@ import {evaluateExpression} from '../quantities/expression-evaluate.js';
 import {parseExpression} from '../quantities/expression-parser.js';
 import {FormulaSyntaxError, type ExpressionNode} from '../quantities/expression-syntax.js';
 import type {ProblemCode} from '../shared/messages.js';
-import {didYouMean, type NameTable} from './names.js';
+import {didYouMean} from '../shared/did-you-mean.js';
+import type {NameTable} from './names.js';
 
 /** A problem with a formula, before the caller adds where the formula is; `name` is the text to point at. */
 export type FormulaProblem = {code: ProblemCode; data: Record<string, string | number>; name?: string};

@@ -1,7 +1,7 @@
 import {formatQuantity} from '../quantities/format.js';
 import {parseQuantity} from '../quantities/parse-quantity.js';
 import type {ConfirmationAnswer, InputAnswer} from './answers.js';
-import {dimensionWords} from './collect-names.js';
+import {dimensionWords} from '../quantities/dimensions.js';
 import type {CompiledConfirmation, CompiledInput} from './compiled-rules.js';
 import type {ProblemCode} from '../shared/messages.js';
 

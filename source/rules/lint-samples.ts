@@ -8,7 +8,8 @@ import {CalculationInputError} from '../calculations/calculation.js';
 import type {CompiledRules} from './compiled-rules.js';
 import type {CompiledFormula} from './formula.js';
 import {sampleWithin, toFormulaValue} from './sample-values.js';
-import {classifyError, describeResult, newScope} from './scope.js';
+import {classifyError, newScope} from './scope.js';
+import {describeValue} from '../quantities/describe-value.js';
 import {EvaluationError} from '../quantities/evaluation-error.js';
 
 type Where = (path: Array<string | number>, name?: string, text?: string) => Pick<Problem, 'file' | 'line' | 'column' | 'field'>;
@@ -73,14 +74,14 @@ export function lintWithSamples(rules: CompiledRules, where: Where): Problem[] {
 			const [a, b] = [results[index], results[part.pairedWith]];
 			const pointAndStep = isTemperature(a) && isTemperature(b) && a.kind !== undefined && b.kind !== undefined && a.kind !== b.kind;
 			const same = (isQuantity(a) && isQuantity(b) && a.equalBase(b) && !pointAndStep) || (typeof a === typeof b && !isQuantity(a) && !isQuantity(b));
-			if (!same) problems.push(problem('dimension-mismatch', {detail: `the two branches of a ? b : c differ: ${describeResult(a)} and ${describeResult(b)}`}, where(path, undefined, formula.text)));
+			if (!same) problems.push(problem('dimension-mismatch', {detail: `the two branches of a ? b : c differ: ${describeValue(a)} and ${describeValue(b)}`}, where(path, undefined, formula.text)));
 		});
 		return {ok: true, value: tried.value};
 	};
 	const mustBeBoolean = (formula: CompiledFormula | undefined, path: Array<string | number>, what: string) => {
 		if (!formula) return;
 		const result = run(formula, path);
-		if (result.ok && typeof result.value !== 'boolean') problems.push(problem('not-boolean', {what, received: describeResult(result.value)}, where(path, undefined, formula.text)));
+		if (result.ok && typeof result.value !== 'boolean') problems.push(problem('not-boolean', {what, received: describeValue(result.value)}, where(path, undefined, formula.text)));
 	};
 
 	for (const {derived, formula} of rules.derived) {
@@ -99,7 +100,7 @@ export function lintWithSamples(rules: CompiledRules, where: Where): Problem[] {
 		const info = dimensions[derived.dimension];
 		const fits = hasDimension(result.value, derived.dimension);
 		if (!fits) failed.add(derived.id);
-		if (!fits) problems.push(problem('wrong-dimension', {what: `derived value "${derived.id}"`, expected: info.noun, received: describeResult(result.value)}, where(path, undefined, formula.text)));
+		if (!fits) problems.push(problem('wrong-dimension', {what: `derived value "${derived.id}"`, expected: info.noun, received: describeValue(result.value)}, where(path, undefined, formula.text)));
 		else scope.set(derived.id, asDeclared(result.value, derived.dimension));
 	}
 	const stepIndex = new Map(rules.rules.steps.map((step, index) => [step.id, index]));
@@ -121,7 +122,7 @@ export function lintWithSamples(rules: CompiledRules, where: Where): Problem[] {
 		if (!value.ok || !limit.ok) return;
 		const comparable = (isQuantity(value.value) && isQuantity(limit.value) && value.value.equalBase(limit.value)) || (typeof value.value === 'number' && typeof limit.value === 'number');
 		if (!comparable) {
-			problems.push(problem('compare-mismatch', {value: describeResult(value.value), limit: describeResult(limit.value)}, where(['checks', index, compiled.relation], undefined, check.at_most ?? check.at_least)));
+			problems.push(problem('compare-mismatch', {value: describeValue(value.value), limit: describeValue(limit.value)}, where(['checks', index, compiled.relation], undefined, check.at_most ?? check.at_least)));
 			return;
 		}
 		if (isTemperature(value.value) && isTemperature(limit.value)) {
@@ -135,7 +136,7 @@ export function lintWithSamples(rules: CompiledRules, where: Where): Problem[] {
 		if (check.dimension) {
 			const info = dimensions[check.dimension];
 			const fits = hasDimension(value.value, check.dimension);
-			if (!fits) problems.push(problem('wrong-dimension', {what: `value of check "${check.id}"`, expected: info.noun, received: describeResult(value.value)}, where(['checks', index, 'dimension'])));
+			if (!fits) problems.push(problem('wrong-dimension', {what: `value of check "${check.id}"`, expected: info.noun, received: describeValue(value.value)}, where(['checks', index, 'dimension'])));
 		}
 	});
 	return problems;

@@ -4,7 +4,7 @@ import {parseYamlSource, readTextFile, type YamlSource} from '../shared/yaml-sou
 import type {Answers, ConfirmationAnswer, InputAnswer} from './answers.js';
 import type {CompiledRules} from './compiled-rules.js';
 import {parseConfirmationEntry, parseInputEntry} from './input-entry.js';
-import {didYouMean} from './names.js';
+import {didYouMean} from '../shared/did-you-mean.js';
 
 const expected = 'an answers file (YAML with setup, inputs and confirmations)';
 const topKeys = new Set(['setup', 'inputs', 'confirmations']);

@@ -164,7 +164,6 @@ export type Confirmation = z.infer<typeof confirmationSchema>;
 export type Check = z.infer<typeof checkSchema>;
 export type Derived = z.infer<typeof derivedSchema>;
 export type Table = z.infer<typeof tableSchema>;
-export type PolicyValue = z.infer<typeof policyValueSchema>;
 
 /** A policy value as text: "10 %", or "[class_3b, class_4]" for a list of options. */
 export function policyValueText(value: string | number | readonly string[]): string {
@@ -172,6 +171,6 @@ export function policyValueText(value: string | number | readonly string[]): str
 }
 
 /** What kind of value a policy value is: its dimension, or "options of laser_class". */
-export function policyKindText(entry: Pick<PolicyValue, 'dimension' | 'options_of'>): string {
+export function policyKindText(entry: Pick<z.infer<typeof policyValueSchema>, 'dimension' | 'options_of'>): string {
 	return entry.options_of !== undefined ? `options of ${entry.options_of}` : (entry.dimension ?? '');
 }

@@ -1,6 +1,5 @@
 import {CalculationInputError} from '../calculations/calculation.js';
 import {formulaFunctions, FormulaCallError} from '../calculations/formula-functions.js';
-import {describeValue} from '../quantities/describe-value.js';
 import {EvaluationError} from '../quantities/evaluation-error.js';
 
 /** `one_of(choice, list)`: whether a choice's answer is one of the options a policy value lists. */
@@ -21,7 +20,3 @@ export function classifyError(error: unknown): {code: 'dimension-mismatch' | 'te
 	return {code: 'formula-failed', detail: error instanceof Error ? error.message : String(error)};
 }
 
-/** Describes a formula result in words for messages: "a current", "true or false", "a plain number". */
-export function describeResult(value: unknown): string {
-	return describeValue(value);
-}

@@ -4,16 +4,13 @@ import type {Plan} from '../interlock/plan/plan-schema.js';
 import type {TestResults} from '../interlock/functional-test/results-schema.js';
 import {buildTestBody} from '../interlock/functional-test/test-record.js';
 import {testSheet} from '../interlock/functional-test/test-sheet.js';
+import {dirname} from 'node:path';
 import {recordsFolder} from './records-folder.js';
-import {keyFromFile, operatorKey} from '../records/key-store.js';
-import {fingerprint, rawPublicKey, shortFingerprint} from '../records/keys.js';
-import {signRecord} from '../records/sign-record.js';
-import type {Signer} from '../records/sign.js';
-import {writeRecord} from '../records/store.js';
 import type {CompiledRules} from '../rules/compiled-rules.js';
-import {openSettings} from './settings.js';
-import {stripControl} from '../shared/text.js';
-import {UsageError} from '../cli/usage-error.js';
+import {settingsFile} from './settings.js';
+import {signAndStore} from './sign-and-store.js';
+import {problem, type Problem} from '../shared/problems.js';
+import {failure, success, type Result} from '../shared/result.js';
 
 /** What `plan FILE --record-test RESULTS` was asked to do. */
 export type RecordTestOptions = {results: string; records?: string | undefined; witnessKey?: string | undefined; now?: Date};
@@ -36,12 +33,13 @@ export type RecordedTest = {path: string; fingerprint: string; keyCreated: boole
 
 /**
  * Holds a filled-in test sheet (a results file) against the plan, then records it with
- * recordTestResults, whatever the outcome.
+ * recordTestResults, whatever the outcome. Problems in the results come back as a failure whose
+ * last problem says that no record was written.
  */
-export function recordTest(plan: Plan, planFile: string, planText: string, rules: CompiledRules, options: RecordTestOptions, env: NodeJS.ProcessEnv): RecordedTest {
+export function recordTest(plan: Plan, planFile: string, planText: string, rules: CompiledRules, options: RecordTestOptions, env: NodeJS.ProcessEnv): Result<RecordedTest, Problem> {
 	const now = options.now ?? new Date();
 	const results = loadResults(options.results, testSheet(plan), now);
-	if (!results.ok) throw new UsageError(`the results file has problems; no record was written`, results.errors);
+	if (!results.ok) return failure([...results.errors, problem('record-results-file')]);
 	return recordTestResults({plan, file: planFile, text: planText}, rules, results.value, {...options, now}, env);
 }
 
@@ -49,26 +47,20 @@ export function recordTest(plan: Plan, planFile: string, planText: string, rules
  * Records test results held in memory (read from a file, or entered on screen): holds them
  * against the plan's test sheet, then builds, signs (the tester with this machine's operator
  * key; the witness with their key file, when given) and writes the interlock test record,
- * whatever the outcome. Nothing is written when the results are refused.
+ * whatever the outcome. Nothing is written when the results are refused: the failure lists
+ * the problems, its last one saying what was refused.
  */
-export function recordTestResults(tested: PlanAsTested, rules: CompiledRules, results: TestResults, options: RecordResultsOptions, env: NodeJS.ProcessEnv): RecordedTest {
+export function recordTestResults(tested: PlanAsTested, rules: CompiledRules, results: TestResults, options: RecordResultsOptions, env: NodeJS.ProcessEnv): Result<RecordedTest, Problem> {
 	const now = options.now ?? new Date();
 	const keyName = options.witnessKeyName ?? '--witness-key';
 	const {plan} = tested;
 	const sheet = testSheet(plan);
 	const problems = resultsAgainstSheet(results, sheet, now);
-	if (problems.length > 0) throw new UsageError('the test results have problems; no record was written', problems);
-	if (options.witnessKey !== undefined && results.witness === undefined) throw new UsageError(`${keyName} needs a witness in the results file (witness: {name, role})`);
+	if (problems.length > 0) return failure([...problems, problem('record-results-refused')]);
+	if (options.witnessKey !== undefined && results.witness === undefined) return failure([problem('record-witness-missing', {keyName})]);
 	const body = buildTestBody({plan, planFile: tested.file, planText: tested.text, rules, analysis: analysePlan(plan), sheet, results, now});
-	const settings = openSettings(env);
-	const {privateKey, created} = operatorKey(settings.folder, true);
-	const signers: Array<{signer: Signer; key: typeof privateKey}> = [{signer: {name: stripControl(body.tester.name).trim(), role: stripControl(body.tester.role).trim(), meaning: 'performed'}, key: privateKey}];
-	if (options.witnessKey !== undefined && body.witness) {
-		const key = keyFromFile(options.witnessKey);
-		if (fingerprint(rawPublicKey(key)) === fingerprint(rawPublicKey(privateKey))) throw new UsageError(`${keyName} is the tester's own key; the witness signs with a key of their own`);
-		signers.push({signer: {name: stripControl(body.witness.name).trim(), role: stripControl(body.witness.role).trim(), meaning: 'verified'}, key});
-	}
-	const record = signRecord(body, signers, now);
-	const path = writeRecord(recordsFolder(env, options.records), record);
-	return {path, fingerprint: shortFingerprint(fingerprint(rawPublicKey(privateKey))), keyCreated: created, outcome: body.outcome, outcomeText: body.outcomeText, testedOn: body.testedOn, tester: body.tester.name};
+	const witness = options.witnessKey !== undefined && body.witness ? {...body.witness, meaning: 'verified' as const, keyFile: options.witnessKey, ownKey: problem('record-witness-own-key', {keyName})} : undefined;
+	const stored = signAndStore(body, body.tester, witness, dirname(settingsFile(env)), recordsFolder(env, options.records), now);
+	if (!stored.ok) return stored;
+	return success({...stored.value, outcome: body.outcome, outcomeText: body.outcomeText, testedOn: body.testedOn, tester: body.tester.name});
 }

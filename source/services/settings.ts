@@ -4,7 +4,9 @@ import {existsSync, readFileSync} from 'node:fs';
 import {dirname, join} from 'node:path';
 // Named imports (not the z namespace) let the bundler leave out the parts of zod not used.
 import {object, string} from 'zod';
-import {UsageError} from '../cli/usage-error.js';
+import {problem, type Problem} from '../shared/problems.js';
+import {ProblemError} from '../shared/problem-error.js';
+import {failure, success, type Result} from '../shared/result.js';
 
 /** What prelase remembers between runs. */
 export type Settings = {
@@ -34,17 +36,24 @@ export function settingsFile(env: NodeJS.ProcessEnv = process.env): string {
  * file in force, and start-up time is a feature. Writing always goes through openSettings.
  */
 export function readSettings(env: NodeJS.ProcessEnv = process.env): Settings {
+	const loaded = loadSettings(env);
+	if (!loaded.ok) throw new ProblemError(loaded.errors[0]!);
+	return loaded.value;
+}
+
+/** The settings, or why the settings file cannot be used (for callers that report a Result). */
+export function loadSettings(env: NodeJS.ProcessEnv = process.env): Result<Settings, Problem> {
 	const path = settingsFile(env);
-	if (!existsSync(path)) return {};
+	if (!existsSync(path)) return success({});
 	let data: unknown;
 	try {
 		data = JSON.parse(readFileSync(path, 'utf8'));
 	} catch (error) {
-		throw new UsageError(`the settings file ${path} cannot be read (${(error as Error).message}); fix or remove it`);
+		return failure([problem('settings-unreadable', {path, detail: (error as Error).message})]);
 	}
 	const parsed = settingsSchema.safeParse(data);
-	if (!parsed.success) throw new UsageError(`the settings file ${path} is not valid: ${parsed.error.issues[0]?.message ?? 'unknown problem'}; fix or remove it`);
-	return parsed.data as Settings;
+	if (!parsed.success) return failure([problem('settings-invalid', {path, detail: parsed.error.issues[0]?.message ?? 'unknown problem'})]);
+	return success(parsed.data as Settings);
 }
 
 /** The settings store and the folder it lives in (keys live beside it). */
@@ -64,7 +73,7 @@ export function openSettings(env: NodeJS.ProcessEnv = process.env): SettingsStor
 		try {
 			store = new Conf<Settings>({projectName: 'prelase', projectSuffix: '', configFileMode: 0o600, clearInvalidConfig: false, ...(home ? {cwd: home} : {})});
 		} catch (error) {
-			throw new UsageError(`the settings file cannot be read (${(error as Error).message}); fix or remove it`);
+			throw new ProblemError(problem('settings-store-unreadable', {detail: (error as Error).message}));
 		}
 		return store;
 	};

@@ -1,19 +1,16 @@
-import {basename} from 'node:path';
-import {buildRecordBody} from './build-body.js';
-import {keyFromFile, operatorKey} from '../records/key-store.js';
-import {fingerprint, rawPublicKey, shortFingerprint} from '../records/keys.js';
+import {basename, dirname} from 'node:path';
+import {buildRecordBody} from '../records/build-body.js';
 import {readRecord} from '../records/read-record.js';
-import {signRecord} from '../records/sign-record.js';
-import type {Signer} from '../records/sign.js';
-import {writeRecord} from '../records/store.js';
 import {recordsFolder} from './records-folder.js';
 import type {InterlockLink} from '../interlock/functional-test/test-link.js';
 import type {Answers} from '../rules/answers.js';
 import type {CompiledRules} from '../rules/compiled-rules.js';
 import type {Evaluation} from '../rules/evaluation.js';
-import {openSettings} from './settings.js';
+import {loadSettings, settingsFile} from './settings.js';
+import {signAndStore, type SecondSigner} from './sign-and-store.js';
+import {problem, type Problem} from '../shared/problems.js';
+import {failure, success, type Result} from '../shared/result.js';
 import {stripControl} from '../shared/text.js';
-import {UsageError} from '../cli/usage-error.js';
 
 /** What `check --sign` was asked to do. */
 export type SignOptions = {
@@ -28,37 +25,36 @@ export type SignOptions = {
 /** Where a record was written and with which key. */
 export type WrittenRecord = {path: string; fingerprint: string; keyCreated: boolean; folder: string};
 
-const meanings = new Set(['verified', 'approved']);
-
-/** Builds, signs and writes the record of a bench check (in every outcome). */
-export function signAndWrite(rules: CompiledRules, answers: Answers, evaluation: Evaluation, options: SignOptions, env: NodeJS.ProcessEnv, interlockTest: InterlockLink | null = null): WrittenRecord {
+/**
+ * Builds, signs and writes the record of a bench check (in every outcome). A mistake in what
+ * was asked (no name, an amendment without a reason, a bad second key...) comes back as a
+ * failure whose last problem says what was refused; nothing is written then.
+ */
+export function signAndWrite(rules: CompiledRules, answers: Answers, evaluation: Evaluation, options: SignOptions, env: NodeJS.ProcessEnv, interlockTest: InterlockLink | null = null): Result<WrittenRecord, Problem> {
 	const name = stripControl(options.name).trim();
-	if (!name) throw new UsageError('--sign needs the name of the person signing');
-	const settings = openSettings(env);
-	const saved = settings.read();
+	if (!name) return failure([problem('sign-no-name')]);
+	const saved = loadSettings(env);
+	if (!saved.ok) return saved;
 	const folder = recordsFolder(env, options.records);
 	let amends;
 	if (options.amends !== undefined) {
-		if (!options.reason?.trim()) throw new UsageError('--amends needs --reason saying what the correction is and why');
+		if (!options.reason?.trim()) return failure([problem('sign-amends-no-reason')]);
 		const original = readRecord(options.amends);
-		if (!original.ok) throw new UsageError(`the record to amend, ${options.amends}, fails its integrity check: ${original.reason}`);
-		if (original.record.body.kind !== 'bench-check') throw new UsageError(`${options.amends} is an interlock test record; a bench check can amend only a bench-check record`);
+		if (!original.ok) return failure([problem('sign-amends-not-intact', {file: options.amends, reason: original.reason})]);
+		if (original.record.body.kind !== 'bench-check') return failure([problem('sign-amends-interlock', {file: options.amends})]);
 		amends = {record: basename(options.amends), bodySha256: original.bodySha256, reason: stripControl(options.reason).trim()};
 	} else if (options.reason !== undefined) {
-		throw new UsageError('--reason goes with --amends RECORD');
+		return failure([problem('sign-reason-without-amends')]);
 	}
-	const {privateKey, created} = operatorKey(settings.folder, true);
-	const signers: Array<{signer: Signer; key: typeof privateKey}> = [{signer: {name, role: stripControl(options.role ?? saved.role ?? '').trim(), meaning: 'performed'}, key: privateKey}];
+	let second: SecondSigner | undefined;
 	if (options.cosign) {
-		if (!meanings.has(options.cosign.meaning)) throw new UsageError(`--cosign-meaning must be verified or approved, not "${options.cosign.meaning}"`);
-		signers.push({
-			signer: {name: stripControl(options.cosign.name).trim(), role: stripControl(options.cosign.role ?? '').trim(), meaning: options.cosign.meaning as Signer['meaning']},
-			key: keyFromFile(options.cosign.key),
-		});
-		if (fingerprint(rawPublicKey(signers[1]!.key)) === fingerprint(rawPublicKey(privateKey))) throw new UsageError('--cosign-key is your own key; the second signer signs with a key of their own');
+		const {meaning} = options.cosign;
+		if (meaning !== 'verified' && meaning !== 'approved') return failure([problem('sign-cosign-meaning', {meaning})]);
+		second = {name: options.cosign.name, role: options.cosign.role ?? '', meaning, keyFile: options.cosign.key, ownKey: problem('sign-cosign-own-key')};
 	}
-	const body = buildRecordBody({rules, answers, evaluation, operator: {name, role: signers[0]!.signer.role}, interlockTest, ...(amends ? {amends} : {})});
-	const record = signRecord(body, signers);
-	const path = writeRecord(folder, record);
-	return {path, fingerprint: shortFingerprint(fingerprint(rawPublicKey(privateKey))), keyCreated: created, folder};
+	const role = stripControl(options.role ?? saved.value.role ?? '').trim();
+	const body = buildRecordBody({rules, answers, evaluation, operator: {name, role}, interlockTest, ...(amends ? {amends} : {})});
+	const stored = signAndStore(body, {name, role}, second, dirname(settingsFile(env)), folder);
+	if (!stored.ok) return stored;
+	return success({...stored.value, folder});
 }

@@ -1,8 +1,17 @@
 import {messages, type ProblemCode} from './messages.js';
 
+/**
+ * The shape every coded message shares (a problem, a plan finding): a code whose words live in
+ * messages.ts, and the values that fill the words' placeholders.
+ */
+export type CodedMessage<C extends ProblemCode = ProblemCode> = {
+	code: C;
+	/** Values that fill the message's placeholders. */
+	data: Record<string, string | number>;
+};
+
 /** A problem found in a rule file, an answers file or an entry, located where it arises. */
-export type Problem = {
-	code: ProblemCode;
+export type Problem = CodedMessage & {
 	severity: 'error' | 'warning';
 	/** Path of the file, when the problem is in one. */
 	file?: string;
@@ -11,8 +20,6 @@ export type Problem = {
 	column?: number;
 	/** The field concerned, as a dotted path (`checks.3.at_most`). */
 	field?: string;
-	/** Values that fill the message's placeholders. */
-	data: Record<string, string | number>;
 };
 
 /** Makes an error-severity problem. */
@@ -30,8 +37,8 @@ export function fillPlaceholders(template: string, data: Record<string, string |
 	return template.replaceAll(/\{\{\s*([a-zA-Z_][\w]*)\s*\}\}/g, (whole, name: string) => (Object.hasOwn(data, name) ? String(data[name]) : whole));
 }
 
-/** The message of a problem in words, without its location. */
-export function describeProblem(found: Problem): string {
+/** A coded message in words (a problem without its location, a plan finding without its subject). */
+export function describeProblem(found: CodedMessage): string {
 	return fillPlaceholders(messages[found.code], found.data);
 }
 

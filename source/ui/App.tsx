@@ -9,8 +9,8 @@ import {listSetups, loadSetup, saveSetup} from '../services/drafts/setup-store.j
 import {displayPath} from '../shared/display-path.js';
 import {openPlanForEditing, planEditingFromText, planEditingText, type PlanEditing} from '../interlock/plan/plan-edit.js';
 import {loadPlanDraft, removePlanDraft, savePlanDraft} from '../services/drafts/plan-draft-store.js';
-import {isoWithOffset} from '../records/sign.js';
-import {formatProblem} from '../shared/problems.js';
+import {restoreDraft, type DraftNotice} from './draft-restore.js';
+import {describeProblem, formatProblem} from '../shared/problems.js';
 import type {CompiledRules} from '../rules/compiled-rules.js';
 import type {SettingsStore} from '../services/settings.js';
 import {stripControl} from '../shared/text.js';
@@ -81,19 +81,18 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 		const opened = openPlanForEditing(file, rules);
 		if (!opened.ok) return {problems: opened.errors.map(formatProblem)};
 		settings.write({planFile: file});
-		return restoreDraft(opened.value);
+		return restorePlanDraft(opened.value);
 	}
 
 	/** Edits left unsaved by an earlier session (a crash, Ctrl-C) come back, if the file has not changed since. */
-	function restoreDraft(editing: PlanEditing): {editing: PlanEditing; notice?: {text: string; error?: boolean}} {
-		const found = loadPlanDraft(settings.folder, editing.file, editing.original);
-		if (!found) return {editing};
-		// Local time, as the operator's clock shows it.
-		const when = isoWithOffset(new Date(found.draft.savedAt)).slice(0, 16).replace('T', ' ');
-		if (found.state === 'stale') return {editing, notice: {text: `Unsaved edits from ${when} were not restored: the file changed since. They are kept in ${found.path}`, error: true}};
-		const restored = planEditingFromText(found.draft.text, editing.file, editing.policy);
-		if (!restored.ok) return {editing, notice: {text: `Unsaved edits from ${when} no longer load and were not restored; they are kept in ${found.path}`, error: true}};
-		return {editing: {...restored.value, original: editing.original, dirty: true}, notice: {text: `Unsaved edits from ${when} restored: s saves them, Esc then d discards them`}};
+	function restorePlanDraft(editing: PlanEditing): {editing: PlanEditing; notice?: DraftNotice} {
+		const {value, notice} = restoreDraft(loadPlanDraft(settings.folder, editing.file, editing.original), editing, (found, when) => {
+			if (found.state === 'stale') return {refused: `Unsaved edits from ${when} were not restored: the file changed since. They are kept in ${found.path}`};
+			const restored = planEditingFromText(found.draft.text, editing.file, editing.policy);
+			if (!restored.ok) return {refused: `Unsaved edits from ${when} no longer load and were not restored; they are kept in ${found.path}`};
+			return {restored: {...restored.value, original: editing.original, dirty: true}, text: `Unsaved edits from ${when} restored: s saves them, Esc then d discards them`};
+		});
+		return notice ? {editing: value, notice} : {editing: value};
 	}
 
 	const planDrafts = {
@@ -160,30 +159,31 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 	};
 
 	const sign = (form: SignOffForm) => {
-		try {
-			const named = nameSetup(session, form.setup);
-			setSession(named);
-			const result = signAndWrite(
-				rules,
-				named.answers,
-				named.evaluation,
-				{
-					name: form.name,
-					role: form.role,
-					...(form.cosignName.trim() ? {cosign: {name: form.cosignName, role: form.cosignRole, key: form.cosignKey.trim(), meaning: 'verified'}} : {}),
-				},
-				env,
-				named.interlockTest,
-			);
-			settings.write({operator: form.name.trim(), role: form.role.trim()});
-			removeDraft(settings.folder);
-			setDraft(undefined);
-			setWritten({path: result.path, fingerprint: result.fingerprint});
-			setSignError(undefined);
-			setScreen('done');
-		} catch (error) {
-			setSignError((error as Error).message);
+		const named = nameSetup(session, form.setup);
+		setSession(named);
+		const result = signAndWrite(
+			rules,
+			named.answers,
+			named.evaluation,
+			{
+				name: form.name,
+				role: form.role,
+				...(form.cosignName.trim() ? {cosign: {name: form.cosignName, role: form.cosignRole, key: form.cosignKey.trim(), meaning: 'verified'}} : {}),
+			},
+			env,
+			named.interlockTest,
+		);
+		// A mistake in the form comes back as a failure and is shown on the form; anything thrown is a bug and propagates.
+		if (!result.ok) {
+			setSignError(describeProblem(result.errors.at(-1)!));
+			return;
 		}
+		settings.write({operator: form.name.trim(), role: form.role.trim()});
+		removeDraft(settings.folder);
+		setDraft(undefined);
+		setWritten({path: result.value.path, fingerprint: result.value.fingerprint});
+		setSignError(undefined);
+		setScreen('done');
 	};
 
 	const header = (

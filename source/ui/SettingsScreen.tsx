@@ -1,6 +1,6 @@
 import {Box, Text, type Key} from 'ink';
 import {useKeystrokes} from './use-keystrokes.js';
-import {useReducer, useRef} from 'react';
+import {useRefState} from './use-ref-state.js';
 import type {Settings} from '../services/settings.js';
 import {typeInto} from './text-buffer.js';
 
@@ -14,12 +14,8 @@ const fields: Array<{key: keyof Settings; label: string}> = [
 /** Edits the settings; each field is saved when Enter is pressed on it. */
 export function SettingsScreen({initial, path, onSave, onBack}: {initial: Settings; path: string; onSave(settings: Settings): void; onBack(): void}) {
 	// Kept in a ref: a burst of keys is handled before React draws the next frame.
-	const state = useRef({values: initial, focus: 0, saved: undefined as string | undefined});
-	const [, rerender] = useReducer((count: number) => count + 1, 0);
-	const set = (changes: Partial<typeof state.current>) => {
-		state.current = {...state.current, ...changes};
-		rerender();
-	};
+	const state = useRefState(() => ({values: initial, focus: 0, saved: undefined as string | undefined}));
+	const set = state.patch;
 	const setFocus = (focus: number) => set({focus});
 	useKeystrokes(handleKey);
 	function handleKey(input: string, key: Key) {

@@ -6,10 +6,11 @@ import {main} from '../../source/cli/dispatch.js';
 import {auditRecords, type AuditReport, type RecordAudit} from '../../source/audit/audit.js';
 import {listRecordFiles} from '../../source/audit/audit-files.js';
 import {relateRecords} from '../../source/audit/audit-history.js';
-import {KeyCache, bytesToVerify, checkIntegrity} from '../../source/audit/audit-integrity.js';
+import {KeyCache, bytesToVerify, checkIntegrity} from '../../source/records/integrity.js';
 import {canonicalBytes} from '../../source/records/canonical.js';
-import {bodySha256} from '../../source/services/build-body.js';
-import {operatorKey, ownFingerprint} from '../../source/records/key-store.js';
+import {bodySha256} from '../../source/records/build-body.js';
+import {ownFingerprint} from '../../source/records/key-store.js';
+import {operatorPrivateKey} from '../helpers/operator-key.js';
 import {fingerprint, generateKeyPair, rawPublicKey} from '../../source/records/keys.js';
 import {readRecord} from '../../source/records/read-record.js';
 import type {BenchRecord, RecordBody} from '../../source/records/record-schema.js';
@@ -54,7 +55,7 @@ function writeRecordFile(content: string | BenchRecord): string {
 function resigned(change: (body: RecordBody) => void): BenchRecord {
 	const body = structuredClone(clean.body);
 	change(body);
-	const {privateKey} = operatorKey(home, false);
+	const privateKey = operatorPrivateKey(home);
 	return signRecord(body, [{signer: {name: 'Test Person', role: 'test engineer', meaning: 'performed'}, key: privateKey}]);
 }
 

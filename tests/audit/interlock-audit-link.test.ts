@@ -11,6 +11,7 @@ import {buildTestBody} from '../../source/interlock/functional-test/test-record.
 import {testSheet} from '../../source/interlock/functional-test/test-sheet.js';
 import type {AuditReport} from '../../source/audit/audit.js';
 import {operatorKey} from '../../source/records/key-store.js';
+import {operatorPrivateKey} from '../helpers/operator-key.js';
 import type {InterlockTestBody} from '../../source/records/record-schema.js';
 import {signRecord} from '../../source/records/sign-record.js';
 import {writeRecord} from '../../source/records/store.js';
@@ -80,7 +81,7 @@ function recordTest(records: string, planPath: string, planText: string, rules: 
 	});
 	const body: InterlockTestBody = buildTestBody({plan, planFile: planPath, planText, rules, analysis: analysePlan(plan), sheet, results: {...results.value, tested_on: made.testedOn, steps}});
 	body.createdAt = made.createdAt;
-	return writeRecord(records, signRecord(body, [{signer: {name: 'Ines Marlow', role: 'photonics engineer', meaning: 'performed'}, key: operatorKey(home, false).privateKey}]));
+	return writeRecord(records, signRecord(body, [{signer: {name: 'Ines Marlow', role: 'photonics engineer', meaning: 'performed'}, key: operatorPrivateKey(home)}]));
 }
 
 /** A case folder: the plan (as `plan.yaml`), the bench check's answers naming it at `location`, and an empty records folder. */
@@ -251,7 +252,7 @@ describe('a test answers only the bench check of its own location', () => {
 		record.body.location = 'Room B.112, bench 4';
 		const forged = join(bench.dir, 'forged');
 		mkdirSync(forged);
-		const path = writeRecord(forged, signRecord(record.body, [{signer: {name: 'Ines Marlow', role: 'photonics engineer', meaning: 'performed'}, key: operatorKey(home, false).privateKey}]));
+		const path = writeRecord(forged, signRecord(record.body, [{signer: {name: 'Ines Marlow', role: 'photonics engineer', meaning: 'performed'}, key: operatorPrivateKey(home)}]));
 		const audited = await audit(path);
 		expect(audited.code).toBe(1);
 		expect(codesOf(audited.report)).toEqual(['consistency:audit-interlock-location-mismatch']);
@@ -271,7 +272,7 @@ describe('a test answers only the bench check of its own location', () => {
 		record.body.inputs.location.entered = 'Room B.112, bench 4';
 		if (record.body.inputs.location.value !== undefined) record.body.inputs.location.value = 'Room B.112, bench 4';
 		rmSync(path);
-		writeRecord(bench.records, signRecord(record.body, [{signer: {name: 'Ines Marlow', role: 'photonics engineer', meaning: 'performed'}, key: operatorKey(home, false).privateKey}]));
+		writeRecord(bench.records, signRecord(record.body, [{signer: {name: 'Ines Marlow', role: 'photonics engineer', meaning: 'performed'}, key: operatorPrivateKey(home)}]));
 		const audited = await audit(bench.records);
 		expect(audited.code).toBe(1);
 		expect(codesOf(audited.report)).toContain('consistency:audit-interlock-bench-location');

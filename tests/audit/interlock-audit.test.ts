@@ -4,7 +4,7 @@ import {tmpdir} from 'node:os';
 import {join} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
 import type {AuditReport} from '../../source/audit/audit.js';
-import {operatorKey} from '../../source/records/key-store.js';
+import {operatorPrivateKey} from '../helpers/operator-key.js';
 import {generateKeyPair} from '../../source/records/keys.js';
 import type {InterlockTestBody, InterlockTestRecord} from '../../source/records/record-schema.js';
 import {signRecord} from '../../source/records/sign-record.js';
@@ -29,7 +29,7 @@ const writeRecordFile = (content: string | InterlockTestRecord) => writeCaseFile
 function resigned(change: (body: InterlockTestBody) => void): InterlockTestRecord {
 	const body = structuredClone(fresh.body);
 	change(body);
-	return signRecord(body, [{signer: {name: 'Ines Marlow', role: 'photonics engineer', meaning: 'performed'}, key: operatorKey(home, false).privateKey}]);
+	return signRecord(body, [{signer: {name: 'Ines Marlow', role: 'photonics engineer', meaning: 'performed'}, key: operatorPrivateKey(home)}]);
 }
 
 /** The audit of one record file, as JSON. */

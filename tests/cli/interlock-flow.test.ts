@@ -3,7 +3,7 @@ import {tmpdir} from 'node:os';
 import {join, resolve} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
 import {localDay} from '../../source/interlock/functional-test/load-results.js';
-import {operatorKey} from '../../source/records/key-store.js';
+import {operatorPrivateKey} from '../helpers/operator-key.js';
 import type {BenchRecord} from '../../source/records/record-schema.js';
 import {signRecord} from '../../source/records/sign-record.js';
 import {runCli} from '../helpers/run-cli.js';
@@ -86,7 +86,7 @@ describe('the interlock planner feeding the bench check', () => {
 		const bench = JSON.parse(readFileSync(benchPath, 'utf8')) as BenchRecord;
 		const body = structuredClone(bench.body);
 		body.interlockTest!.record!.testedOn = '2026-01-01';
-		const forged = signRecord(body, [{signer: {name: 'Ines Marlow', role: 'photonics engineer', meaning: 'performed'}, key: operatorKey(home, false).privateKey}]);
+		const forged = signRecord(body, [{signer: {name: 'Ines Marlow', role: 'photonics engineer', meaning: 'performed'}, key: operatorPrivateKey(home)}]);
 		const mixed = join(folder, 'mixed');
 		mkdirSync(mixed);
 		for (const name of (await import('node:fs')).readdirSync(records).filter((entry) => entry.includes('interlock-test'))) copyFileSync(join(records, name), join(mixed, name));

@@ -1,4 +1,4 @@
-import type {Io} from '../../source/cli/commands/check.js';
+import type {Io} from '../../source/cli/io.js';
 
 /** A write stream that keeps what was written, for asserting on a command's output. */
 export type FakeStream = NodeJS.WriteStream & {

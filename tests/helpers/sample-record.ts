@@ -1,6 +1,6 @@
 import type {KeyObject} from 'node:crypto';
 import {resolve} from 'node:path';
-import {buildRecordBody} from '../../source/services/build-body.js';
+import {buildRecordBody} from '../../source/records/build-body.js';
 import {generateKeyPair} from '../../source/records/keys.js';
 import type {BenchRecord} from '../../source/records/record-schema.js';
 import {signRecord} from '../../source/records/sign-record.js';

@@ -1,6 +1,6 @@
 import {describe, expect, it} from 'vitest';
 import {deferral} from '../../source/shared/deferral.js';
-import {buildRecordBody} from '../../source/services/build-body.js';
+import {buildRecordBody} from '../../source/records/build-body.js';
 import {checkRecordText} from '../../source/records/read-record.js';
 import {fingerprint, generateKeyPair, rawPublicKey, shortFingerprint} from '../../source/records/keys.js';
 import type {BenchRecord, RecordBody} from '../../source/records/record-schema.js';

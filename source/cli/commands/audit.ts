@@ -9,8 +9,7 @@ import {loadRules, shippedRulesPath} from '../../rules/load.js';
 import {openSettings} from '../../services/settings.js';
 import {terminalSafeJson} from '../../shared/text.js';
 import {UsageError} from '../usage-error.js';
-import type {Io} from './check.js';
-import {helpTexts} from './help.js';
+import {commandHelp, helpOption, parseOptions, type Command, type Io} from '../command.js';
 
 /** Records audited before a progress line is worth showing. */
 const progressAbove = 50;
@@ -33,11 +32,17 @@ function progress(io: Io): {update(done: number, total: number): void; end(): vo
 	};
 }
 
+const options = {
+	rules: {type: 'string', value: 'FILE', summary: 'The current rules (default: the rulesFile setting, else the shipped rules/default.yaml)'},
+	json: {type: 'boolean', summary: 'Print everything the audit found as JSON'},
+	help: helpOption,
+} as const;
+
 /** `prelase audit PATH... [--rules FILE] [--json]`: returns the exit status (0, 1 or 3; 2 by UsageError). */
 export function runAudit(args: string[], io: Io): number {
-	const {values, positionals} = parseArgs({args, options: {rules: {type: 'string'}, json: {type: 'boolean'}, help: {type: 'boolean', short: 'h'}}, allowPositionals: true, strict: true});
+	const {values, positionals} = parseArgs({args, options: parseOptions(options), allowPositionals: true, strict: true});
 	if (values.help) {
-		io.stdout.write(`${helpTexts.audit}\n`);
+		io.stdout.write(`${commandHelp(auditCommand)}\n`);
 		return 0;
 	}
 	if (positionals.length === 0) throw new UsageError('name the records to audit: prelase audit PATH... (record files or folders of them)');
@@ -61,3 +66,40 @@ export function runAudit(args: string[], io: Io): number {
 	io.stdout.write(`${values.json ? terminalSafeJson(report) : auditText(report, paintFor(io.stdout, io.env), io.stdout.columns ?? 100)}\n`);
 	return report.exitCode;
 }
+
+export const auditCommand: Command = {
+	name: 'audit',
+	summary: 'Check signed records: authentic, consistent, and what the current rules change',
+	usage: 'prelase audit PATH... [--rules FILE] [--json]',
+	options,
+	help: {
+		intro: `prelase audit — check signed records
+
+Usage:
+  prelase audit PATH... [--rules FILE] [--json]
+
+PATH is a record file or a folder of records (searched recursively; dotfiles and *.tmp are
+left out). For each record the audit checks:
+  integrity      it parses and every signature verifies over its body; who signed, in what
+                 role and meaning, and whether each key is yours or one you trust
+                 (prelase keys trust); an untrusted key is a finding
+  consistency    its inputs, re-evaluated under the rule file embedded in it, give every
+                 recorded value, verdict and the outcome (a difference is a finding: the
+                 record's conclusions do not follow from its numbers)
+  current rules  what would change under the site's current rules: verdicts, the outcome,
+                 inputs and confirmations the record lacks (a changed verdict is a finding)
+  history        amendments and the records they correct, a later record for the same
+                 setup fingerprint, a setup whose fingerprint changed since its last record
+Record age and interlock test dates are reported as not checked: rule files set no
+validity period or test interval yet.`,
+		notes: `Exit status:
+  0  every record is authentic and consistent, with no findings
+  1  every record is authentic, with findings
+  2  bad usage (no PATH, a PATH that does not exist, a current rule file with problems)
+  3  integrity failure in a record (altered, unsigned or unreadable)
+
+The audit says whether a record is authentic and whether its conclusions follow from its
+numbers; it never says a setup is safe. The laser safety officer has the final word.`,
+	},
+	run: runAudit,
+};

@@ -5,12 +5,11 @@ import {describeCalcProblem, runCalculation} from '../../calculations/run-calcul
 import {dimensions} from '../../quantities/dimensions.js';
 import {formatQuantity} from '../../quantities/format.js';
 import {problem} from '../../shared/problems.js';
-import {didYouMean} from '../../rules/names.js';
+import {didYouMean} from '../../shared/did-you-mean.js';
 import {UsageError} from '../usage-error.js';
 import {terminalSafeJson} from '../../shared/text.js';
 import {definitionRow, wrap} from '../../shared/wrap.js';
-import type {Io} from './check.js';
-import {helpTexts} from './help.js';
+import {commandHelp, helpOption, parseOptions, type Command, type Io} from '../command.js';
 
 /** The list printed by `prelase calc` alone. */
 export function calculationList(): string {
@@ -52,12 +51,17 @@ export function calculationHelp(calculation: Calculation, width = 100): string {
 	return lines.join('\n');
 }
 
+const options = {
+	json: {type: 'boolean', summary: 'Print the calculation\'s inputs, outputs, notes and basis as JSON'},
+	help: {...helpOption, summary: 'Show this help; after NAME, the inputs, outputs and basis of that calculation'},
+} as const;
+
 /** `prelase calc [NAME key=value ... [--json]]`: returns the exit status. */
 export function runCalc(args: string[], io: Io): number {
-	const {values, positionals} = parseArgs({args, options: {json: {type: 'boolean'}, help: {type: 'boolean', short: 'h'}}, allowPositionals: true, strict: true});
+	const {values, positionals} = parseArgs({args, options: parseOptions(options), allowPositionals: true, strict: true});
 	const [name, ...entries] = positionals;
 	if (name === undefined) {
-		io.stdout.write(`${values.help ? `${helpTexts.calc}\n\n` : ''}${calculationList()}\n`);
+		io.stdout.write(`${values.help ? `${commandHelp(calcCommand)}\n\n` : ''}${calculationList()}\n`);
 		return 0;
 	}
 	const calculation = findCalculation(name);
@@ -91,3 +95,27 @@ export function runCalc(args: string[], io: Io): number {
 	io.stdout.write(`${lines.join('\n')}\n`);
 	return 0;
 }
+
+export const calcCommand: Command = {
+	name: 'calc',
+	summary: 'Run one bench calculation (dissipation, headroom, wire, ...) on values with units',
+	usage: 'prelase calc [NAME key=value ... [--json]]',
+	options,
+	help: {
+		intro: `prelase calc — bench calculations
+
+Usage:
+  prelase calc                            List the calculations
+  prelase calc NAME --help                Inputs (dimension, description, default), outputs, basis
+  prelase calc NAME key=value ... [--json]
+
+Values carry units: prelase calc dissipation supply=28V knee=2V series_resistance=0ohm limit=1A
+Temperatures in degC; percentages as 5%. Rule formulas call the same calculations.`,
+		notes: `--json prints {"calc", "inputs", "outputs": {KEY: {"si", "unit", "text"}}, "notes", "basis"}
+and, for mpe, nohd, od and hazard-class, "caution": these are for planning and do not replace
+the laser safety officer's hazard evaluation or the standards in force.
+Exit status: 0 done, 2 unknown name or key, wrong dimension, missing input, or a value
+outside the calculation's validity.`,
+	},
+	run: runCalc,
+};

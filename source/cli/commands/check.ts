@@ -11,41 +11,37 @@ import type {Answers} from '../../rules/answers.js';
 import type {CompiledRules} from '../../rules/compiled-rules.js';
 import {recordsFolder, trustedFingerprints} from '../../services/records-folder.js';
 import {dirname} from 'node:path';
-import {UsageError} from '../usage-error.js';
+import {UsageError, valueOrUsageError} from '../usage-error.js';
 import {checkText} from '../../render/check-text.js';
-import {helpTexts} from './help.js';
+import {commandHelp, helpOption, parseOptions, type Command, type Io} from '../command.js';
 import {signAndWrite} from '../../services/sign-check.js';
 import {terminalSafeJson} from '../../shared/text.js';
 import {isInteractive, startScreens} from '../screens.js';
 
-/** Where a command writes; tests pass their own. */
-export type Io = {stdout: NodeJS.WriteStream; stderr: NodeJS.WriteStream; env: NodeJS.ProcessEnv; stdin?: {isTTY?: boolean}};
+export type {Io} from '../command.js';
+
+const options = {
+	answers: {type: 'string', value: 'FILE', summary: 'Answers file: setup, inputs (id: value with unit), confirmations (id: yes/no/not applicable, or {answer, note}); see docs/examples/'},
+	rules: {type: 'string', value: 'FILE', summary: 'Rule file to use (default: the settings\' rule file, else the shipped rules/default.yaml)'},
+	json: {type: 'boolean', summary: 'Print the evaluation as JSON instead of text'},
+	sign: {type: 'string', value: 'NAME', summary: 'Write a signed record of this check (in every outcome) as NAME; the operator\'s key is created on first use (see prelase keys)'},
+	role: {type: 'string', value: 'ROLE', summary: 'The signer\'s role (default: the role in settings)'},
+	records: {type: 'string', value: 'DIR', summary: 'Records folder: where the record is written and interlock test records are looked for (default: settings, else the settings folder\'s records/)'},
+	amends: {type: 'string', value: 'RECORD', summary: 'This record corrects RECORD (never edited); needs --reason TEXT'},
+	reason: {type: 'string', value: 'TEXT', summary: 'Why the record amends RECORD (with --amends)'},
+	cosign: {type: 'string', value: 'NAME', summary: 'A second signer (verifier or laser safety officer) signing with their own private key file --cosign-key FILE'},
+	'cosign-key': {type: 'string', value: 'FILE', summary: 'The second signer\'s private key file (with --cosign)'},
+	'cosign-role': {type: 'string', value: 'ROLE', summary: 'The second signer\'s role (with --cosign)'},
+	'cosign-meaning': {type: 'string', value: 'verified|approved', summary: 'What the second signature means: verified (default) or approved'},
+	setup: {type: 'string', value: 'NAME', summary: 'Without --answers, on a terminal: open the on-screen check on the setup NAME'},
+	help: helpOption,
+} as const;
 
 /** `prelase check --answers FILE [--rules FILE] [--json]`: returns the exit status. */
 export function runCheck(args: string[], io: Io): number | Promise<number> {
-	const {values} = parseArgs({
-		args,
-		options: {
-			answers: {type: 'string'},
-			rules: {type: 'string'},
-			json: {type: 'boolean'},
-			sign: {type: 'string'},
-			role: {type: 'string'},
-			records: {type: 'string'},
-			amends: {type: 'string'},
-			reason: {type: 'string'},
-			cosign: {type: 'string'},
-			'cosign-role': {type: 'string'},
-			'cosign-key': {type: 'string'},
-			'cosign-meaning': {type: 'string'},
-			setup: {type: 'string'},
-			help: {type: 'boolean', short: 'h'},
-		},
-		allowPositionals: false,
-		strict: true,
-	});
+	const {values} = parseArgs({args, options: parseOptions(options), allowPositionals: false, strict: true});
 	if (values.help) {
-		io.stdout.write(`${helpTexts.check}\n`);
+		io.stdout.write(`${commandHelp(checkCommand)}\n`);
 		return 0;
 	}
 	if (!values.answers) {
@@ -84,22 +80,24 @@ function finishCheck(rules: CompiledRules, linked: {answers: Answers; link: Inte
 	const written =
 		values.sign === undefined
 			? undefined
-			: signAndWrite(
-					rules,
-					linked.answers,
-					evaluation,
-					{
-						name: values.sign,
-						...(values.role === undefined ? {} : {role: values.role}),
-						...(values.records === undefined ? {} : {records: values.records}),
-						...(values.amends === undefined ? {} : {amends: values.amends}),
-						...(values.reason === undefined ? {} : {reason: values.reason}),
-						...(values.cosign === undefined
-							? {}
-							: {cosign: {name: values.cosign, key: values['cosign-key']!, meaning: values['cosign-meaning'] ?? 'verified', ...(values['cosign-role'] === undefined ? {} : {role: values['cosign-role']})}}),
-					},
-					io.env,
-					linked.link,
+			: valueOrUsageError(
+					signAndWrite(
+						rules,
+						linked.answers,
+						evaluation,
+						{
+							name: values.sign,
+							...(values.role === undefined ? {} : {role: values.role}),
+							...(values.records === undefined ? {} : {records: values.records}),
+							...(values.amends === undefined ? {} : {amends: values.amends}),
+							...(values.reason === undefined ? {} : {reason: values.reason}),
+							...(values.cosign === undefined
+								? {}
+								: {cosign: {name: values.cosign, key: values['cosign-key']!, meaning: values['cosign-meaning'] ?? 'verified', ...(values['cosign-role'] === undefined ? {} : {role: values['cosign-role']})}}),
+						},
+						io.env,
+						linked.link,
+					),
 				);
 	if (values.json) {
 		const json = {...evaluationToJson(rules, linked.answers, evaluation), ...(linked.link ? {interlockTest: linked.link} : {}), ...(written ? {record: {path: written.path, fingerprint: written.fingerprint}} : {})};
@@ -110,3 +108,35 @@ function finishCheck(rules: CompiledRules, linked: {answers: Answers; link: Inte
 	}
 	return evaluation.outcome === 'clear_to_energize' ? 0 : 1;
 }
+
+export const checkCommand: Command = {
+	name: 'check',
+	summary: 'Run the bench check over the rule file and report each check\'s verdict and margin',
+	usage: 'prelase check --answers FILE [--rules FILE] [--json]',
+	options,
+	help: {
+		intro: `prelase check — the bench check
+
+Usage:
+  prelase check --answers FILE [--rules FILE] [--json] [--records DIR]
+                [--sign NAME [--role ROLE] [--amends RECORD --reason TEXT]
+                 [--cosign NAME --cosign-key FILE [--cosign-role ROLE] [--cosign-meaning verified|approved]]]
+
+Reads the setup's numbers and confirmations from an answers file (YAML), evaluates every
+check of the rule file, and prints each verdict with its value, limit and margin, failures
+first in the summary, then the outcome: clear to energize, do not energize, or incomplete.
+When the setup names its interlock plan (input interlock_plan, a path relative to the answers
+file), the loop-test confirmations are answered from the latest trusted interlock test record
+of that plan in the records folder: yes within the policy's test interval, otherwise no.`,
+		notes: `Without --sign nothing is written.
+
+Exit status:
+  0  clear to energize
+  1  do not energize, or incomplete
+  2  bad usage or bad input (the message names the file, line and field)
+
+Without --answers, on a terminal, the check runs on screen (--setup NAME starts it on that
+setup); elsewhere give --answers FILE.`,
+	},
+	run: runCheck,
+};

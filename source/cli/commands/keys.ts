@@ -3,30 +3,34 @@ import {createPublicKey} from 'node:crypto';
 import {parseArgs} from 'node:util';
 import {operatorKey, ownFingerprint, publicKeyPem, readTrusted, writeTrusted} from '../../records/key-store.js';
 import {fingerprint, rawPublicKey, shortFingerprint} from '../../records/keys.js';
-import {isoWithOffset} from '../../records/sign.js';
+import {isoWithOffset} from '../../shared/iso-time.js';
 import {openSettings} from '../../services/settings.js';
 import {stripControl} from '../../shared/text.js';
-import {UsageError} from '../usage-error.js';
-import type {Io} from './check.js';
-import {helpTexts} from './help.js';
+import {UsageError, valueOrUsageError} from '../usage-error.js';
+import {commandHelp, helpOption, parseOptions, type Command, type Io} from '../command.js';
+
+const options = {
+	name: {type: 'string', value: 'NAME', summary: 'With trust: the name the colleague\'s key is trusted under'},
+	help: helpOption,
+} as const;
 
 /** `prelase keys [export|trust|list|forget]`: returns the exit status. */
 export function runKeys(args: string[], io: Io): number {
-	const {values, positionals} = parseArgs({args, options: {name: {type: 'string'}, help: {type: 'boolean', short: 'h'}}, allowPositionals: true, strict: true});
+	const {values, positionals} = parseArgs({args, options: parseOptions(options), allowPositionals: true, strict: true});
 	if (values.help) {
-		io.stdout.write(`${helpTexts.keys}\n`);
+		io.stdout.write(`${commandHelp(keysCommand)}\n`);
 		return 0;
 	}
 	const [action = 'show', ...rest] = positionals;
 	const settings = openSettings(io.env);
 	switch (action) {
 		case 'show': {
-			const {privateKey, created, path} = operatorKey(settings.folder, true);
+			const {privateKey, created, path} = valueOrUsageError(operatorKey(settings.folder, true));
 			io.stdout.write(`${created ? 'Created your signing key' : 'Your signing key'}: ${path}\nFingerprint: ${shortFingerprint(fingerprint(rawPublicKey(privateKey)))} (${fingerprint(rawPublicKey(privateKey))})\n`);
 			return 0;
 		}
 		case 'export': {
-			const {privateKey} = operatorKey(settings.folder, true);
+			const {privateKey} = valueOrUsageError(operatorKey(settings.folder, true));
 			io.stdout.write(publicKeyPem(privateKey));
 			return 0;
 		}
@@ -68,3 +72,24 @@ export function runKeys(args: string[], io: Io): number {
 			throw new UsageError(`unknown keys action "${action}"; use export, trust, list or forget (prelase keys --help)`);
 	}
 }
+
+export const keysCommand: Command = {
+	name: 'keys',
+	summary: 'Your signing key, and the colleagues\' keys you trust',
+	usage: 'prelase keys [export | trust FILE --name NAME | list | forget NAME]',
+	options,
+	help: {
+		intro: `prelase keys — signing keys
+
+Usage:
+  prelase keys                          Show your key's fingerprint (create the key on first use)
+  prelase keys export                   Print your public key (PEM) to give to colleagues
+  prelase keys trust FILE --name NAME   Trust a colleague's public key (PEM file)
+  prelase keys list                     List your key and the keys you trust
+  prelase keys forget NAME              Stop trusting a colleague's key
+
+Keys live in the settings folder (PRELASE_HOME overrides it), readable only by you; a private
+key file that others can read is refused.`,
+	},
+	run: runKeys,
+};

@@ -1,6 +1,6 @@
 import {isInteractive, startScreens} from '../screens.js';
 import {UsageError} from '../usage-error.js';
-import type {Io} from './check.js';
+import type {Io} from '../io.js';
 
 /**
  * `prelase plan FILE --edit [--rules FILE]`: the planner screen on FILE. It needs a terminal;

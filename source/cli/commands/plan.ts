@@ -1,7 +1,6 @@
 import {parseArgs} from 'node:util';
 import {analysePlan} from '../../interlock/analysis/analyse.js';
-import {toJSONSchema} from 'zod';
-import {loadPlanAndText} from '../../interlock/plan/plan-in-force.js';
+import {loadPlanAndText} from '../../interlock/plan/plan-and-text.js';
 import {planSchema} from '../../interlock/plan/plan-schema.js';
 import {testResultsSchema} from '../../interlock/functional-test/results-schema.js';
 import {rulesInForce} from '../../services/rules-in-force.js';
@@ -11,30 +10,33 @@ import {testSheetHtml} from '../../render/test-sheet-html.js';
 import {testSheetMarkdown} from '../../render/test-sheet-markdown.js';
 import {recordTest} from '../../services/record-functional-test.js';
 import {formatProblem} from '../../shared/problems.js';
+import {editorJsonSchema} from '../../shared/json-schema.js';
 import {stripControl, terminalSafeJson} from '../../shared/text.js';
 import {deferral} from '../../shared/deferral.js';
 import {interlockTestCaution} from '../../interlock/functional-test/test-record.js';
-import {UsageError} from '../usage-error.js';
-import type {Io} from './check.js';
-import {helpTexts} from './help.js';
+import {UsageError, valueOrUsageError} from '../usage-error.js';
+import {commandHelp, helpOption, parseOptions, type Command, type Io} from '../command.js';
 import {editPlan} from './plan-screen.js';
 
 const sheetWriters = {md: testSheetMarkdown, html: testSheetHtml};
 
-/** A value with its unit is checked by prelase's own parser; to an editor it is text (or a bare number). */
-const jsonSchemaOptions = {
-	io: 'input',
-	unrepresentable: 'any',
-	override(context: {zodSchema: {_zod: {def: {type: string}}}; jsonSchema: Record<string, unknown>}) {
-		if (context.zodSchema._zod.def.type === 'custom') context.jsonSchema['type'] = ['string', 'number'];
-	},
-} as const;
-
 /** JSON Schemas of the files the planner reads, for editors. */
 const schemas = {
-	plan: () => ({title: 'prelase interlock plan', ...toJSONSchema(planSchema, jsonSchemaOptions)}),
-	results: () => ({title: 'prelase interlock test results', ...toJSONSchema(testResultsSchema, jsonSchemaOptions)}),
+	plan: () => editorJsonSchema('prelase interlock plan', planSchema),
+	results: () => editorJsonSchema('prelase interlock test results', testResultsSchema),
 };
+
+const options = {
+	rules: {type: 'string', value: 'FILE', summary: 'The rule file whose interlock policy applies (default: the settings\' rule file, else the shipped policy)'},
+	json: {type: 'boolean', summary: 'Print the figures, findings and verdict as JSON'},
+	'test-sheet': {type: 'string', value: 'md|html', summary: 'Print the functional test sheet (Markdown, or a page to print) with blanks for the result, initials and date of every step'},
+	'record-test': {type: 'string', value: 'RESULTS', summary: 'Hold a filled-in test (YAML: tested_on, tested_by, witness, one result per step) against the plan\'s sheet, then write a signed interlock test record with the plan\'s text and hash. A bench check whose setup names the plan (input interlock_plan) answers its loop-test confirmations from the latest such record within the policy\'s test interval'},
+	records: {type: 'string', value: 'DIR', summary: 'Where to write the record (default: the settings\' records folder)'},
+	'witness-key': {type: 'string', value: 'FILE', summary: 'The witness\'s private key: the witness signs too, as verified'},
+	edit: {type: 'boolean', summary: 'Open the planner screen on FILE (needs a terminal): edit, add, remove and reorder access points and devices, the findings following each change; saving keeps the file\'s comments and key order; t records a functional test of the plan as saved, step by step'},
+	schema: {type: 'string', value: 'plan|results', summary: 'Print the JSON Schema of plan files or of results files'},
+	help: helpOption,
+} as const;
 
 /**
  * `prelase plan FILE [--rules FILE] [--json | --test-sheet md|html | --record-test RESULTS]`, or
@@ -42,19 +44,9 @@ const schemas = {
  * findings (a test recorded as failed), 2 bad usage or input.
  */
 export function runPlan(args: string[], io: Io): number | Promise<number> {
-	const {values, positionals} = parseArgs({args, options: {
-			json: {type: 'boolean'},
-			'test-sheet': {type: 'string'},
-			rules: {type: 'string'},
-			edit: {type: 'boolean'},
-			'record-test': {type: 'string'},
-			records: {type: 'string'},
-			'witness-key': {type: 'string'},
-			schema: {type: 'string'},
-			help: {type: 'boolean', short: 'h'},
-		}, allowPositionals: true, strict: true});
+	const {values, positionals} = parseArgs({args, options: parseOptions(options), allowPositionals: true, strict: true});
 	if (values.help) {
-		io.stdout.write(`${helpTexts.plan}\n`);
+		io.stdout.write(`${commandHelp(planCommand)}\n`);
 		return 0;
 	}
 	if (values.schema !== undefined) {
@@ -90,7 +82,7 @@ export function runPlan(args: string[], io: Io): number | Promise<number> {
 		return 0;
 	}
 	if (values['record-test'] !== undefined) {
-		const recorded = recordTest(plan, file, text, rules.value, {results: values['record-test'], records: values.records, witnessKey: values['witness-key']}, io.env);
+		const recorded = valueOrUsageError(recordTest(plan, file, text, rules.value, {results: values['record-test'], records: values.records, witnessKey: values['witness-key']}, io.env));
 		const verdict = recorded.outcome === 'passed' ? 'PASSED' : 'FAILED';
 		io.stdout.write(
 			[
@@ -112,3 +104,43 @@ export function runPlan(args: string[], io: Io): number | Promise<number> {
 	io.stdout.write(values.json ? `${terminalSafeJson(planJson(plan, analysis, file, source))}\n` : planText(plan, analysis, file, source));
 	return analysis.stops > 0 ? 1 : 0;
 }
+
+export const planCommand: Command = {
+	name: 'plan',
+	summary: 'Analyse an interlock loop plan, print its test sheet, record a test, edit it',
+	usage: 'prelase plan FILE [--json | --test-sheet md|html | --record-test RESULTS | --edit]',
+	options,
+	help: {
+		intro: `prelase plan — the interlock planner
+
+Usage:
+  prelase plan FILE [--rules FILE] [--json]
+  prelase plan FILE --test-sheet md|html
+  prelase plan FILE --record-test RESULTS [--records DIR] [--witness-key FILE]
+  prelase plan FILE --edit
+  prelase plan --schema plan|results
+
+Reads an interlock plan (YAML: the driver's interlock input, the access points and the devices
+of the loop in wiring order; see docs/interlock.md) under the interlock policy of the rule file
+in force (interlock_* policy values), and prints the loop figures and every finding with its
+severity and the device or access point it concerns:
+  loop        contacts plus every wire run (copper at the stated temperature) against the
+              input's closed threshold less the policy margin; loop current and voltage
+              against every contact's rating
+  fail-safe   every device normally closed and in series; emergency stops positive-opening;
+              a bypass key or shorting plug allowed by policy, with owner, reason and time limit
+  coverage    every access point a beam can be reached through is interlocked or tool-secured,
+              by a device that exists
+  response    each device's opening time + input response + driver disable and fall time
+              within the policy's largest response time; manual reset for class 4`,
+		notes: `Exit status:
+  0  no stop finding (or the test sheet or schema was printed; or the test recorded passed)
+  1  one or more stop findings (or the test recorded failed: the record is written anyway)
+  2  bad usage, a bad plan or results file (the message names the file, line and field);
+     nothing is recorded
+
+The planner says which findings it has; it never says a loop is safe. The laser safety
+officer and the codes in force (IEC 60825 series, ANSI Z136 series, local law) decide.`,
+	},
+	run: runPlan,
+};

@@ -9,8 +9,7 @@ import {reportMarkdown} from '../../render/report-markdown.js';
 import {openSettings} from '../../services/settings.js';
 import {stripControl} from '../../shared/text.js';
 import {UsageError} from '../usage-error.js';
-import type {Io} from './check.js';
-import {helpTexts} from './help.js';
+import {commandHelp, helpOption, parseOptions, type Command, type Io} from '../command.js';
 
 const writers = {md: reportMarkdown, html: reportHtml} as const;
 const interlockWriters = {md: interlockReportMarkdown, html: interlockReportHtml} as const;
@@ -24,11 +23,17 @@ function chooseFormat(format: string | undefined, out: string | undefined): keyo
 	return out && ['.html', '.htm'].includes(extname(out).toLowerCase()) ? 'html' : 'md';
 }
 
+const options = {
+	format: {type: 'string', value: 'md|html', summary: 'Markdown (default), or one self-contained HTML file that prints on A4 and Letter (default html when --out ends in .html)'},
+	out: {type: 'string', value: 'FILE', summary: 'Write the page to FILE instead of printing it; an existing FILE is never overwritten'},
+	help: helpOption,
+} as const;
+
 /** `prelase report RECORD [--format md|html] [--out FILE]`: returns the exit status. */
 export function runReport(args: string[], io: Io): number {
-	const {values, positionals} = parseArgs({args, options: {format: {type: 'string'}, out: {type: 'string'}, help: {type: 'boolean', short: 'h'}}, allowPositionals: true, strict: true});
+	const {values, positionals} = parseArgs({args, options: parseOptions(options), allowPositionals: true, strict: true});
 	if (values.help) {
-		io.stdout.write(`${helpTexts.report}\n`);
+		io.stdout.write(`${commandHelp(reportCommand)}\n`);
 		return 0;
 	}
 	if (positionals.length !== 1) throw new UsageError(positionals.length === 0 ? 'name the record to print: prelase report RECORD [--format md|html]' : 'prelase report prints one record at a time; name one RECORD');
@@ -62,3 +67,29 @@ export function runReport(args: string[], io: Io): number {
 	io.stdout.write(`Report written: ${values.out}\n`);
 	return 0;
 }
+
+export const reportCommand: Command = {
+	name: 'report',
+	summary: 'A printable page (Markdown or HTML) of a signed record',
+	usage: 'prelase report RECORD [--format md|html] [--out FILE]',
+	options,
+	help: {
+		intro: `prelase report — a printable page of a record
+
+Usage:
+  prelase report RECORD [--format md|html] [--out FILE]
+
+Checks the record's integrity, then prints it: the outcome, the caution and the deferral,
+failures first in a summary, the setup and its fingerprint, operator and time, the rule
+file's name and SHA-256, every input, every check by step with verdict, value, limit and
+margin, confirmations with notes, and each signature with whether it verifies and whether
+its key is yours or one you trust (prelase keys). An interlock test record (prelase plan
+--record-test) prints its outcome, steps not passed first, the tester and witness, the plan and
+its SHA-256, the policy, every step with its result, stop time and note, and the signatures.`,
+		notes: `Exit status:
+  0  the report was printed or written
+  2  bad usage (no RECORD, unknown format, FILE exists)
+  3  the record fails its integrity check (altered, unsigned, unreadable); nothing is printed`,
+	},
+	run: runReport,
+};

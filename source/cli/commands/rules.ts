@@ -1,46 +1,18 @@
 import {writeFileSync} from 'node:fs';
 import {parseArgs} from 'node:util';
-import {toJSONSchema} from 'zod';
 import {formatProblem} from '../../shared/problems.js';
 import type {CompiledRules} from '../../rules/compiled-rules.js';
 import {diffRules} from '../../rules/diff.js';
 import {siteFileTemplate} from '../../rules/init-template.js';
 import {loadRules, shippedRulesPath} from '../../rules/load.js';
-import {ruleFileSchema} from '../../rules/schema.js';
+import {ruleFileJsonSchema, siteFileJsonSchema} from '../../rules/rule-json-schema.js';
 import {showRules} from '../../rules/show.js';
-import {siteFileSchema} from '../../rules/site-schema.js';
 import {openSettings} from '../../services/settings.js';
 import {terminalSafeJson} from '../../shared/text.js';
 import {UsageError} from '../usage-error.js';
-import type {Io} from './check.js';
-import {helpTexts} from './help.js';
+import {commandHelp, helpOption, parseOptions, type Command, type Io} from '../command.js';
 import {diffText} from '../../render/rules-diff-text.js';
 import {showText} from '../../render/rules-show-text.js';
-
-/** Removes `kind` from the required fields of quantity inputs, as the loader allows. */
-function relaxKind(node: unknown): void {
-	if (!node || typeof node !== 'object') return;
-	const record = node as Record<string, unknown>;
-	const properties = record['properties'] as Record<string, {const?: unknown}> | undefined;
-	if (properties?.['kind']?.const === 'quantity' && Array.isArray(record['required'])) {
-		record['required'] = (record['required'] as string[]).filter((key) => key !== 'kind');
-	}
-	for (const value of Object.values(record)) relaxKind(value);
-}
-
-/** The JSON Schema of rule files, with `kind` optional on quantity inputs as the loader allows. */
-export function ruleFileJsonSchema(): Record<string, unknown> {
-	const schema = toJSONSchema(ruleFileSchema, {io: 'input', unrepresentable: 'any'}) as Record<string, unknown>;
-	relaxKind(schema);
-	return {title: 'prelase rule file', ...schema};
-}
-
-/** The JSON Schema of site rule files (those with `extends`). */
-export function siteFileJsonSchema(): Record<string, unknown> {
-	const schema = toJSONSchema(siteFileSchema, {io: 'input', unrepresentable: 'any'}) as Record<string, unknown>;
-	relaxKind(schema);
-	return {title: 'prelase site rule file (extends a base)', ...schema};
-}
 
 /** A rule file named on the command line: `shipped` is the shipped policy. */
 function ruleFileArgument(name: string): string {
@@ -54,12 +26,18 @@ function loadOrRefuse(file: string): CompiledRules {
 	return loaded.value;
 }
 
+const options = {
+	json: {type: 'boolean', summary: 'With show or diff: print it as JSON'},
+	site: {type: 'boolean', summary: 'With schema: the JSON Schema of site rule files (those with extends)'},
+	help: helpOption,
+} as const;
+
 /** `prelase rules schema|validate|init|show|diff`: returns the exit status. */
 export function runRules(args: string[], io: Io): number {
-	const {values, positionals} = parseArgs({args, options: {help: {type: 'boolean', short: 'h'}, json: {type: 'boolean'}, site: {type: 'boolean'}}, allowPositionals: true, strict: true});
+	const {values, positionals} = parseArgs({args, options: parseOptions(options), allowPositionals: true, strict: true});
 	const [action, ...files] = positionals;
 	if (values.help || action === undefined) {
-		io.stdout.write(`${helpTexts.rules}\n`);
+		io.stdout.write(`${commandHelp(rulesCommand)}\n`);
 		return values.help ? 0 : 2;
 	}
 	if (values.json && action !== 'show' && action !== 'diff') throw new UsageError('--json goes with rules show or rules diff');
@@ -116,3 +94,40 @@ export function runRules(args: string[], io: Io): number {
 			throw new UsageError(`unknown rules action "${action}"; actions are init, show, diff, schema or validate`);
 	}
 }
+
+export const rulesCommand: Command = {
+	name: 'rules',
+	summary: 'Site policy: derive, validate, show and compare rule files; the JSON Schema',
+	usage: 'prelase rules init FILE | validate FILE... | show [FILE] | diff A B | schema',
+	options,
+	help: {
+		intro: `prelase rules — rule files
+
+Usage:
+  prelase rules init FILE           Write a site rule file that extends the shipped policy, with
+                                    every policy value, its default, unit and meaning commented
+                                    out; never overwrites a file
+  prelase rules validate FILE...    Load, resolve extends, lint and report every problem with
+                                    file:line:column
+  prelase rules show [FILE] [--json]
+                                    The effective rules step by step: inputs, confirmations,
+                                    checks with their condition, severity and basis, policy
+                                    values, switched-off checks with reasons, and the file each
+                                    part came from (default: the rule file in force, from
+                                    settings, else the shipped policy)
+  prelase rules diff A B [--json]   What differs in meaning from A to B: policy values (old →
+                                    new), checks added, removed, switched off or changed,
+                                    inputs and confirmations added or removed
+  prelase rules schema [--site]     Print the JSON Schema of rule files (--site: of site rule
+                                    files, those with extends), for editors
+
+FILE may be "shipped" for the shipped policy. A site rule file names its base with
+extends: shipped (or a path relative to itself) and lists only what it changes; see
+docs/rule-file.md. The laser safety officer decides the site policy.`,
+		notes: `Exit status:
+  validate  0 no problems, 1 problems found, 2 bad usage
+  diff      0 no differences in meaning, 1 differences, 2 bad usage or a file with problems
+  init, show, schema  0 done, 2 bad usage (init: the file exists)`,
+	},
+	run: runRules,
+};

@@ -1,4 +1,4 @@
-import {didYouMean} from '../../rules/names.js';
+import {didYouMean} from '../../shared/did-you-mean.js';
 import {kindText} from './fail-safe.js';
 import {finding, type Finding} from './finding.js';
 import type {Plan} from '../plan/plan-schema.js';

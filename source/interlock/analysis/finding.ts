@@ -1,27 +1,17 @@
-import type {ProblemCode} from '../../shared/messages.js';
-import {fillPlaceholders} from '../../shared/problems.js';
-import {messages} from '../../shared/messages.js';
+import type {CodedMessage} from '../../shared/problems.js';
 
 /** What a finding concerns: a device, an access point, the input, or the loop as a whole. */
 export type FindingSubject = {kind: 'device' | 'access_point'; id: string} | {kind: 'input' | 'loop'};
 
 /** A weak spot of an interlock plan. `stop` must be resolved before emission; `advise` is a warning. */
-export type Finding = {
-	code: ProblemCode;
+export type Finding = CodedMessage & {
 	severity: 'stop' | 'advise';
 	subject: FindingSubject;
-	/** Values that fill the message's placeholders. */
-	data: Record<string, string | number>;
 };
 
 /** Makes a finding. */
-export function finding(code: ProblemCode, severity: Finding['severity'], subject: FindingSubject, data: Finding['data'] = {}): Finding {
+export function finding(code: Finding['code'], severity: Finding['severity'], subject: FindingSubject, data: Finding['data'] = {}): Finding {
 	return {code, severity, subject, data};
-}
-
-/** The finding's message in words. */
-export function describeFinding(found: Finding): string {
-	return fillPlaceholders(messages[found.code], found.data);
 }
 
 /** The subject as a person reads it: `device lid_switch`, `access point rear_panel`, `input`, `loop`. */

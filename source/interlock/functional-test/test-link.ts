@@ -6,7 +6,7 @@ import {formatProblem} from '../../shared/problems.js';
 import type {Answers, ConfirmationAnswer} from '../../rules/answers.js';
 import type {CompiledRules} from '../../rules/compiled-rules.js';
 import {readTextFile} from '../../shared/yaml-source.js';
-import {KeyCache} from '../../audit/audit-integrity.js';
+import {KeyCache} from '../../records/integrity.js';
 import {readRecord} from '../../records/read-record.js';
 import type {InterlockTestBody} from '../../records/record-schema.js';
 import {durationText} from '../analysis/duration-text.js';

@@ -4,7 +4,7 @@ import {displayPath} from '../../shared/display-path.js';
 import {formatQuantity} from '../../quantities/format.js';
 import type {CompiledRules} from '../../rules/compiled-rules.js';
 import {interlockTestBodySchema, type InterlockTestBody} from '../../records/record-schema.js';
-import {isoWithOffset} from '../../records/sign.js';
+import {isoWithOffset} from '../../shared/iso-time.js';
 import {version} from '../../shared/version.js';
 import type {PlanAnalysis} from '../analysis/analyse.js';
 import {durationText} from '../analysis/duration-text.js';

@@ -1,8 +1,8 @@
 import type {InterlockTestBody} from '../../records/record-schema.js';
 import {formatQuantity} from '../../quantities/format.js';
-import {formatProblem} from '../../shared/problems.js';
+import {describeProblem, formatProblem} from '../../shared/problems.js';
 import {analysePlan} from '../analysis/analyse.js';
-import {describeFinding, subjectText} from '../analysis/finding.js';
+import {subjectText} from '../analysis/finding.js';
 import {loadPlanFromText} from '../plan/load-plan.js';
 import type {InterlockPolicy} from '../plan/policy.js';
 
@@ -26,7 +26,7 @@ export function reasonsUnderPolicy(body: InterlockTestBody, policy: InterlockPol
 	}
 	const analysis = analysePlan({...loaded.value, policy});
 	for (const found of analysis.findings.filter((entry) => entry.severity === 'stop')) {
-		reasons.push(`the plan has the stop finding ${found.code} (${subjectText(found.subject)}: ${describeFinding(found)}) under the policy in force`);
+		reasons.push(`the plan has the stop finding ${found.code} (${subjectText(found.subject)}: ${describeProblem(found)}) under the policy in force`);
 	}
 	return reasons;
 }

@@ -124,5 +124,3 @@ export type Device = Plan['devices'][number];
 export type AccessPoint = Plan['access_points'][number];
 /** One wire run of a validated plan. */
 export type WireRun = z.output<typeof wireRunSchema>;
-/** What a device is. */
-export type DeviceKind = (typeof deviceKinds)[number];

@@ -1,9 +1,7 @@
 import {sha256Hex} from '../../shared/sha256.js';
-import {renameSync, rmSync} from 'node:fs';
-import {join} from 'node:path';
 // Named imports (not the z namespace) let the bundler leave out the parts of zod not used.
 import {array, enum as oneOf, object, string} from 'zod';
-import {readDraftFile, writeDraftFile} from './draft-store.js';
+import {fileDraftStore, type FoundDraft} from './draft-kind.js';
 
 /** One step as entered on screen: the result (once marked), the stop time and note as typed. */
 export type TestDraftStep = {result?: 'pass' | 'fail' | 'not_applicable'; stoppedIn: string; note: string};
@@ -30,16 +28,16 @@ const testDraftSchema = object({
 	savedAt: string().datetime(),
 }).strict();
 
+const testDrafts = fileDraftStore({prefix: 'test', schema: testDraftSchema, madeFrom: (draft) => draft.planSha256});
 
 /** Where the test draft of a plan file lives: one per plan, beside the planner's draft. */
 export function testDraftPath(settingsFolder: string, file: string): string {
-	return join(settingsFolder, 'drafts', `test-${sha256Hex(file).slice(0, 16)}.json`);
+	return testDrafts.path(settingsFolder, file);
 }
 
 /** Saves the entries of a test of a plan's text, atomically and owner-only. */
 export function saveTestDraft(settingsFolder: string, file: string, planText: string, entries: {steps: TestDraftStep[]; people: TestDraftPeople}, now = new Date()): void {
-	const draft: TestDraft = {file, planSha256: sha256Hex(planText), steps: entries.steps, people: entries.people, savedAt: now.toISOString()};
-	writeDraftFile(testDraftPath(settingsFolder, file), JSON.stringify(draft));
+	testDrafts.save(settingsFolder, file, {file, planSha256: sha256Hex(planText), steps: entries.steps, people: entries.people, savedAt: now.toISOString()});
 }
 
 /**
@@ -47,11 +45,8 @@ export function saveTestDraft(settingsFolder: string, file: string, planText: st
  * against the text the file has now; `stale` when the plan changed since. A draft that does not
  * read as one is ignored.
  */
-export function loadTestDraft(settingsFolder: string, file: string, planText: string): {state: 'current' | 'stale'; draft: TestDraft; path: string} | undefined {
-	const path = testDraftPath(settingsFolder, file);
-	const draft = readDraftFile(path, testDraftSchema) as TestDraft | undefined;
-	if (draft?.file !== file) return undefined;
-	return {state: draft.planSha256 === sha256Hex(planText) ? 'current' : 'stale', draft, path};
+export function loadTestDraft(settingsFolder: string, file: string, planText: string): FoundDraft<TestDraft> | undefined {
+	return testDrafts.find(settingsFolder, file, planText);
 }
 
 /**
@@ -59,12 +54,10 @@ export function loadTestDraft(settingsFolder: string, file: string, planText: st
  * it was saved; returns where it now is.
  */
 export function setTestDraftAside(settingsFolder: string, file: string, draft: TestDraft): string {
-	const aside = testDraftPath(settingsFolder, file).replace(/\.json$/, `.${draft.savedAt.replaceAll(/[-:.]/g, '')}.json`);
-	renameSync(testDraftPath(settingsFolder, file), aside);
-	return aside;
+	return testDrafts.setAside(settingsFolder, file, draft);
 }
 
 /** Removes the test draft of a plan once its test is signed or discarded. */
 export function removeTestDraft(settingsFolder: string, file: string): void {
-	rmSync(testDraftPath(settingsFolder, file), {force: true});
+	testDrafts.remove(settingsFolder, file);
 }

@@ -1,7 +1,7 @@
 import {Box, Text, type Key} from 'ink';
 import {useKeystrokes, type Arrival} from '../use-keystrokes.js';
 import {signAloneMessage} from '../answer-key.js';
-import {useReducer, useRef} from 'react';
+import {useRefState} from '../use-ref-state.js';
 import {outcomeWords} from '../../rules/evaluation.js';
 import {stripControl} from '../../shared/text.js';
 import type {Session} from './session.js';
@@ -22,12 +22,8 @@ const fields: Array<{key: keyof SignOffForm; label: string}> = [
 /** The sign-off: who signs, what they are signing, then the signed record is written. */
 export function SignOffScreen({session, initial, error, onSign, onBack}: {session: Session; initial: SignOffForm; error?: string; onSign(form: SignOffForm): void; onBack(): void}) {
 	// Kept in a ref: a burst of keys is handled before React draws the next frame.
-	const state = useRef({form: initial, focus: 0, message: undefined as string | undefined});
-	const [, rerender] = useReducer((count: number) => count + 1, 0);
-	const set = (changes: Partial<typeof state.current>) => {
-		state.current = {...state.current, ...changes};
-		rerender();
-	};
+	const state = useRefState(() => ({form: initial, focus: 0, message: undefined as string | undefined}));
+	const set = state.patch;
 	const setFocus = (focus: number) => set({focus});
 	const setMessage = (message: string | undefined) => set({message});
 	useKeystrokes(handleKey);

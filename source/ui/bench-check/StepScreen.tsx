@@ -1,7 +1,8 @@
 import {Box, Text, type Key} from 'ink';
 import {useKeystrokes, type Arrival} from '../use-keystrokes.js';
 import {readAnswerKey, strayMessage} from '../answer-key.js';
-import {useReducer, useRef} from 'react';
+import {useRef} from 'react';
+import {useRefState} from '../use-ref-state.js';
 import {shownDerived} from '../../rules/shown-derived.js';
 import {stripControl} from '../../shared/text.js';
 import {wrap} from '../../shared/wrap.js';
@@ -62,8 +63,7 @@ function editorFor(session: Session, field: Field | undefined, focus: number): E
 /** One step: its fields, typed into with the keyboard, and its checks updating as answers change. */
 export function StepScreen({session, getSession, stepIndex, rows, width, onSession, onStep: toStep, onBack: back, onHelp, active = true}: StepScreenProps) {
 	// Keys are handled against a ref, not render state: several keys can arrive before the next frame.
-	const editor = useRef<Editor | undefined>(undefined);
-	const [, rerender] = useReducer((count: number) => count + 1, 0);
+	const editor = useRefState<Editor>(() => editorFor(session, stepFields(session, stepIndex)[0], 0));
 	// Once this step is left, keys still in the same read belong to the screen that follows, not to
 	// this step's fields: PgDn PgUp carry on from the step gone to, anything else is dropped.
 	const left = useRef<number | undefined>(undefined);
@@ -75,20 +75,15 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 		left.current = -1;
 		back();
 	};
-	if (!editor.current) editor.current = editorFor(session, stepFields(session, stepIndex)[0], 0);
 
-	const update = (changes: Partial<Editor>) => {
-		editor.current = {...editor.current!, ...changes};
-		rerender();
-	};
+	const update = editor.patch;
 	const fieldsNow = () => stepFields(getSession(), stepIndex);
 	const focusTo = (index: number) => {
 		const current = getSession();
-		editor.current = editorFor(current, stepFields(current, stepIndex)[index], index);
-		rerender();
+		editor.set(editorFor(current, stepFields(current, stepIndex)[index], index));
 	};
 	const move = (delta: number) => {
-		const next = editor.current!.focus + delta;
+		const next = editor.current.focus + delta;
 		const count = fieldsNow().length;
 		if (next >= count) onStep(stepIndex + 1);
 		else if (next < 0) {
@@ -100,7 +95,7 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 			update({message: result.message});
 			return false;
 		}
-		editor.current = {...editor.current!, message: undefined};
+		editor.current = {...editor.current, message: undefined};
 		onSession(result.session);
 		return true;
 	};
@@ -127,7 +122,7 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 			else if (gone > 0 && gone <= last && key.pageUp) onStep(gone - 1);
 			return;
 		}
-		const state = editor.current!;
+		const state = editor.current;
 		const fields = fieldsNow();
 		const field = fields[Math.min(state.focus, fields.length - 1)];
 		if (state.noteMode && field) {
@@ -200,7 +195,7 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 		const change = typeInto(start, input, key);
 		editor.current = {...state, buffer: change.text, suggested: false};
 		if (change.submit && commit(field, change.text)) return move(1);
-		rerender();
+		editor.redraw();
 	}
 
 	const fields = stepFields(session, stepIndex);

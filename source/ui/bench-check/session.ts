@@ -103,8 +103,3 @@ export function stepFields(session: Session, stepIndex: number): Field[] {
 export function answeredByRecord(session: Session, id: string): boolean {
 	return session.interlockTest !== null && session.rules.confirmations.get(id)?.confirmation.answered_by === 'interlock_test';
 }
-
-/** The text shown for an input's current value, or undefined when it has none. */
-export function shownEntry(session: Session, id: string): string | undefined {
-	return session.entries[id];
-}

@@ -1,5 +1,5 @@
 import {loadTestDraft, removeTestDraft, saveTestDraft, setTestDraftAside} from '../../services/drafts/test-draft-store.js';
-import {isoWithOffset} from '../../records/sign.js';
+import {restoreDraft} from '../draft-restore.js';
 import {resumeTestEntry, type TestEntry} from './test-entry.js';
 
 /** Where the planner keeps the entries of a test in progress, so that a crash or Ctrl-C loses none. */
@@ -15,20 +15,19 @@ export function testDraftsIn(settingsFolder: string): TestDrafts {
 	return {
 		start(entry) {
 			const {file, text} = entry.tested;
-			const found = loadTestDraft(settingsFolder, file, text);
-			if (!found) return entry;
-			// Local time, as the operator's clock shows it.
-			const when = isoWithOffset(new Date(found.draft.savedAt)).slice(0, 16).replace('T', ' ');
-			if (found.state === 'current' && found.draft.steps.length === entry.steps.length) {
-				return {...resumeTestEntry(entry, found.draft), notice: {text: `Test entries from ${when} restored; carry on from the first step without a result`}};
-			}
-			let kept: string;
-			try {
-				kept = `they are kept in ${setTestDraftAside(settingsFolder, file, found.draft)}`;
-			} catch (error) {
-				kept = `they could not be set aside (${(error as Error).message}) and are replaced by this test's entries`;
-			}
-			return {...entry, notice: {text: `Test entries from ${when} were not restored: the plan changed since, and a test is of the plan as wired; ${kept}`, error: true}};
+			const {value, notice} = restoreDraft(loadTestDraft(settingsFolder, file, text), entry, (found, when) => {
+				if (found.state === 'current' && found.draft.steps.length === entry.steps.length) {
+					return {restored: resumeTestEntry(entry, found.draft), text: `Test entries from ${when} restored; carry on from the first step without a result`};
+				}
+				let kept: string;
+				try {
+					kept = `they are kept in ${setTestDraftAside(settingsFolder, file, found.draft)}`;
+				} catch (error) {
+					kept = `they could not be set aside (${(error as Error).message}) and are replaced by this test's entries`;
+				}
+				return {refused: `Test entries from ${when} were not restored: the plan changed since, and a test is of the plan as wired; ${kept}`};
+			});
+			return notice ? {...value, notice} : value;
 		},
 		save: (entry) => saveTestDraft(settingsFolder, entry.tested.file, entry.tested.text, {steps: entry.steps, people: entry.people}),
 		clear: (file) => removeTestDraft(settingsFolder, file),

@@ -1,10 +1,9 @@
 import {recordTestResults, type PlanAsTested, type RecordedTest} from '../../services/record-functional-test.js';
-import {loadPlanAndText} from '../../interlock/plan/plan-in-force.js';
+import {loadPlanAndText} from '../../interlock/plan/plan-and-text.js';
 import type {TestResults} from '../../interlock/functional-test/results-schema.js';
 import {describeProblem, formatProblem} from '../../shared/problems.js';
 import type {CompiledRules} from '../../rules/compiled-rules.js';
 import type {SettingsStore} from '../../services/settings.js';
-import {UsageError} from '../../cli/usage-error.js';
 
 /** What the planner needs to record a test: the plan as saved on disk, and signing. */
 export type TestRecorder = {
@@ -32,14 +31,11 @@ export function testRecorder(rules: CompiledRules, settings: SettingsStore, env:
 		sign(tested, results, witnessKey) {
 			const now = open(tested.file);
 			if (!now.ok || now.tested.text !== tested.text) return {ok: false, message: `${tested.file} changed on disk since this test was started; leave (Esc) and start the test again on the plan as it is now`};
-			try {
-				const recorded = recordTestResults(tested, rules, results, {witnessKey, witnessKeyName: 'the witness key file'}, env);
-				settings.write({operator: results.tested_by.name, role: results.tested_by.role});
-				return {ok: true, recorded};
-			} catch (error) {
-				if (!(error instanceof UsageError)) throw error;
-				return {ok: false, message: error.problems[0] ? describeProblem(error.problems[0]) : error.message};
-			}
+			const recorded = recordTestResults(tested, rules, results, {witnessKey, witnessKeyName: 'the witness key file'}, env);
+			// The first problem says the most: the detail when there are several, else what was refused.
+			if (!recorded.ok) return {ok: false, message: describeProblem(recorded.errors[0]!)};
+			settings.write({operator: results.tested_by.name, role: results.tested_by.role});
+			return {ok: true, recorded: recorded.value};
 		},
 	};
 }

@@ -2,7 +2,8 @@ import {Box, Text} from 'ink';
 import type {ReactNode} from 'react';
 import {deferral} from '../../shared/deferral.js';
 import {kindText} from '../../interlock/analysis/fail-safe.js';
-import {describeFinding, subjectText, type Finding} from '../../interlock/analysis/finding.js';
+import {subjectText, type Finding} from '../../interlock/analysis/finding.js';
+import {describeProblem} from '../../shared/problems.js';
 import type {PlanEditing} from '../../interlock/plan/plan-edit.js';
 import type {AccessPoint, Device} from '../../interlock/plan/plan-schema.js';
 import {formatQuantity} from '../../quantities/format.js';
@@ -46,7 +47,7 @@ export function FindingLine({found, subject = true}: {found: Finding; subject?: 
 		<Text wrap="truncate">
 			<Text color={style.color}>{style.label.padEnd(10)}</Text>
 			{subject ? `${subjectText(found.subject)}: ` : ''}
-			{stripControl(describeFinding(found))}
+			{stripControl(describeProblem(found))}
 		</Text>
 	);
 }

@@ -1,5 +1,5 @@
 import {Box, Text, type Key} from 'ink';
-import {useReducer, useRef} from 'react';
+import {useRefState} from '../use-ref-state.js';
 import {stripControl} from '../../shared/text.js';
 import {typeInto} from '../text-buffer.js';
 import {useKeystrokes} from '../use-keystrokes.js';
@@ -20,8 +20,7 @@ export type PlanOpenScreenProps = {
 
 /** Asks for the interlock plan file to open in the planner. */
 export function PlanOpenScreen({initial, problems = [], onOpen, onBack, onHelp, active = true}: PlanOpenScreenProps) {
-	const state = useRef({path: initial, problems});
-	const [, rerender] = useReducer((count: number) => count + 1, 0);
+	const state = useRefState(() => ({path: initial, problems}));
 	useKeystrokes(handleKey, {isActive: active});
 	function handleKey(input: string, key: Key) {
 		if (key.ctrl) return;
@@ -31,9 +30,9 @@ export function PlanOpenScreen({initial, problems = [], onOpen, onBack, onHelp, 
 		state.current = {...state.current, path: change.text};
 		if (change.submit) {
 			const path = change.text.trim();
-			state.current.problems = path ? (onOpen(path) ?? []) : ['Type the path of a plan file first.'];
+			state.current = {...state.current, problems: path ? (onOpen(path) ?? []) : ['Type the path of a plan file first.']};
 		}
-		rerender();
+		state.redraw();
 	}
 	return (
 		<Box flexDirection="column">

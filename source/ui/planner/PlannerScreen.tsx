@@ -1,5 +1,5 @@
 import {Box, Text, type Key} from 'ink';
-import {useReducer, useRef} from 'react';
+import {useRefState} from '../use-ref-state.js';
 import {displayPath} from '../../shared/display-path.js';
 import type {PlanEditing} from '../../interlock/plan/plan-edit.js';
 import {savePlanEditing} from '../../interlock/plan/save-plan.js';
@@ -79,8 +79,7 @@ function recordKey(state: PlannerState, entry: TestEntry, input: string, key: Ke
 /** The interlock planner: the plan's items and findings, forms to change them, saving, and recording a test. Findings follow every applied change. */
 export function PlannerScreen({editing, rulesName, rows, width, recorder, drafts, testDrafts, notice: first, onLeave}: PlannerScreenProps) {
 	// Keys are handled against a ref, not render state: several keys can arrive before the next frame.
-	const state = useRef<PlannerState>({editing, selected: 0, view: {name: 'list'}, help: false, ...(first ? {notice: first} : {})});
-	const [, rerender] = useReducer((count: number) => count + 1, 0);
+	const state = useRefState<PlannerState>(() => ({editing, selected: 0, view: {name: 'list'}, help: false, ...(first ? {notice: first} : {})}));
 	// Leaving follows a save or a discard: either way the draft has served.
 	const leave = () => {
 		drafts.clear(state.current.editing.file);
@@ -108,10 +107,7 @@ export function PlannerScreen({editing, rulesName, rows, width, recorder, drafts
 			if (next.editing.dirty) drafts.save(next.editing);
 			else drafts.clear(next.editing.file);
 		}
-		if (next !== current) {
-			state.current = next;
-			rerender();
-		}
+		if (next !== current) state.set(next);
 	}
 
 	const {view, notice} = state.current;
@@ -137,10 +133,7 @@ export function PlannerScreen({editing, rulesName, rows, width, recorder, drafts
 		} else if (view.name === 'leave') prompt = <Text bold wrap="truncate">Unsaved changes to {displayPath(current.file)}. Save them before leaving?</Text>;
 		shown = <PlanList editing={current} rulesName={rulesName} selected={state.current.selected} rows={body} width={width} prompt={prompt} />;
 	}
-	const close = () => {
-		state.current = {...state.current, help: false};
-		rerender();
-	};
+	const close = () => state.patch({help: false});
 	return (
 		<Box flexDirection="column">
 			{state.current.help ? <HelpOverlay screen={view.name === 'form' ? 'plan-form' : view.name === 'record' ? 'plan-test' : 'planner'} onClose={close} /> : null}

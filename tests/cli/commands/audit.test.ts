@@ -4,7 +4,7 @@ import {join, resolve} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
 import {main} from '../../../source/cli/dispatch.js';
 import {helpTexts} from '../../../source/cli/commands/help.js';
-import {operatorKey} from '../../../source/records/key-store.js';
+import {operatorPrivateKey} from '../../helpers/operator-key.js';
 import type {BenchRecord, RecordBody} from '../../../source/records/record-schema.js';
 import {signRecord} from '../../../source/records/sign-record.js';
 import {shippedRulesPath} from '../../../source/rules/load.js';
@@ -39,7 +39,7 @@ function writeRecord(content: string | BenchRecord, name = 'record.json'): strin
 function resigned(change: (body: RecordBody) => void, signer = {name: 'Test Person', role: 'test engineer'}): BenchRecord {
 	const body = structuredClone(clean.body);
 	change(body);
-	return signRecord(body, [{signer: {...signer, meaning: 'performed'}, key: operatorKey(home, false).privateKey}]);
+	return signRecord(body, [{signer: {...signer, meaning: 'performed'}, key: operatorPrivateKey(home)}]);
 }
 
 beforeAll(async () => {

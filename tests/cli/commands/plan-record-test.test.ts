@@ -3,7 +3,7 @@ import {existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSyn
 import {tmpdir} from 'node:os';
 import {basename, dirname, join} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
-import {operatorKey} from '../../../source/records/key-store.js';
+import {operatorPrivateKey} from '../../helpers/operator-key.js';
 import {fingerprint, generateKeyPair, rawPublicKey} from '../../../source/records/keys.js';
 import {readRecord} from '../../../source/records/read-record.js';
 import type {InterlockTestRecord} from '../../../source/records/record-schema.js';
@@ -74,7 +74,7 @@ describe('prelase plan FILE --record-test RESULTS', () => {
 		expect(record.body.plan.file).toBe(demoPlanFile);
 		expect(record.body.steps).toHaveLength(9);
 		expect(record.signatures.map((signature) => [signature.signer.name, signature.signer.role, signature.meaning])).toEqual([['Ines Marlow', 'photonics engineer', 'performed']]);
-		expect(record.signatures[0]!.fingerprint).toBe(fingerprint(rawPublicKey(operatorKey(home, false).privateKey)));
+		expect(record.signatures[0]!.fingerprint).toBe(fingerprint(rawPublicKey(operatorPrivateKey(home))));
 	});
 
 	it('writes to the records folder beside the settings when none is asked for, with the key made before', async () => {

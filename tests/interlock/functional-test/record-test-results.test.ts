@@ -7,7 +7,7 @@ import type {TestResults} from '../../../source/interlock/functional-test/result
 import {sha256Hex} from '../../../source/shared/sha256.js';
 import {readRecord} from '../../../source/records/read-record.js';
 import type {InterlockTestRecord} from '../../../source/records/record-schema.js';
-import {UsageError} from '../../../source/cli/usage-error.js';
+import {UsageError, valueOrUsageError} from '../../../source/cli/usage-error.js';
 import {shippedRules} from '../../helpers/screen-driver.js';
 import {demoPlanFile, loadPlanUnderShippedPolicy} from '../plan-fixture.js';
 
@@ -29,7 +29,7 @@ function results(changes: Record<number, Partial<TestResults['steps'][number]>> 
 function record(given: TestResults) {
 	const home = mkdtempSync(join(tmpdir(), 'prelase-record-results-'));
 	const env = {PRELASE_HOME: home};
-	const recorded = recordTestResults({plan, file: demoPlanFile, text}, shippedRules(), given, {now}, env);
+	const recorded = valueOrUsageError(recordTestResults({plan, file: demoPlanFile, text}, shippedRules(), given, {now}, env));
 	const read = readRecord(recorded.path);
 	if (!read.ok) throw new Error(read.reason);
 	return {recorded, body: (read.record as InterlockTestRecord).body, home};
@@ -63,7 +63,7 @@ describe('recordTestResults (results held in memory)', () => {
 		const home = mkdtempSync(join(tmpdir(), 'prelase-record-results-'));
 		let thrown: unknown;
 		try {
-			recordTestResults({plan, file: demoPlanFile, text}, shippedRules(), given, {now}, {PRELASE_HOME: home});
+			valueOrUsageError(recordTestResults({plan, file: demoPlanFile, text}, shippedRules(), given, {now}, {PRELASE_HOME: home}));
 		} catch (error) {
 			thrown = error;
 		}

@@ -4,7 +4,7 @@ import fc from 'fast-check';
 import {beforeAll, describe, expect, it} from 'vitest';
 import {analysePlan} from '../../../source/interlock/analysis/analyse.js';
 import {loadResults} from '../../../source/interlock/functional-test/load-results.js';
-import {loadPlanAndText} from '../../../source/interlock/plan/plan-in-force.js';
+import {loadPlanAndText} from '../../../source/interlock/plan/plan-and-text.js';
 import type {Plan} from '../../../source/interlock/plan/plan-schema.js';
 import {buildTestBody, interlockTestCaution, policyFromRecord, recordedPolicy, testOutcome, testOutcomeText} from '../../../source/interlock/functional-test/test-record.js';
 import {testSheet} from '../../../source/interlock/functional-test/test-sheet.js';

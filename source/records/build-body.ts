@@ -3,10 +3,9 @@ import type {Answers} from '../rules/answers.js';
 import type {CompiledRules} from '../rules/compiled-rules.js';
 import type {Evaluation} from '../rules/evaluation.js';
 import {evaluationToJson} from '../rules/evaluation-json.js';
-import {canonicalBytes} from '../records/canonical.js';
-import type {InterlockLink} from '../interlock/functional-test/test-link.js';
-import {recordBodySchema, type AnyBody, type RecordBody} from '../records/record-schema.js';
-import {isoWithOffset} from '../records/sign.js';
+import {canonicalBytes} from './canonical.js';
+import {recordBodySchema, type AnyBody, type RecordBody} from './record-schema.js';
+import {isoWithOffset} from '../shared/iso-time.js';
 import {displayPath} from '../shared/display-path.js';
 
 /** A correction: the record it corrects (file name and body hash) and why. */
@@ -33,7 +32,7 @@ export function bodySha256(body: AnyBody): string {
 }
 
 /** Builds the body of a bench-check record, validated as plain data before anyone signs it. */
-export function buildRecordBody(input: {rules: CompiledRules; answers: Answers; evaluation: Evaluation; operator: {name: string; role: string}; amends?: Amendment; interlockTest?: InterlockLink | null; now?: Date}): RecordBody {
+export function buildRecordBody(input: {rules: CompiledRules; answers: Answers; evaluation: Evaluation; operator: {name: string; role: string}; amends?: Amendment; /** The interlock test record the confirmations were answered from (the link's own shape). */ interlockTest?: NonNullable<RecordBody['interlockTest']> | null; now?: Date}): RecordBody {
 	const {rules, answers, evaluation, operator, amends} = input;
 	const {tool, rules: _rulesSummary, setup, ...evaluated} = evaluationToJson(rules, answers, evaluation);
 	const body = {

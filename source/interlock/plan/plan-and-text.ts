@@ -6,13 +6,10 @@ import {loadPlanFromText, planFileExpected} from './load-plan.js';
 import type {Plan} from './plan-schema.js';
 import {interlockPolicy} from './policy.js';
 
-/** A plan file read and validated, under the interlock policy of the rule file in force. */
-export function loadPlanInForce(file: string, rules: CompiledRules): Result<Plan, Problem> {
-	const loaded = loadPlanAndText(file, rules);
-	return loaded.ok ? success(loaded.value.plan, loaded.warnings) : loaded;
-}
-
-/** The same as loadPlanInForce, with the exact text read (a test record holds it and its hash). */
+/**
+ * A plan file read and validated under the interlock policy of the rule file in force, with the
+ * exact text read (a test record holds it and its hash).
+ */
 export function loadPlanAndText(file: string, rules: CompiledRules): Result<{plan: Plan; text: string}, Problem> {
 	const policy = interlockPolicy(rules);
 	if (!policy.ok) return policy;

@@ -2,11 +2,11 @@ import {sha256Hex} from '../shared/sha256.js';
 import type {KeyObject} from 'node:crypto';
 import {readFileSync} from 'node:fs';
 import canonicalize from 'canonicalize';
-import {finding, type Finding} from './audit-findings.js';
-import {unsafeJsonKey} from '../records/json-keys.js';
-import {fingerprint, publicKeyFromRaw} from '../records/keys.js';
-import {schemaForRecord, type AnyRecord, type Signature} from '../records/record-schema.js';
-import {verifyBytes} from '../records/sign.js';
+import {finding, type Finding} from './findings.js';
+import {unsafeJsonKey} from './json-keys.js';
+import {fingerprint, publicKeyFromRaw} from './keys.js';
+import {schemaForRecord, type AnyRecord, type Signature} from './record-schema.js';
+import {verifyBytes} from './sign.js';
 
 /** Whether one signature verified, and if not, why (a message code). */
 export type SignatureCheck = {index: number; valid: boolean; code?: Finding['code']; what?: string};

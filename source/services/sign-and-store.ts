@@ -1,0 +1,39 @@
+import {keyFromFile, operatorKey} from '../records/key-store.js';
+import {fingerprint, rawPublicKey, shortFingerprint} from '../records/keys.js';
+import type {AnyRecord, InterlockTestBody, RecordBody} from '../records/record-schema.js';
+import {signRecord} from '../records/sign-record.js';
+import type {Signer} from '../records/sign.js';
+import {writeRecord} from '../records/store.js';
+import type {Problem} from '../shared/problems.js';
+import {failure, success, type Result} from '../shared/result.js';
+import {stripControl} from '../shared/text.js';
+
+/** A second person who signs with their own private key file, and the refusal when it is the operator's key. */
+export type SecondSigner = {name: string; role: string; meaning: Exclude<Signer['meaning'], 'performed'>; keyFile: string; ownKey: Problem};
+
+/** Where a signed record was written and with which key. */
+export type StoredRecord = {path: string; fingerprint: string; keyCreated: boolean};
+
+const clean = (text: string) => stripControl(text).trim();
+
+/**
+ * Signs a record body (the operator with this machine's key, created on first use, as the one who
+ * performed the work; a second signer with their key file) and writes it to the folder. A
+ * mistake (an unreadable key, the second key being the operator's own) comes back as a failure
+ * and nothing is written.
+ */
+export function signAndStore<Body extends RecordBody | InterlockTestBody>(body: Body, operator: {name: string; role: string}, second: SecondSigner | undefined, settingsFolder: string, folder: string, now?: Date): Result<StoredRecord, Problem> {
+	const own = operatorKey(settingsFolder, true);
+	if (!own.ok) return own;
+	const {privateKey, created} = own.value;
+	const signers: Array<{signer: Signer; key: typeof privateKey}> = [{signer: {name: clean(operator.name), role: clean(operator.role), meaning: 'performed'}, key: privateKey}];
+	if (second) {
+		const key = keyFromFile(second.keyFile);
+		if (!key.ok) return key;
+		if (fingerprint(rawPublicKey(key.value)) === fingerprint(rawPublicKey(privateKey))) return failure([second.ownKey]);
+		signers.push({signer: {name: clean(second.name), role: clean(second.role), meaning: second.meaning}, key: key.value});
+	}
+	// A record of either kind of body is a record: TypeScript cannot see that through the type parameter.
+	const path = writeRecord(folder, signRecord(body, signers, now) as AnyRecord);
+	return success({path, fingerprint: shortFingerprint(fingerprint(rawPublicKey(privateKey))), keyCreated: created});
+}
