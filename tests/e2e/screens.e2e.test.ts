@@ -2,7 +2,7 @@ import {execFileSync, spawnSync} from 'node:child_process';
 import {mkdtempSync, readdirSync, readFileSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {join, resolve} from 'node:path';
-import {afterEach, describe, expect, it} from 'vitest';
+import {afterEach, describe, expect, it, vi} from 'vitest';
 import {parse} from 'yaml';
 import {loadDraft} from '../../source/services/drafts/draft-store.js';
 import {openSettings} from '../../source/services/settings.js';
@@ -184,7 +184,8 @@ describe.skipIf(!haveTmux())('the screens in a real terminal', () => {
 		await session.waitFor((now) => !now.includes('not taken'), 'the typed text cleared');
 		session.type('y');
 		screen = await session.waitFor((now) => /Work is on a grounded dissipative mat.*✓ yes/.test(now), 'the grounded-mat confirmation answered yes');
-		expect(answered()).toEqual(['grounded_mat']);
+		// The draft is written by the program beside the redraw: poll for it rather than race it.
+		await vi.waitFor(() => expect(answered()).toEqual(['grounded_mat']), {timeout: 5000, interval: 50});
 		session.press('C-c');
 		await session.waitFor((now) => now.includes('EXITED 130'), 'the program to leave with 130');
 	});
