@@ -22,9 +22,28 @@ rows.forEach((row, index) => {
 		});
 	}
 });
+// Inside rules/: load.ts reads a file (file/) and compiles it (compile/); evaluate/ and inspect/
+// (rules show, diff, init) work on compiled rules. The same rule: only down, siblings apart.
+const ruleRows = [['load'], ['evaluate', 'inspect'], ['compile'], ['file']];
+const rulePath = (part) => (part === 'load' ? '^source/rules/load\\.ts$' : `^source/rules/${part}/`);
+ruleRows.forEach((row, index) => {
+	const above = ruleRows.slice(0, index).flat();
+	for (const part of row) {
+		const targets = [...above, ...row.filter((other) => other !== part)];
+		if (targets.length === 0) continue;
+		forbidden.push({
+			name: `rules-${part}-imports-only-down`,
+			comment: `source/rules/${part} may import only the parts of rules/ below it (${ruleRows.slice(index + 1).flat().join(', ')}); not ${targets.join(', ')}`,
+			severity: 'error',
+			from: {path: rulePath(part)},
+			to: {path: targets.map(rulePath).join('|')},
+		});
+	}
+});
 forbidden.push(
 	{name: 'no-import-loops', comment: 'files of source/ may not import each other in a loop', severity: 'error', from: {path: '^source/'}, to: {circular: true}},
 	{name: 'no-unknown-layer', comment: 'every file of source/ lives in a known layer folder', severity: 'error', from: {path: '^source/', pathNot: `^source/(main\\.ts$|(${rows.flat().filter((layer) => layer !== 'main').join('|')})/)`}, to: {}},
+	{name: 'no-unknown-rules-part', comment: 'every file of source/rules/ is load.ts or lives in file/, compile/, evaluate/ or inspect/', severity: 'error', from: {path: '^source/rules/', pathNot: `^source/rules/(load\\.ts$|(${ruleRows.flat().filter((part) => part !== 'load').join('|')})/)`}, to: {}},
 	{name: 'no-test-imports', comment: 'source/ never imports from tests/', severity: 'error', from: {path: '^source/'}, to: {path: '^tests/'}},
 );
 

@@ -193,13 +193,13 @@ async function buildGenerator() {
 const generatorSource = `
 import {mkdirSync, writeFileSync} from 'node:fs';
 import {join} from 'node:path';
-import {buildRecordBody, bodySha256} from './source/services/build-body.js';
-import {writeTrusted} from './source/records/key-store.js';
-import {fingerprint, generateKeyPair, rawPublicKey} from './source/records/keys.js';
-import {signRecord} from './source/records/sign-record.js';
-import {evaluate} from './source/rules/evaluate.js';
-import {parseInputEntry} from './source/rules/input-entry.js';
-import {loadAnswers} from './source/rules/load-answers.js';
+import {buildRecordBody, bodySha256} from './source/records/build-body.js';
+import {writeTrusted} from './source/records/key-files.js';
+import {fingerprint, generateKeyPair, rawPublicKey} from './source/records/key-material.js';
+import {signRecord} from './source/records/sign.js';
+import {evaluate} from './source/rules/evaluate/evaluate.js';
+import {parseInputEntry} from './source/rules/evaluate/input-entry.js';
+import {loadAnswers} from './source/rules/evaluate/load-answers.js';
 import {loadRules, shippedRulesPath} from './source/rules/load.js';
 
 export function generateRecords({folder, home, count, marker}) {

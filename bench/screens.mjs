@@ -58,7 +58,7 @@ await build({
 	stdin: {
 		contents: `
 import {loadRules, shippedRulesPath} from './source/rules/load.ts';
-import {loadAnswers} from './source/rules/load-answers.ts';
+import {loadAnswers} from './source/rules/evaluate/load-answers.ts';
 import {startSession, enterInput} from './source/ui/bench-check/session.ts';
 import {parse} from 'yaml';
 import {readFileSync} from 'node:fs';

@@ -1,7 +1,7 @@
 import {describeProblem, problem} from '../shared/problems.js';
-import type {Answers, ConfirmationAnswer, InputAnswer} from '../rules/answers.js';
-import type {CompiledInput, CompiledRules} from '../rules/compiled-rules.js';
-import {parseInputEntry} from '../rules/input-entry.js';
+import type {Answers, ConfirmationAnswer, InputAnswer} from '../rules/evaluate/answers.js';
+import type {CompiledInput, CompiledRules} from '../rules/compile/compiled-rules.js';
+import {parseInputEntry} from '../rules/evaluate/input-entry.js';
 import type {RecordBody} from '../records/record-schema.js';
 
 /** An input the rules refuse as entered (outside a range, not an option, wrong dimension). */

@@ -1,7 +1,7 @@
-import {countVerdicts} from '../rules/verdict-words.js';
+import {countVerdicts} from '../rules/evaluate/verdict-words.js';
 import {formatQuantity} from '../quantities/format.js';
-import type {CompiledRules} from '../rules/compiled-rules.js';
-import {outcomeWords, type Evaluation, type Shown, type Verdict} from '../rules/evaluation.js';
+import type {CompiledRules} from '../rules/compile/compiled-rules.js';
+import {outcomeWords, type Evaluation, type Shown, type Verdict} from '../rules/evaluate/evaluation.js';
 import type {RecordAnswers} from './audit-answers.js';
 import {finding, type Finding} from '../records/findings.js';
 import {setupFingerprint} from '../records/build-body.js';

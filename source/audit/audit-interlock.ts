@@ -7,7 +7,7 @@ import {reasonsUnderPolicy} from '../interlock/functional-test/test-rejudge.js';
 import {policyFromRecord, testOutcome} from '../interlock/functional-test/test-record.js';
 import {testSheet} from '../interlock/functional-test/test-sheet.js';
 import {formatProblem} from '../shared/problems.js';
-import type {CompiledRules} from '../rules/compiled-rules.js';
+import type {CompiledRules} from '../rules/compile/compiled-rules.js';
 import {isoWithOffset} from '../shared/iso-time.js';
 import {finding, type Finding} from '../records/findings.js';
 import type {InterlockTestBody} from '../records/record-schema.js';

@@ -1,5 +1,5 @@
-import type {CompiledRules} from '../rules/compiled-rules.js';
-import {outcomeWords, type Evaluation, type Outcome, type Verdict} from '../rules/evaluation.js';
+import type {CompiledRules} from '../rules/compile/compiled-rules.js';
+import {outcomeWords, type Evaluation, type Outcome, type Verdict} from '../rules/evaluate/evaluation.js';
 import type {RecordAnswers, RefusedInput} from './audit-answers.js';
 import {finding, type Finding} from '../records/findings.js';
 import type {RecordBody} from '../records/record-schema.js';

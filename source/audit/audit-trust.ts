@@ -1,6 +1,6 @@
 import type {SignatureCheck} from '../records/integrity.js';
 import {finding, type Finding} from '../records/findings.js';
-import type {TrustedKey} from '../records/key-store.js';
+import type {TrustedKey} from '../records/key-files.js';
 import type {AnyRecord, Signature} from '../records/record-schema.js';
 
 /** The keys an auditor trusts: their own and the colleagues' they have added. */

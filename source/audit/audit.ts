@@ -1,9 +1,9 @@
 import {sha256Hex} from '../shared/sha256.js';
 import {formatProblem, type Problem} from '../shared/problems.js';
 import type {Result} from '../shared/result.js';
-import type {CompiledRules} from '../rules/compiled-rules.js';
-import {evaluate} from '../rules/evaluate.js';
-import type {Evaluation} from '../rules/evaluation.js';
+import type {CompiledRules} from '../rules/compile/compiled-rules.js';
+import {evaluate} from '../rules/evaluate/evaluate.js';
+import type {Evaluation} from '../rules/evaluate/evaluation.js';
 import {loadRulesFromText} from '../rules/load.js';
 import {version} from '../shared/version.js';
 import {answersFromRecord, type RecordAnswers} from './audit-answers.js';

@@ -1,5 +1,5 @@
 import type {RecordBody} from '../records/record-schema.js';
-import type {Outcome} from '../rules/evaluation.js';
+import type {Outcome} from '../rules/evaluate/evaluation.js';
 
 /** The facts of a record an auditor reads first. */
 export type RecordSummary = {

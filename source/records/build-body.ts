@@ -1,8 +1,8 @@
 import {sha256Hex} from '../shared/sha256.js';
-import type {Answers} from '../rules/answers.js';
-import type {CompiledRules} from '../rules/compiled-rules.js';
-import type {Evaluation} from '../rules/evaluation.js';
-import {evaluationToJson} from '../rules/evaluation-json.js';
+import type {Answers} from '../rules/evaluate/answers.js';
+import type {CompiledRules} from '../rules/compile/compiled-rules.js';
+import type {Evaluation} from '../rules/evaluate/evaluation.js';
+import {evaluationToJson} from '../rules/evaluate/evaluation-json.js';
 import {canonicalBytes} from './canonical.js';
 import {recordBodySchema, type AnyBody, type RecordBody} from './record-schema.js';
 import {isoWithOffset} from '../shared/iso-time.js';

@@ -3,8 +3,8 @@ import type {KeyObject} from 'node:crypto';
 import {readFileSync} from 'node:fs';
 import canonicalize from 'canonicalize';
 import {finding, type Finding} from './findings.js';
-import {unsafeJsonKey} from './json-keys.js';
-import {fingerprint, publicKeyFromRaw} from './keys.js';
+import {unsafeJsonKey} from './unsafe-json-names.js';
+import {fingerprint, publicKeyFromRaw} from './key-material.js';
 import {schemaForRecord, type AnyRecord, type Signature} from './record-schema.js';
 import {verifyBytes} from './sign.js';
 

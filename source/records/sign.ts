@@ -1,6 +1,6 @@
 import {sign, verify, type KeyObject} from 'node:crypto';
 import {canonicalBytes} from './canonical.js';
-import {fingerprint, rawPublicKey} from './keys.js';
+import {fingerprint, rawPublicKey} from './key-material.js';
 import type {AnyBody, Signature} from './record-schema.js';
 import {isoWithOffset} from '../shared/iso-time.js';
 
@@ -31,4 +31,9 @@ export function signBody(body: AnyBody, signer: Signer, privateKey: KeyObject, n
 	const statement = {signer: {name: signer.name, role: signer.role}, meaning: signer.meaning, signedAt: isoWithOffset(now), algorithm: 'Ed25519' as const, publicKey: raw.toString('base64')};
 	const value = signBytes(signedBytes(body, statement), privateKey).toString('base64');
 	return {...statement, fingerprint: fingerprint(raw), value};
+}
+
+/** A record with its body signed by each signer in turn (the operator or tester first). */
+export function signRecord<Body extends AnyBody>(body: Body, signers: ReadonlyArray<{signer: Signer; key: KeyObject}>, now?: Date) {
+	return {format: 'prelase-record' as const, version: 1 as const, body, signatures: signers.map(({signer, key}) => signBody(body, signer, key, now))};
 }

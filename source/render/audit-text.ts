@@ -1,14 +1,14 @@
-import {verdictWords} from '../rules/verdict-words.js';
+import {verdictWords} from '../rules/evaluate/verdict-words.js';
 import {deferral} from '../shared/deferral.js';
 import {displayPath} from '../shared/display-path.js';
 import type {Paint} from '../shared/paint.js';
-import {outcomeWords} from '../rules/evaluation.js';
+import {outcomeWords} from '../rules/evaluate/evaluation.js';
 import {stripControl} from '../shared/text.js';
 import {version} from '../shared/version.js';
 import {wrap} from '../shared/wrap.js';
 import type {AuditReport, RecordAudit} from '../audit/audit.js';
 import type {PolicyChange} from '../audit/audit-policy.js';
-import {shortFingerprint} from '../records/keys.js';
+import {shortFingerprint} from '../records/key-material.js';
 
 /**
  * Text from a record (or a file name) made safe for one line of a terminal: control and

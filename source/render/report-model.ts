@@ -1,9 +1,9 @@
-import {verdictWords} from '../rules/verdict-words.js';
+import {verdictWords} from '../rules/evaluate/verdict-words.js';
 import {formatQuantity, roundedText} from '../quantities/format.js';
-import {outcomeWords} from '../rules/evaluation.js';
+import {outcomeWords} from '../rules/evaluate/evaluation.js';
 import {stripControl} from '../shared/text.js';
-import {shortFingerprint} from '../records/keys.js';
-import type {TrustedKey} from '../records/key-store.js';
+import {shortFingerprint} from '../records/key-material.js';
+import type {TrustedKey} from '../records/key-files.js';
 import type {AnyRecord, BenchRecord, RecordBody} from '../records/record-schema.js';
 import {ruleOutline} from './report-rule-outline.js';
 

@@ -1,5 +1,5 @@
 import {displayPath} from '../shared/display-path.js';
-import {differenceCount, type RulesDiff} from '../rules/diff.js';
+import {differenceCount, type RulesDiff} from '../rules/inspect/diff.js';
 import {stripControl} from '../shared/text.js';
 
 const fieldWords: Record<string, string> = {severity: 'severity', step: 'step', when: 'when', value: 'value', at_most: 'at most', at_least: 'at least', holds: 'holds', dimension: 'dimension'};

@@ -1,5 +1,5 @@
 import {deferral} from '../shared/deferral.js';
-import type {RulesShow, ShowCheck, ShowOrigin} from '../rules/show.js';
+import type {RulesShow, ShowCheck, ShowOrigin} from '../rules/inspect/outline.js';
 import {stripControl} from '../shared/text.js';
 
 const at = (origin: ShowOrigin | null) => (origin ? `${origin.file}:${origin.line}` : 'unknown');

@@ -1,15 +1,15 @@
 import type {Problem} from '../shared/problems.js';
 import {failure, type Result} from '../shared/result.js';
 import {readTextFile, type YamlSource} from '../shared/yaml-source.js';
-import {compileRules} from './compile.js';
-import type {CompiledRules} from './compiled-rules.js';
-import {extendsBase, mergedSource, resolveRules} from './extends.js';
-import {parseRuleText, ruleFileExpected} from './rule-source.js';
-import {ruleFileSchema} from './schema.js';
-import {schemaProblems} from './schema-problems.js';
+import {compileRules} from './compile/compile.js';
+import type {CompiledRules} from './compile/compiled-rules.js';
+import {extendsBase, mergedSource, resolveRules} from './file/extends.js';
+import {parseRuleText, ruleFileExpected} from './file/rule-source.js';
+import {ruleFileSchema} from './file/schema.js';
+import {schemaProblems} from './file/schema-problems.js';
 
-export {shippedRulesPath} from './rule-source.js';
-export {schemaProblems} from './schema-problems.js';
+export {shippedRulesPath} from './file/rule-source.js';
+export {schemaProblems} from './file/schema-problems.js';
 
 /** Reads, validates, compiles and lints a rule file; every problem names file:line:column. */
 export function loadRules(file: string): Result<CompiledRules, Problem> {

@@ -6,7 +6,7 @@ import {buildTestBody} from '../interlock/functional-test/test-record.js';
 import {testSheet} from '../interlock/functional-test/test-sheet.js';
 import {dirname} from 'node:path';
 import {recordsFolder} from './records-folder.js';
-import type {CompiledRules} from '../rules/compiled-rules.js';
+import type {CompiledRules} from '../rules/compile/compiled-rules.js';
 import {settingsFile} from './settings.js';
 import {signAndStore} from './sign-and-store.js';
 import {problem, type Problem} from '../shared/problems.js';

@@ -1,6 +1,6 @@
 import {dirname, join} from 'node:path';
 import {readSettings, settingsFile} from './settings.js';
-import {ownFingerprint, readTrusted} from '../records/key-store.js';
+import {ownFingerprint, readTrusted} from '../records/key-files.js';
 
 /** The records folder: the one asked for, else the settings', else `records` beside the settings file. */
 export function recordsFolder(env: NodeJS.ProcessEnv, asked?: string): string {

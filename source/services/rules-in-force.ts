@@ -1,7 +1,7 @@
 import type {Problem} from '../shared/problems.js';
 import type {Result} from '../shared/result.js';
 import {readSettings} from './settings.js';
-import type {CompiledRules} from '../rules/compiled-rules.js';
+import type {CompiledRules} from '../rules/compile/compiled-rules.js';
 import {loadRules, shippedRulesPath} from '../rules/load.js';
 
 /** The rule file in force: the one asked for, else the settings' (site policy), else the shipped policy. */

@@ -1,8 +1,7 @@
-import {keyFromFile, operatorKey} from '../records/key-store.js';
-import {fingerprint, rawPublicKey, shortFingerprint} from '../records/keys.js';
+import {keyFromFile, operatorKey} from '../records/key-files.js';
+import {fingerprint, rawPublicKey, shortFingerprint} from '../records/key-material.js';
 import type {AnyRecord, InterlockTestBody, RecordBody} from '../records/record-schema.js';
-import {signRecord} from '../records/sign-record.js';
-import type {Signer} from '../records/sign.js';
+import {signRecord, type Signer} from '../records/sign.js';
 import {writeRecord} from '../records/store.js';
 import type {Problem} from '../shared/problems.js';
 import {failure, success, type Result} from '../shared/result.js';

@@ -11,7 +11,7 @@ import {openPlanForEditing, planEditingFromText, planEditingText, type PlanEditi
 import {loadPlanDraft, removePlanDraft, savePlanDraft} from '../services/drafts/plan-draft-store.js';
 import {restoreDraft, type DraftNotice} from './draft-restore.js';
 import {describeProblem, formatProblem} from '../shared/problems.js';
-import type {CompiledRules} from '../rules/compiled-rules.js';
+import type {CompiledRules} from '../rules/compile/compiled-rules.js';
 import type {SettingsStore} from '../services/settings.js';
 import {stripControl} from '../shared/text.js';
 import {DoneScreen} from './DoneScreen.js';

@@ -27,7 +27,7 @@ export async function runScreens(options: ScreenOptions): Promise<number> {
 				import('../audit/audit-files.js'),
 				import('../audit/audit.js'),
 				import('../render/audit-text.js'),
-				import('../records/key-store.js'),
+				import('../records/key-files.js'),
 			]);
 			const {files} = listRecordFiles([folder]);
 			if (files.length === 0) return [`No records in ${folder} yet.`];

@@ -1,5 +1,5 @@
-import type {ConfirmationStatus, Verdict} from '../rules/evaluation.js';
-import {confirmationWords, verdictWords} from '../rules/verdict-words.js';
+import type {ConfirmationStatus, Verdict} from '../rules/evaluate/evaluation.js';
+import {confirmationWords, verdictWords} from '../rules/evaluate/verdict-words.js';
 
 /** Word, symbol and colour of a verdict: the word and symbol carry the meaning, the colour only helps. */
 export const verdictStyle: Record<Verdict, {label: string; color: string}> = {

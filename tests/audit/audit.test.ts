@@ -9,14 +9,13 @@ import {relateRecords} from '../../source/audit/audit-history.js';
 import {KeyCache, bytesToVerify, checkIntegrity} from '../../source/records/integrity.js';
 import {canonicalBytes} from '../../source/records/canonical.js';
 import {bodySha256} from '../../source/records/build-body.js';
-import {ownFingerprint} from '../../source/records/key-store.js';
+import {ownFingerprint} from '../../source/records/key-files.js';
 import {operatorPrivateKey} from '../helpers/operator-key.js';
-import {fingerprint, generateKeyPair, rawPublicKey} from '../../source/records/keys.js';
+import {fingerprint, generateKeyPair, rawPublicKey} from '../../source/records/key-material.js';
 import {readRecord} from '../../source/records/read-record.js';
 import type {BenchRecord, RecordBody} from '../../source/records/record-schema.js';
-import {signRecord} from '../../source/records/sign-record.js';
-import {signedBytes} from '../../source/records/sign.js';
-import type {CompiledRules} from '../../source/rules/compiled-rules.js';
+import {signedBytes, signRecord} from '../../source/records/sign.js';
+import type {CompiledRules} from '../../source/rules/compile/compiled-rules.js';
 import {loadRules, loadRulesFromText, shippedRulesPath} from '../../source/rules/load.js';
 import {fakeIo} from '../helpers/fake-io.js';
 

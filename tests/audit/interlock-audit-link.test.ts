@@ -10,12 +10,12 @@ import {futureAllowanceMs} from '../../source/interlock/functional-test/test-cho
 import {buildTestBody} from '../../source/interlock/functional-test/test-record.js';
 import {testSheet} from '../../source/interlock/functional-test/test-sheet.js';
 import type {AuditReport} from '../../source/audit/audit.js';
-import {operatorKey} from '../../source/records/key-store.js';
+import {operatorKey} from '../../source/records/key-files.js';
 import {operatorPrivateKey} from '../helpers/operator-key.js';
 import type {InterlockTestBody} from '../../source/records/record-schema.js';
-import {signRecord} from '../../source/records/sign-record.js';
+import {signRecord} from '../../source/records/sign.js';
 import {writeRecord} from '../../source/records/store.js';
-import type {CompiledRules} from '../../source/rules/compiled-rules.js';
+import type {CompiledRules} from '../../source/rules/compile/compiled-rules.js';
 import {loadRules, loadRulesFromText, shippedRulesPath} from '../../source/rules/load.js';
 import {caseFolder, runIn, unwrap} from '../helpers/run-cli.js';
 

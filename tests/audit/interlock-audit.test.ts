@@ -5,9 +5,9 @@ import {join} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
 import type {AuditReport} from '../../source/audit/audit.js';
 import {operatorPrivateKey} from '../helpers/operator-key.js';
-import {generateKeyPair} from '../../source/records/keys.js';
+import {generateKeyPair} from '../../source/records/key-material.js';
 import type {InterlockTestBody, InterlockTestRecord} from '../../source/records/record-schema.js';
-import {signRecord} from '../../source/records/sign-record.js';
+import {signRecord} from '../../source/records/sign.js';
 import {runIn, unwrap, writeCaseFile} from '../helpers/run-cli.js';
 
 const demoPlan = 'docs/examples/interlock/bench3-interlock-plan.yaml';

@@ -2,7 +2,7 @@ import {mkdtempSync, readFileSync, rmSync, writeFileSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {join, resolve} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
-import {generateKeyPair} from '../../source/records/keys.js';
+import {generateKeyPair} from '../../source/records/key-material.js';
 import type {BenchRecord} from '../../source/records/record-schema.js';
 import {runIn} from '../helpers/run-cli.js';
 

@@ -5,7 +5,7 @@ import {afterAll, beforeAll, describe, expect, it} from 'vitest';
 import {localDay} from '../../source/interlock/functional-test/load-results.js';
 import {operatorPrivateKey} from '../helpers/operator-key.js';
 import type {BenchRecord} from '../../source/records/record-schema.js';
-import {signRecord} from '../../source/records/sign-record.js';
+import {signRecord} from '../../source/records/sign.js';
 import {runCli} from '../helpers/run-cli.js';
 
 // The demo: plan → test sheet → recorded test → a bench check that uses it → the audit.

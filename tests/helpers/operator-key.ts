@@ -1,5 +1,5 @@
 import type {KeyObject} from 'node:crypto';
-import {operatorKey} from '../../source/records/key-store.js';
+import {operatorKey} from '../../source/records/key-files.js';
 
 /** The operator's private key in a test home (made there before); a missing key fails the test. */
 export function operatorPrivateKey(home: string): KeyObject {

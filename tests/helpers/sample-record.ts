@@ -1,14 +1,13 @@
 import type {KeyObject} from 'node:crypto';
 import {resolve} from 'node:path';
 import {buildRecordBody} from '../../source/records/build-body.js';
-import {generateKeyPair} from '../../source/records/keys.js';
+import {generateKeyPair} from '../../source/records/key-material.js';
 import type {BenchRecord} from '../../source/records/record-schema.js';
-import {signRecord} from '../../source/records/sign-record.js';
-import type {Signer} from '../../source/records/sign.js';
-import type {Answers} from '../../source/rules/answers.js';
-import type {CompiledRules} from '../../source/rules/compiled-rules.js';
-import {evaluate} from '../../source/rules/evaluate.js';
-import {loadAnswers} from '../../source/rules/load-answers.js';
+import {signRecord, type Signer} from '../../source/records/sign.js';
+import type {Answers} from '../../source/rules/evaluate/answers.js';
+import type {CompiledRules} from '../../source/rules/compile/compiled-rules.js';
+import {evaluate} from '../../source/rules/evaluate/evaluate.js';
+import {loadAnswers} from '../../source/rules/evaluate/load-answers.js';
 import {loadRules, shippedRulesPath} from '../../source/rules/load.js';
 
 /** The demo answers whose every stop check holds. */

@@ -6,7 +6,7 @@ import {render} from 'ink-testing-library';
 import {createElement, type ReactElement} from 'react';
 import {parse} from 'yaml';
 import {saveDraft} from '../../source/services/drafts/draft-store.js';
-import type {CompiledRules} from '../../source/rules/compiled-rules.js';
+import type {CompiledRules} from '../../source/rules/compile/compiled-rules.js';
 import {loadRules, shippedRulesPath} from '../../source/rules/load.js';
 import {openSettings, type Settings, type SettingsStore} from '../../source/services/settings.js';
 import {App, type AppProps} from '../../source/ui/App.js';

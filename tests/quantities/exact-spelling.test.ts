@@ -12,7 +12,7 @@ import {evaluateExpression} from '../../source/quantities/expression-evaluate.js
 import {parseExpression} from '../../source/quantities/expression-parser.js';
 import {isQuantity} from '../../source/quantities/quantity.js';
 import {parseQuantity} from '../../source/quantities/parse-quantity.js';
-import {loadAnswersFromText} from '../../source/rules/load-answers.js';
+import {loadAnswersFromText} from '../../source/rules/evaluate/load-answers.js';
 import {readDemo, shippedRules, withChanges} from '../rules/bench-answers.js';
 
 /**

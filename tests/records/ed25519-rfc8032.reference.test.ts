@@ -1,6 +1,6 @@
 import {createHash} from 'node:crypto';
 import {describe, expect, it} from 'vitest';
-import {privateKeyFromSeed, publicKeyFromRaw, rawPublicKey} from '../../source/records/keys.js';
+import {privateKeyFromSeed, publicKeyFromRaw, rawPublicKey} from '../../source/records/key-material.js';
 import {signBytes, verifyBytes} from '../../source/records/sign.js';
 
 /** RFC 8032 §7.1 test vectors: secret key (the 32-byte seed), public key, message, signature. */

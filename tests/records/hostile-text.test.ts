@@ -6,8 +6,8 @@ import {main} from '../../source/cli/dispatch.js';
 import {readRecord} from '../../source/records/read-record.js';
 import type {BenchRecord} from '../../source/records/record-schema.js';
 import {writeRecord} from '../../source/records/store.js';
-import type {Answers} from '../../source/rules/answers.js';
-import type {CompiledRules} from '../../source/rules/compiled-rules.js';
+import type {Answers} from '../../source/rules/evaluate/answers.js';
+import type {CompiledRules} from '../../source/rules/compile/compiled-rules.js';
 import {fakeIo} from '../helpers/fake-io.js';
 import {clearDemoPath, sampleAnswers, sampleRecord, sampleRules} from '../helpers/sample-record.js';
 

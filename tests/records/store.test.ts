@@ -8,7 +8,7 @@ import {afterAll, beforeAll, describe, expect, it} from 'vitest';
 import {canonicalBytes} from '../../source/records/canonical.js';
 import {readRecord} from '../../source/records/read-record.js';
 import type {BenchRecord} from '../../source/records/record-schema.js';
-import {signRecord} from '../../source/records/sign-record.js';
+import {signRecord} from '../../source/records/sign.js';
 import {recordFileName, writeRecord} from '../../source/records/store.js';
 import {sampleRecord, sampleRules, serialise, signerWith} from '../helpers/sample-record.js';
 

@@ -2,10 +2,10 @@ import {createHash} from 'node:crypto';
 import {isDeepStrictEqual} from 'node:util';
 import fc from 'fast-check';
 import {beforeAll, describe, expect, it} from 'vitest';
-import {fingerprint, generateKeyPair, rawPublicKey} from '../../source/records/keys.js';
+import {fingerprint, generateKeyPair, rawPublicKey} from '../../source/records/key-material.js';
 import {checkRecordText} from '../../source/records/read-record.js';
 import type {BenchRecord} from '../../source/records/record-schema.js';
-import type {CompiledRules} from '../../source/rules/compiled-rules.js';
+import type {CompiledRules} from '../../source/rules/compile/compiled-rules.js';
 import {sampleRecord, sampleRules, serialise, signerWith} from '../helpers/sample-record.js';
 
 let rules: CompiledRules;

@@ -2,14 +2,14 @@ import {describe, expect, it} from 'vitest';
 import {deferral} from '../../source/shared/deferral.js';
 import {buildRecordBody} from '../../source/records/build-body.js';
 import {checkRecordText} from '../../source/records/read-record.js';
-import {fingerprint, generateKeyPair, rawPublicKey, shortFingerprint} from '../../source/records/keys.js';
+import {fingerprint, generateKeyPair, rawPublicKey, shortFingerprint} from '../../source/records/key-material.js';
 import type {BenchRecord, RecordBody} from '../../source/records/record-schema.js';
 import {htmlText, reportHtml} from '../../source/render/report-html.js';
 import {markdownText, reportMarkdown} from '../../source/render/report-markdown.js';
 import type {SignatureStatus, TrustInfo} from '../../source/render/report-model.js';
-import {signRecord} from '../../source/records/sign-record.js';
-import {evaluate} from '../../source/rules/evaluate.js';
-import {loadAnswers} from '../../source/rules/load-answers.js';
+import {signRecord} from '../../source/records/sign.js';
+import {evaluate} from '../../source/rules/evaluate/evaluate.js';
+import {loadAnswers} from '../../source/rules/evaluate/load-answers.js';
 import {loadRules, shippedRulesPath} from '../../source/rules/load.js';
 
 const loaded = loadRules(shippedRulesPath());

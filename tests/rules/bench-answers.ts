@@ -2,14 +2,14 @@ import {readFileSync} from 'node:fs';
 import {resolve} from 'node:path';
 import {expect} from 'vitest';
 import {parse, stringify} from 'yaml';
-import type {CompiledRules} from '../../source/rules/compiled-rules.js';
-import {evaluate} from '../../source/rules/evaluate.js';
-import type {CheckResult, Evaluation} from '../../source/rules/evaluation.js';
-import {loadAnswersFromText} from '../../source/rules/load-answers.js';
+import type {CompiledRules} from '../../source/rules/compile/compiled-rules.js';
+import {evaluate} from '../../source/rules/evaluate/evaluate.js';
+import type {CheckResult, Evaluation} from '../../source/rules/evaluate/evaluation.js';
+import {loadAnswersFromText} from '../../source/rules/evaluate/load-answers.js';
 import {loadRules, shippedRulesPath} from '../../source/rules/load.js';
 import type {Problem} from '../../source/shared/problems.js';
 import type {Result} from '../../source/shared/result.js';
-import type {Answers} from '../../source/rules/answers.js';
+import type {Answers} from '../../source/rules/evaluate/answers.js';
 
 /** An answers file as plain data, before it is read against the rules. */
 export type AnswersDocument = {setup?: string; inputs: Record<string, unknown>; confirmations: Record<string, unknown>};

@@ -2,7 +2,7 @@ import {mkdtempSync, rmSync, writeFileSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {join} from 'node:path';
 import {afterAll, describe, expect, it} from 'vitest';
-import type {CompiledRules} from '../../source/rules/compiled-rules.js';
+import type {CompiledRules} from '../../source/rules/compile/compiled-rules.js';
 import {loadRules, loadRulesFromText} from '../../source/rules/load.js';
 import {checkResult, evaluateDocument, readDemo, shippedRules, withChanges} from './bench-answers.js';
 

@@ -1,5 +1,5 @@
 import {describe, expect, it} from 'vitest';
-import type {Outcome, Verdict} from '../../source/rules/evaluation.js';
+import type {Outcome, Verdict} from '../../source/rules/evaluate/evaluation.js';
 import {checkResult, evaluateDocument, expectClose, readAnswers, readDemo, shippedRules, withChanges, type AnswersDocument, type Changes} from './bench-answers.js';
 
 // Every case starts from the clearing demo and changes one or two inputs. The demo in

@@ -1,9 +1,9 @@
 import {readdirSync, readFileSync} from 'node:fs';
 import {join} from 'node:path';
 import {describe, expect, it} from 'vitest';
-import {evaluate} from '../../source/rules/evaluate.js';
-import type {Evaluation, Outcome} from '../../source/rules/evaluation.js';
-import {loadAnswers} from '../../source/rules/load-answers.js';
+import {evaluate} from '../../source/rules/evaluate/evaluate.js';
+import type {Evaluation, Outcome} from '../../source/rules/evaluate/evaluation.js';
+import {loadAnswers} from '../../source/rules/evaluate/load-answers.js';
 import {checkResult, examplesFolder, expectClose, shippedRules} from './bench-answers.js';
 
 const rules = shippedRules();

@@ -6,8 +6,8 @@ import {messages} from '../../source/shared/messages.js';
 import type {Problem} from '../../source/shared/problems.js';
 import type {Dimension} from '../../source/quantities/dimensions.js';
 import {parseQuantity} from '../../source/quantities/parse-quantity.js';
-import type {CompiledRules} from '../../source/rules/compiled-rules.js';
-import {loadAnswersFromText} from '../../source/rules/load-answers.js';
+import type {CompiledRules} from '../../source/rules/compile/compiled-rules.js';
+import {loadAnswersFromText} from '../../source/rules/evaluate/load-answers.js';
 import {loadRules, loadRulesFromText} from '../../source/rules/load.js';
 import type {Result} from '../../source/shared/result.js';
 

@@ -1,6 +1,6 @@
 import {describe, expect, it} from 'vitest';
 import {checkResult, evaluateDocument, expectClose, readDemo, shippedRules, withChanges, type Changes} from './bench-answers.js';
-import type {Evaluation} from '../../source/rules/evaluation.js';
+import type {Evaluation} from '../../source/rules/evaluate/evaluation.js';
 
 // The people step's inputs: the power the checks assess (issue: worst power), the diameter
 // where the beam can reach the eye, and the divergence convention. Every case starts from the

@@ -1,6 +1,6 @@
 import {describe, expect, it} from 'vitest';
 import {custom, number, object, string} from 'zod';
-import {ruleFileJsonSchema, siteFileJsonSchema} from '../../source/rules/rule-json-schema.js';
+import {ruleFileJsonSchema, siteFileJsonSchema} from '../../source/rules/file/rule-json-schema.js';
 import {editorJsonSchema} from '../../source/shared/json-schema.js';
 
 type Node = {type?: unknown; properties?: Record<string, Node>; required?: string[]; title?: string; $defs?: Record<string, Node>; [key: string]: unknown};

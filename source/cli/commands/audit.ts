@@ -4,7 +4,7 @@ import {formatProblem} from '../../shared/problems.js';
 import {auditRecords} from '../../audit/audit.js';
 import {listRecordFiles} from '../../audit/audit-files.js';
 import {auditText, inline} from '../../render/audit-text.js';
-import {ownFingerprint, readTrusted} from '../../records/key-store.js';
+import {ownFingerprint, readTrusted} from '../../records/key-files.js';
 import {loadRules, shippedRulesPath} from '../../rules/load.js';
 import {openSettings} from '../../services/settings.js';
 import {terminalSafeJson} from '../../shared/text.js';

@@ -1,8 +1,8 @@
 import {readFileSync} from 'node:fs';
 import {createPublicKey} from 'node:crypto';
 import {parseArgs} from 'node:util';
-import {operatorKey, ownFingerprint, publicKeyPem, readTrusted, writeTrusted} from '../../records/key-store.js';
-import {fingerprint, rawPublicKey, shortFingerprint} from '../../records/keys.js';
+import {operatorKey, ownFingerprint, publicKeyPem, readTrusted, writeTrusted} from '../../records/key-files.js';
+import {fingerprint, rawPublicKey, shortFingerprint} from '../../records/key-material.js';
 import {isoWithOffset} from '../../shared/iso-time.js';
 import {openSettings} from '../../services/settings.js';
 import {stripControl} from '../../shared/text.js';

@@ -1,7 +1,7 @@
 import {writeFileSync} from 'node:fs';
 import {extname} from 'node:path';
 import {parseArgs} from 'node:util';
-import {ownFingerprint, readTrusted} from '../../records/key-store.js';
+import {ownFingerprint, readTrusted} from '../../records/key-files.js';
 import {interlockReportHtml, interlockReportMarkdown} from '../../render/interlock-report.js';
 import {readRecord} from '../../records/read-record.js';
 import {reportHtml} from '../../render/report-html.js';

@@ -1,12 +1,12 @@
 import {writeFileSync} from 'node:fs';
 import {parseArgs} from 'node:util';
 import {formatProblem} from '../../shared/problems.js';
-import type {CompiledRules} from '../../rules/compiled-rules.js';
-import {diffRules} from '../../rules/diff.js';
-import {siteFileTemplate} from '../../rules/init-template.js';
+import type {CompiledRules} from '../../rules/compile/compiled-rules.js';
+import {diffRules} from '../../rules/inspect/diff.js';
+import {siteFileTemplate} from '../../rules/inspect/init-template.js';
 import {loadRules, shippedRulesPath} from '../../rules/load.js';
-import {ruleFileJsonSchema, siteFileJsonSchema} from '../../rules/rule-json-schema.js';
-import {showRules} from '../../rules/show.js';
+import {ruleFileJsonSchema, siteFileJsonSchema} from '../../rules/file/rule-json-schema.js';
+import {showRules} from '../../rules/inspect/outline.js';
 import {openSettings} from '../../services/settings.js';
 import {terminalSafeJson} from '../../shared/text.js';
 import {UsageError} from '../usage-error.js';

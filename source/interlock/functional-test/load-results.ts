@@ -1,7 +1,7 @@
 import {problem, type Problem} from '../../shared/problems.js';
 import {failure, success, type Result} from '../../shared/result.js';
 import {formatQuantity} from '../../quantities/format.js';
-import {schemaProblems} from '../../rules/schema-problems.js';
+import {schemaProblems} from '../../rules/file/schema-problems.js';
 import {parseYamlSource, readTextFile} from '../../shared/yaml-source.js';
 import {testResultsSchema, type StepResult, type TestResults} from './results-schema.js';
 import type {TestSheet, TestStep} from './test-sheet.js';

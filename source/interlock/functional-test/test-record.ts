@@ -2,7 +2,7 @@ import {sha256Hex} from '../../shared/sha256.js';
 import {deferral} from '../../shared/deferral.js';
 import {displayPath} from '../../shared/display-path.js';
 import {formatQuantity} from '../../quantities/format.js';
-import type {CompiledRules} from '../../rules/compiled-rules.js';
+import type {CompiledRules} from '../../rules/compile/compiled-rules.js';
 import {interlockTestBodySchema, type InterlockTestBody} from '../../records/record-schema.js';
 import {isoWithOffset} from '../../shared/iso-time.js';
 import {version} from '../../shared/version.js';

@@ -1,6 +1,6 @@
 import {problem, type Problem} from '../../shared/problems.js';
 import {failure, success, type Result} from '../../shared/result.js';
-import {schemaProblems} from '../../rules/schema-problems.js';
+import {schemaProblems} from '../../rules/file/schema-problems.js';
 import {parseYamlSource, readTextFile, type YamlSource} from '../../shared/yaml-source.js';
 import {planSchema, type PlanFile} from './plan-schema.js';
 

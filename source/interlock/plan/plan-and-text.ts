@@ -1,6 +1,6 @@
 import type {Problem} from '../../shared/problems.js';
 import {success, type Result} from '../../shared/result.js';
-import type {CompiledRules} from '../../rules/compiled-rules.js';
+import type {CompiledRules} from '../../rules/compile/compiled-rules.js';
 import {readTextFile} from '../../shared/yaml-source.js';
 import {loadPlanFromText, planFileExpected} from './load-plan.js';
 import type {Plan} from './plan-schema.js';

@@ -1,7 +1,7 @@
 import {isMap, isSeq, type Document} from 'yaml';
 import {describeProblem, type Problem} from '../../shared/problems.js';
 import {failure, success, type Result} from '../../shared/result.js';
-import type {CompiledRules} from '../../rules/compiled-rules.js';
+import type {CompiledRules} from '../../rules/compile/compiled-rules.js';
 import {readTextFile} from '../../shared/yaml-source.js';
 import {analysePlan, type PlanAnalysis} from '../analysis/analyse.js';
 import {loadPlanFromText, planFileExpected} from './load-plan.js';

@@ -1,4 +1,4 @@
-import type {CompiledRules} from '../../rules/compiled-rules.js';
+import type {CompiledRules} from '../../rules/compile/compiled-rules.js';
 import {dimensions, type Dimension} from '../../quantities/dimensions.js';
 import {problem, type Problem} from '../../shared/problems.js';
 import {failure, success, type Result} from '../../shared/result.js';

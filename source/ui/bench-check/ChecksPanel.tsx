@@ -1,7 +1,7 @@
 import {Box, Text} from 'ink';
 import {checkFigures} from '../../render/check-text.js';
-import type {CheckResult} from '../../rules/evaluation.js';
-import type {ShownDerived} from '../../rules/shown-derived.js';
+import type {CheckResult} from '../../rules/evaluate/evaluation.js';
+import type {ShownDerived} from '../../rules/evaluate/shown-derived.js';
 import {stripControl} from '../../shared/text.js';
 import {wrap} from '../../shared/wrap.js';
 import {verdictStyle} from '../verdict-style.js';

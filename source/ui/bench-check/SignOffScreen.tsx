@@ -2,7 +2,7 @@ import {Box, Text, type Key} from 'ink';
 import {useKeystrokes, type Arrival} from '../use-keystrokes.js';
 import {signAloneMessage} from '../answer-key.js';
 import {useRefState} from '../use-ref-state.js';
-import {outcomeWords} from '../../rules/evaluation.js';
+import {outcomeWords} from '../../rules/evaluate/evaluation.js';
 import {stripControl} from '../../shared/text.js';
 import type {Session} from './session.js';
 import {typeInto} from '../text-buffer.js';

@@ -3,7 +3,7 @@ import {useKeystrokes, type Arrival} from '../use-keystrokes.js';
 import {readAnswerKey, strayMessage} from '../answer-key.js';
 import {useRef} from 'react';
 import {useRefState} from '../use-ref-state.js';
-import {shownDerived} from '../../rules/shown-derived.js';
+import {shownDerived} from '../../rules/evaluate/shown-derived.js';
 import {stripControl} from '../../shared/text.js';
 import {wrap} from '../../shared/wrap.js';
 import {ChecksPanel} from './ChecksPanel.js';

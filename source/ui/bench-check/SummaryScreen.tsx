@@ -3,10 +3,10 @@ import {useKeystrokes} from '../use-keystrokes.js';
 import {useState} from 'react';
 import {checkFigures} from '../../render/check-text.js';
 import {deferral} from '../../shared/deferral.js';
-import type {CheckResult} from '../../rules/evaluation.js';
+import type {CheckResult} from '../../rules/evaluate/evaluation.js';
 import {stripControl} from '../../shared/text.js';
 import {wrap} from '../../shared/wrap.js';
-import {countVerdicts} from '../../rules/verdict-words.js';
+import {countVerdicts} from '../../rules/evaluate/verdict-words.js';
 import type {Session} from './session.js';
 import {confirmationStyle, outcomeStyle, verdictStyle} from '../verdict-style.js';
 

@@ -1,6 +1,6 @@
 import {dimensions} from '../../quantities/dimensions.js';
 import {formatQuantity} from '../../quantities/format.js';
-import type {CompiledRules} from '../../rules/compiled-rules.js';
+import type {CompiledRules} from '../../rules/compile/compiled-rules.js';
 import type {Field} from './session.js';
 
 /** One line saying what a field expects: dimension and range, options, or the keys to answer. */

@@ -1,11 +1,11 @@
 import type {InterlockLink} from '../../interlock/functional-test/test-link.js';
-import type {Answers, ConfirmationAnswer, InputAnswer} from '../../rules/answers.js';
-import type {CompiledRules} from '../../rules/compiled-rules.js';
-import {evaluate} from '../../rules/evaluate.js';
-import type {Evaluation} from '../../rules/evaluation.js';
-import {parseConfirmationEntry, parseInputEntry} from '../../rules/input-entry.js';
+import type {Answers, ConfirmationAnswer, InputAnswer} from '../../rules/evaluate/answers.js';
+import type {CompiledRules} from '../../rules/compile/compiled-rules.js';
+import {evaluate} from '../../rules/evaluate/evaluate.js';
+import type {Evaluation} from '../../rules/evaluate/evaluation.js';
+import {parseConfirmationEntry, parseInputEntry} from '../../rules/evaluate/input-entry.js';
 import {describeProblem, problem} from '../../shared/problems.js';
-import type {Confirmation, Input, Step} from '../../rules/schema.js';
+import type {Confirmation, Input, Step} from '../../rules/file/schema.js';
 
 /** Everything the bench-check screens hold; pure data, changed only through the functions below. */
 export type Session = {

@@ -2,7 +2,7 @@ import {recordTestResults, type PlanAsTested, type RecordedTest} from '../../ser
 import {loadPlanAndText} from '../../interlock/plan/plan-and-text.js';
 import type {TestResults} from '../../interlock/functional-test/results-schema.js';
 import {describeProblem, formatProblem} from '../../shared/problems.js';
-import type {CompiledRules} from '../../rules/compiled-rules.js';
+import type {CompiledRules} from '../../rules/compile/compiled-rules.js';
 import type {SettingsStore} from '../../services/settings.js';
 
 /** What the planner needs to record a test: the plan as saved on disk, and signing. */

@@ -6,7 +6,7 @@ import {main} from '../../../source/cli/dispatch.js';
 import {helpTexts} from '../../../source/cli/commands/help.js';
 import {operatorPrivateKey} from '../../helpers/operator-key.js';
 import type {BenchRecord, RecordBody} from '../../../source/records/record-schema.js';
-import {signRecord} from '../../../source/records/sign-record.js';
+import {signRecord} from '../../../source/records/sign.js';
 import {shippedRulesPath} from '../../../source/rules/load.js';
 import {openSettings} from '../../../source/services/settings.js';
 import {fakeIo, fakeStream} from '../../helpers/fake-io.js';

@@ -7,9 +7,9 @@ import {main} from '../../../source/cli/dispatch.js';
 import {helpTexts} from '../../../source/cli/commands/help.js';
 import {messages} from '../../../source/shared/messages.js';
 import type {Problem} from '../../../source/shared/problems.js';
-import {loadAnswers} from '../../../source/rules/load-answers.js';
+import {loadAnswers} from '../../../source/rules/evaluate/load-answers.js';
 import {loadRules, shippedRulesPath} from '../../../source/rules/load.js';
-import type {CompiledRules} from '../../../source/rules/compiled-rules.js';
+import type {CompiledRules} from '../../../source/rules/compile/compiled-rules.js';
 import {version} from '../../../source/shared/version.js';
 import {runCliNow} from '../../helpers/run-cli.js';
 

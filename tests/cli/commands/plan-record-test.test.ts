@@ -4,7 +4,7 @@ import {tmpdir} from 'node:os';
 import {basename, dirname, join} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
 import {operatorPrivateKey} from '../../helpers/operator-key.js';
-import {fingerprint, generateKeyPair, rawPublicKey} from '../../../source/records/keys.js';
+import {fingerprint, generateKeyPair, rawPublicKey} from '../../../source/records/key-material.js';
 import {readRecord} from '../../../source/records/read-record.js';
 import type {InterlockTestRecord} from '../../../source/records/record-schema.js';
 import {caseFolder, runIn} from '../../helpers/run-cli.js';

@@ -4,12 +4,12 @@ import {join, resolve} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
 import {parse} from 'yaml';
 import {auditRecords} from '../../../source/audit/audit.js';
-import {evaluate} from '../../../source/rules/evaluate.js';
-import {evaluationToJson} from '../../../source/rules/evaluation-json.js';
-import {loadAnswers} from '../../../source/rules/load-answers.js';
+import {evaluate} from '../../../source/rules/evaluate/evaluate.js';
+import {evaluationToJson} from '../../../source/rules/evaluate/evaluation-json.js';
+import {loadAnswers} from '../../../source/rules/evaluate/load-answers.js';
 import {loadRules, loadRulesFromText, shippedRulesPath} from '../../../source/rules/load.js';
-import type {RulesShow} from '../../../source/rules/show.js';
-import {policyValueText} from '../../../source/rules/schema.js';
+import type {RulesShow} from '../../../source/rules/inspect/outline.js';
+import {policyValueText} from '../../../source/rules/file/schema.js';
 import {runCli} from '../../helpers/run-cli.js';
 
 const clearDemo = resolve('docs/examples/bench3-808nm-clear.yaml');

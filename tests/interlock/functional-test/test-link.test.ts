@@ -7,12 +7,12 @@ import {loadResults} from '../../../source/interlock/functional-test/load-result
 import {addDays, answerFromInterlockTest, interlockLink, type LinkContext} from '../../../source/interlock/functional-test/test-link.js';
 import {buildTestBody, testOutcome} from '../../../source/interlock/functional-test/test-record.js';
 import {testSheet} from '../../../source/interlock/functional-test/test-sheet.js';
-import {fingerprint, generateKeyPair, rawPublicKey} from '../../../source/records/keys.js';
+import {fingerprint, generateKeyPair, rawPublicKey} from '../../../source/records/key-material.js';
 import type {InterlockTestBody} from '../../../source/records/record-schema.js';
-import {signRecord} from '../../../source/records/sign-record.js';
+import {signRecord} from '../../../source/records/sign.js';
 import {writeRecord} from '../../../source/records/store.js';
-import {evaluate} from '../../../source/rules/evaluate.js';
-import {loadAnswers} from '../../../source/rules/load-answers.js';
+import {evaluate} from '../../../source/rules/evaluate/evaluate.js';
+import {loadAnswers} from '../../../source/rules/evaluate/load-answers.js';
 import {loadRules, shippedRulesPath} from '../../../source/rules/load.js';
 import {demoPlanFile, loadPlanUnderShippedPolicy} from '../plan-fixture.js';
 

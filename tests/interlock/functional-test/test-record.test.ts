@@ -10,7 +10,7 @@ import {buildTestBody, interlockTestCaution, policyFromRecord, recordedPolicy, t
 import {testSheet} from '../../../source/interlock/functional-test/test-sheet.js';
 import {deferral} from '../../../source/shared/deferral.js';
 import type {InterlockTestBody} from '../../../source/records/record-schema.js';
-import type {CompiledRules} from '../../../source/rules/compiled-rules.js';
+import type {CompiledRules} from '../../../source/rules/compile/compiled-rules.js';
 import {loadRules, shippedRulesPath} from '../../../source/rules/load.js';
 import {demoPlanFile, shippedPolicy, testPolicy} from '../plan-fixture.js';
 

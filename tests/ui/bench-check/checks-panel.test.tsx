@@ -1,6 +1,6 @@
 import {cleanup, render} from 'ink-testing-library';
 import {afterEach, describe, expect, it} from 'vitest';
-import type {CheckResult} from '../../../source/rules/evaluation.js';
+import type {CheckResult} from '../../../source/rules/evaluate/evaluation.js';
 import {ChecksPanel} from '../../../source/ui/bench-check/ChecksPanel.js';
 
 afterEach(() => cleanup());

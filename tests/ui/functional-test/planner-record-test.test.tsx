@@ -6,7 +6,7 @@ import {afterEach, describe, expect, it} from 'vitest';
 import {deferral} from '../../../source/shared/deferral.js';
 import {interlockTestCaution} from '../../../source/interlock/functional-test/test-record.js';
 import {sha256Hex} from '../../../source/shared/sha256.js';
-import {generateKeyPair} from '../../../source/records/keys.js';
+import {generateKeyPair} from '../../../source/records/key-material.js';
 import {readRecord} from '../../../source/records/read-record.js';
 import type {InterlockTestRecord} from '../../../source/records/record-schema.js';
 import {runIn, unwrap} from '../../helpers/run-cli.js';

@@ -1,0 +1,176 @@
+// Named imports (not the z namespace) let the bundler drop the parts of zod prelase does not use.
+import {array, boolean, discriminatedUnion, literal, number, object, preprocess, record, string, tuple, union, enum as oneOf} from 'zod';
+import type {z} from 'zod';
+import {dimensionNames} from '../../quantities/dimensions.js';
+
+const identifier = string()
+	.regex(/^[a-z][a-z0-9_]*$/, 'an id is lower case letters, digits and underscores, starting with a letter (e.g. current_limit)');
+
+const formula = string().trim().min(1, 'a formula cannot be empty');
+const quantityText = union([string(), number()]);
+const words = string().trim().min(1, 'this text cannot be empty');
+
+/**
+ * A site-tunable constant with its meaning and basis: a quantity with its unit and dimension,
+ * or (with `options_of`) a list of options of a choice input, such as the laser classes a
+ * requirement applies to; formulas test it with `one_of(choice, list)`.
+ */
+export const policyValueSchema = object({
+		value: union([quantityText, array(identifier)]).describe('The value with its unit, e.g. "10 %" or "3 s"; or, with options_of, a list of options, e.g. [class_3b, class_4]'),
+		dimension: oneOf(dimensionNames).optional().describe('The dimension of a quantity value (not with options_of)'),
+		options_of: identifier.optional().describe('The choice input whose options the value lists (not with dimension)'),
+		meaning: words,
+		basis: words,
+	})
+	.strict()
+	.superRefine((entry, context) => {
+		const list = Array.isArray(entry.value);
+		if (entry.options_of !== undefined && entry.dimension !== undefined) context.addIssue({code: 'custom', message: 'a policy value has either dimension (a quantity) or options_of (a list of options of a choice), not both'});
+		else if (entry.options_of === undefined && entry.dimension === undefined) context.addIssue({code: 'custom', message: 'a policy value needs dimension (a quantity) or options_of (a list of options of a choice)'});
+		else if (list !== (entry.options_of !== undefined)) context.addIssue({code: 'custom', message: list ? 'a list of options needs options_of: the choice input it lists options of' : 'with options_of the value is a list of options, e.g. [class_3b, class_4]'});
+	});
+
+const inputCommon = {
+	id: identifier,
+	label: words,
+	help: string().optional().describe('One line shown under the input'),
+	when: formula.optional().describe('The input is asked only when this holds'),
+	identifies: boolean().optional().describe('Part of what identifies the setup (diode, driver, supply, wiring, location)'),
+	optional: boolean().optional().describe('May be left blank without making the check incomplete'),
+};
+
+/** A number with a unit, in a sane range. */
+export const quantityInputSchema = object({
+		...inputCommon,
+		kind: literal('quantity'),
+		dimension: oneOf(dimensionNames),
+		range: tuple([quantityText, quantityText]).describe('[lowest, highest] accepted entry, with units'),
+		default: quantityText.optional(),
+	})
+	.strict();
+
+/** One option out of a listed set. */
+export const choiceInputSchema = object({
+		...inputCommon,
+		kind: literal('choice'),
+		options: record(identifier, words).refine((options) => Object.keys(options).length >= 2, 'a choice needs at least two options'),
+		default: identifier.optional(),
+	})
+	.strict();
+
+/** A yes or no fact about the setup (not a confirmation of a precaution). */
+export const yesNoInputSchema = object({...inputCommon, kind: literal('yes_no'), default: boolean().optional()})
+	.strict();
+
+/** Short free text, such as a serial number or a procedure revision. */
+export const textInputSchema = object({...inputCommon, kind: literal('text'), max_length: number().int().positive().max(2000).default(200)})
+	.strict();
+
+/** An input of a step. */
+export const inputSchema = preprocess(
+	(raw) => (raw && typeof raw === 'object' && !Array.isArray(raw) && !('kind' in raw) ? {...raw, kind: 'quantity'} : raw),
+	discriminatedUnion('kind', [quantityInputSchema, choiceInputSchema, yesNoInputSchema, textInputSchema]),
+);
+
+/** A statement the operator answers yes, no or not applicable. */
+export const confirmationSchema = object({
+		id: identifier,
+		statement: words,
+		when: formula.optional(),
+		not_applicable: oneOf(['allowed', 'forbidden']).default('allowed'),
+		answered_by: oneOf(['operator', 'interlock_test'])
+			.default('operator')
+			.describe('interlock_test: when the input interlock_plan names a plan, answered from its latest trusted interlock test record'),
+		basis: words,
+	})
+	.strict();
+
+/** A screen's worth of the bench check. */
+export const stepSchema = object({
+		id: identifier,
+		title: words,
+		summary: string().optional(),
+		inputs: array(inputSchema).default([]),
+		confirmations: array(confirmationSchema).default([]),
+	})
+	.strict();
+
+/** A value computed from inputs, policy values and other derived values. */
+export const derivedSchema = object({
+		id: identifier,
+		label: words,
+		dimension: oneOf(dimensionNames),
+		step: identifier.optional().describe('Show this value with the inputs of this step (a converted or worst-case figure the operator should see)'),
+		formula,
+	})
+	.strict();
+
+/** Which options of one choice go with each option of another. */
+export const tableSchema = object({
+		label: words,
+		key: identifier,
+		value: identifier,
+		rows: record(identifier, array(identifier)),
+		basis: words,
+	})
+	.strict();
+
+/** A condition that must hold before energizing, with its severity, margin and basis. */
+export const checkSchema = object({
+		id: identifier,
+		step: identifier,
+		title: words,
+		when: formula.optional(),
+		skip_reason: words.optional().describe('Why the check is skipped when its `when` does not hold; shown with the skip'),
+		value: formula.optional().describe('The quantity being checked'),
+		at_most: formula.optional().describe('The limit the value must not exceed'),
+		at_least: formula.optional().describe('The limit the value must reach'),
+		holds: formula.optional().describe('A true/false condition, for checks that are not a comparison with a limit'),
+		dimension: oneOf(dimensionNames).optional().describe('How value, limit and margin are shown (inferred when absent)'),
+		severity: oneOf(['stop', 'advise']),
+		explanation: words.describe('One line: why this check exists'),
+		message: string().optional().describe('Shown when the check does not hold; {{value}}, {{limit}}, {{margin}} and names are filled in'),
+		basis: words,
+		switched_off: words.optional().describe('Why this check is switched off: it is kept for the record but not evaluated (set by a site file\'s switched_off)'),
+	})
+	.strict()
+	.superRefine((check, context) => {
+		const limits = Number(check.at_most !== undefined) + Number(check.at_least !== undefined);
+		if (check.holds !== undefined && (check.value !== undefined || limits > 0)) {
+			context.addIssue({code: 'custom', message: 'a check has either holds, or value with at_most or at_least, not both'});
+		} else if (check.holds === undefined && (check.value === undefined || limits !== 1)) {
+			context.addIssue({code: 'custom', message: 'a check needs holds, or value with exactly one of at_most and at_least'});
+		}
+	});
+
+/** The whole rule file. */
+export const ruleFileSchema = object({
+		format: literal(1).describe('Rule file format version'),
+		name: words,
+		caution: words.describe('Shown at the start of every check, on the summary and in every record'),
+		policy: record(identifier, policyValueSchema).default({}),
+		tables: record(identifier, tableSchema).default({}),
+		steps: array(stepSchema).min(1, 'a rule file needs at least one step'),
+		derived: array(derivedSchema).default([]),
+		checks: array(checkSchema).default([]),
+	})
+	.strict();
+
+/** A rule file as written, after validation. */
+export type RuleFile = z.infer<typeof ruleFileSchema>;
+export type Step = z.infer<typeof stepSchema>;
+export type Input = z.infer<typeof quantityInputSchema> | z.infer<typeof choiceInputSchema> | z.infer<typeof yesNoInputSchema> | z.infer<typeof textInputSchema>;
+export type Confirmation = z.infer<typeof confirmationSchema>;
+export type Check = z.infer<typeof checkSchema>;
+export type Derived = z.infer<typeof derivedSchema>;
+export type Table = z.infer<typeof tableSchema>;
+
+/** A policy value as text: "10 %", or "[class_3b, class_4]" for a list of options. */
+export function policyValueText(value: string | number | readonly string[]): string {
+	return Array.isArray(value) ? `[${value.join(', ')}]` : String(value);
+}
+
+/** What kind of value a policy value is: its dimension, or "options of laser_class". */
+export function policyKindText(entry: Pick<z.infer<typeof policyValueSchema>, 'dimension' | 'options_of'>): string {
+	return entry.options_of !== undefined ? `options of ${entry.options_of}` : (entry.dimension ?? '');
+}
