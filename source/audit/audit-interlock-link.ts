@@ -1,5 +1,6 @@
 import {compareTests, instantOf, normaliseLocation} from '../interlock/functional-test/test-choice.js';
-import {describeFinding, finding, type Finding} from '../records/findings.js';
+import {finding, type Finding} from '../records/findings.js';
+import {describeProblem} from '../shared/problems.js';
 import type {InterlockTestSummary} from './audit-interlock.js';
 import type {RecordSummary} from './record-summary.js';
 
@@ -24,7 +25,7 @@ export function linkInterlockTests(audits: Audited[], benchLocations: ReadonlyMa
 		if (!audit.authentic || !audit.record) return;
 		const used = audit.record.interlockTest?.record;
 		if (!audit.record.interlockTest) {
-			audit.notChecked.push({item: 'interlock-test', text: describeFinding({code: 'audit-not-checked-interlock', data: {}})});
+			audit.notChecked.push({item: 'interlock-test', text: describeProblem({code: 'audit-not-checked-interlock', data: {}})});
 			return;
 		}
 		// The check named a plan but found no usable test: its confirmations say no, and the consistency check covers that.
@@ -32,7 +33,7 @@ export function linkInterlockTests(audits: Audited[], benchLocations: ReadonlyMa
 		const data = {file: used.file, bodySha256: used.bodySha256, recorded: testWords(used.testedOn, used.outcome)};
 		const found = tests.get(used.bodySha256);
 		if (!found) {
-			audit.notChecked.push({item: 'interlock-test', text: describeFinding({code: 'audit-not-checked-interlock-record', data})});
+			audit.notChecked.push({item: 'interlock-test', text: describeProblem({code: 'audit-not-checked-interlock-record', data})});
 			return;
 		}
 		const test = found.interlockTest!;

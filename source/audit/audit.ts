@@ -1,5 +1,5 @@
 import {sha256Hex} from '../shared/sha256.js';
-import {formatProblem, type Problem} from '../shared/problems.js';
+import {describeProblem, formatProblem, type Problem} from '../shared/problems.js';
 import type {Result} from '../shared/result.js';
 import type {CompiledRules} from '../rules/compile/compiled-rules.js';
 import {evaluate} from '../rules/evaluate/evaluate.js';
@@ -8,7 +8,7 @@ import {loadRulesFromText} from '../rules/load.js';
 import {version} from '../shared/version.js';
 import {answersFromRecord, type RecordAnswers} from './audit-answers.js';
 import {consistencyFindings} from './audit-consistency.js';
-import {describeFinding, finding, type Finding, type FindingKind} from '../records/findings.js';
+import {finding, type Finding, type FindingKind} from '../records/findings.js';
 import {notChecked} from './audit-findings.js';
 import {relateRecords, type History, type HistoryEntry} from './audit-history.js';
 import {KeyCache, readIntegrity} from '../records/integrity.js';
@@ -172,7 +172,7 @@ export function auditRecords(files: readonly string[], options: AuditOptions): A
 				consistency: contents.consistency,
 				currentPolicy: contents.policy,
 				history: null,
-				notChecked: notChecked.map(({item, code}) => ({item, text: describeFinding({code, data: {}})})),
+				notChecked: notChecked.map(({item, code}) => ({item, text: describeProblem({code, data: {}})})),
 				findings: [...trust.findings, ...contents.findings],
 			});
 		}
@@ -192,7 +192,7 @@ export function auditRecords(files: readonly string[], options: AuditOptions): A
 		if (audit.consistency?.consistent) totals.consistent += 1;
 		if (audit.authentic && audit.findings.length > 0) totals.withFindings += 1;
 		for (const found of audit.findings) totals.findings[found.kind] += 1;
-		return {...audit, findings: audit.findings.map((found) => ({...found, text: describeFinding(found)}))};
+		return {...audit, findings: audit.findings.map((found) => ({...found, text: describeProblem(found)}))};
 	});
 	const status = totals.integrityFailures > 0 ? 'integrity_failure' : totals.withFindings > 0 ? 'authentic_with_findings' : 'authentic_and_consistent';
 	return {

@@ -1,5 +1,5 @@
-import {messages, type ProblemCode} from '../shared/messages.js';
-import {fillPlaceholders} from '../shared/problems.js';
+import type {ProblemCode} from '../shared/messages.js';
+import type {CodedMessage} from '../shared/problems.js';
 
 /**
  * What part of the audit a finding comes from. `integrity` findings make a record
@@ -10,15 +10,10 @@ export type FindingKind = 'integrity' | 'trust' | 'consistency' | 'policy' | 'hi
 /** Code of an audit finding; its words live in messages.ts. */
 export type AuditCode = Extract<ProblemCode, `audit-${string}`>;
 
-/** One thing the audit found about a record, with the values that fill its message. */
-export type Finding = {kind: FindingKind; code: AuditCode; data: Record<string, string | number>};
+/** One thing the audit found about a record: a coded message (worded by describeProblem) and the part of the audit it comes from. */
+export type Finding = CodedMessage<AuditCode> & {kind: FindingKind};
 
 /** Makes a finding. */
 export function finding(kind: FindingKind, code: AuditCode, data: Finding['data'] = {}): Finding {
 	return {kind, code, data};
-}
-
-/** A finding in words (not yet stripped of control characters: the face does that). */
-export function describeFinding(found: Pick<Finding, 'code' | 'data'>): string {
-	return fillPlaceholders(messages[found.code], found.data);
 }

@@ -1,7 +1,7 @@
 import {readFileSync} from 'node:fs';
-import {describeFinding} from './findings.js';
 import {checkIntegrity, KeyCache, type SignatureCheck} from './integrity.js';
 import type {AnyRecord} from './record-schema.js';
+import {describeProblem} from '../shared/problems.js';
 
 /** What integrity checking found: the record, or why it cannot be trusted at all. */
 export type IntegrityResult =
@@ -28,14 +28,14 @@ export function checkRecordText(text: string, keys = new KeyCache()): IntegrityR
 	if (checked.ok) return {ok: true, record: checked.record, signatures: checked.signatures.map(({index}) => ({index, valid: true as const})), bodySha256: checked.bodySha256};
 	const record = checked.record;
 	const signatures = record && checked.signatures?.map((entry) => ({index: entry.index, valid: entry.valid, ...(entry.valid ? {} : {reason: signatureReason(entry, record)})}));
-	return {ok: false, reason: describeFinding(checked.finding), ...(record ? {record} : {}), ...(signatures ? {signatures} : {})};
+	return {ok: false, reason: describeProblem(checked.finding), ...(record ? {record} : {}), ...(signatures ? {signatures} : {})};
 }
 
 /** Why one signature failed, without the "signature N (signer): " the record-level reason starts with. */
 function signatureReason(entry: SignatureCheck, record: AnyRecord): string {
 	const index = entry.index + 1;
 	const signer = record.signatures[entry.index]!.signer.name;
-	const text = describeFinding({code: entry.code ?? 'audit-signature-invalid', data: {index, signer, ...(entry.what ? {what: entry.what} : {})}});
+	const text = describeProblem({code: entry.code ?? 'audit-signature-invalid', data: {index, signer, ...(entry.what ? {what: entry.what} : {})}});
 	const prefix = `signature ${index} (${signer}): `;
 	return text.startsWith(prefix) ? text.slice(prefix.length) : text;
 }
