@@ -69,6 +69,13 @@ function tokenize(text: string): Token[] {
 	return tokens;
 }
 
+/** The longest formula, in characters: the shipped policy's longest is a few hundred. */
+export const maxFormulaLength = 2000;
+/** The deepest nesting of brackets, calls, not, signs and powers in a formula. */
+export const maxFormulaNesting = 32;
+/** The most chained operations (+ - * / and or) in one formula. */
+export const maxFormulaTerms = 200;
+
 const comparisons = new Set(['<', '<=', '>', '>=', '==', '!=']);
 const keywords = new Set(['and', 'or', 'not', 'true', 'false']);
 
@@ -78,8 +85,26 @@ const keywords = new Set(['and', 'or', 'not', 'true', 'false']);
  * (assignment, lists, objects, property access, blocks) cannot be written.
  */
 export function parseExpression(text: string): ExpressionNode {
+	if (text.length > maxFormulaLength) throw new FormulaSyntaxError('formula-syntax', `it is ${text.length} characters long; a formula may be at most ${maxFormulaLength} (split it into derived values)`, maxFormulaLength);
 	const tokens = tokenize(text);
 	let position = 0;
+	let depth = 0;
+	/** Parses one nested part (brackets, a call's arguments, not, a sign, an exponent), refusing nesting deeper than the limit. */
+	const nested = <T>(at: number, parse: () => T): T => {
+		if (depth >= maxFormulaNesting) throw new FormulaSyntaxError('formula-syntax', `it nests deeper than ${maxFormulaNesting} levels (brackets, calls, not, signs and powers); split it into derived values`, at);
+		depth += 1;
+		try {
+			return parse();
+		} finally {
+			depth -= 1;
+		}
+	};
+	let terms = 0;
+	/** Counts a term of a chain (a + b + ..., a * b * ..., a and b and ...): the tree grows one level with each. */
+	const chained = (at: number) => {
+		terms += 1;
+		if (terms > maxFormulaTerms) throw new FormulaSyntaxError('formula-syntax', `it has more than ${maxFormulaTerms} operations; split it into derived values`, at);
+	};
 	const peek = () => tokens[position]!;
 	const next = () => tokens[position++]!;
 	const isOperator = (value: string) => peek().type === 'operator' && peek().text === value;
@@ -93,15 +118,15 @@ export function parseExpression(text: string): ExpressionNode {
 		const condition = or();
 		if (!isOperator('?')) return condition;
 		next();
-		const then = conditional();
+		const then = nested(condition.at, conditional);
 		expect(':');
-		const otherwise = conditional();
+		const otherwise = nested(condition.at, conditional);
 		return {kind: 'conditional', condition, then, otherwise, at: condition.at, end: otherwise.end};
 	};
 	const logical = (word: 'and' | 'or', operand: () => ExpressionNode) => (): ExpressionNode => {
 		let left = operand();
 		while (isWord(word)) {
-			next();
+			chained(next().at);
 			const right = operand();
 			left = {kind: 'binary', op: word, left, right, at: left.at, end: right.end};
 		}
@@ -110,7 +135,7 @@ export function parseExpression(text: string): ExpressionNode {
 	const not = (): ExpressionNode => {
 		if (isWord('not')) {
 			const token = next();
-			const arg = not();
+			const arg = nested(token.at, not);
 			return {kind: 'unary', op: 'not', arg, at: token.at, end: arg.end};
 		}
 		return comparison();
@@ -130,7 +155,9 @@ export function parseExpression(text: string): ExpressionNode {
 	const additive = (): ExpressionNode => {
 		let left = multiplicative();
 		while (isOperator('+') || isOperator('-')) {
-			const op = next().text as '+' | '-';
+			const token = next();
+			chained(token.at);
+			const op = token.text as '+' | '-';
 			const right = multiplicative();
 			left = {kind: 'binary', op, left, right, at: left.at, end: right.end};
 		}
@@ -139,7 +166,9 @@ export function parseExpression(text: string): ExpressionNode {
 	const multiplicative = (): ExpressionNode => {
 		let left = unary();
 		while (isOperator('*') || isOperator('/')) {
-			const op = next().text as '*' | '/';
+			const token = next();
+			chained(token.at);
+			const op = token.text as '*' | '/';
 			const right = unary();
 			left = {kind: 'binary', op, left, right, at: left.at, end: right.end};
 		}
@@ -148,7 +177,7 @@ export function parseExpression(text: string): ExpressionNode {
 	const unary = (): ExpressionNode => {
 		if (isOperator('-') || isOperator('+')) {
 			const token = next();
-			const arg = unary();
+			const arg = nested(token.at, unary);
 			// -20 degC is the temperature 20 degrees below zero, not the negative of 293.15 K.
 			if (token.text === '-' && arg.kind === 'measure' && !arg.text.startsWith('-')) return {...arg, value: -arg.value, text: `-${arg.text}`, at: token.at};
 			return {kind: 'unary', op: token.text as '-' | '+', arg, at: token.at, end: arg.end};
@@ -158,8 +187,8 @@ export function parseExpression(text: string): ExpressionNode {
 	const power = (): ExpressionNode => {
 		const base = primary();
 		if (!isOperator('^')) return base;
-		next();
-		const exponent = unary();
+		const caret = next();
+		const exponent = nested(caret.at, unary);
 		return {kind: 'binary', op: '^', left: base, right: exponent, at: base.at, end: exponent.end};
 	};
 	const primary = (): ExpressionNode => {
@@ -182,10 +211,10 @@ export function parseExpression(text: string): ExpressionNode {
 				next();
 				const args: ExpressionNode[] = [];
 				if (!isOperator(')')) {
-					args.push(conditional());
+					args.push(nested(token.at, conditional));
 					while (isOperator(',')) {
 						next();
-						args.push(conditional());
+						args.push(nested(token.at, conditional));
 					}
 				}
 				const close = peek();
@@ -195,7 +224,7 @@ export function parseExpression(text: string): ExpressionNode {
 			return {kind: 'name', name: token.text, at: token.at, end: token.end};
 		}
 		if (token.type === 'operator' && token.text === '(') {
-			const inner = conditional();
+			const inner = nested(token.at, conditional);
 			const close = peek();
 			expect(')');
 			return {kind: 'group', inner, at: token.at, end: close.end};

@@ -13,7 +13,15 @@ export type QuantityProblem =
 	| {code: 'entry-missing-unit'; entered: string; expected: Dimension}
 	| {code: 'entry-unknown-unit'; entered: string; expected: Dimension}
 	| {code: 'entry-wrong-dimension'; entered: string; expected: Dimension; received: string}
-	| {code: 'entry-not-finite'; entered: string};
+	| {code: 'entry-not-finite'; entered: string}
+	| {code: 'entry-too-long'; length: number; max: number};
+
+/**
+ * The longest entry read as a quantity, in characters (spaces included). A value with its unit
+ * is a few dozen characters at most; a longer one is refused before it is read, so no step of
+ * reading it can take long and no message echoes it.
+ */
+export const maxQuantityEntryLength = 100;
 
 /** A quantity read from an entry: its value in the coherent SI unit of its dimension. */
 export type ParsedQuantity = {si: number; dimension: Dimension; entered: string};
@@ -42,6 +50,7 @@ export function hasDimension(value: unknown, dimension: Dimension): boolean {
  * same double (`700 nm`, `0.7 um`, `7e-7 m`).
  */
 export function parseQuantity(entered: string, expected: Dimension): {ok: true; value: ParsedQuantity} | {ok: false; problem: QuantityProblem} {
+	if (entered.length > maxQuantityEntryLength) return {ok: false, problem: {code: 'entry-too-long', length: entered.length, max: maxQuantityEntryLength}};
 	const text = normaliseEntry(entered);
 	if (text === '') return {ok: false, problem: {code: 'entry-empty'}};
 	const number = leadingNumber.exec(text);

@@ -1,4 +1,4 @@
-import {readFileSync} from 'node:fs';
+import {closeSync, fstatSync, openSync, readSync} from 'node:fs';
 import {isAlias, isMap, isPair, isScalar, isSeq, LineCounter, parseDocument, visit, type Document} from 'yaml';
 import {problem, warning, type Problem} from './problems.js';
 import {failure, success, type Result} from './result.js';
@@ -17,14 +17,37 @@ export type YamlSource = {
 	prelinted?: boolean;
 };
 
-/** Reads a file as text, refusing empty and binary files with a problem naming the file. */
-export function readTextFile(file: string, expected: string): Result<string, Problem> {
+/**
+ * The largest YAML file prelase reads (a rule file, answers, a plan, test results): 1 MiB. The
+ * shipped policy resolves to under 100 kB; a file far larger is a mistake or an attack, and
+ * refusing it up front keeps every later step's time and memory bounded.
+ */
+export const maxYamlFileBytes = 1024 * 1024;
+
+/**
+ * Reads a file as text, refusing what is not a regular file (a device, a pipe, a folder), files
+ * over `maxBytes`, and empty and binary files, each with a problem naming the file. The size is
+ * checked on the open file, and at most `maxBytes + 1` bytes are ever read, so a file that grows
+ * while it is read cannot make prelase read without end.
+ */
+export function readTextFile(file: string, expected: string, maxBytes = maxYamlFileBytes): Result<string, Problem> {
 	let bytes: Buffer;
+	let descriptor: number | undefined;
 	try {
-		bytes = readFileSync(file);
+		descriptor = openSync(file, 'r');
+		const stat = fstatSync(descriptor);
+		if (!stat.isFile()) return failure([problem('file-not-regular', {expected}, {file})]);
+		if (stat.size > maxBytes) return failure([problem('file-too-large', {size: stat.size, max: maxBytes, expected}, {file})]);
+		const buffer = Buffer.alloc(maxBytes + 1);
+		let length = 0;
+		for (let read = -1; read !== 0 && length <= maxBytes; length += read) read = readSync(descriptor, buffer, length, buffer.length - length, null);
+		if (length > maxBytes) return failure([problem('file-too-large', {size: length, max: maxBytes, expected}, {file})]);
+		bytes = buffer.subarray(0, length);
 	} catch (error) {
 		const reason = (error as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : String((error as Error).message);
 		return failure([problem('file-unreadable', {reason}, {file})]);
+	} finally {
+		if (descriptor !== undefined) closeSync(descriptor);
 	}
 	if (bytes.includes(0)) return failure([problem('file-binary', {expected}, {file})]);
 	const text = bytes.toString('utf8');
@@ -36,33 +59,29 @@ export function readTextFile(file: string, expected: string): Result<string, Pro
 export function parseYamlSource(text: string, file: string, expected: string): Result<YamlSource, Problem> {
 	if (text.trim() === '') return failure([problem('file-empty', {expected}, {file})]);
 	const lineCounter = new LineCounter();
-	const document = parseDocument(text, {lineCounter, prettyErrors: false, uniqueKeys: true, strict: true, logLevel: 'error'});
+	const document = parseDocument(text, {lineCounter, prettyErrors: false, uniqueKeys: false, strict: true, logLevel: 'error'});
 	const at = (offset: number) => {
 		const position = lineCounter.linePos(offset);
 		return {line: position.line, column: position.col};
 	};
 	if (document.errors.length > 0) {
 		return failure(
-			document.errors.map((error) => {
-				const where = {file, ...at(error.pos[0])};
-				if (error.code === 'DUPLICATE_KEY') {
-					const found = pairAt(document, error.pos[0]);
-					const key = found?.key ?? /^\s*(?:"([^"]*)"|'([^']*)'|([^:\n]*))/.exec(text.slice(error.pos[0]))?.slice(1).find((part) => part !== undefined) ?? '';
-					return problem('yaml-duplicate-key', {key: key.trim()}, found ? {...where, field: found.path.join('.')} : where);
-				}
-				return problem('yaml-syntax', {detail: error.message.split('\n')[0] ?? error.code}, where);
-			}),
+			document.errors.map((error) => problem('yaml-syntax', {detail: error.message.split('\n')[0] ?? error.code}, {file, ...at(error.pos[0])})),
 		);
 	}
+	const duplicates = duplicateKeys(document);
+	if (duplicates.length > 0) return failure(duplicates.map(({key, path, offset}) => problem('yaml-duplicate-key', {key}, {file, ...at(offset), field: path.join('.')})));
 	if (!isMap(document.contents)) {
 		const received = document.contents === null ? 'nothing' : isScalar(document.contents) ? `the single value ${JSON.stringify(document.contents.toJSON())}` : 'a list';
 		return failure([problem('yaml-not-mapping', {received}, {file, line: 1, column: 1})]);
 	}
 	const warnings: Problem[] = document.warnings.map((entry) => warning('yaml-syntax', {detail: entry.message.split('\n')[0] ?? entry.code}, {file, ...at(entry.pos[0])}));
-	const nodeAt = (path: ReadonlyArray<string | number>) => {
+	let offsets: Map<string, number> | undefined;
+	const offsetOf = (path: ReadonlyArray<string | number>) => {
+		offsets ??= nodeOffsets(document);
 		for (let length = path.length; length >= 0; length -= 1) {
-			const node = document.getIn(path.slice(0, length), true) as {range?: [number, number, number]} | undefined;
-			if (node && typeof node === 'object' && node.range) return node;
+			const offset = offsets.get(pathKey(path.slice(0, length)));
+			if (offset !== undefined) return offset;
 		}
 		return undefined;
 	};
@@ -79,8 +98,8 @@ export function parseYamlSource(text: string, file: string, expected: string): R
 			data,
 			document,
 			locate(path) {
-				const node = nodeAt(path);
-				return node?.range ? at(node.range[0]) : {line: 1, column: 1};
+				const offset = offsetOf(path);
+				return offset === undefined ? {line: 1, column: 1} : at(offset);
 			},
 			trailingComment(path) {
 				const node = document.getIn(path, true);
@@ -119,27 +138,69 @@ export function preparsedYamlSource(text: string, file: string, data: unknown): 
 	};
 }
 
-/** The key and path of the mapping entry whose key starts at an offset (for duplicate keys). */
-function pairAt(document: Document.Parsed, offset: number): {key: string; path: Array<string | number>} | undefined {
-	const search = (node: unknown, path: Array<string | number>): {key: string; path: Array<string | number>} | undefined => {
+type Path = Array<string | number>;
+
+/** A path as one map key: each part tagged with its type, as the YAML document's getIn tells 1 from "1". */
+function pathKey(path: ReadonlyArray<string | number>): string {
+	return path.map((part) => `${typeof part === 'number' ? 'n' : 's'}${String(part)}`).join('\u0000');
+}
+
+/** A scalar key as a path part (its value), or undefined for a key that is not a scalar. */
+function keyPart(key: unknown): string | number | undefined {
+	if (!isScalar(key)) return undefined;
+	return typeof key.value === 'number' ? key.value : String(key.value);
+}
+
+/** Walks every map and list of a document once, depth first, without recursion (a deep file cannot overflow the stack). */
+function walk(document: Document.Parsed, visitNode: (node: unknown, path: Path) => void): void {
+	const stack: Array<{node: unknown; path: Path}> = [{node: document.contents, path: []}];
+	while (stack.length > 0) {
+		const {node, path} = stack.pop()!;
+		visitNode(node, path);
 		if (isMap(node)) {
-			for (const pair of node.items) {
-				if (!isPair(pair)) continue;
-				const key = isScalar(pair.key) ? String(pair.key.value) : '';
-				const range = isScalar(pair.key) ? pair.key.range : undefined;
-				if (range && range[0] <= offset && offset < Math.max(range[1], range[0] + 1)) return {key, path: [...path, key]};
-				const inner = search(pair.value, [...path, key]);
-				if (inner) return inner;
+			for (let index = node.items.length - 1; index >= 0; index -= 1) {
+				const pair = node.items[index];
+				const part = isPair(pair) ? keyPart(pair.key) : undefined;
+				if (pair && part !== undefined) stack.push({node: pair.value, path: [...path, part]});
 			}
 		} else if (isSeq(node)) {
-			for (const [index, item] of node.items.entries()) {
-				const inner = search(item, [...path, index]);
-				if (inner) return inner;
-			}
+			for (let index = node.items.length - 1; index >= 0; index -= 1) stack.push({node: node.items[index], path: [...path, index]});
 		}
-		return undefined;
-	};
-	return search(document.contents, []);
+	}
+}
+
+/**
+ * Keys written twice in one mapping, in file order, found in one pass with a set per mapping
+ * (the YAML library's own check compares every pair: quadratic in the number of keys). Keys
+ * compare as the library compares them: 1 and "1" differ.
+ */
+function duplicateKeys(document: Document.Parsed): Array<{key: string; path: Path; offset: number}> {
+	const found: Array<{key: string; path: Path; offset: number}> = [];
+	walk(document, (node, path) => {
+		if (!isMap(node)) return;
+		const seen = new Set<string>();
+		for (const pair of node.items) {
+			const part = isPair(pair) ? keyPart(pair.key) : undefined;
+			if (part === undefined) continue;
+			const tagged = `${typeof part}:${String(part)}`;
+			if (seen.has(tagged)) found.push({key: String(part), path: [...path, part], offset: (pair.key as {range?: [number, number, number]}).range?.[0] ?? 0});
+			else seen.add(tagged);
+		}
+	});
+	return found.sort((a, b) => a.offset - b.offset);
+}
+
+/** Where each value of a document starts, by path: built once, so locating is not a search per call. */
+function nodeOffsets(document: Document.Parsed): Map<string, number> {
+	const offsets = new Map<string, number>();
+	walk(document, (node, path) => {
+		const range = (node as {range?: [number, number, number]} | null)?.range;
+		if (range) offsets.set(pathKey(path), range[0]);
+		// A list item is also found by its index written as text, as getIn finds it.
+		const last = path.at(-1);
+		if (range && typeof last === 'number') offsets.set(pathKey([...path.slice(0, -1), String(last)]), range[0]);
+	});
+	return offsets;
 }
 
 /** A problem for an alias that cannot be expanded: an anchor never set, or too many expansions. */

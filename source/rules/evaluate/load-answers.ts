@@ -8,6 +8,8 @@ import {didYouMean} from '../../shared/did-you-mean.js';
 
 const expected = 'an answers file (YAML with setup, inputs and confirmations)';
 const topKeys = new Set(['setup', 'inputs', 'confirmations']);
+/** Unknown ids get a "did you mean" hint up to this many; past it, a file is not a typo but a wrong file, and the hints would cost time for nothing. */
+const hintedUnknownIds = 20;
 
 /** Reads an answers file against the rules; every problem names file, line and field. */
 export function loadAnswers(file: string, rules: CompiledRules): Result<Answers, Problem> {
@@ -23,6 +25,8 @@ export function loadAnswersFromText(text: string, file: string, rules: CompiledR
 	const source = parsed.value;
 	const data = source.data as Record<string, unknown>;
 	const problems: Problem[] = [];
+	let unknownIds = 0;
+	const hint = (id: string, known: Iterable<string>) => (++unknownIds <= hintedUnknownIds ? didYouMean(id, known) : '');
 	const at = (path: Array<string | number>) => ({file, ...source.locate(path), field: path.join('.')});
 
 	for (const key of Object.keys(data)) if (!topKeys.has(key)) problems.push(problem('answers-unknown-key', {key}, at([key])));
@@ -32,7 +36,7 @@ export function loadAnswersFromText(text: string, file: string, rules: CompiledR
 	for (const [id, raw] of entries(data['inputs'], 'inputs', source, problems)) {
 		const compiled = rules.inputs.get(id);
 		if (!compiled) {
-			problems.push(problem('answers-unknown-input', {id, hint: didYouMean(id, rules.inputs.keys())}, at(['inputs', id])));
+			problems.push(problem('answers-unknown-input', {id, hint: hint(id, rules.inputs.keys())}, at(['inputs', id])));
 			continue;
 		}
 		if (raw === null || raw === undefined || raw === '') continue;
@@ -47,7 +51,7 @@ export function loadAnswersFromText(text: string, file: string, rules: CompiledR
 	for (const [id, raw] of entries(data['confirmations'], 'confirmations', source, problems)) {
 		const compiled = rules.confirmations.get(id);
 		if (!compiled) {
-			problems.push(problem('answers-unknown-confirmation', {id, hint: didYouMean(id, rules.confirmations.keys())}, at(['confirmations', id])));
+			problems.push(problem('answers-unknown-confirmation', {id, hint: hint(id, rules.confirmations.keys())}, at(['confirmations', id])));
 			continue;
 		}
 		if (raw === null || raw === undefined || raw === '') continue;

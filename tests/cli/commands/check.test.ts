@@ -475,7 +475,7 @@ describe('bad answers files exit 2 naming file, line and field', () => {
 	it('a folder given as the answers file', () => {
 		const result = run('check', '--answers', folder);
 		expect(result.code).toBe(2);
-		expect(result.stderr).toContain(`${folder}: error: cannot read the file`);
+		expect(result.stderr).toContain(`${folder}: error: this is not a regular file (a folder, a device or a pipe)`);
 		expect(result.stderr).not.toContain('internal error');
 	});
 });
