@@ -238,7 +238,7 @@ describe('prelase audit --json', () => {
 		const {code, stdout} = await run(['audit', cleanPath, '--json']);
 		expect(code).toBe(0);
 		const json = JSON.parse(stdout) as Record<string, any>;
-		expect(Object.keys(json)).toEqual(['tool', 'currentRules', 'trust', 'records', 'totals', 'status', 'exitCode']);
+		expect(Object.keys(json)).toEqual(['tool', 'currentRules', 'trust', 'listing', 'records', 'findingCodes', 'withFindings', 'totals', 'status', 'exitCode']);
 		expect(json['status']).toBe('authentic_and_consistent');
 		expect(json['exitCode']).toBe(0);
 		expect(json['currentRules']).toEqual({name: 'prelase bench policy (shipped default)', file: shippedRulesPath(), sha256: clean.body.rules.sha256});
