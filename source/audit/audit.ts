@@ -183,9 +183,42 @@ function endOfRun(audits: Judged[], entries: readonly HistoryEntry[], entryOf: r
 	});
 }
 
-/** A record's audit with only what the summary shows and the end of the run needs: it keeps memory flat over many records. */
-function slim(audit: Judged): Judged {
-	return {...audit, signatures: [], currentPolicy: null};
+/** One copy of each text kept from many records (names, rule hashes, identifying inputs repeat from record to record). */
+class Interned {
+	readonly #texts = new Map<string, string>();
+
+	text(value: string): string {
+		const known = this.#texts.get(value);
+		if (known !== undefined) return known;
+		this.#texts.set(value, value);
+		return value;
+	}
+
+	nullable(value: string | null | undefined): string | null {
+		return value === null || value === undefined ? null : this.text(value);
+	}
+}
+
+/**
+ * A record's audit with only what the summary shows and the end of the run needs, its texts
+ * shared with the other records': it keeps memory small over many records.
+ */
+function slim(audit: Judged, keep: Interned): Judged {
+	const record = audit.record && {
+		...audit.record,
+		tool: {name: audit.record.tool.name, version: keep.text(audit.record.tool.version)},
+		operator: {name: keep.text(audit.record.operator.name), role: keep.text(audit.record.operator.role)},
+		setup: {name: keep.nullable(audit.record.setup.name), fingerprint: keep.text(audit.record.setup.fingerprint)},
+		rules: {name: keep.text(audit.record.rules.name), file: keep.text(audit.record.rules.file), sha256: keep.text(audit.record.rules.sha256)},
+		exceptions: [],
+	};
+	return {...audit, record, signatures: [], currentPolicy: null, notChecked: []};
+}
+
+/** What relates a record to the others, its texts shared with the other records'. */
+function slimEntry(entry: HistoryEntry, keep: Interned): HistoryEntry {
+	const identifying = Object.fromEntries(Object.entries(entry.identifying).map(([id, value]) => [keep.text(id), keep.nullable(value)]));
+	return {...entry, setupName: keep.nullable(entry.setupName), fingerprint: keep.text(entry.fingerprint), identifying};
 }
 
 const reported = (found: Finding): ReportedFinding => ({...found, text: describeFinding(found)});
@@ -202,17 +235,18 @@ export function auditRecords(files: readonly string[], options: AuditOptions): A
 	const listing = options.listing ?? 'all';
 	const context: RunContext = {keys: new KeyCache(), rules: new RuleTexts(options.current), options, now: options.now ?? new Date(), notChecked: notChecked.map(({item, code}) => ({item, text: describeFinding({code, data: {}})}))};
 	const audits: Judged[] = [];
+	const keep = new Interned();
 	const entries: HistoryEntry[] = [];
 	const entryOf: number[] = [];
 	const benchLocations = new Map<number, string | undefined>();
 	files.forEach((file, index) => {
 		const {audit, bench} = judgeRecord(file, context);
 		if (bench) {
-			benchLocations.set(audits.length, bench.location);
+			benchLocations.set(audits.length, listing === 'all' ? bench.location : (keep.nullable(bench.location) ?? undefined));
 			entryOf[entries.length] = audits.length;
-			entries.push(bench.entry);
+			entries.push(listing === 'all' ? bench.entry : slimEntry(bench.entry, keep));
 		}
-		audits.push(listing === 'all' ? audit : slim(audit));
+		audits.push(listing === 'all' ? audit : slim(audit, keep));
 		options.onProgress?.(index + 1, files.length);
 	});
 	endOfRun(audits, entries, entryOf, benchLocations);
