@@ -105,14 +105,14 @@ left out). For each record the audit checks:
   integrity      it parses and every signature verifies over its body; who signed, in what
                  role and meaning, and whether each key is yours or one you trust
                  (prelase keys trust); an untrusted key is a finding
-  consistency    its inputs, re-evaluated under the rule file embedded in it, give every
+  consistency    its inputs, re-evaluated under the rule file it was made with, give every
                  recorded value, verdict and the outcome (a difference is a finding: the
                  record's conclusions do not follow from its numbers)
   current rules  what would change under the site's current rules: verdicts, the outcome,
                  inputs and confirmations the record lacks (a changed verdict is a finding)
   history        amendments and the records they correct, a later record for the same
                  setup fingerprint, a setup whose fingerprint changed since its last record
-  rule text     a record names the rule text it was made under by SHA-256; the text is
+  rule text      a record names the rule text it was made under by SHA-256; the text is
                  stored once in the records folder (rules/<sha256>.yaml): a text missing,
                  unreadable or not matching its hash is a finding
 Record age and interlock test dates are reported as not checked: rule files set no
