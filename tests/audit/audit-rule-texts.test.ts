@@ -2,6 +2,7 @@ import {createHash} from 'node:crypto';
 import {copyFileSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, unlinkSync, writeFileSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {join, resolve} from 'node:path';
+import fc from 'fast-check';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
 import {auditRecords} from '../../source/audit/audit.js';
 import {listRecordFiles} from '../../source/audit/audit-files.js';
@@ -85,6 +86,24 @@ describe('rule texts stored once by hash', () => {
 		expect(found!.text).toContain(stored);
 		if (code === 'audit-rules-text-altered') expect(found!.data).toEqual({file: stored, stated: sha256(shippedText), actual: sha256(readFileSync(stored, 'utf8'))});
 		expect(report.exitCode).toBe(1);
+	});
+
+	it('any single-byte change to a stored rule text is caught (property over position and byte)', async () => {
+		const records = join(folder, 'property');
+		const path = await signedCheck(records);
+		const stored = join(records, 'rules', `${sha256(shippedText)}.yaml`);
+		const original = readFileSync(stored);
+		fc.assert(
+			fc.property(fc.integer({min: 0, max: original.length - 1}), fc.integer({min: 1, max: 255}), (position, delta) => {
+				const changed = Buffer.from(original);
+				changed[position] = (changed[position]! + delta) % 256;
+				writeFileSync(stored, changed);
+				const codes = audit([path], otherRules).records[0]!.findings.map((entry) => entry.code);
+				expect(codes).toContain('audit-rules-text-altered');
+			}),
+			{numRuns: 40},
+		);
+		writeFileSync(stored, original);
 	});
 
 	it('an altered stored text is a finding even when the current rules have the stated hash (their text re-evaluates the record)', async () => {
