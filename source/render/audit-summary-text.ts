@@ -27,7 +27,10 @@ export function* auditSummaryLines(report: AuditReport, paint: Paint, width = 10
 		yield '';
 		yield 'Findings:';
 		const widest = String(report.findingCodes[0]!.count).length;
-		for (const entry of report.findingCodes) yield* wrap(`${String(entry.count).padStart(widest)} × [${entry.kind}] ${entry.code}${entry.count > 1 ? ', the first' : ''}: ${inline(entry.example, 400)}`, width, ' '.repeat(widest + 5)).map((line, index) => (index === 0 ? `  ${line.trimStart()}` : line));
+		for (const entry of report.findingCodes) {
+			const pad = ' '.repeat(widest - String(entry.count).length);
+			yield* wrap(`${entry.count} × [${entry.kind}] ${entry.code}${entry.count > 1 ? ', the first' : ''}: ${inline(entry.example, 400)}`, width, ' '.repeat(widest + 5)).map((line, index) => (index === 0 ? `  ${pad}${line.trimStart()}` : line));
+		}
 	}
 	yield '';
 	yield `Records with findings: ${report.withFindings.length} of ${report.totals.records}`;
