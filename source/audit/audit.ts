@@ -1,14 +1,19 @@
-import {sha256Hex} from '../shared/sha256.js';
-import {describeProblem, formatProblem, type Problem} from '../shared/problems.js';
-import type {Result} from '../shared/result.js';
+/**
+ * The audit of signed records, one record at a time, in memory that does not grow with the
+ * records' size: each file is read, verified and judged in turn (judgeRecord, the PER-RECORD
+ * HOOK), and only a small summary of it is kept; when every file is done, the records are
+ * related to each other (endOfRun, the END-OF-RUN HOOK). A new finding about a record on its
+ * own goes in its own file, called from judgeRecord; a finding across records (a chain, a
+ * history, the site's store) goes in its own file, called from endOfRun.
+ */
 import type {CompiledRules} from '../rules/compile/compiled-rules.js';
 import {evaluate} from '../rules/evaluate/evaluate.js';
 import type {Evaluation} from '../rules/evaluate/evaluation.js';
-import {loadRulesFromText} from '../rules/load.js';
 import {version} from '../shared/version.js';
 import {answersFromRecord, type RecordAnswers} from './audit-answers.js';
 import {consistencyFindings} from './audit-consistency.js';
-import {finding, type Finding, type FindingKind} from '../records/findings.js';
+import type {Finding, FindingKind} from '../records/findings.js';
+import {describeProblem} from '../shared/problems.js';
 import {notChecked} from './audit-findings.js';
 import {relateRecords, type History, type HistoryEntry} from './audit-history.js';
 import {KeyCache, readIntegrity} from '../records/integrity.js';
@@ -19,6 +24,7 @@ import {policyReport, type PolicyReport} from './audit-policy.js';
 import {signatureReports, type SignatureReport, type Trust} from './audit-trust.js';
 import type {RecordBody} from '../records/record-schema.js';
 import {locationInput} from '../interlock/plan/plan-input.js';
+import {RuleTexts} from './audit-rule-texts.js';
 
 /** A finding with its message in words. */
 export type ReportedFinding = Finding & {text: string};
@@ -47,44 +53,31 @@ export type RecordAudit = {
 /** How the records audited stand together; `exitCode` follows the command-line contract. */
 export type AuditTotals = {records: number; authentic: number; integrityFailures: number; consistent: number; withFindings: number; findings: Record<FindingKind, number>};
 
+/** How often a finding occurs in the audit. */
+export type FindingCount = {kind: FindingKind; code: Finding['code']; count: number; example: string};
+
+/** A record with findings, in the short form of a summarised audit. */
+export type RecordWithFindings = {file: string; authentic: boolean; kind: 'bench-check' | 'interlock-test' | null; createdAt: string | null; outcome: string | null; findings: ReportedFinding[]};
+
 /** The whole audit. It says whether records are authentic and their conclusions follow, never that a setup is safe. */
 export type AuditReport = {
 	tool: {name: 'prelase'; version: string};
 	currentRules: {name: string; file: string; sha256: string};
 	trust: {own: string | null; trusted: number};
+	/** `all`: every record's audit is in `records`; `summary`: `records` is empty and `withFindings` lists the records with findings. */
+	listing: 'all' | 'summary';
 	records: RecordAudit[];
+	/** Each finding code that occurs, how often, with the words of its first occurrence. */
+	findingCodes: FindingCount[];
+	/** With `listing: 'summary'`: each record with findings, in short. */
+	withFindings: RecordWithFindings[];
 	totals: AuditTotals;
 	status: 'authentic_and_consistent' | 'authentic_with_findings' | 'integrity_failure';
 	exitCode: 0 | 1 | 3;
 };
 
 /** What the audit needs besides the files: the site's current rules and the keys the auditor trusts. */
-export type AuditOptions = {current: CompiledRules; trust: Trust; onProgress?: (done: number, total: number) => void; /** The time of the audit (records dated after it are reported). @default now */ now?: Date};
-
-/** Embedded rule texts loaded and compiled once each (a folder of records mostly shares one or two). */
-class RuleCache {
-	readonly #byStated = new Map<string, {text: string; sha256: string}>();
-	readonly #bySha = new Map<string, Result<CompiledRules, Problem>>();
-
-	constructor(current: CompiledRules) {
-		this.#bySha.set(current.sha256, {ok: true, value: current, warnings: []});
-		this.#byStated.set(current.sha256, {text: current.text, sha256: current.sha256});
-	}
-
-	/** The rules of a record's embedded text, with the text's actual SHA-256. */
-	get(text: string, stated: string, file: string): {sha256: string; loaded: Result<CompiledRules, Problem>} {
-		const known = this.#byStated.get(stated);
-		// Equal text to one already hashed needs no hashing again.
-		const sha256 = known && known.text === text ? known.sha256 : sha256Hex(text);
-		if (!known) this.#byStated.set(stated, {text, sha256});
-		let loaded = this.#bySha.get(sha256);
-		if (!loaded) {
-			loaded = loadRulesFromText(text, file);
-			this.#bySha.set(sha256, loaded);
-		}
-		return {sha256, loaded};
-	}
-}
+export type AuditOptions = {current: CompiledRules; trust: Trust; onProgress?: (done: number, total: number) => void; /** The time of the audit (records dated after it are reported). @default now */ now?: Date; /** Keep every record's audit (`all`), or only what the summary needs. @default 'all' */ listing?: 'all' | 'summary'};
 
 function summarise(body: RecordBody): RecordSummary {
 	return {
@@ -107,101 +100,190 @@ function historyEntry(file: string, bodySha256: string, body: RecordBody): Histo
 }
 
 /** Audits one authentic record's contents: consistency under its own rules, and what the current rules would change. */
-function auditContents(body: RecordBody, rules: RuleCache, current: CompiledRules): {consistency: NonNullable<RecordAudit['consistency']>; policy: PolicyReport; findings: Finding[]} {
-	const findings: Finding[] = [];
-	const embedded = rules.get(body.rules.text, body.rules.sha256, body.rules.file);
-	if (embedded.sha256 !== body.rules.sha256) findings.push(finding('consistency', 'audit-rules-hash-mismatch', {stated: body.rules.sha256, actual: embedded.sha256}));
-	let own: {rules: CompiledRules; read: RecordAnswers; evaluation: Evaluation} | undefined;
-	if (embedded.loaded.ok) {
-		const read = answersFromRecord(embedded.loaded.value, body);
-		own = {rules: embedded.loaded.value, read, evaluation: evaluate(embedded.loaded.value, read.answers)};
-		findings.push(...consistencyFindings(body, own.rules, read, own.evaluation));
-	} else {
-		findings.push(finding('consistency', 'audit-rules-do-not-load', {detail: embedded.loaded.errors.map(formatProblem).join('; ')}));
+function auditContents(body: RecordBody, file: string, rules: RuleTexts, current: CompiledRules): {consistency: NonNullable<RecordAudit['consistency']>; policy: PolicyReport; findings: Finding[]} {
+	const own = rules.forRecord(body, file);
+	const findings: Finding[] = [...own.findings];
+	let judged: {rules: CompiledRules; read: RecordAnswers; evaluation: Evaluation} | undefined;
+	if (own.rules) {
+		const read = answersFromRecord(own.rules, body);
+		judged = {rules: own.rules, read, evaluation: evaluate(own.rules, read.answers)};
+		findings.push(...consistencyFindings(body, judged.rules, read, judged.evaluation));
 	}
-	const consistency = {reevaluated: own !== undefined, consistent: findings.length === 0, rulesSha256: embedded.sha256};
+	const consistency = {reevaluated: judged !== undefined, consistent: findings.length === 0, rulesSha256: own.sha256};
 
 	// The same rule text and the same answers give the same evaluation: evaluate is pure.
-	const read = own && own.rules === current ? own.read : answersFromRecord(current, body);
-	const evaluation = own && own.rules === current ? own.evaluation : evaluate(current, read.answers);
+	const read = judged && judged.rules === current ? judged.read : answersFromRecord(current, body);
+	const evaluation = judged && judged.rules === current ? judged.evaluation : evaluate(current, read.answers);
 	const policy = policyReport(body, current, read, evaluation);
 	return {consistency, policy: policy.report, findings: [...findings, ...policy.findings]};
 }
 
 const emptyFindings = (): Record<FindingKind, number> => ({integrity: 0, trust: 0, consistency: 0, policy: 0, history: 0});
 
+/** One record as the audit keeps it until the end of the run. */
+type Judged = Omit<RecordAudit, 'findings'> & {findings: Finding[]};
+
+/** What the per-record step needs besides the file. */
+type RunContext = {keys: KeyCache; rules: RuleTexts; options: AuditOptions; now: Date; notChecked: ReadonlyArray<{item: string; text: string}>};
+
+/** What one record leaves for the end of the run: its audit, and for a bench check what relates it to the others. */
+type Judgement = {audit: Judged; bench?: {entry: HistoryEntry; location: string | undefined}};
+
 /**
- * Audits record files: for each, integrity (every signature verifies; who signed, and whether
- * their key is trusted), consistency (the recorded conclusions follow from the recorded
- * numbers under the embedded rules), what the current rules would change; then how the
- * records relate (amendments, superseded records, changed setups). Pure apart from reading
- * the files.
+ * PER-RECORD HOOK. Reads one file, checks its integrity and judges it: trust, consistency
+ * under its own rules, what the current rules would change. A new finding about one record
+ * on its own is added here. Only this record's data is in hand; the file's text and parsed
+ * body are dropped when it returns.
  */
-export function auditRecords(files: readonly string[], options: AuditOptions): AuditReport {
-	const keys = new KeyCache();
-	const rules = new RuleCache(options.current);
-	const audits: Array<Omit<RecordAudit, 'findings'> & {findings: Finding[]}> = [];
-	const entries: HistoryEntry[] = [];
-	const entryOf: number[] = [];
-	const benchLocations = new Map<number, string | undefined>();
-	files.forEach((file, index) => {
-		const checked = readIntegrity(file, keys);
-		const body = checked.record?.body;
-		const record = body?.kind === 'bench-check' ? summarise(body) : null;
-		const interlockTest = body?.kind === 'interlock-test' ? summariseInterlockTest(body) : null;
-		const trust = checked.record ? signatureReports(checked.record, checked.signatures, options.trust) : {signatures: [], findings: []};
-		if (!checked.ok) {
-			audits.push({file, authentic: false, bodySha256: null, record, interlockTest, signatures: trust.signatures, consistency: null, currentPolicy: null, history: null, notChecked: [], findings: [checked.finding]});
-		} else if (checked.record.body.kind === 'interlock-test') {
-			const contents = interlockTestConsistency(checked.record.body);
-			const consistency = {reevaluated: contents.reevaluated, consistent: contents.findings.length === 0, rulesSha256: checked.record.body.policy.rules.sha256};
-			const today = interlockTestToday(checked.record.body, options.current, options.now ?? new Date(), contents.findings.length === 0);
-			audits.push({file, authentic: true, bodySha256: checked.bodySha256, record, interlockTest, signatures: trust.signatures, consistency, currentPolicy: null, history: null, notChecked: [], findings: [...trust.findings, ...contents.findings, ...today]});
-		} else {
-			const contents = auditContents(checked.record.body, rules, options.current);
-			benchLocations.set(audits.length, checked.record.body.inputs[locationInput]?.entered);
-			entryOf[entries.length] = audits.length;
-			entries.push(historyEntry(file, checked.bodySha256, checked.record.body));
-			audits.push({
-				file,
-				authentic: true,
-				bodySha256: checked.bodySha256,
-				record,
-				interlockTest,
-				signatures: trust.signatures,
-				consistency: contents.consistency,
-				currentPolicy: contents.policy,
-				history: null,
-				notChecked: notChecked.map(({item, code}) => ({item, text: describeProblem({code, data: {}})})),
-				findings: [...trust.findings, ...contents.findings],
-			});
-		}
-		options.onProgress?.(index + 1, files.length);
-	});
+function judgeRecord(file: string, context: RunContext): Judgement {
+	const {keys, rules, options} = context;
+	const checked = readIntegrity(file, keys);
+	const body = checked.record?.body;
+	const record = body?.kind === 'bench-check' ? summarise(body) : null;
+	const interlockTest = body?.kind === 'interlock-test' ? summariseInterlockTest(body) : null;
+	const trust = checked.record ? signatureReports(checked.record, checked.signatures, options.trust) : {signatures: [], findings: []};
+	if (!checked.ok) {
+		return {audit: {file, authentic: false, bodySha256: null, record, interlockTest, signatures: trust.signatures, consistency: null, currentPolicy: null, history: null, notChecked: [], findings: [checked.finding]}};
+	}
+	if (checked.record.body.kind === 'interlock-test') {
+		const contents = interlockTestConsistency(checked.record.body);
+		const consistency = {reevaluated: contents.reevaluated, consistent: contents.findings.length === 0, rulesSha256: checked.record.body.policy.rules.sha256};
+		const today = interlockTestToday(checked.record.body, options.current, context.now, contents.findings.length === 0);
+		return {audit: {file, authentic: true, bodySha256: checked.bodySha256, record, interlockTest, signatures: trust.signatures, consistency, currentPolicy: null, history: null, notChecked: [], findings: [...trust.findings, ...contents.findings, ...today]}};
+	}
+	const contents = auditContents(checked.record.body, file, rules, options.current);
+	return {
+		audit: {
+			file,
+			authentic: true,
+			bodySha256: checked.bodySha256,
+			record,
+			interlockTest,
+			signatures: trust.signatures,
+			consistency: contents.consistency,
+			currentPolicy: contents.policy,
+			history: null,
+			notChecked: [...context.notChecked],
+			findings: [...trust.findings, ...contents.findings],
+		},
+		bench: {entry: historyEntry(file, checked.bodySha256, checked.record.body), location: checked.record.body.inputs[locationInput]?.entered},
+	};
+}
+
+/**
+ * END-OF-RUN HOOK. Relates the records audited to each other, from what each left behind:
+ * the interlock tests the checks used, amendments, superseded records, changed setups. A new
+ * finding that needs more than one record is added here, from small per-record summaries.
+ */
+function endOfRun(audits: Judged[], entries: readonly HistoryEntry[], entryOf: readonly number[], benchLocations: ReadonlyMap<number, string | undefined>): void {
 	linkInterlockTests(audits, benchLocations);
 	relateRecords(entries).forEach(({history, findings}, index) => {
 		const audit = audits[entryOf[index]!]!;
 		audit.history = history;
 		audit.findings.push(...findings);
 	});
+}
+
+/** One copy of each text kept from many records (names, rule hashes, identifying inputs repeat from record to record). */
+class Interned {
+	readonly #texts = new Map<string, string>();
+
+	text(value: string): string {
+		const known = this.#texts.get(value);
+		if (known !== undefined) return known;
+		this.#texts.set(value, value);
+		return value;
+	}
+
+	nullable(value: string | null | undefined): string | null {
+		return value === null || value === undefined ? null : this.text(value);
+	}
+}
+
+/**
+ * A record's audit with only what the summary shows and the end of the run needs, its texts
+ * shared with the other records': it keeps memory small over many records.
+ */
+function slim(audit: Judged, keep: Interned): Judged {
+	const record = audit.record && {
+		...audit.record,
+		tool: {name: audit.record.tool.name, version: keep.text(audit.record.tool.version)},
+		operator: {name: keep.text(audit.record.operator.name), role: keep.text(audit.record.operator.role)},
+		setup: {name: keep.nullable(audit.record.setup.name), fingerprint: keep.text(audit.record.setup.fingerprint)},
+		rules: {name: keep.text(audit.record.rules.name), file: keep.text(audit.record.rules.file), sha256: keep.text(audit.record.rules.sha256)},
+		exceptions: [],
+	};
+	return {...audit, record, signatures: [], currentPolicy: null, notChecked: []};
+}
+
+/** What relates a record to the others, its texts shared with the other records'. */
+function slimEntry(entry: HistoryEntry, keep: Interned): HistoryEntry {
+	const identifying = Object.fromEntries(Object.entries(entry.identifying).map(([id, value]) => [keep.text(id), keep.nullable(value)]));
+	return {...entry, setupName: keep.nullable(entry.setupName), fingerprint: keep.text(entry.fingerprint), identifying};
+}
+
+const reported = (found: Finding): ReportedFinding => ({...found, text: describeProblem(found)});
+
+/**
+ * Audits record files: for each, integrity (every signature verifies; who signed, and whether
+ * their key is trusted), consistency (the recorded conclusions follow from the recorded
+ * numbers under the record's own rules), what the current rules would change; then how the
+ * records relate (amendments, superseded records, changed setups). Pure apart from reading
+ * the files. The records are read and judged one by one; only a small summary of each is
+ * kept (all of its audit with `listing: 'all'`, the default).
+ */
+export function auditRecords(files: readonly string[], options: AuditOptions): AuditReport {
+	const listing = options.listing ?? 'all';
+	const context: RunContext = {keys: new KeyCache(), rules: new RuleTexts(options.current), options, now: options.now ?? new Date(), notChecked: notChecked.map(({item, code}) => ({item, text: describeProblem({code, data: {}})}))};
+	const audits: Judged[] = [];
+	const keep = new Interned();
+	const entries: HistoryEntry[] = [];
+	const entryOf: number[] = [];
+	const benchLocations = new Map<number, string | undefined>();
+	files.forEach((file, index) => {
+		const {audit, bench} = judgeRecord(file, context);
+		if (bench) {
+			benchLocations.set(audits.length, listing === 'all' ? bench.location : (keep.nullable(bench.location) ?? undefined));
+			entryOf[entries.length] = audits.length;
+			entries.push(listing === 'all' ? bench.entry : slimEntry(bench.entry, keep));
+		}
+		audits.push(listing === 'all' ? audit : slim(audit, keep));
+		options.onProgress?.(index + 1, files.length);
+	});
+	endOfRun(audits, entries, entryOf, benchLocations);
 
 	const totals: AuditTotals = {records: audits.length, authentic: 0, integrityFailures: 0, consistent: 0, withFindings: 0, findings: emptyFindings()};
-	const records = audits.map((audit): RecordAudit => {
+	const codes = new Map<string, FindingCount>();
+	for (const audit of audits) {
 		if (audit.authentic) totals.authentic += 1;
 		else totals.integrityFailures += 1;
 		if (audit.consistency?.consistent) totals.consistent += 1;
 		if (audit.authentic && audit.findings.length > 0) totals.withFindings += 1;
-		for (const found of audit.findings) totals.findings[found.kind] += 1;
-		return {...audit, findings: audit.findings.map((found) => ({...found, text: describeProblem(found)}))};
-	});
+		for (const found of audit.findings) {
+			totals.findings[found.kind] += 1;
+			const known = codes.get(found.code);
+			if (known) known.count += 1;
+			else codes.set(found.code, {kind: found.kind, code: found.code, count: 1, example: describeProblem(found)});
+		}
+	}
+	const records = listing === 'all' ? audits.map((audit): RecordAudit => ({...audit, findings: audit.findings.map(reported)})) : [];
+	const withFindings = listing === 'all' ? [] : audits.filter((audit) => audit.findings.length > 0).map(listedWithFindings);
 	const status = totals.integrityFailures > 0 ? 'integrity_failure' : totals.withFindings > 0 ? 'authentic_with_findings' : 'authentic_and_consistent';
 	return {
 		tool: {name: 'prelase', version},
 		currentRules: {name: options.current.rules.name, file: options.current.file, sha256: options.current.sha256},
 		trust: {own: options.trust.own ?? null, trusted: options.trust.trusted.length},
+		listing,
 		records,
+		findingCodes: [...codes.values()].sort((a, b) => b.count - a.count || a.code.localeCompare(b.code)),
+		withFindings,
 		totals,
 		status,
 		exitCode: status === 'integrity_failure' ? 3 : status === 'authentic_with_findings' ? 1 : 0,
 	};
+}
+
+function listedWithFindings(audit: Judged): RecordWithFindings {
+	const what = audit.record ? {kind: 'bench-check' as const, createdAt: audit.record.createdAt, outcome: audit.record.outcome} : audit.interlockTest ? {kind: 'interlock-test' as const, createdAt: audit.interlockTest.createdAt, outcome: audit.interlockTest.outcome} : {kind: null, createdAt: null, outcome: null};
+	return {file: audit.file, authentic: audit.authentic, ...what, findings: audit.findings.map(reported)};
 }

@@ -42,7 +42,8 @@ export function buildRecordBody(input: {rules: CompiledRules; answers: Answers; 
 		operator,
 		setup: {name: setup, ...setupFingerprint(rules, answers)},
 		...(amends ? {amends} : {}),
-		rules: {name: rules.rules.name, file: displayPath(rules.file), sha256: rules.sha256, text: rules.text},
+		// The text itself is stored once in the records folder under its SHA-256 (records/rule-texts.ts).
+		rules: {name: rules.rules.name, file: displayPath(rules.file), sha256: rules.sha256},
 		...evaluated,
 		...(input.interlockTest ? {interlockTest: input.interlockTest} : {}),
 	};

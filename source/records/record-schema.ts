@@ -27,7 +27,8 @@ export const recordBodySchema = object({
 		operator: object({name: text.min(1), role: text}).strict(),
 		setup: object({name: text.nullable(), fingerprint: text.regex(/^sha256:[0-9a-f]{64}$/), identifying: array(text)}).strict(),
 		amends: object({record: text, bodySha256: text.regex(/^[0-9a-f]{64}$/), reason: text.min(1)}).strict().optional(),
-		rules: object({name: text, file: text, sha256: text.regex(/^[0-9a-f]{64}$/), text}).strict(),
+		/** The rule text is stored once in the records folder under its SHA-256 (rules/<sha256>.yaml); records made before that embed it as `text`. */
+		rules: object({name: text, file: text, sha256: text.regex(/^[0-9a-f]{64}$/), text: text.optional()}).strict(),
 		outcome: oneOf(['clear_to_energize', 'do_not_energize', 'incomplete']),
 		outcomeText: text,
 		counts: record(text, number()),

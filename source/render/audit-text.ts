@@ -19,7 +19,7 @@ export function inline(text: string, max = 160): string {
 	return flat.length > max ? `${flat.slice(0, max - 1)}…` : flat;
 }
 
-function count(n: number, noun: string): string {
+export function count(n: number, noun: string): string {
 	return `${n} ${noun}${n === 1 ? '' : 's'}`;
 }
 
@@ -158,13 +158,23 @@ export function auditText(report: AuditReport, paint: Paint, width = 100): strin
 	for (const audit of report.records) out.push(...recordText(audit, paint, width), '');
 	const {totals} = report;
 	if (totals.records > 1) out.push(...tableText(report), '');
+	out.push(totalsLine(report), ...resultLines(report, paint, width));
+	return out.join('\n');
+}
+
+/** The totals of an audit on one line. */
+export function totalsLine(report: AuditReport): string {
+	const {totals} = report;
 	const kinds = Object.entries(totals.findings).filter(([, count]) => count > 0).map(([kind, count]) => `${count} ${kind}`);
-	out.push(`Totals: ${count(totals.records, 'record')} · ${totals.authentic} authentic · ${count(totals.integrityFailures, 'integrity failure')} · ${totals.consistent} consistent · ${totals.withFindings} authentic with findings${kinds.length > 0 ? ` (findings: ${kinds.join(', ')})` : ''}`);
+	return `Totals: ${count(totals.records, 'record')} · ${totals.authentic} authentic · ${count(totals.integrityFailures, 'integrity failure')} · ${totals.consistent} consistent · ${totals.withFindings} authentic with findings${kinds.length > 0 ? ` (findings: ${kinds.join(', ')})` : ''}`;
+}
+
+/** The result of an audit in words, and the deferral to the laser safety officer. */
+export function resultLines(report: AuditReport, paint: Paint, width: number): string[] {
 	const result = {
 		integrity_failure: paint.fail('Result: INTEGRITY FAILURE — at least one record is altered, unsigned or unreadable; do not rely on it.'),
 		authentic_with_findings: paint.advise('Result: authentic, with findings — read each finding above.'),
 		authentic_and_consistent: paint.pass('Result: every record is authentic and its conclusions follow from its numbers.'),
 	}[report.status];
-	out.push(result, ...wrap(`The audit says whether records are authentic and whether their conclusions follow from their numbers. ${deferral}`, width, '  '));
-	return out.join('\n');
+	return [result, ...wrap(`The audit says whether records are authentic and whether their conclusions follow from their numbers. ${deferral}`, width, '  ')];
 }

@@ -131,7 +131,8 @@ export function signatureRow(record: AnyRecord, status: SignatureStatus | undefi
  */
 export function reportModel(record: BenchRecord, signatures: readonly SignatureStatus[], trust: TrustInfo): ReportModel {
 	const body = record.body;
-	const outline = ruleOutline(body.rules.text);
+	// A record whose stored rule text could not be found prints with ids instead of titles.
+	const outline = ruleOutline(body.rules.text ?? '');
 	const setupName = body.setup.name === null ? '(no setup name)' : clean(body.setup.name);
 	const outcomeText = outcomeWords[body.outcome];
 	const checks = body.checks.map(checkRow);

@@ -1,6 +1,7 @@
 import {basename, dirname} from 'node:path';
 import {buildRecordBody} from '../records/build-body.js';
 import {readRecord} from '../records/read-record.js';
+import {storeRuleText} from '../records/rule-texts.js';
 import {recordsFolder} from './records-folder.js';
 import type {InterlockLink} from '../interlock/functional-test/test-link.js';
 import type {Answers} from '../rules/evaluate/answers.js';
@@ -54,6 +55,8 @@ export function signAndWrite(rules: CompiledRules, answers: Answers, evaluation:
 	}
 	const role = stripControl(options.role ?? saved.value.role ?? '').trim();
 	const body = buildRecordBody({rules, answers, evaluation, operator: {name, role}, interlockTest, ...(amends ? {amends} : {})});
+	// The rule text goes in first, so that a record never names a text the folder lacks.
+	storeRuleText(folder, rules.text);
 	const stored = signAndStore(body, {name, role}, second, dirname(settingsFile(env)), folder);
 	if (!stored.ok) return stored;
 	return success({...stored.value, folder});

@@ -125,8 +125,8 @@ describe('integrity failures (exit 3)', () => {
 			code: 'audit-signature-invalid',
 		},
 		{
-			name: 'the embedded rule text changed',
-			make: () => JSON.stringify({...clean, body: {...clean.body, rules: {...clean.body.rules, text: clean.body.rules.text.replace('value: 3 s', 'value: 1 s')}}}),
+			name: 'a rule text put into the body (records name theirs by hash)',
+			make: () => JSON.stringify({...clean, body: {...clean.body, rules: {...clean.body.rules, text: shippedText}}}),
 			code: 'audit-signature-invalid',
 		},
 		{name: 'the signer renamed', make: () => JSON.stringify({...clean, signatures: [{...clean.signatures[0]!, signer: {name: 'Someone Else', role: 'test engineer'}}]}), code: 'audit-signature-invalid'},
@@ -224,8 +224,9 @@ describe('consistency: altered and signed again with a valid key (exit 1)', () =
 		expect(audited!.findings).toEqual([expect.objectContaining({code: 'audit-figure-mismatch', data: {id: 'emission_delay_long_enough', what: 'value', recorded: '4 s', computed: '3 s'}})]);
 	});
 
-	it('a stated rule hash that does not match the embedded text', () => {
+	it('a stated rule hash that does not match the embedded text (a record made before the store)', () => {
 		const record = resigned((body) => {
+			body.rules.text = shippedText;
 			body.rules.sha256 = '0'.repeat(64);
 		});
 		const [audited] = audit([writeRecordFile(record)]).records;

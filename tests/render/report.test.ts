@@ -31,7 +31,9 @@ function signed(body: RecordBody): {record: BenchRecord; signatures: SignatureSt
 	const record = signRecord(body, [{signer: {name: 'Test Person', role: 'test engineer', meaning: 'performed'}, key: operatorKey}], now);
 	const integrity = checkRecordText(JSON.stringify(record));
 	if (!integrity.ok || integrity.record.body.kind !== 'bench-check') throw new Error('test setup: the record must verify as a bench check');
-	return {record: {...integrity.record, body: integrity.record.body}, signatures: integrity.signatures};
+	// The report command attaches the rule text stored with the records, as a record made before the store carries it.
+	const read = integrity.record.body;
+	return {record: {...integrity.record, body: {...read, rules: {...read.rules, text: read.rules.text ?? rules.text}}}, signatures: integrity.signatures};
 }
 
 const ownTrust: TrustInfo = {own: operatorFingerprint, trusted: []};

@@ -4,6 +4,7 @@ import {formatProblem} from '../../shared/problems.js';
 import {auditRecords} from '../../audit/audit.js';
 import {listRecordFiles} from '../../audit/audit-files.js';
 import {auditText, inline} from '../../render/audit-text.js';
+import {auditSummaryLines} from '../../render/audit-summary-text.js';
 import {ownFingerprint, readTrusted} from '../../records/key-files.js';
 import {loadRules, shippedRulesPath} from '../../rules/load.js';
 import {openSettings} from '../../services/settings.js';
@@ -12,7 +13,22 @@ import {UsageError} from '../usage-error.js';
 import {commandHelp, helpOption, parseOptions, type Command, type Io} from '../command.js';
 
 /** Records audited before a progress line is worth showing. */
-const progressAbove = 50;
+const progressAbove = 1000;
+/** Records listed in full by default; a larger audit is summarised unless --all asks for every record. */
+const listAllUpTo = 20;
+
+/** Writes lines in chunks, so a long summary goes out as it is made instead of as one string. */
+function writeLines(io: Io, lines: Iterable<string>): void {
+	let chunk: string[] = [];
+	for (const line of lines) {
+		chunk.push(line);
+		if (chunk.length >= 2000) {
+			io.stdout.write(`${chunk.join('\n')}\n`);
+			chunk = [];
+		}
+	}
+	if (chunk.length > 0) io.stdout.write(`${chunk.join('\n')}\n`);
+}
 
 /** A progress line on stderr, redrawn at most ten times a second, cleared at the end. */
 function progress(io: Io): {update(done: number, total: number): void; end(): void} {
@@ -35,6 +51,7 @@ function progress(io: Io): {update(done: number, total: number): void; end(): vo
 const options = {
 	rules: {type: 'string', value: 'FILE', summary: 'The current rules (default: the rulesFile setting, else the shipped rules/default.yaml)'},
 	json: {type: 'boolean', summary: 'Print everything the audit found as JSON'},
+	all: {type: 'boolean', summary: `List every record in full (by default, more than ${listAllUpTo} records are summarised: totals, findings, then the records with findings)`},
 	help: helpOption,
 } as const;
 
@@ -60,38 +77,51 @@ export function runAudit(args: string[], io: Io): number {
 	const report = auditRecords(files, {
 		current: current.value,
 		trust: {own: ownFingerprint(settings.folder), trusted: readTrusted(settings.folder)},
+		listing: values.all || files.length <= listAllUpTo ? 'all' : 'summary',
 		...(bar ? {onProgress: bar.update} : {}),
 	});
 	bar?.end();
-	io.stdout.write(`${values.json ? terminalSafeJson(report) : auditText(report, paintFor(io.stdout, io.env), io.stdout.columns ?? 100)}\n`);
+	const paint = paintFor(io.stdout, io.env);
+	const width = io.stdout.columns ?? 100;
+	if (values.json) io.stdout.write(`${terminalSafeJson(report)}\n`);
+	else if (report.listing === 'summary') writeLines(io, auditSummaryLines(report, paint, width));
+	else io.stdout.write(`${auditText(report, paint, width)}\n`);
 	return report.exitCode;
 }
 
 export const auditCommand: Command = {
 	name: 'audit',
 	summary: 'Check signed records: authentic, consistent, and what the current rules change',
-	usage: 'prelase audit PATH... [--rules FILE] [--json]',
+	usage: 'prelase audit PATH... [--rules FILE] [--json] [--all]',
 	options,
 	help: {
 		intro: `prelase audit — check signed records
 
 Usage:
-  prelase audit PATH... [--rules FILE] [--json]
+  prelase audit PATH... [--rules FILE] [--json] [--all]
 
 PATH is a record file or a folder of records (searched recursively; dotfiles and *.tmp are
 left out). For each record the audit checks:
   integrity      it parses and every signature verifies over its body; who signed, in what
                  role and meaning, and whether each key is yours or one you trust
                  (prelase keys trust); an untrusted key is a finding
-  consistency    its inputs, re-evaluated under the rule file embedded in it, give every
+  consistency    its inputs, re-evaluated under the rule file it was made with, give every
                  recorded value, verdict and the outcome (a difference is a finding: the
                  record's conclusions do not follow from its numbers)
   current rules  what would change under the site's current rules: verdicts, the outcome,
                  inputs and confirmations the record lacks (a changed verdict is a finding)
   history        amendments and the records they correct, a later record for the same
                  setup fingerprint, a setup whose fingerprint changed since its last record
+  rule text      a record names the rule text it was made under by SHA-256; the text is
+                 stored once in the records folder (rules/<sha256>.yaml): a text missing,
+                 unreadable or not matching its hash is a finding
 Record age and interlock test dates are reported as not checked: rule files set no
-validity period or test interval yet.`,
+validity period or test interval yet.
+
+Up to ${listAllUpTo} records are listed in full. An audit of more than ${listAllUpTo} records is summarised:
+the totals, each kind of finding and how often it occurs, then each record with findings.
+--all lists every record in full (also in --json). A progress line is shown on a terminal
+when more than ${progressAbove} records are audited.`,
 		notes: `Exit status:
   0  every record is authentic and consistent, with no findings
   1  every record is authentic, with findings

@@ -4,6 +4,7 @@ import {parseArgs} from 'node:util';
 import {ownFingerprint, readTrusted} from '../../records/key-files.js';
 import {interlockReportHtml, interlockReportMarkdown} from '../../render/interlock-report.js';
 import {readRecord} from '../../records/read-record.js';
+import {findRuleText} from '../../records/rule-texts.js';
 import {reportHtml} from '../../render/report-html.js';
 import {reportMarkdown} from '../../render/report-markdown.js';
 import {openSettings} from '../../services/settings.js';
@@ -48,6 +49,11 @@ export function runReport(args: string[], io: Io): number {
 	const settings = openSettings(io.env);
 	const trust = {own: ownFingerprint(settings.folder), trusted: readTrusted(settings.folder)};
 	const {body} = integrity.record;
+	// A record names its rule text by hash; the page's step titles and labels come from the stored text.
+	if (body.kind === 'bench-check' && body.rules.text === undefined) {
+		const stored = findRuleText(path, body.rules.sha256);
+		if (stored.status === 'ok') body.rules = {...body.rules, text: stored.text};
+	}
 	const page =
 		body.kind === 'interlock-test'
 			? interlockWriters[format]({...integrity.record, body}, integrity.signatures, trust)

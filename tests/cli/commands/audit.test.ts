@@ -168,22 +168,77 @@ describe('prelase audit: folders', () => {
 		expect(stdout).toContain('Totals: 2 records · 1 authentic · 1 integrity failure · 1 consistent · 0 authentic with findings (findings: 1 integrity)');
 	});
 
-	it('shows a progress line on a terminal for more than 50 records, and clears it', async () => {
+	it('shows a progress line on a terminal for more than 1000 records, and clears it', async () => {
 		const records = join(folder, 'many');
 		mkdirSync(records, {recursive: true});
-		for (let index = 0; index < 51; index += 1) copyFileSync(cleanPath, join(records, `r${String(index).padStart(2, '0')}.json`));
+		for (let index = 0; index < 1001; index += 1) copyFileSync(cleanPath, join(records, `r${String(index).padStart(4, '0')}.json`));
 		const io = fakeIo({PRELASE_HOME: home});
 		const stderr = fakeStream();
 		(stderr as unknown as {isTTY: boolean}).isTTY = true;
 		const code = await main(['audit', records, '--json'], {...io, stderr});
-		// Fifty copies of one record: each earlier copy is superseded by the next.
+		// A thousand and one copies of one record: each earlier copy is superseded by the next.
 		expect(code).toBe(1);
-		expect(stderr.text).toContain('\rAuditing records: 51 of 51 (100 %)');
+		expect(stderr.text).toContain('\rAuditing records: 1001 of 1001 (100 %)');
 		expect(stderr.text.endsWith('\r\u001B[2K')).toBe(true);
-		expect((JSON.parse(io.stdout.text) as {totals: {records: number}}).totals.records).toBe(51);
+		expect((JSON.parse(io.stdout.text) as {totals: {records: number}}).totals.records).toBe(1001);
 		// Not a terminal: no progress line.
 		const piped = await run(['audit', records, '--json']);
 		expect(piped.stderr).toBe('');
+	});
+
+	it('shows no progress line on a terminal for 51 records (a short audit)', async () => {
+		const records = join(folder, 'fifty-one');
+		mkdirSync(records, {recursive: true});
+		for (let index = 0; index < 51; index += 1) copyFileSync(cleanPath, join(records, `r${String(index).padStart(2, '0')}.json`));
+		const stderr = fakeStream();
+		(stderr as unknown as {isTTY: boolean}).isTTY = true;
+		await main(['audit', records, '--json'], {...fakeIo({PRELASE_HOME: home}), stderr});
+		expect(stderr.text).toBe('');
+	});
+});
+
+describe('prelase audit: a large audit is summarised, --all lists every record', () => {
+	let records: string;
+	beforeAll(() => {
+		records = join(folder, 'twenty-one');
+		mkdirSync(records, {recursive: true});
+		for (let index = 0; index < 21; index += 1) copyFileSync(cleanPath, join(records, `r${String(index).padStart(2, '0')}.json`));
+	});
+
+	it('by default: totals, each finding code with its count, then only the records with findings, one short entry each', async () => {
+		const {code, stdout} = await run(['audit', records]);
+		expect(code).toBe(1);
+		expect(stdout).toContain('Summary of 21 records; prelase audit PATH --all lists every record in full');
+		expect(stdout).toContain('Totals: 21 records · 21 authentic · 0 integrity failures · 21 consistent · 20 authentic with findings (findings: 20 history)');
+		const flat = stdout.replaceAll(/\n {5,}/g, ' ');
+		expect(flat).toMatch(/\n {2}20 × \[history\] audit-superseded, the first: a later record for the same setup fingerprint supersedes this one: \S*r01\.json/);
+		expect(stdout).toContain('Records with findings: 20 of 21');
+		// The last copy supersedes the others and has no finding of its own: it is not listed.
+		expect(flat).toMatch(/\n {2}\S*r19\.json · clear to energize · 1 finding\n {4}! \[history\] a later record for the same setup fingerprint supersedes this one: \S*r20\.json/);
+		expect(stdout).not.toContain('r20.json · ');
+		expect(stdout).not.toContain('Integrity      ✓');
+		expect(stdout).toContain('Result: authentic, with findings');
+	});
+
+	it('--all lists every record in full with the table, as a small audit does', async () => {
+		const {code, stdout} = await run(['audit', records, '--all']);
+		expect(code).toBe(1);
+		expect(stdout.match(/\n {2}Integrity {6}✓ authentic/g)).toHaveLength(21);
+		expect(stdout).toMatch(/21\s+\S*r20\.json\s+\S+\s+clear to energize\s+authentic\s+yes\s+same\s+0/);
+		expect(stdout).not.toContain('Records with findings');
+	});
+
+	it('in JSON: the summary says so, lists the records with findings and counts the codes; --all gives every record', async () => {
+		const summary = JSON.parse((await run(['audit', records, '--json'])).stdout) as {listing: string; records: unknown[]; withFindings: Array<{file: string; findings: Array<{code: string}>}>; findingCodes: unknown[]};
+		expect(summary.listing).toBe('summary');
+		expect(summary.records).toEqual([]);
+		expect(summary.withFindings).toHaveLength(20);
+		expect(summary.withFindings[0]).toMatchObject({file: join(records, 'r00.json'), authentic: true, kind: 'bench-check', outcome: 'clear_to_energize', findings: [{code: 'audit-superseded'}]});
+		expect(summary.findingCodes).toEqual([{kind: 'history', code: 'audit-superseded', count: 20, example: expect.stringContaining('r01.json')}]);
+		const all = JSON.parse((await run(['audit', records, '--json', '--all'])).stdout) as {listing: string; records: unknown[]; withFindings: unknown[]};
+		expect(all.listing).toBe('all');
+		expect(all.records).toHaveLength(21);
+		expect(all.withFindings).toEqual([]);
 	});
 });
 
@@ -238,7 +293,7 @@ describe('prelase audit --json', () => {
 		const {code, stdout} = await run(['audit', cleanPath, '--json']);
 		expect(code).toBe(0);
 		const json = JSON.parse(stdout) as Record<string, any>;
-		expect(Object.keys(json)).toEqual(['tool', 'currentRules', 'trust', 'records', 'totals', 'status', 'exitCode']);
+		expect(Object.keys(json)).toEqual(['tool', 'currentRules', 'trust', 'listing', 'records', 'findingCodes', 'withFindings', 'totals', 'status', 'exitCode']);
 		expect(json['status']).toBe('authentic_and_consistent');
 		expect(json['exitCode']).toBe(0);
 		expect(json['currentRules']).toEqual({name: 'prelase bench policy (shipped default)', file: shippedRulesPath(), sha256: clean.body.rules.sha256});
@@ -273,6 +328,8 @@ describe('prelase audit --help', () => {
 		expect(code).toBe(0);
 		expect(stdout).toBe(`${helpTexts.audit}\n`);
 		expect(stdout).toContain('3  integrity failure');
+		expect(stdout).toMatch(/--all\s+List every record in full/);
+		expect(stdout).toContain('more than 20 records are summarised');
 		expect(helpTexts.main).toMatch(/\n {2}audit {4}Check signed records: authentic, consistent, and what the current rules change\n/);
 	});
 });

@@ -72,6 +72,25 @@ describe('prelase report: printing a signed record', () => {
 	});
 });
 
+describe('prelase report: the rule text stored with the records', () => {
+	it('gives the step titles from the text the record names by hash; without that file, the step ids', () => {
+		const body = (JSON.parse(recordText) as {body: {rules: {sha256: string; text?: string}}}).body;
+		expect(body.rules.text).toBeUndefined();
+		expect(run(signerHome, 'report', recordPath).stdout).toContain('## 2. Laser diode ratings');
+		const stored = join(folder, 'records', 'rules', `${body.rules.sha256}.yaml`);
+		const kept = readFileSync(stored, 'utf8');
+		rmSync(stored);
+		try {
+			const page = run(signerHome, 'report', recordPath);
+			expect(page.code).toBe(0);
+			expect(page.stdout).not.toContain('Laser diode ratings');
+			expect(page.stdout).toContain('## 1. driver');
+		} finally {
+			writeFileSync(stored, kept);
+		}
+	});
+});
+
 describe('prelase report --out', () => {
 	it.each([
 		{name: 'html from the extension', file: 'page.html', args: [], start: '<!doctype html>'},
