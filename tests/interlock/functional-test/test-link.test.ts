@@ -1,4 +1,4 @@
-import {copyFileSync, mkdtempSync, readFileSync, rmSync, writeFileSync} from 'node:fs';
+import {copyFileSync, mkdtempSync, readFileSync, renameSync, rmSync, writeFileSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {join} from 'node:path';
 import {afterEach, beforeEach, describe, expect, it} from 'vitest';
@@ -76,6 +76,15 @@ describe('the bench check and the interlock test record', () => {
 		expect(link.status).toBe('current');
 		expect(link.record).toMatchObject({file: expect.stringContaining('interlock-test-fenwick-hollow') as string, testedOn: '2026-11-30', outcome: 'passed', dueBy: '2027-05-29'});
 		expect(link.text).toContain(path.split('/').at(-1)!);
+	});
+
+	it('a test record renamed by hand is still found, by its content and kind', () => {
+		const path = store(testBody('2026-11-30'));
+		const renamed = join(folder, 'records', 'bench3-loop-check.json');
+		renameSync(path, renamed);
+		const link = interlockLink(planPath, rules, context(), bench3);
+		expect(link.status).toBe('current'); // tested 2026-11-30, due by 2027-05-29 (180 days, hand arithmetic below)
+		expect(link.record).toMatchObject({file: expect.stringContaining('bench3-loop-check.json') as string, testedOn: '2026-11-30'});
 	});
 
 	it.each([
