@@ -11,6 +11,7 @@ import {consistencyFindings} from './audit-consistency.js';
 import {describeFinding, finding, type Finding, type FindingKind} from '../records/findings.js';
 import {notChecked} from './audit-findings.js';
 import {relateRecords, type History, type HistoryEntry} from './audit-history.js';
+import {ChainAudit, chainEntry} from './audit-chain.js';
 import {KeyCache, readIntegrity} from '../records/integrity.js';
 import {interlockTestConsistency, interlockTestToday, summariseInterlockTest, type InterlockTestSummary} from './audit-interlock.js';
 import {linkInterlockTests} from './audit-interlock-link.js';
@@ -45,7 +46,7 @@ export type RecordAudit = {
 };
 
 /** How the records audited stand together; `exitCode` follows the command-line contract. */
-export type AuditTotals = {records: number; authentic: number; integrityFailures: number; consistent: number; withFindings: number; findings: Record<FindingKind, number>};
+export type AuditTotals = {records: number; authentic: number; integrityFailures: number; consistent: number; withFindings: number; findings: Record<FindingKind, number>; /** Authentic records made before the chain: a deletion among them cannot show. */ beforeChain: number};
 
 /** The whole audit. It says whether records are authentic and their conclusions follow, never that a setup is safe. */
 export type AuditReport = {
@@ -144,8 +145,10 @@ export function auditRecords(files: readonly string[], options: AuditOptions): A
 	const entries: HistoryEntry[] = [];
 	const entryOf: number[] = [];
 	const benchLocations = new Map<number, string | undefined>();
+	const chain = new ChainAudit(options.now ?? new Date());
 	files.forEach((file, index) => {
 		const checked = readIntegrity(file, keys);
+		const copyOf = chain.add(chainEntry(audits.length, file, checked));
 		const body = checked.record?.body;
 		const record = body?.kind === 'bench-check' ? summarise(body) : null;
 		const interlockTest = body?.kind === 'interlock-test' ? summariseInterlockTest(body) : null;
@@ -160,8 +163,11 @@ export function auditRecords(files: readonly string[], options: AuditOptions): A
 		} else {
 			const contents = auditContents(checked.record.body, rules, options.current);
 			benchLocations.set(audits.length, checked.record.body.inputs[locationInput]?.entered);
-			entryOf[entries.length] = audits.length;
-			entries.push(historyEntry(file, checked.bodySha256, checked.record.body));
+			// A byte-identical copy is the same record: it neither supersedes nor amends the original.
+			if (copyOf === undefined) {
+				entryOf[entries.length] = audits.length;
+				entries.push(historyEntry(file, checked.bodySha256, checked.record.body));
+			}
 			audits.push({
 				file,
 				authentic: true,
@@ -184,8 +190,9 @@ export function auditRecords(files: readonly string[], options: AuditOptions): A
 		audit.history = history;
 		audit.findings.push(...findings);
 	});
+	for (const {index, finding: found} of chain.findings()) audits[index]!.findings.push(found);
 
-	const totals: AuditTotals = {records: audits.length, authentic: 0, integrityFailures: 0, consistent: 0, withFindings: 0, findings: emptyFindings()};
+	const totals: AuditTotals = {records: audits.length, authentic: 0, integrityFailures: 0, consistent: 0, withFindings: 0, findings: emptyFindings(), beforeChain: chain.beforeChain()};
 	const records = audits.map((audit): RecordAudit => {
 		if (audit.authentic) totals.authentic += 1;
 		else totals.integrityFailures += 1;

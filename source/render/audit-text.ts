@@ -9,6 +9,7 @@ import {wrap} from '../shared/wrap.js';
 import type {AuditReport, RecordAudit} from '../audit/audit.js';
 import type {PolicyChange} from '../audit/audit-policy.js';
 import {shortFingerprint} from '../records/key-material.js';
+import {describeFinding} from '../records/findings.js';
 
 /**
  * Text from a record (or a file name) made safe for one line of a terminal: control and
@@ -160,6 +161,7 @@ export function auditText(report: AuditReport, paint: Paint, width = 100): strin
 	if (totals.records > 1) out.push(...tableText(report), '');
 	const kinds = Object.entries(totals.findings).filter(([, count]) => count > 0).map(([kind, count]) => `${count} ${kind}`);
 	out.push(`Totals: ${count(totals.records, 'record')} · ${totals.authentic} authentic · ${count(totals.integrityFailures, 'integrity failure')} · ${totals.consistent} consistent · ${totals.withFindings} authentic with findings${kinds.length > 0 ? ` (findings: ${kinds.join(', ')})` : ''}`);
+	if (totals.beforeChain > 0) out.push(describeFinding({code: 'audit-not-checked-chain', data: {count: totals.beforeChain}}));
 	const result = {
 		integrity_failure: paint.fail('Result: INTEGRITY FAILURE — at least one record is altered, unsigned or unreadable; do not rely on it.'),
 		authentic_with_findings: paint.advise('Result: authentic, with findings — read each finding above.'),
