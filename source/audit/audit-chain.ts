@@ -1,6 +1,8 @@
-import {basename, dirname} from 'node:path';
+import {existsSync} from 'node:fs';
+import {basename, dirname, join} from 'node:path';
 import {futureAllowanceMs, instantOf} from '../interlock/functional-test/test-choice.js';
 import {finding, type Finding} from '../records/findings.js';
+import {readHead} from '../records/chain.js';
 import type {IntegrityCheck} from '../records/integrity.js';
 import type {ChainLink} from '../records/record-schema.js';
 import {isoWithOffset} from '../shared/iso-time.js';
@@ -40,6 +42,9 @@ const instant = (createdAt: string) => {
 	return Number.isNaN(value) ? Number.POSITIVE_INFINITY : value;
 };
 
+/** The record files of one folder: the first of each SHA-256, and the file of each name. */
+type FolderFiles = {bySha: Map<string, ChainEntry>; byName: Map<string, ChainEntry>};
+
 /** The words for the others in a fork: "both" for one other record, "all" for more. */
 const forkWords = (others: readonly ChainEntry[]) => ({others: others.map((other) => basename(other.file)).join(', '), both: others.length === 1 ? 'both' : 'all'});
 
@@ -58,7 +63,7 @@ export class ChainAudit {
 	/** The first record file of each SHA-256, in any folder (a copy is a copy wherever it lies). */
 	readonly #bySha = new Map<string, ChainEntry>();
 	/** Per folder, the first record file of each SHA-256 and the file of each name. */
-	readonly #folders = new Map<string, {bySha: Map<string, ChainEntry>; byName: Map<string, ChainEntry>}>();
+	readonly #folders = new Map<string, FolderFiles>();
 
 	/** @param now The time of the audit: a record dated after it (beyond the allowance for a fast clock) is a finding. */
 	constructor(now: Date) {
@@ -132,6 +137,7 @@ export class ChainAudit {
 			else if (instant(createdAt) <= earliest) add(entry, finding('history', 'audit-chain-gap-at-start', {file: previous.file, sha256: previous.sha256}));
 			else add(entry, finding('history', 'audit-chain-missing', {file: previous.file, sha256: previous.sha256}));
 		}
+		this.#headFindings(folder, members, add);
 		for (const [named, fork] of byPrevious) {
 			if (fork.length < 2) continue;
 			for (const entry of fork) {
@@ -142,7 +148,26 @@ export class ChainAudit {
 		}
 	}
 
-	#folder(path: string) {
+	/**
+	 * The latest record of the key, which no later record names, checked against the head file
+	 * beside the records: it must be there with the bytes the head file names. A head that is not
+	 * among the files audited but is still in the folder is left alone (an audit of some records).
+	 */
+	#headFindings(folder: FolderFiles, members: readonly ChainEntry[], add: (entry: ChainEntry, found: Finding) => void): void {
+		const path = dirname(members[0]!.file);
+		const head = readHead(path, members[0]!.chained!.key);
+		if (!head || folder.bySha.has(head.sha256)) return;
+		const sameName = folder.byName.get(head.file);
+		if (sameName) {
+			add(sameName, finding('history', 'audit-chain-head-changed', {sha256: head.sha256, actual: sameName.fileSha256 ?? '(unreadable)'}));
+			return;
+		}
+		if (existsSync(join(path, head.file))) return;
+		const latest = [...members].sort((a, b) => instant(a.chained!.createdAt) - instant(b.chained!.createdAt)).at(-1)!;
+		add(latest, finding('history', 'audit-chain-head-missing', {file: head.file, sha256: head.sha256}));
+	}
+
+	#folder(path: string): FolderFiles {
 		let folder = this.#folders.get(path);
 		if (!folder) {
 			folder = {bySha: new Map(), byName: new Map()};

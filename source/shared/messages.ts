@@ -134,6 +134,8 @@ export const messages = {
 	'audit-dated-after-audit': 'the record is dated {{dated}}, after the time of the audit ({{now}}, allowing {{allowance}} for a fast clock): the clock of the machine that wrote it was wrong, or its date was set by hand',
 	'audit-duplicate': 'this file is a byte-identical copy of {{file}}: one record under two names',
 	'audit-interlock-record-missing': 'the record used the interlock test {{file}} (body SHA-256 {{bodySha256}}, {{recorded}}), which is not among the records audited: a deleted or withheld test record',
+	'audit-chain-head-missing': 'the chain\'s head file names {{file}} (SHA-256 {{sha256}}) as the latest record of this key here, and it is not in the folder: the latest record was deleted',
+	'audit-chain-head-changed': 'the chain\'s head file names this file (SHA-256 {{sha256}}) as the latest record of this key here, but the file now has SHA-256 {{actual}}: it was changed after it was written',
 	'audit-not-checked-chain': 'Records made before the chain: {{count}} (they name no previous record, so a deletion among them cannot show)',
 	'interlock-duplicate-id': 'the id "{{id}}" is already used by {{first}}; device and access point ids must be unique',
 	'interlock-loop-resistance': 'the loop resistance {{resistance}} is above {{allowed}} (the input reads up to {{threshold}} as closed, less the {{margin}} margin of the policy)',

@@ -65,39 +65,28 @@ describe('any single-byte change is caught, by the signature or by the chain', (
 		expect(caught()).toBe(false);
 	});
 
-	it('a change anywhere in a record that a later record follows (its bytes are named by the next link)', () => {
-		const change = fc.record({which: fc.constantFrom(0, 1), at: fc.nat(), value: fc.integer({min: 0, max: 255})});
+	it('a change anywhere in any record (a later record, or for the latest the head file, names its exact bytes)', () => {
+		const change = fc.record({which: fc.constantFrom(0, 1, 2), at: fc.nat(), value: fc.integer({min: 0, max: 255})});
 		fc.assert(
 			fc.property(change, ({which, at, value}) => {
 				const place = at % originals[which]!.length;
 				fc.pre(originals[which]![place] !== value);
 				return withByte(which, place, value, caught);
 			}),
-			{numRuns: 30},
+			{numRuns: 100},
 		);
 	});
 
-	it('a change inside the chain link of any record that changes what the link says (the signature covers the link)', () => {
+	it('a change inside the chain link of any record, whitespace included', () => {
 		const change = fc.record({which: fc.constantFrom(1, 2), at: fc.nat(), value: fc.integer({min: 0, max: 255})});
 		fc.assert(
 			fc.property(change, ({which, at, value}) => {
 				const {start, end} = linkSpan(originals[which]!);
 				const place = start + (at % (end - start));
-				const changed = Buffer.from(originals[which]!);
-				changed[place] = value;
-				// Whitespace between the link's names and values is not part of what it says.
-				fc.pre(!sameData(changed, originals[which]!));
+				fc.pre(originals[which]![place] !== value);
 				return withByte(which, place, value, caught);
 			}),
-			{numRuns: 30},
+			{numRuns: 100},
 		);
 	});
 });
-
-function sameData(a: Buffer, b: Buffer): boolean {
-	try {
-		return JSON.stringify(JSON.parse(a.toString('utf8'))) === JSON.stringify(JSON.parse(b.toString('utf8')));
-	} catch {
-		return false;
-	}
-}

@@ -132,6 +132,35 @@ describe('what the chain shows', () => {
 	});
 });
 
+describe('the latest record of a key, which no later record names', () => {
+	it('deleted: the head file beside the records still names it, so the record before it reports it', () => {
+		const [alex, folder] = [fresh('alex'), fresh('records')];
+		const [first, second] = [write(alex, folder, at(0)), write(alex, folder, at(1))];
+		const sha256 = sha256Of(second);
+		unlinkSync(second);
+		expect(chainFindings(audit(folder, alex))).toEqual({
+			[basename(first)]: [{code: 'audit-chain-head-missing', text: `the chain's head file names ${basename(second)} (SHA-256 ${sha256}) as the latest record of this key here, and it is not in the folder: the latest record was deleted`}],
+		});
+	});
+
+	it('reformatted (it still verifies, but its bytes differ from the ones the head file names)', () => {
+		const [alex, folder] = [fresh('alex'), fresh('records')];
+		const only = write(alex, folder, at(0));
+		const sha256 = sha256Of(only);
+		writeFileSync(only, JSON.stringify(JSON.parse(readFileSync(only, 'utf8'))));
+		expect(chainFindings(audit(folder, alex))).toEqual({
+			[basename(only)]: [{code: 'audit-chain-head-changed', text: `the chain's head file names this file (SHA-256 ${sha256}) as the latest record of this key here, but the file now has SHA-256 ${sha256Of(only)}: it was changed after it was written`}],
+		});
+	});
+
+	it('not among the files audited but still in the folder: no finding (an audit of some of the records)', () => {
+		const [alex, folder] = [fresh('alex'), fresh('records')];
+		const [first] = [write(alex, folder, at(0)), write(alex, folder, at(1))];
+		const report = auditRecords([first], {current: rules, trust: {own: ownFingerprint(alex), trusted: []}, now: auditNow});
+		expect(chainFindings(report)).toEqual({[basename(first)]: []});
+	});
+});
+
 describe('clock skew', () => {
 	it.each([
 		// the allowance is 5 minutes, as for interlock test records dated after now
