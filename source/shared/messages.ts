@@ -117,7 +117,6 @@ export const messages = {
 	'audit-test-outcome-mismatch': 'the record says the test {{recorded}}, but its steps and plan findings give {{computed}}',
 	'audit-not-checked-age': 'record age: not checked, the rule file sets no validity period for records',
 	'audit-not-checked-interlock': 'interlock test: not checked, the record names no interlock plan (the operator answered the loop-test confirmations)',
-	'audit-not-checked-interlock-record': 'interlock test: the record used {{file}} (body SHA-256 {{bodySha256}}), which is not among the records audited',
 	'audit-interlock-record-mismatch': 'the record says it used the interlock test {{file}} ({{recorded}}), but that test record says {{actual}}',
 	'audit-interlock-test-policy': 'the test passed under the policy it was recorded with, but would not pass under the current rules ({{rules}}): {{reasons}}; it answers no bench check until the loop is tested again',
 	'audit-record-from-future': 'the record is dated after the time of the audit ({{dated}}; audited {{now}}, allowing {{allowance}} for a fast clock): a wrong clock? such a test answers no bench check',
