@@ -87,6 +87,14 @@ describe('the bench check and the interlock test record', () => {
 		expect(link.record).toMatchObject({file: expect.stringContaining('bench3-loop-check.json') as string, testedOn: '2026-11-30'});
 	});
 
+	it('a test record with its names in another order is still found (only a file that starts as a bench check is passed over unread)', () => {
+		const path = store(testBody('2026-11-30'));
+		const record = JSON.parse(readFileSync(path, 'utf8')) as Record<string, unknown>;
+		// The signature covers the canonical form (RFC 8785 sorts names), so the order in the file does not matter to it.
+		writeFileSync(path, JSON.stringify({signatures: record['signatures'], body: record['body'], version: record['version'], format: record['format']}, null, 2));
+		expect(interlockLink(planPath, rules, context(), bench3).status).toBe('current');
+	});
+
 	it.each([
 		// the shipped interval is 180 days: tested 2026-06-01 is due again by 2026-11-28 (hand arithmetic above)
 		{name: 'on the last day of the interval', at: '2026-11-28T23:00:00', status: 'current'},
