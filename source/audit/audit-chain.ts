@@ -77,6 +77,8 @@ export class ChainAudit {
 		const sha = entry.fileSha256;
 		const original = sha === null ? undefined : this.#bySha.get(sha);
 		if (original) {
+			// Within its own folder a copy still has the bytes a link there may name.
+			if (!folder.bySha.has(sha!)) folder.bySha.set(sha!, entry);
 			this.#copies.push({entry, of: original});
 			return original.file;
 		}

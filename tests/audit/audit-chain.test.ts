@@ -161,6 +161,25 @@ describe('the latest record of a key, which no later record names', () => {
 	});
 });
 
+describe('a copy in another folder', () => {
+	it('is a duplicate, and still the predecessor that a record of its own folder names', () => {
+		const [alex, one, two] = [fresh('alex'), fresh('one'), fresh('two')];
+		const first = write(alex, one, at(0));
+		// The folder copied whole, head file and all, and the key goes on writing in the copy.
+		copyFileSync(first, join(two, basename(first)));
+		mkdirSync(join(two, '.prelase-chain'));
+		const head = `${ownFingerprint(alex)!.slice('sha256:'.length)}.json`;
+		copyFileSync(join(one, '.prelase-chain', head), join(two, '.prelase-chain', head));
+		const next = write(alex, two, at(1));
+		const report = auditRecords(listRecordFiles([one, two]).files, {current: rules, trust: {own: ownFingerprint(alex), trusted: []}, now: auditNow});
+		expect(report.records.map((record) => [record.file, record.findings.filter((found) => /^audit-(chain|duplicate)/.test(found.code)).map((found) => found.code)])).toEqual([
+			[first, []],
+			[join(two, basename(first)), ['audit-duplicate']],
+			[next, []],
+		]);
+	});
+});
+
 describe('clock skew', () => {
 	it.each([
 		// the allowance is 5 minutes, as for interlock test records dated after now
