@@ -122,8 +122,8 @@ export class ChainAudit {
 	/** The findings of one key's chained records in one folder. */
 	#chainFindings(members: readonly ChainEntry[], add: (entry: ChainEntry, found: Finding) => void): void {
 		const folder = this.#folder(dirname(members[0]!.file));
-		const earliest = Math.min(...members.map((entry) => instant(entry.chained!.createdAt)));
 		const byPrevious = new Map<string | null, ChainEntry[]>();
+		const missing: Array<{entry: ChainEntry; previous: NonNullable<ChainLink>}> = [];
 		for (const entry of members) {
 			const {previous, createdAt} = entry.chained!;
 			const named = previous?.sha256 ?? null;
@@ -136,8 +136,14 @@ export class ChainAudit {
 			if (found) continue;
 			const sameName = folder.byName.get(previous.file);
 			if (sameName) add(entry, finding('history', 'audit-chain-changed', {file: previous.file, sha256: previous.sha256, actual: sameName.fileSha256 ?? '(unreadable)'}));
-			else if (instant(createdAt) <= earliest) add(entry, finding('history', 'audit-chain-gap-at-start', {file: previous.file, sha256: previous.sha256}));
-			else add(entry, finding('history', 'audit-chain-missing', {file: previous.file, sha256: previous.sha256}));
+			else missing.push({entry, previous});
+		}
+		// The chain is cut where a named record is missing. When no record of the key here starts the
+		// chain (names none), the earliest cut is its start: the records before it are gone, or were not
+		// given to the audit. Every other cut has records of the key on both sides: a deleted record.
+		const start = byPrevious.has(null) ? undefined : [...missing].sort((a, b) => instant(a.entry.chained!.createdAt) - instant(b.entry.chained!.createdAt) || a.entry.file.localeCompare(b.entry.file))[0];
+		for (const cut of missing) {
+			add(cut.entry, finding('history', cut === start ? 'audit-chain-gap-at-start' : 'audit-chain-missing', {file: cut.previous.file, sha256: cut.previous.sha256}));
 		}
 		this.#headFindings(folder, members, add);
 		for (const [named, fork] of byPrevious) {
@@ -165,7 +171,10 @@ export class ChainAudit {
 			return;
 		}
 		if (existsSync(join(path, head.file))) return;
-		const latest = [...members].sort((a, b) => instant(a.chained!.createdAt) - instant(b.chained!.createdAt)).at(-1)!;
+		// The record the deleted one followed: of the records no other names, the latest.
+		const named = new Set(members.map((entry) => entry.chained!.previous?.sha256));
+		const tips = members.filter((entry) => entry.fileSha256 === null || !named.has(entry.fileSha256));
+		const latest = [...(tips.length > 0 ? tips : members)].sort((a, b) => instant(a.chained!.createdAt) - instant(b.chained!.createdAt) || a.file.localeCompare(b.file)).at(-1)!;
 		add(latest, finding('history', 'audit-chain-head-missing', {file: head.file, sha256: head.sha256}));
 	}
 

@@ -72,9 +72,12 @@ describe('a whole chain', () => {
 });
 
 describe('what the chain shows', () => {
-	it('a record deleted from the middle: the next one names it, "a deleted record"', () => {
+	it.each([
+		{name: 'a minute apart', minutes: [0, 1, 2]},
+		{name: 'all in the same second (the dates cannot order them; the chain does)', minutes: [0, 0, 0]},
+	])('a record deleted from the middle, $name: the next one names it, "a deleted record"', ({minutes}) => {
 		const [alex, folder] = [fresh('alex'), fresh('records')];
-		const [, second, third] = [write(alex, folder, at(0)), write(alex, folder, at(1)), write(alex, folder, at(2))];
+		const [, second, third] = minutes.map((minute) => write(alex, folder, at(minute))) as [string, string, string];
 		const sha256 = sha256Of(second);
 		unlinkSync(second);
 		expect(chainFindings(audit(folder, alex))[basename(third)]).toEqual([

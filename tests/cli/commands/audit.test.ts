@@ -1,4 +1,4 @@
-import {copyFileSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync} from 'node:fs';
+import {copyFileSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {join, resolve} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
@@ -274,5 +274,27 @@ describe('prelase audit --help', () => {
 		expect(stdout).toBe(`${helpTexts.audit}\n`);
 		expect(stdout).toContain('3  integrity failure');
 		expect(helpTexts.main).toMatch(/\n {2}audit {4}Check signed records: authentic, consistent, and what the current rules change\n/);
+	});
+});
+
+describe('the chain, through the command', () => {
+	it('a record deleted from a folder of three: exit 1, the next record names it; --json counts no record before the chain', async () => {
+		const records = join(folder, 'chain-three');
+		const written: string[] = [];
+		for (let index = 0; index < 3; index += 1) {
+			const {code} = await run(['check', '--answers', clearDemo, '--sign', 'Test Person', '--role', 'test engineer', '--records', records]);
+			expect(code).toBe(0);
+			// The new file of the folder (the printed path may be wrapped).
+			written.push(join(records, readdirSync(records).find((name) => name.endsWith('.json') && !written.includes(join(records, name)))!));
+		}
+		const gone = written[1]!.slice(records.length + 1);
+		rmSync(written[1]!);
+		const text = await run(['audit', records]);
+		expect(text.code).toBe(1);
+		expect(text.stdout).toContain(`[history] the record names ${gone} (SHA-256 `);
+		expect(text.stdout).toContain('no record here has those bytes: a deleted record');
+		const json = JSON.parse((await run(['audit', records, '--json'])).stdout) as {totals: {beforeChain: number}; records: Array<{file: string; findings: Array<{code: string}>}>};
+		expect(json.totals.beforeChain).toBe(0); // every record here was written with the chain
+		expect(json.records.find((record) => record.file === written[2])!.findings.map((found) => found.code)).toContain('audit-chain-missing');
 	});
 });
