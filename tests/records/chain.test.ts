@@ -6,6 +6,8 @@ import {spawn} from 'node:child_process';
 import {resolve} from 'node:path';
 import {build} from 'esbuild';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
+import {auditRecords} from '../../source/audit/audit.js';
+import {listRecordFiles} from '../../source/audit/audit-files.js';
 import {buildRecordBody} from '../../source/records/build-body.js';
 import {ownFingerprint} from '../../source/records/key-files.js';
 import {evaluate} from '../../source/rules/evaluate/evaluate.js';
@@ -108,6 +110,8 @@ import {readFileSync, writeSync} from 'node:fs';
 import {signAndStore} from './source/services/sign-and-store.js';
 const [home, folder, bodyFile] = process.argv.slice(2);
 const body = JSON.parse(readFileSync(bodyFile, 'utf8'));
+// Each process's check differs, as two real checks would (the same body twice would be one record, a duplicate).
+body.operator.role = 'bench operator ' + process.pid;
 writeSync(1, 'ready\\n');
 process.stdin.once('data', () => {
 	const stored = signAndStore(body, {name: 'Dana Whitlow', role: 'bench operator'}, undefined, home, folder);
@@ -163,5 +167,11 @@ describe('8 processes of one key writing at the same moment', () => {
 		const index = JSON.parse(readFileSync(join(chainFolder, readdirSync(chainFolder)[0]!), 'utf8')) as {head: {file: string}};
 		expect(written.map((path) => basename(path))).toContain(index.head.file);
 		expect(existsSync(join(folder, index.head.file))).toBe(true);
+
+		// The audit reports every record that shares its predecessor with another as a fork, and no other chain finding.
+		const report = auditRecords(listRecordFiles([folder]).files, {current: rules, trust: {own: ownFingerprint(alex), trusted: []}});
+		const sharing = written.filter((path) => written.some((other) => other !== path && JSON.stringify(previousOf(other)) === JSON.stringify(previousOf(path))));
+		const chainCodes = (path: string) => report.records.find((record) => record.file === path)!.findings.filter((found) => found.code.startsWith('audit-chain')).map((found) => found.code);
+		for (const path of [first, ...written]) expect(chainCodes(path)).toEqual(sharing.includes(path) ? ['audit-chain-fork'] : []);
 	});
 });
