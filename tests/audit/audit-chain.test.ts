@@ -4,6 +4,7 @@ import {tmpdir} from 'node:os';
 import {basename, join} from 'node:path';
 import {afterAll, describe, expect, it} from 'vitest';
 import {auditRecords, type AuditReport} from '../../source/audit/audit.js';
+import {ChainAudit} from '../../source/audit/audit-chain.js';
 import {listRecordFiles} from '../../source/audit/audit-files.js';
 import {buildRecordBody} from '../../source/records/build-body.js';
 import {ownFingerprint} from '../../source/records/key-files.js';
@@ -214,7 +215,8 @@ describe('records made before the chain', () => {
 		const key = operatorPrivateKey(alex);
 		for (const minute of [1, 2]) {
 			const old = signRecord(body(at(minute)), [{signer: {name: 'Dana Whitlow', role: 'bench operator', meaning: 'performed'}, key}], at(minute));
-			writeFileSync(join(folder, `old-${minute}.json`), `${JSON.stringify(old, null, 2)}\n`);
+			// Written as a format version 1 record (no chain field), as prelase wrote before the chain.
+			writeFileSync(join(folder, `old-${minute}.json`), `${JSON.stringify({...old, version: 1}, null, 2)}\n`);
 		}
 		const chained = write(alex, folder, at(3));
 		const report = audit(folder, alex);
@@ -235,5 +237,25 @@ describe('a record that refers to a record it cannot find', () => {
 		expect(chainFindings(audit(folder, alex))[basename(path)]).toEqual([
 			{code: 'audit-interlock-record-missing', text: `the record used the interlock test gone.json (body SHA-256 ${'b'.repeat(64)}, tested 2026-03-01, passed), which is not among the records audited: a deleted or withheld test record`},
 		]);
+	});
+});
+
+describe('the accumulator on its own (the shape a streaming audit feeds)', () => {
+	const entry = (index: number, version: number, previous: {file: string; sha256: string} | null | undefined) => ({
+		index,
+		file: `/records/r${index}.json`,
+		fileSha256: String(index).repeat(64),
+		chained: {key: `sha256:${'c'.repeat(64)}`, previous, createdAt: '2026-03-04T09:00:00+00:00', kind: 'bench-check' as const, version},
+	});
+
+	it.each([
+		{name: 'a version 1 record without the link: made before the chain, no finding', version: 1, codes: [], before: 1},
+		{name: 'a later version without the link: a finding', version: 2, codes: ['audit-chain-link-missing'], before: 1},
+		{name: 'a later version that starts the chain: no finding', version: 2, previous: null, codes: [], before: 0},
+	])('$name', ({version, previous, codes, before}) => {
+		const chain = new ChainAudit(auditNow);
+		expect(chain.add(entry(0, version, previous))).toBeUndefined();
+		expect(chain.findings().map(({finding}) => finding.code)).toEqual(codes);
+		expect(chain.beforeChain()).toBe(before);
 	});
 });
