@@ -129,7 +129,8 @@ export class ChainAudit {
 			const named = previous?.sha256 ?? null;
 			byPrevious.set(named, [...(byPrevious.get(named) ?? []), entry]);
 			if (!previous) continue;
-			const found = folder.bySha.get(previous.sha256);
+			// Found by its bytes anywhere in the audit: a record moved into an archive subfolder is not gone.
+			const found = folder.bySha.get(previous.sha256) ?? this.#bySha.get(previous.sha256);
 			if (found?.chained && instant(createdAt) < instant(found.chained.createdAt)) {
 				add(entry, finding('history', 'audit-chain-clock-backwards', {dated: createdAt, file: previous.file, previousDated: found.chained.createdAt}));
 			}
@@ -164,7 +165,7 @@ export class ChainAudit {
 	#headFindings(folder: FolderFiles, members: readonly ChainEntry[], add: (entry: ChainEntry, found: Finding) => void): void {
 		const path = dirname(members[0]!.file);
 		const head = readHead(path, members[0]!.chained!.key);
-		if (!head || folder.bySha.has(head.sha256)) return;
+		if (!head || folder.bySha.has(head.sha256) || this.#bySha.has(head.sha256)) return;
 		const sameName = folder.byName.get(head.file);
 		if (sameName) {
 			add(sameName, finding('history', 'audit-chain-head-changed', {sha256: head.sha256, actual: sameName.fileSha256 ?? '(unreadable)'}));

@@ -1,4 +1,4 @@
-import {copyFileSync, mkdirSync, mkdtempSync, readFileSync, rmSync, unlinkSync, writeFileSync} from 'node:fs';
+import {copyFileSync, mkdirSync, mkdtempSync, readFileSync, renameSync, rmSync, unlinkSync, writeFileSync} from 'node:fs';
 import {createHash} from 'node:crypto';
 import {tmpdir} from 'node:os';
 import {basename, join} from 'node:path';
@@ -181,6 +181,16 @@ describe('a copy in another folder', () => {
 			[join(two, basename(first)), ['audit-duplicate']],
 			[next, []],
 		]);
+	});
+});
+
+describe('a record moved into a subfolder of the records folder audited', () => {
+	it('is still found by its bytes: no chain finding', () => {
+		const [alex, folder] = [fresh('alex'), fresh('records')];
+		const [first, second, third] = [write(alex, folder, at(0)), write(alex, folder, at(1)), write(alex, folder, at(2))];
+		mkdirSync(join(folder, 'archive'));
+		for (const path of [first, second]) renameSync(path, join(folder, 'archive', basename(path)));
+		expect(chainFindings(audit(folder, alex))).toEqual({[basename(first)]: [], [basename(second)]: [], [basename(third)]: []});
 	});
 });
 
