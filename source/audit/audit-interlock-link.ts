@@ -33,7 +33,7 @@ export function linkInterlockTests(audits: Audited[], benchLocations: ReadonlyMa
 		const data = {file: used.file, bodySha256: used.bodySha256, recorded: testWords(used.testedOn, used.outcome)};
 		const found = tests.get(used.bodySha256);
 		if (!found) {
-			audit.notChecked.push({item: 'interlock-test', text: describeProblem({code: 'audit-not-checked-interlock-record', data})});
+			audit.findings.push(finding('history', 'audit-interlock-record-missing', data));
 			return;
 		}
 		const test = found.interlockTest!;

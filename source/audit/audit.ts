@@ -16,6 +16,7 @@ import type {Finding, FindingKind} from '../records/findings.js';
 import {describeProblem} from '../shared/problems.js';
 import {notChecked} from './audit-findings.js';
 import {relateRecords, type History, type HistoryEntry} from './audit-history.js';
+import {ChainAudit, chainEntry} from './audit-chain.js';
 import {KeyCache, readIntegrity} from '../records/integrity.js';
 import {interlockTestConsistency, interlockTestToday, summariseInterlockTest, type InterlockTestSummary} from './audit-interlock.js';
 import {linkInterlockTests} from './audit-interlock-link.js';
@@ -51,7 +52,7 @@ export type RecordAudit = {
 };
 
 /** How the records audited stand together; `exitCode` follows the command-line contract. */
-export type AuditTotals = {records: number; authentic: number; integrityFailures: number; consistent: number; withFindings: number; findings: Record<FindingKind, number>};
+export type AuditTotals = {records: number; authentic: number; integrityFailures: number; consistent: number; withFindings: number; findings: Record<FindingKind, number>; /** Authentic records made before the chain: a deletion among them cannot show. */ beforeChain: number};
 
 /** How often a finding occurs in the audit. */
 export type FindingCount = {kind: FindingKind; code: Finding['code']; count: number; example: string};
@@ -127,7 +128,7 @@ type Judged = Omit<RecordAudit, 'findings'> & {findings: Finding[]};
 type RunContext = {keys: KeyCache; rules: RuleTexts; options: AuditOptions; now: Date; notChecked: ReadonlyArray<{item: string; text: string}>};
 
 /** What one record leaves for the end of the run: its audit, and for a bench check what relates it to the others. */
-type Judgement = {audit: Judged; bench?: {entry: HistoryEntry; location: string | undefined}};
+type Judgement = {audit: Judged; bench?: {entry: HistoryEntry; location: string | undefined}; /** The earlier file this one is a byte-identical copy of. */ copyOf?: string};
 
 /**
  * PER-RECORD HOOK. Reads one file, checks its integrity and judges it: trust, consistency
@@ -135,9 +136,10 @@ type Judgement = {audit: Judged; bench?: {entry: HistoryEntry; location: string 
  * on its own is added here. Only this record's data is in hand; the file's text and parsed
  * body are dropped when it returns.
  */
-function judgeRecord(file: string, context: RunContext): Judgement {
+function judgeRecord(file: string, index: number, chain: ChainAudit, context: RunContext): Judgement {
 	const {keys, rules, options} = context;
 	const checked = readIntegrity(file, keys);
+	const copyOf = chain.add(chainEntry(index, file, checked));
 	const body = checked.record?.body;
 	const record = body?.kind === 'bench-check' ? summarise(body) : null;
 	const interlockTest = body?.kind === 'interlock-test' ? summariseInterlockTest(body) : null;
@@ -167,6 +169,7 @@ function judgeRecord(file: string, context: RunContext): Judgement {
 			findings: [...trust.findings, ...contents.findings],
 		},
 		bench: {entry: historyEntry(file, checked.bodySha256, checked.record.body), location: checked.record.body.inputs[locationInput]?.entered},
+		...(copyOf === undefined ? {} : {copyOf}),
 	};
 }
 
@@ -240,19 +243,24 @@ export function auditRecords(files: readonly string[], options: AuditOptions): A
 	const entries: HistoryEntry[] = [];
 	const entryOf: number[] = [];
 	const benchLocations = new Map<number, string | undefined>();
+	const chain = new ChainAudit(context.now);
 	files.forEach((file, index) => {
-		const {audit, bench} = judgeRecord(file, context);
+		const {audit, bench, copyOf} = judgeRecord(file, audits.length, chain, context);
 		if (bench) {
 			benchLocations.set(audits.length, listing === 'all' ? bench.location : (keep.nullable(bench.location) ?? undefined));
-			entryOf[entries.length] = audits.length;
-			entries.push(listing === 'all' ? bench.entry : slimEntry(bench.entry, keep));
+			// A byte-identical copy is the same record: it neither supersedes nor amends the original.
+			if (copyOf === undefined) {
+				entryOf[entries.length] = audits.length;
+				entries.push(listing === 'all' ? bench.entry : slimEntry(bench.entry, keep));
+			}
 		}
 		audits.push(listing === 'all' ? audit : slim(audit, keep));
 		options.onProgress?.(index + 1, files.length);
 	});
 	endOfRun(audits, entries, entryOf, benchLocations);
+	for (const {index, finding: found} of chain.findings()) audits[index]!.findings.push(found);
 
-	const totals: AuditTotals = {records: audits.length, authentic: 0, integrityFailures: 0, consistent: 0, withFindings: 0, findings: emptyFindings()};
+	const totals: AuditTotals = {records: audits.length, authentic: 0, integrityFailures: 0, consistent: 0, withFindings: 0, findings: emptyFindings(), beforeChain: chain.beforeChain()};
 	const codes = new Map<string, FindingCount>();
 	for (const audit of audits) {
 		if (audit.authentic) totals.authentic += 1;

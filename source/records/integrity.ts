@@ -12,9 +12,10 @@ import {verifyBytes} from './sign.js';
 export type SignatureCheck = {index: number; valid: boolean; code?: Finding['code']; what?: string};
 
 /** A record that passed integrity checking, with the SHA-256 of its canonical body; or why it did not. */
-export type IntegrityCheck =
+export type IntegrityCheck = (
 	| {ok: true; record: AnyRecord; bodySha256: string; signatures: SignatureCheck[]}
-	| {ok: false; finding: Finding; record?: AnyRecord; signatures?: SignatureCheck[]};
+	| {ok: false; finding: Finding; record?: AnyRecord; signatures?: SignatureCheck[]}
+) & {/** SHA-256 of the file's exact bytes, when read from a file: how the chain names a record. */ fileSha256?: string};
 
 /**
  * Public keys parsed once each, by their base64 text: a folder of records is signed by a
@@ -41,13 +42,13 @@ export class KeyCache {
 
 /** Reads a record file and checks its integrity (see checkIntegrity). */
 export function readIntegrity(path: string, keys: KeyCache): IntegrityCheck {
-	let text: string;
+	let bytes: Buffer;
 	try {
-		text = readFileSync(path, 'utf8');
+		bytes = readFileSync(path);
 	} catch (error) {
 		return {ok: false, finding: finding('integrity', 'audit-unreadable', {reason: (error as NodeJS.ErrnoException).code ?? (error as Error).message})};
 	}
-	return checkIntegrity(text, keys);
+	return {...checkIntegrity(bytes.toString('utf8'), keys), fileSha256: sha256Hex(bytes)};
 }
 
 /**

@@ -6,6 +6,11 @@ const text = string();
 const shown = object({si: number(), unit: string(), text: string()}).strict();
 const sha256Hex = text.regex(/^[0-9a-f]{64}$/);
 const person = object({name: text.min(1), role: text}).strict();
+/**
+ * The previous record the same key wrote to the same records folder: its file name and the SHA-256
+ * of its exact bytes; null in a key's first record there. Missing in records made before the chain.
+ */
+export const chainLinkSchema = object({file: text.min(1), sha256: sha256Hex}).strict().nullable();
 
 /** Who signed, when, what the signature means, with the key that made it. */
 export const signatureSchema = object({
@@ -26,6 +31,7 @@ export const recordBodySchema = object({
 		createdAt: text,
 		operator: object({name: text.min(1), role: text}).strict(),
 		setup: object({name: text.nullable(), fingerprint: text.regex(/^sha256:[0-9a-f]{64}$/), identifying: array(text)}).strict(),
+		previous: chainLinkSchema.optional(),
 		amends: object({record: text, bodySha256: text.regex(/^[0-9a-f]{64}$/), reason: text.min(1)}).strict().optional(),
 		/** The rule text is stored once in the records folder under its SHA-256 (rules/<sha256>.yaml); records made before that embed it as `text`. */
 		rules: object({name: text, file: text, sha256: text.regex(/^[0-9a-f]{64}$/), text: text.optional()}).strict(),
@@ -85,6 +91,7 @@ export const interlockTestBodySchema = object({
 		kind: literal('interlock-test'),
 		tool: object({name: literal('prelase'), version: text}).strict(),
 		createdAt: text,
+		previous: chainLinkSchema.optional(),
 		testedOn: text.regex(/^\d{4}-\d{2}-\d{2}$/),
 		tester: person,
 		witness: person.optional(),
@@ -141,6 +148,8 @@ export type RecordBody = z.infer<typeof recordBodySchema>;
 export type Signature = z.infer<typeof signatureSchema>;
 export type BenchRecord = z.infer<typeof recordSchema>;
 export type InterlockTestBody = z.infer<typeof interlockTestBodySchema>;
+/** A record's link to the previous record of its key in its folder (null: the first). */
+export type ChainLink = z.infer<typeof chainLinkSchema>;
 export type InterlockTestRecord = z.infer<typeof interlockTestRecordSchema>;
 /** Any record prelase writes. */
 export type AnyRecord = BenchRecord | InterlockTestRecord;

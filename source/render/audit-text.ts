@@ -9,6 +9,7 @@ import {wrap} from '../shared/wrap.js';
 import type {AuditReport, RecordAudit} from '../audit/audit.js';
 import type {PolicyChange} from '../audit/audit-policy.js';
 import {shortFingerprint} from '../records/key-material.js';
+import {describeProblem} from '../shared/problems.js';
 
 /**
  * Text from a record (or a file name) made safe for one line of a terminal: control and
@@ -166,7 +167,9 @@ export function auditText(report: AuditReport, paint: Paint, width = 100): strin
 export function totalsLine(report: AuditReport): string {
 	const {totals} = report;
 	const kinds = Object.entries(totals.findings).filter(([, count]) => count > 0).map(([kind, count]) => `${count} ${kind}`);
-	return `Totals: ${count(totals.records, 'record')} · ${totals.authentic} authentic · ${count(totals.integrityFailures, 'integrity failure')} · ${totals.consistent} consistent · ${totals.withFindings} authentic with findings${kinds.length > 0 ? ` (findings: ${kinds.join(', ')})` : ''}`;
+	const line = `Totals: ${count(totals.records, 'record')} · ${totals.authentic} authentic · ${count(totals.integrityFailures, 'integrity failure')} · ${totals.consistent} consistent · ${totals.withFindings} authentic with findings${kinds.length > 0 ? ` (findings: ${kinds.join(', ')})` : ''}`;
+	// Records from before the chain cannot show a deletion: said under the totals, once.
+	return totals.beforeChain > 0 ? `${line}\n${describeProblem({code: 'audit-not-checked-chain', data: {count: totals.beforeChain}})}` : line;
 }
 
 /** The result of an audit in words, and the deferral to the laser safety officer. */

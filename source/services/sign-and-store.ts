@@ -1,3 +1,4 @@
+import {previousRecord, rememberRecord} from '../records/chain.js';
 import {keyFromFile, operatorKey} from '../records/key-files.js';
 import {fingerprint, rawPublicKey, shortFingerprint} from '../records/key-material.js';
 import type {AnyRecord, InterlockTestBody, RecordBody} from '../records/record-schema.js';
@@ -32,7 +33,11 @@ export function signAndStore<Body extends RecordBody | InterlockTestBody>(body: 
 		if (fingerprint(rawPublicKey(key.value)) === fingerprint(rawPublicKey(privateKey))) return failure([second.ownKey]);
 		signers.push({signer: {name: clean(second.name), role: clean(second.role), meaning: second.meaning}, key: key.value});
 	}
+	// The chain: the body names the key's previous record in this folder before anyone signs it.
+	const key = fingerprint(rawPublicKey(privateKey));
 	// A record of either kind of body is a record: TypeScript cannot see that through the type parameter.
-	const path = writeRecord(folder, signRecord(body, signers, now) as AnyRecord);
-	return success({path, fingerprint: shortFingerprint(fingerprint(rawPublicKey(privateKey))), keyCreated: created});
+	const chained: Body = {...body, previous: previousRecord(folder, key)};
+	const path = writeRecord(folder, signRecord(chained, signers, now) as AnyRecord);
+	rememberRecord(folder, key, path);
+	return success({path, fingerprint: shortFingerprint(key), keyCreated: created});
 }

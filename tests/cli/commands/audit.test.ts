@@ -1,4 +1,5 @@
-import {copyFileSync, mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync} from 'node:fs';
+import {createHash} from 'node:crypto';
+import {copyFileSync, mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {join, resolve} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
@@ -202,7 +203,15 @@ describe('prelase audit: a large audit is summarised, --all lists every record',
 	beforeAll(() => {
 		records = join(folder, 'twenty-one');
 		mkdirSync(records, {recursive: true});
-		for (let index = 0; index < 21; index += 1) copyFileSync(cleanPath, join(records, `r${String(index).padStart(2, '0')}.json`));
+		// 21 checks of one setup by one key, each naming the one before it (a chain, as prelase writes them).
+		let previous: {file: string; sha256: string} | null = null;
+		for (let index = 0; index < 21; index += 1) {
+			const file = `r${String(index).padStart(2, '0')}.json`;
+			const record: BenchRecord = signRecord({...clean.body, previous}, [{signer: {name: 'Test Person', role: 'test engineer', meaning: 'performed'}, key: operatorPrivateKey(home)}]);
+			const text: string = `${JSON.stringify(record, null, 2)}\n`;
+			writeFileSync(join(records, file), text);
+			previous = {file, sha256: createHash('sha256').update(text).digest('hex')};
+		}
 	});
 
 	it('by default: totals, each finding code with its count, then only the records with findings, one short entry each', async () => {
@@ -331,5 +340,27 @@ describe('prelase audit --help', () => {
 		expect(stdout).toMatch(/--all\s+List every record in full/);
 		expect(stdout).toContain('more than 20 records are summarised');
 		expect(helpTexts.main).toMatch(/\n {2}audit {4}Check signed records: authentic, consistent, and what the current rules change\n/);
+	});
+});
+
+describe('the chain, through the command', () => {
+	it('a record deleted from a folder of three: exit 1, the next record names it; --json counts no record before the chain', async () => {
+		const records = join(folder, 'chain-three');
+		const written: string[] = [];
+		for (let index = 0; index < 3; index += 1) {
+			const {code} = await run(['check', '--answers', clearDemo, '--sign', 'Test Person', '--role', 'test engineer', '--records', records]);
+			expect(code).toBe(0);
+			// The new file of the folder (the printed path may be wrapped).
+			written.push(join(records, readdirSync(records).find((name) => name.endsWith('.json') && !written.includes(join(records, name)))!));
+		}
+		const gone = written[1]!.slice(records.length + 1);
+		rmSync(written[1]!);
+		const text = await run(['audit', records]);
+		expect(text.code).toBe(1);
+		expect(text.stdout).toContain(`[history] the record names ${gone} (SHA-256 `);
+		expect(text.stdout).toContain('no record here has those bytes: a deleted record');
+		const json = JSON.parse((await run(['audit', records, '--json'])).stdout) as {totals: {beforeChain: number}; records: Array<{file: string; findings: Array<{code: string}>}>};
+		expect(json.totals.beforeChain).toBe(0); // every record here was written with the chain
+		expect(json.records.find((record) => record.file === written[2])!.findings.map((found) => found.code)).toContain('audit-chain-missing');
 	});
 });

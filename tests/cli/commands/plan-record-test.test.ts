@@ -67,7 +67,7 @@ describe('prelase plan FILE --record-test RESULTS', () => {
 		expect(stdout).toContain('laser safety officer');
 		const {path, record} = writtenRecord(stdout);
 		expect(dirname(path)).toBe(records);
-		expect(readdirSync(records)).toEqual([basename(path)]);
+		expect(readdirSync(records)).toEqual(['.prelase-chain', basename(path)]); // the record, and the chain's head file beside it
 		expect(basename(path)).toMatch(/^\d{4}-\d{2}-\d{2}-\d{6}-interlock-test-fenwick-hollow-b-112-bench-3-enclosure-a-[0-9a-f]{8}\.json$/);
 		expect(record.body.kind).toBe('interlock-test');
 		expect(record.body.outcome).toBe('passed');

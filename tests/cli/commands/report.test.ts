@@ -32,7 +32,7 @@ beforeAll(() => {
 	const records = join(folder, 'records');
 	const checked = run(signerHome, 'check', '--answers', failDemo, '--sign', 'Test Person', '--role', 'test engineer', '--records', records);
 	if (checked.code !== 1) throw new Error(`test setup: the failing demo should sign and exit 1, got ${checked.code}: ${checked.stderr}`);
-	const [name] = readdirSync(records);
+	const [name] = readdirSync(records).filter((entry) => !entry.startsWith('.')); // the chain's .prelase-chain/ sits beside the records
 	recordPath = join(records, name!);
 	recordText = readFileSync(recordPath, 'utf8');
 });

@@ -1,4 +1,4 @@
-import {copyFileSync, mkdtempSync, readFileSync, rmSync, writeFileSync} from 'node:fs';
+import {copyFileSync, mkdtempSync, readFileSync, renameSync, rmSync, writeFileSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {join} from 'node:path';
 import {afterEach, beforeEach, describe, expect, it} from 'vitest';
@@ -76,6 +76,23 @@ describe('the bench check and the interlock test record', () => {
 		expect(link.status).toBe('current');
 		expect(link.record).toMatchObject({file: expect.stringContaining('interlock-test-fenwick-hollow') as string, testedOn: '2026-11-30', outcome: 'passed', dueBy: '2027-05-29'});
 		expect(link.text).toContain(path.split('/').at(-1)!);
+	});
+
+	it('a test record renamed by hand is still found, by its content and kind', () => {
+		const path = store(testBody('2026-11-30'));
+		const renamed = join(folder, 'records', 'bench3-loop-check.json');
+		renameSync(path, renamed);
+		const link = interlockLink(planPath, rules, context(), bench3);
+		expect(link.status).toBe('current'); // tested 2026-11-30, due by 2027-05-29 (180 days, hand arithmetic below)
+		expect(link.record).toMatchObject({file: expect.stringContaining('bench3-loop-check.json') as string, testedOn: '2026-11-30'});
+	});
+
+	it('a test record with its names in another order is still found (only a file that starts as a bench check is passed over unread)', () => {
+		const path = store(testBody('2026-11-30'));
+		const record = JSON.parse(readFileSync(path, 'utf8')) as Record<string, unknown>;
+		// The signature covers the canonical form (RFC 8785 sorts names), so the order in the file does not matter to it.
+		writeFileSync(path, JSON.stringify({signatures: record['signatures'], body: record['body'], version: record['version'], format: record['format']}, null, 2));
+		expect(interlockLink(planPath, rules, context(), bench3).status).toBe('current');
 	});
 
 	it.each([

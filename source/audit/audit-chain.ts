@@ -1,0 +1,190 @@
+import {existsSync} from 'node:fs';
+import {basename, dirname, join} from 'node:path';
+import {futureAllowanceMs, instantOf} from '../interlock/functional-test/test-choice.js';
+import {finding, type Finding} from '../records/findings.js';
+import {readHead} from '../records/chain.js';
+import type {IntegrityCheck} from '../records/integrity.js';
+import type {ChainLink} from '../records/record-schema.js';
+import {isoWithOffset} from '../shared/iso-time.js';
+
+/**
+ * What the chain audit keeps of one record file: small enough to keep for every record of a
+ * large folder. `chained` is there only for an authentic record.
+ */
+export type ChainEntry = {
+	/** The record's place in the audit. */
+	index: number;
+	file: string;
+	/** SHA-256 of the file's exact bytes; null when it could not be read. */
+	fileSha256: string | null;
+	chained?: {
+		/** The fingerprint of the first signature's key (the operator's or tester's). */
+		key: string;
+		/** The link the body states; undefined in a record made before the chain. */
+		previous: ChainLink | undefined;
+		createdAt: string;
+		kind: 'bench-check' | 'interlock-test';
+		version: number;
+	};
+};
+
+/** The chain entry of one record file, from its integrity check. */
+export function chainEntry(index: number, file: string, checked: IntegrityCheck): ChainEntry {
+	const entry: ChainEntry = {index, file, fileSha256: checked.fileSha256 ?? null};
+	if (!checked.ok) return entry;
+	const {body, signatures, version} = checked.record;
+	return {...entry, chained: {key: signatures[0]!.fingerprint, previous: body.previous, createdAt: body.createdAt, kind: body.kind, version}};
+}
+
+/** The instant of a date-time, later than any other when it cannot be read (it then sorts last and is never "earliest"). */
+const instant = (createdAt: string) => {
+	const value = instantOf(createdAt);
+	return Number.isNaN(value) ? Number.POSITIVE_INFINITY : value;
+};
+
+/** The record files of one folder: the first of each SHA-256, and the file of each name. */
+type FolderFiles = {bySha: Map<string, ChainEntry>; byName: Map<string, ChainEntry>};
+
+/** The words for the others in a fork: "both" for one other record, "all" for more. */
+const forkWords = (others: readonly ChainEntry[]) => ({others: others.map((other) => basename(other.file)).join(', '), both: others.length === 1 ? 'both' : 'all'});
+
+/**
+ * The per-signer chain, duplicates and clock skew across the records of an audit, built one
+ * record at a time: `add` each record's entry (it says when the file is a byte-identical copy of
+ * one added before), then `findings()` once all are in. Each record names the previous record its
+ * key wrote to the same folder; the audit reports a missing link (a deleted record), a gap at the
+ * start of a key's chain, a predecessor whose bytes changed, a fork (two records naming the same
+ * predecessor), a record dated before its predecessor, and a bench check dated after the audit.
+ */
+export class ChainAudit {
+	readonly #now: Date;
+	readonly #entries: ChainEntry[] = [];
+	readonly #copies: Array<{entry: ChainEntry; of: ChainEntry}> = [];
+	/** The first record file of each SHA-256, in any folder (a copy is a copy wherever it lies). */
+	readonly #bySha = new Map<string, ChainEntry>();
+	/** Per folder, the first record file of each SHA-256 and the file of each name. */
+	readonly #folders = new Map<string, FolderFiles>();
+
+	/** @param now The time of the audit: a record dated after it (beyond the allowance for a fast clock) is a finding. */
+	constructor(now: Date) {
+		this.#now = now;
+	}
+
+	/** Adds a record file; returns the file it is a byte-identical copy of, if any (the copy is then left out of the chain). */
+	add(entry: ChainEntry): string | undefined {
+		const folder = this.#folder(dirname(entry.file));
+		folder.byName.set(basename(entry.file), entry);
+		const sha = entry.fileSha256;
+		const original = sha === null ? undefined : this.#bySha.get(sha);
+		if (original) {
+			// Within its own folder a copy still has the bytes a link there may name.
+			if (!folder.bySha.has(sha!)) folder.bySha.set(sha!, entry);
+			this.#copies.push({entry, of: original});
+			return original.file;
+		}
+		if (sha !== null) {
+			folder.bySha.set(sha, entry);
+			this.#bySha.set(sha, entry);
+		}
+		this.#entries.push(entry);
+		return undefined;
+	}
+
+	/** How many authentic records were made before the chain (they state no link). */
+	beforeChain(): number {
+		return this.#entries.filter((entry) => entry.chained && entry.chained.previous === undefined).length;
+	}
+
+	/** Every finding, with the index of the record it belongs to. */
+	findings(): Array<{index: number; finding: Finding}> {
+		const out: Array<{index: number; finding: Finding}> = [];
+		const add = (entry: ChainEntry, found: Finding) => out.push({index: entry.index, finding: found});
+		for (const {entry, of} of this.#copies) add(entry, finding('history', 'audit-duplicate', {file: dirname(of.file) === dirname(entry.file) ? basename(of.file) : of.file}));
+		const latest = this.#now.getTime() + futureAllowanceMs;
+		const groups = new Map<string, ChainEntry[]>();
+		for (const entry of this.#entries) {
+			const chained = entry.chained;
+			if (!chained) continue;
+			if (chained.kind === 'bench-check' && instant(chained.createdAt) > latest) {
+				add(entry, finding('history', 'audit-dated-after-audit', {dated: chained.createdAt, now: isoWithOffset(this.#now), allowance: `${futureAllowanceMs / 60_000} min`}));
+			}
+			if (chained.previous === undefined) {
+				if (chained.version >= 2) add(entry, finding('history', 'audit-chain-link-missing', {version: chained.version}));
+				continue;
+			}
+			const group = `${dirname(entry.file)}\n${chained.key}`;
+			groups.set(group, [...(groups.get(group) ?? []), entry]);
+		}
+		for (const members of groups.values()) this.#chainFindings(members, add);
+		return out.sort((a, b) => a.index - b.index);
+	}
+
+	/** The findings of one key's chained records in one folder. */
+	#chainFindings(members: readonly ChainEntry[], add: (entry: ChainEntry, found: Finding) => void): void {
+		const folder = this.#folder(dirname(members[0]!.file));
+		const byPrevious = new Map<string | null, ChainEntry[]>();
+		const missing: Array<{entry: ChainEntry; previous: NonNullable<ChainLink>}> = [];
+		for (const entry of members) {
+			const {previous, createdAt} = entry.chained!;
+			const named = previous?.sha256 ?? null;
+			byPrevious.set(named, [...(byPrevious.get(named) ?? []), entry]);
+			if (!previous) continue;
+			// Found by its bytes anywhere in the audit: a record moved into an archive subfolder is not gone.
+			const found = folder.bySha.get(previous.sha256) ?? this.#bySha.get(previous.sha256);
+			if (found?.chained && instant(createdAt) < instant(found.chained.createdAt)) {
+				add(entry, finding('history', 'audit-chain-clock-backwards', {dated: createdAt, file: previous.file, previousDated: found.chained.createdAt}));
+			}
+			if (found) continue;
+			const sameName = folder.byName.get(previous.file);
+			if (sameName) add(entry, finding('history', 'audit-chain-changed', {file: previous.file, sha256: previous.sha256, actual: sameName.fileSha256 ?? '(unreadable)'}));
+			else missing.push({entry, previous});
+		}
+		// The chain is cut where a named record is missing. When no record of the key here starts the
+		// chain (names none), the earliest cut is its start: the records before it are gone, or were not
+		// given to the audit. Every other cut has records of the key on both sides: a deleted record.
+		const start = byPrevious.has(null) ? undefined : [...missing].sort((a, b) => instant(a.entry.chained!.createdAt) - instant(b.entry.chained!.createdAt) || a.entry.file.localeCompare(b.entry.file))[0];
+		for (const cut of missing) {
+			add(cut.entry, finding('history', cut === start ? 'audit-chain-gap-at-start' : 'audit-chain-missing', {file: cut.previous.file, sha256: cut.previous.sha256}));
+		}
+		this.#headFindings(folder, members, add);
+		for (const [named, fork] of byPrevious) {
+			if (fork.length < 2) continue;
+			for (const entry of fork) {
+				const words = forkWords(fork.filter((other) => other !== entry));
+				if (named === null) add(entry, finding('history', 'audit-chain-fork-at-start', words));
+				else add(entry, finding('history', 'audit-chain-fork', {...words, file: entry.chained!.previous!.file}));
+			}
+		}
+	}
+
+	/**
+	 * The latest record of the key, which no later record names, checked against the head file
+	 * beside the records: it must be there with the bytes the head file names. A head that is not
+	 * among the files audited but is still in the folder is left alone (an audit of some records).
+	 */
+	#headFindings(folder: FolderFiles, members: readonly ChainEntry[], add: (entry: ChainEntry, found: Finding) => void): void {
+		const path = dirname(members[0]!.file);
+		const head = readHead(path, members[0]!.chained!.key);
+		if (!head || folder.bySha.has(head.sha256) || this.#bySha.has(head.sha256)) return;
+		const sameName = folder.byName.get(head.file);
+		if (sameName) {
+			add(sameName, finding('history', 'audit-chain-head-changed', {sha256: head.sha256, actual: sameName.fileSha256 ?? '(unreadable)'}));
+			return;
+		}
+		if (existsSync(join(path, head.file))) return;
+		// The record the deleted one followed: of the records no other names, the latest.
+		const named = new Set(members.map((entry) => entry.chained!.previous?.sha256));
+		const tips = members.filter((entry) => entry.fileSha256 === null || !named.has(entry.fileSha256));
+		const latest = [...(tips.length > 0 ? tips : members)].sort((a, b) => instant(a.chained!.createdAt) - instant(b.chained!.createdAt) || a.file.localeCompare(b.file)).at(-1)!;
+		add(latest, finding('history', 'audit-chain-head-missing', {file: head.file, sha256: head.sha256}));
+	}
+
+	#folder(path: string): FolderFiles {
+		let folder = this.#folders.get(path);
+		if (!folder) {
+			folder = {bySha: new Map(), byName: new Map()};
+			this.#folders.set(path, folder);
+		}
+		return folder;
+	}
+}
