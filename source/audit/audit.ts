@@ -19,6 +19,7 @@ import {policyReport, type PolicyReport} from './audit-policy.js';
 import {signatureReports, type SignatureReport, type Trust} from './audit-trust.js';
 import type {RecordBody} from '../records/record-schema.js';
 import {locationInput} from '../interlock/plan/plan-input.js';
+import {reviewRepository, type RepositoryHistory} from './audit-repository.js';
 
 /** A finding with its message in words. */
 export type ReportedFinding = Finding & {text: string};
@@ -53,13 +54,15 @@ export type AuditReport = {
 	currentRules: {name: string; file: string; sha256: string};
 	trust: {own: string | null; trusted: number};
 	records: RecordAudit[];
+	/** Records folders that are git repositories: how many commits were read, and what their history shows. */
+	repositories?: Array<{folder: string; commits: number; remote: string | null; findings: ReportedFinding[]}>;
 	totals: AuditTotals;
 	status: 'authentic_and_consistent' | 'authentic_with_findings' | 'integrity_failure';
 	exitCode: 0 | 1 | 3;
 };
 
 /** What the audit needs besides the files: the site's current rules and the keys the auditor trusts. */
-export type AuditOptions = {current: CompiledRules; trust: Trust; onProgress?: (done: number, total: number) => void; /** The time of the audit (records dated after it are reported). @default now */ now?: Date};
+export type AuditOptions = {current: CompiledRules; trust: Trust; onProgress?: (done: number, total: number) => void; /** The time of the audit (records dated after it are reported). @default now */ now?: Date; /** The history of each records folder that is a git repository. */ repositories?: RepositoryHistory[]};
 
 /** Embedded rule texts loaded and compiled once each (a folder of records mostly shares one or two). */
 class RuleCache {
@@ -194,12 +197,16 @@ export function auditRecords(files: readonly string[], options: AuditOptions): A
 		for (const found of audit.findings) totals.findings[found.kind] += 1;
 		return {...audit, findings: audit.findings.map((found) => ({...found, text: describeFinding(found)}))};
 	});
-	const status = totals.integrityFailures > 0 ? 'integrity_failure' : totals.withFindings > 0 ? 'authentic_with_findings' : 'authentic_and_consistent';
+	const repositories = (options.repositories ?? []).map((history) => ({folder: history.folder, remote: history.remote?.remote ?? null, ...reviewRepository(history)})).map((found) => ({...found, findings: found.findings.map((each) => ({...each, text: describeFinding(each)}))}));
+	const repositoryFindings = repositories.flatMap((found) => found.findings);
+	for (const found of repositoryFindings) totals.findings[found.kind] += 1;
+	const status = totals.integrityFailures > 0 || repositoryFindings.some((found) => found.kind === 'integrity') ? 'integrity_failure' : totals.withFindings > 0 || repositoryFindings.length > 0 ? 'authentic_with_findings' : 'authentic_and_consistent';
 	return {
 		tool: {name: 'prelase', version},
 		currentRules: {name: options.current.rules.name, file: options.current.file, sha256: options.current.sha256},
 		trust: {own: options.trust.own ?? null, trusted: options.trust.trusted.length},
 		records,
+		...(repositories.length > 0 ? {repositories} : {}),
 		totals,
 		status,
 		exitCode: status === 'integrity_failure' ? 3 : status === 'authentic_with_findings' ? 1 : 0,
