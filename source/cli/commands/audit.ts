@@ -7,6 +7,8 @@ import {auditText, inline} from '../../render/audit-text.js';
 import {ownFingerprint, readTrusted} from '../../records/key-files.js';
 import {loadRules, shippedRulesPath} from '../../rules/load.js';
 import {openSettings} from '../../services/settings.js';
+import {isRecordsRepository} from '../../services/records-repository.js';
+import {readRepositoryHistory} from '../../services/records-history.js';
 import {terminalSafeJson} from '../../shared/text.js';
 import {UsageError} from '../usage-error.js';
 import {commandHelp, helpOption, parseOptions, type Command, type Io} from '../command.js';
@@ -35,6 +37,7 @@ function progress(io: Io): {update(done: number, total: number): void; end(): vo
 const options = {
 	rules: {type: 'string', value: 'FILE', summary: 'The current rules (default: the rulesFile setting, else the shipped rules/default.yaml)'},
 	json: {type: 'boolean', summary: 'Print everything the audit found as JSON'},
+	remote: {type: 'boolean', summary: 'For a records repository: also compare its history with its remote (a rewritten history is a finding)'},
 	help: helpOption,
 } as const;
 
@@ -50,6 +53,8 @@ export function runAudit(args: string[], io: Io): number {
 	if (missing.length > 0) throw new UsageError(`no such file or folder: ${missing.map((path) => inline(path, 200)).join(', ')}`);
 	if (files.length === 0) throw new UsageError(`no record files in ${positionals.map((path) => inline(path, 200)).join(', ')} (dotfiles and *.tmp are left out)`);
 
+	const folders = positionals.filter((path) => isRecordsRepository(path));
+	if (values.remote && folders.length === 0) throw new UsageError('--remote compares a records repository with its remote, and none of the folders given is one (prelase records init)');
 	const settings = openSettings(io.env);
 	const rulesFile = values.rules ?? settings.read().rulesFile ?? shippedRulesPath();
 	const current = loadRules(rulesFile);
@@ -61,6 +66,7 @@ export function runAudit(args: string[], io: Io): number {
 		current: current.value,
 		trust: {own: ownFingerprint(settings.folder), trusted: readTrusted(settings.folder)},
 		...(bar ? {onProgress: bar.update} : {}),
+		repositories: folders.map((folder) => readRepositoryHistory(folder, values.remote ?? false, io.env)),
 	});
 	bar?.end();
 	io.stdout.write(`${values.json ? terminalSafeJson(report) : auditText(report, paintFor(io.stdout, io.env), io.stdout.columns ?? 100)}\n`);
@@ -70,13 +76,13 @@ export function runAudit(args: string[], io: Io): number {
 export const auditCommand: Command = {
 	name: 'audit',
 	summary: 'Check signed records: authentic, consistent, and what the current rules change',
-	usage: 'prelase audit PATH... [--rules FILE] [--json]',
+	usage: 'prelase audit PATH... [--rules FILE] [--json] [--remote]',
 	options,
 	help: {
 		intro: `prelase audit — check signed records
 
 Usage:
-  prelase audit PATH... [--rules FILE] [--json]
+  prelase audit PATH... [--rules FILE] [--json] [--remote]
 
 PATH is a record file or a folder of records (searched recursively; dotfiles and *.tmp are
 left out). For each record the audit checks:
@@ -90,13 +96,18 @@ left out). For each record the audit checks:
                  inputs and confirmations the record lacks (a changed verdict is a finding)
   history        amendments and the records they correct, a later record for the same
                  setup fingerprint, a setup whose fingerprint changed since its last record
+  repository     for a records folder that is a git repository (prelase records init): its
+                 history, where a record changed or deleted after its commit, a record left
+                 uncommitted, and with --remote a remote whose history was rewritten, are
+                 findings that name the commit
 Record age and interlock test dates are reported as not checked: rule files set no
 validity period or test interval yet.`,
 		notes: `Exit status:
   0  every record is authentic and consistent, with no findings
   1  every record is authentic, with findings
   2  bad usage (no PATH, a PATH that does not exist, a current rule file with problems)
-  3  integrity failure in a record (altered, unsigned or unreadable)
+  3  integrity failure in a record (altered, unsigned or unreadable), or a records repository
+     whose history shows a record changed or deleted, or a rewritten remote
 
 The audit says whether a record is authentic and whether its conclusions follow from its
 numbers; it never says a setup is safe. The laser safety officer has the final word.`,

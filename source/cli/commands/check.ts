@@ -17,6 +17,7 @@ import {commandHelp, helpOption, parseOptions, type Command, type Io} from '../c
 import {signAndWrite} from '../../services/sign-check.js';
 import {terminalSafeJson} from '../../shared/text.js';
 import {isInteractive, startScreens} from '../screens.js';
+import {commitNote} from './records.js';
 
 export type {Io} from '../command.js';
 
@@ -104,7 +105,7 @@ function finishCheck(rules: CompiledRules, linked: {answers: Answers; link: Inte
 		io.stdout.write(`${terminalSafeJson(json)}\n`);
 	} else {
 		io.stdout.write(`${checkText(rules, linked.answers, evaluation, paintFor(io.stdout, io.env), io.stdout.columns ?? 100, linked.link)}\n`);
-		if (written) io.stdout.write(`\nRecord written: ${written.path}\nSigned with key ${written.fingerprint}${written.keyCreated ? ' (a new key, created now; share it with: prelase keys export)' : ''}\n`);
+		if (written) io.stdout.write(`\nRecord written: ${written.path}\nSigned with key ${written.fingerprint}${written.keyCreated ? ' (a new key, created now; share it with: prelase keys export)' : ''}\n${commitNote(written)}`);
 	}
 	return evaluation.outcome === 'clear_to_energize' ? 0 : 1;
 }

@@ -273,6 +273,6 @@ describe('prelase audit --help', () => {
 		expect(code).toBe(0);
 		expect(stdout).toBe(`${helpTexts.audit}\n`);
 		expect(stdout).toContain('3  integrity failure');
-		expect(helpTexts.main).toMatch(/\n {2}audit {4}Check signed records: authentic, consistent, and what the current rules change\n/);
+		expect(helpTexts.main).toMatch(/\n {2}audit {5}Check signed records: authentic, consistent, and what the current rules change\n/);
 	});
 });
