@@ -35,17 +35,39 @@ export function recordCommitMessage(record: AnyRecord, file: string): string {
 	return `${subject.replaceAll(/\s+/g, ' ').slice(0, 200)}\n\nRecord: ${basename(file)}\nCreated: ${body.createdAt}\nSigned by: ${signers}\n`;
 }
 
+/** Tries of a git command that found the index locked by another prelase committing at the same moment. */
+const lockTries = 40;
+
+/** Runs a git command, waiting a little and trying again while another process holds the index lock. */
+function outputWhenUnlocked(folder: string, args: readonly string[], env: NodeJS.ProcessEnv, identity?: GitIdentity): Result<string, Problem> {
+	let run = gitOutput(folder, args, env, identity);
+	for (let attempt = 1; attempt < lockTries && !run.ok && String(run.errors[0]!.data['detail'] ?? '').includes('index.lock'); attempt += 1) {
+		Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 0, 50);
+		run = gitOutput(folder, args, env, identity);
+	}
+	return run;
+}
+
+/**
+ * Rule texts stored in the folder (`rules/…`, written once under their hash) that no commit holds
+ * yet: the ones the write of a record has just added go into that record's commit.
+ */
+function newRuleTexts(folder: string, env: NodeJS.ProcessEnv): string[] {
+	const listed = gitOutput(folder, ['ls-files', '--others', '--exclude-standard', '-z', '--', 'rules/'], env);
+	return listed.ok ? listed.value.split('\0').filter(Boolean) : [];
+}
+
 /**
  * Commits the files prelase has just written into a records repository, and nothing else: one
- * commit, by `author`, of exactly these paths (other changes in the folder, staged or not, stay
- * out of it). Returns the commit's id; `null` when the folder is a plain folder.
+ * commit, by `author`, of exactly these paths and any new rule texts (other changes in the
+ * folder, staged or not, stay out of it). Returns the commit's id; `null` for a plain folder.
  */
 export function commitWritten(folder: string, paths: readonly string[], message: string, author: GitIdentity, env: NodeJS.ProcessEnv): Result<string | null, Problem> {
 	if (!isRecordsRepository(folder)) return success(null);
-	const files = paths.map((path) => repositoryPath(folder, path));
-	const added = gitOutput(folder, ['add', '--', ...files], env);
+	const files = [...new Set([...paths.map((path) => repositoryPath(folder, path)), ...newRuleTexts(folder, env)])];
+	const added = outputWhenUnlocked(folder, ['add', '--', ...files], env);
 	if (!added.ok) return added;
-	const committed = gitOutput(folder, ['commit', '--quiet', '--no-edit', '-m', message, '--only', '--', ...files], env, author);
+	const committed = outputWhenUnlocked(folder, ['commit', '--quiet', '--no-edit', '-m', message, '--only', '--', ...files], env, author);
 	if (!committed.ok) return committed;
 	const head = gitOutput(folder, ['rev-parse', 'HEAD'], env);
 	return head.ok ? success(head.value.trim()) : head;
