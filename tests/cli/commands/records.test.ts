@@ -184,6 +184,18 @@ describe('git missing, and the plain folder', () => {
 		expect(report.repositories[0]!.findings.map((found) => [found.code, found.data['file']])).toEqual([['audit-repository-not-committed', basename(path)]]);
 	});
 
+	it('check --json names the commit in its record part; a record not committed is said on stderr', async () => {
+		const made = await run(bench.a, ['check', '--answers', clearDemo, '--json', '--sign', 'Ada Bench', '--records', bench.a.records]);
+		expect(made.code).toBe(0);
+		expect((JSON.parse(made.stdout) as {record: {commit: string}}).record.commit).toBe(head(bench.a.records, bench.a.env));
+		const missing = await run(bench.a, ['check', '--answers', clearDemo, '--json', '--sign', 'Ada Bench', '--records', bench.a.records], noGit());
+		expect(missing.code).toBe(0);
+		expect(JSON.parse(missing.stdout)).not.toHaveProperty('record.commit');
+		expect(missing.stderr).toContain('NOT committed to the records repository: the program git is needed');
+		runGit(bench.a.records, ['add', '--all'], bench.a.env);
+		runGit(bench.a.records, ['commit', '--quiet', '-m', 'commit the records written without git'], bench.a.env);
+	});
+
 	it.each([
 		{argv: ['records', 'sync'], folder: 'a'},
 		{argv: ['records', 'init'], folder: 'fresh'},
