@@ -71,6 +71,28 @@ describe('committing what a write made', () => {
 	});
 });
 
+describe('sync when another bench pushes in between', () => {
+	it('a push rejected because the remote moved is tried again on top of the other bench\'s commit; both records reach the remote', () => {
+		const here = folderWith('race-here');
+		const there = folderWith('race-there');
+		expect(syncRecords(here, author, env)).toMatchObject({ok: true});
+		expect(syncRecords(there, author, env)).toMatchObject({ok: true});
+		writeFileSync(join(there, 'there-race.json'), '{}\n');
+		commitWritten(there, [join(there, 'there-race.json')], 'there race', author, env);
+		writeFileSync(join(here, 'here-race.json'), '{}\n');
+		commitWritten(here, [join(here, 'here-race.json')], 'here race', author, env);
+		// git-push(1) runs the pre-push hook after this bench fetched and rebased, just before it sends:
+		// the hook makes the other bench push first, once, so this push is rejected as not a fast-forward.
+		const flag = join(root, 'raced');
+		const hook = join(here, '.git', 'hooks', 'pre-push');
+		writeFileSync(hook, `#!/bin/sh\nif [ ! -e '${flag}' ]; then touch '${flag}'; unset GIT_DIR GIT_WORK_TREE GIT_INDEX_FILE; git -C '${there}' push --quiet origin HEAD:main >/dev/null 2>&1; fi\nexit 0\n`, {mode: 0o755});
+		const sync = syncRecords(here, author, env);
+		expect(sync).toMatchObject({ok: true, value: {state: 'synced', pushed: 1}});
+		expect(runGit(site, ['ls-tree', '--name-only', 'main'], env).split('\n')).toEqual(expect.arrayContaining(['here-race.json', 'there-race.json']));
+		expect(runGit(site, ['log', '-2', '--format=%s', 'main'], env).trim().split('\n')).toEqual(['here race', 'there race']);
+	});
+});
+
 describe('sync when git refuses', () => {
 	it('a record changed in the folder stops the rebase: "refused", the commits stay, nothing is forced', () => {
 		const here = folderWith('bench-here');
