@@ -17,7 +17,7 @@ import {commandHelp, helpOption, parseOptions, type Command, type Io} from '../c
 import {signAndWrite} from '../../services/sign-check.js';
 import {terminalSafeJson} from '../../shared/text.js';
 import {isInteractive, startScreens} from '../screens.js';
-import {commitNote} from './records.js';
+import {commitNote} from '../../render/record-commit-text.js';
 
 export type {Io} from '../command.js';
 

@@ -17,7 +17,7 @@ import {interlockTestCaution} from '../../interlock/functional-test/test-record.
 import {UsageError, valueOrUsageError} from '../usage-error.js';
 import {commandHelp, helpOption, parseOptions, type Command, type Io} from '../command.js';
 import {editPlan} from './plan-screen.js';
-import {commitNote} from './records.js';
+import {commitNote} from '../../render/record-commit-text.js';
 
 const sheetWriters = {md: testSheetMarkdown, html: testSheetHtml};
 

@@ -6,7 +6,6 @@ import {recordsFolder} from '../../services/records-folder.js';
 import {initRecords} from '../../services/records-repository.js';
 import {syncRecords} from '../../services/records-sync.js';
 import {readSettings, settingsFile} from '../../services/settings.js';
-import {describeProblem, type Problem} from '../../shared/problems.js';
 import {UsageError, valueOrUsageError} from '../usage-error.js';
 import {commandHelp, helpOption, parseOptions, type Command, type Io} from '../command.js';
 
@@ -22,13 +21,6 @@ export const syncRewritten = 3;
 export const syncOffline = 4;
 /** Exit status of `records sync` when git refused the rebase or the push (the commits stay). */
 export const syncRefused = 5;
-
-/** The line said after a record is written: its commit in the records repository, or why it was not committed. */
-export function commitNote(stored: {commit?: string | Problem}): string {
-	if (stored.commit === undefined) return '';
-	if (typeof stored.commit === 'string') return `Committed to the records repository as ${stored.commit.slice(0, 12)}; share it with: prelase records sync\n`;
-	return `NOT committed to the records repository: ${describeProblem(stored.commit)}. The record is written; the audit reports it as not committed until it is.\n`;
-}
 
 const commits = (count: number) => `${count} commit${count === 1 ? '' : 's'}`;
 
