@@ -36,10 +36,17 @@ export function git(folder: string, args: readonly string[], env: NodeJS.Process
 	if (run.error) {
 		const code = (run.error as NodeJS.ErrnoException).code;
 		if (code === 'ENOENT') return failure([problem('git-missing', {folder})]);
-		if (code === 'ETIMEDOUT') return failure([problem('git-timeout', {command: args[0] ?? '', folder, seconds: timeoutMs / 1000})]);
-		return failure([problem('git-failed', {command: args[0] ?? '', folder, detail: run.error.message})]);
+		if (code === 'ETIMEDOUT') return failure([problem('git-timeout', {command: commandName(args), folder, seconds: timeoutMs / 1000})]);
+		return failure([problem('git-failed', {command: commandName(args), folder, detail: run.error.message})]);
 	}
 	return success({status: run.status ?? 1, stdout: run.stdout, stderr: run.stderr});
+}
+
+/** The git command a list of arguments runs (`clone`, `rev-parse`), past any `-c name=value` before it. */
+export function commandName(args: readonly string[]): string {
+	let index = 0;
+	while (args[index] === '-c') index += 2;
+	return args[index] ?? '';
 }
 
 /** git's own words about a failed run, on one line. */
@@ -52,7 +59,7 @@ export function gitDetail(run: GitRun): string {
 export function gitOutput(folder: string, args: readonly string[], env: NodeJS.ProcessEnv, identity?: GitIdentity): Result<string, Problem> {
 	const run = git(folder, args, env, identity);
 	if (!run.ok) return run;
-	if (run.value.status !== 0) return failure([problem('git-failed', {command: args.filter((arg) => !arg.startsWith('-')).slice(0, 2).join(' '), folder, detail: gitDetail(run.value)})]);
+	if (run.value.status !== 0) return failure([problem('git-failed', {command: commandName(args), folder, detail: gitDetail(run.value)})]);
 	return success(run.value.stdout);
 }
 

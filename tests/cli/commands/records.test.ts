@@ -231,6 +231,14 @@ describe('git missing, and the plain folder', () => {
 });
 
 describe('prelase records: usage', () => {
+	it('init --remote with a remote that cannot be reached: exit 2, naming git\'s command and its words', async () => {
+		const away = join(root, 'no-such-site.git');
+		const {code, stderr} = await run(bench.a, ['records', 'init', '--remote', away, '--records', join(root, 'never')]);
+		expect(code).toBe(2);
+		expect(stderr).toContain(`prelase: git clone failed in ${join(root, 'never')}: fatal: repository '${away}' does not exist`);
+	});
+
+
 	it.each([
 		{argv: ['records'], says: 'say what to do: prelase records init [--remote URL] or prelase records sync'},
 		{argv: ['records', 'push'], says: 'unknown records action "push"; use init or sync'},
