@@ -9,7 +9,7 @@ export type RepositoryHistory = {
 	/** The records folder (the repository's top folder). */
 	folder: string;
 	/**
-	 * `git log --reverse --no-renames -z --name-status --format=%x1e%H%x1f%an%x1f%ae%x1f%aI%x1f%s`:
+	 * `git log --reverse --topo-order --diff-merges=first-parent --no-renames -z --name-status --format=%x1e%H%x1f%an%x1f%ae%x1f%aI%x1f%s`:
 	 * per commit a header, then status and path pairs, all separated by NUL.
 	 */
 	log: string;

@@ -16,7 +16,7 @@ export function readRepositoryHistory(folder: string, withRemote: boolean, env: 
 	const unreadable = (detail: string): RepositoryHistory => ({folder, log: '', status: '', unreadable: detail});
 	const head = git(folder, ['rev-parse', '--verify', '--quiet', 'HEAD'], env);
 	if (!head.ok) return unreadable(describeProblem(head.errors[0]!));
-	const log = head.value.status === 0 ? gitOutput(folder, ['log', '--reverse', '--no-renames', '-z', '--name-status', logFormat, 'HEAD'], env) : {ok: true as const, value: '', warnings: []};
+	const log = head.value.status === 0 ? gitOutput(folder, ['log', '--reverse', '--topo-order', '--diff-merges=first-parent', '--no-renames', '-z', '--name-status', logFormat, 'HEAD'], env) : {ok: true as const, value: '', warnings: []};
 	if (!log.ok) return unreadable(describeProblem(log.errors[0]!));
 	const status = gitOutput(folder, ['status', '--porcelain=v1', '-z', '--untracked-files=all', '--no-renames'], env);
 	if (!status.ok) return unreadable(describeProblem(status.errors[0]!));

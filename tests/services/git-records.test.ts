@@ -5,6 +5,8 @@ import {join} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
 import {commitWritten, initRecords} from '../../source/services/records-repository.js';
 import {syncRecords} from '../../source/services/records-sync.js';
+import {readRepositoryHistory} from '../../source/services/records-history.js';
+import {reviewRepository} from '../../source/audit/audit-repository.js';
 import {bareRemote, gitEnv, runGit} from '../helpers/git-env.js';
 
 let root: string;
@@ -111,5 +113,23 @@ describe('sync when git refuses', () => {
 		expect(sync).toMatchObject({ok: true, value: {state: 'refused', unpushed: 1}});
 		if (sync.ok && sync.value.state === 'refused') expect(sync.value.detail).toContain('unstaged changes');
 		expect(runGit(here, ['log', '-1', '--format=%s'], env).trim()).toBe('here 2');
+	});
+});
+
+describe('the history the audit reads', () => {
+	it('a record deleted inside a merge commit is named with that merge', () => {
+		const folder = folderWith('merged');
+		writeFileSync(join(folder, 'kept.json'), '{}\n');
+		commitWritten(folder, [join(folder, 'kept.json')], 'kept', author, env);
+		runGit(folder, ['switch', '--quiet', '-c', 'side'], env);
+		writeFileSync(join(folder, 'side.json'), '{}\n');
+		commitWritten(folder, [join(folder, 'side.json')], 'side', author, env);
+		runGit(folder, ['switch', '--quiet', 'main'], env);
+		runGit(folder, ['merge', '--quiet', '--no-ff', '--no-commit', 'side'], env);
+		runGit(folder, ['rm', '--quiet', 'kept.json'], env);
+		runGit(folder, ['commit', '--quiet', '-m', 'merge side'], env);
+		const merge = runGit(folder, ['rev-parse', 'HEAD'], env).trim().slice(0, 12);
+		const review = reviewRepository(readRepositoryHistory(folder, false, env));
+		expect(review.findings.map((found) => [found.code, found.data['file'], found.data['commit']])).toEqual([['audit-repository-deleted', 'kept.json', merge]]);
 	});
 });
