@@ -2,7 +2,7 @@ import {problem, type Problem} from '../shared/problems.js';
 import {failure, success, type Result} from '../shared/result.js';
 import {git, gitDetail, gitOutput, type GitIdentity} from './git.js';
 import {isRecordsRepository, remoteUrl} from './records-repository.js';
-import type {NamedCommit} from '../audit/audit-repository.js';
+import {parseStatus, writtenOnce, type NamedCommit} from '../audit/audit-repository.js';
 
 /** What the remote holds, fetched to a private ref so the remote-tracking branch keeps what was seen before. */
 export type RemoteCheck =
@@ -13,7 +13,8 @@ export type RemoteCheck =
 
 /** What `records sync` came to. */
 export type SyncOutcome =
-	| {state: 'synced'; remote: string; pulled: number; pushed: number}
+	/** `uncommitted`: records (and rule texts) in the folder that no commit holds, so no sync shares them. */
+	| {state: 'synced'; remote: string; pulled: number; pushed: number; uncommitted: string[]}
 	| {state: 'offline'; remote: string; detail: string; unpushed: number}
 	| {state: 'rewritten'; remote: string; lost: NamedCommit[]}
 	| {state: 'refused'; remote: string; detail: string; unpushed: number};
@@ -71,6 +72,15 @@ export function checkRemote(folder: string, space: string, env: NodeJS.ProcessEn
 	return success({state: 'ok', remote, seen: seen.value, head: head.value});
 }
 
+/** Files prelase writes once that are in the folder but in no commit (written where git was missing). */
+function uncommitted(folder: string, env: NodeJS.ProcessEnv): string[] {
+	const status = gitOutput(folder, ['status', '--porcelain=v1', '-z', '--untracked-files=all', '--no-renames'], env);
+	if (!status.ok) return [];
+	return parseStatus(status.value)
+		.filter(({code, path}) => (code === '??' || code.startsWith('A')) && writtenOnce(path))
+		.map(({path}) => path);
+}
+
 /** Commits on this folder's branch that the remote does not have yet. */
 function unpushed(folder: string, remoteHead: string | null, env: NodeJS.ProcessEnv): number {
 	const count = git(folder, ['rev-list', '--count', 'HEAD', ...(remoteHead ? [`^${remoteHead}`] : [])], env);
@@ -119,13 +129,13 @@ export function syncRecords(folder: string, identity: GitIdentity, env: NodeJS.P
 			}
 		}
 		const toPush = commitOf('HEAD') === null ? 0 : unpushed(folder, remote.head, env);
-		if (toPush === 0) return success({state: 'synced', remote: remote.remote, pulled, pushed: 0});
+		if (toPush === 0) return success({state: 'synced', remote: remote.remote, pulled, pushed: 0, uncommitted: uncommitted(folder, env)});
 		const pushed = git(folder, ['push', '--quiet', 'origin', `HEAD:refs/heads/${branch.value}`], env);
 		if (!pushed.ok) return pushed;
 		if (pushed.value.status === 0) {
 			const head = commitOf('HEAD');
 			if (head !== null) gitOutput(folder, ['update-ref', tracking, head], env);
-			return success({state: 'synced', remote: remote.remote, pulled, pushed: toPush});
+			return success({state: 'synced', remote: remote.remote, pulled, pushed: toPush, uncommitted: uncommitted(folder, env)});
 		}
 		detail = gitDetail(pushed.value);
 	}

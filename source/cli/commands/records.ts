@@ -54,6 +54,10 @@ export function runRecords(args: string[], io: Io): number {
 			switch (outcome.state) {
 				case 'synced':
 					io.stdout.write(`Synced ${folder} with ${outcome.remote}: took ${commits(outcome.pulled)}, pushed ${commits(outcome.pushed)}.\n`);
+					if (outcome.uncommitted.length > 0) {
+						const many = outcome.uncommitted.length > 1;
+						io.stderr.write(`Not shared: ${outcome.uncommitted.length} record file${many ? 's' : ''} in ${folder} ${many ? 'are' : 'is'} in no commit: ${outcome.uncommitted.join(', ')}. Check ${many ? 'them' : 'it'} (prelase audit ${folder}), then commit ${many ? 'them' : 'it'} with git and sync again.\n`);
+					}
 					return 0;
 				case 'offline':
 					io.stderr.write(`Offline: cannot reach ${outcome.remote} (${outcome.detail}).\n${commits(outcome.unpushed)} stay here for the next prelase records sync; nothing is lost.\n`);
@@ -97,7 +101,7 @@ Record names are unique, so benches never change the same file. Nothing here eve
 prelase audit FOLDER also reads the repository's history; with --remote it compares it with the
 remote. The system git does the work: install it where a repository folder is used.`,
 		notes: `Exit status:
-  0  done (init), or synced (sync)
+  0  done (init), or synced (sync; a record file in no commit is named, and is not shared)
   2  bad usage, not a repository, no remote, or git missing
   3  sync refused: the remote's history was rewritten; nothing taken, nothing pushed
   4  sync: the remote cannot be reached (offline); the commits stay for the next sync

@@ -184,6 +184,15 @@ describe('git missing, and the plain folder', () => {
 		expect(report.repositories[0]!.findings.map((found) => [found.code, found.data['file']])).toEqual([['audit-repository-not-committed', basename(path)]]);
 	});
 
+	it('sync shares the commits and warns of a record left out of them, which stays unshared', async () => {
+		const made = await run(bench.b, ['check', '--answers', clearDemo, '--sign', 'Bo Second', '--records', bench.b.records], {...bench.b.env, PATH: join(root, 'no-bin')});
+		const path = /Record written: (.+)/.exec(made.stdout)![1]!;
+		const sync = await run(bench.b, ['records', 'sync', '--records', bench.b.records]);
+		expect(sync.code).toBe(0);
+		expect(sync.stderr).toBe(`Not shared: 1 record file in ${bench.b.records} is in no commit: ${basename(path)}. Check it (prelase audit ${bench.b.records}), then commit it with git and sync again.\n`);
+		expect(runGit(site, ['ls-tree', '--name-only', 'main'], bench.a.env).split('\n')).not.toContain(basename(path));
+	});
+
 	it('check --json names the commit in its record part; a record not committed is said on stderr', async () => {
 		const made = await run(bench.a, ['check', '--answers', clearDemo, '--json', '--sign', 'Ada Bench', '--records', bench.a.records]);
 		expect(made.code).toBe(0);
