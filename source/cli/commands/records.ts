@@ -82,7 +82,7 @@ export function runRecords(args: string[], io: Io): number {
 export const recordsCommand: Command = {
 	name: 'records',
 	summary: 'Keep the records folder in a git repository that every bench shares',
-	usage: 'prelase records init [--remote URL] | sync [--records DIR]',
+	usage: 'prelase records init [--remote URL] [--records DIR] | sync [--records DIR]',
 	options,
 	help: {
 		intro: `prelase records — one store of records for many benches
@@ -107,7 +107,8 @@ remote. The system git does the work: install it where a repository folder is us
   4  sync: the remote cannot be reached (offline); the commits stay for the next sync
   5  sync: git refused the rebase or the push; the commits stay
 
-Records are evidence for the laser safety officer; they never say a setup is safe.`,
+Records are evidence for the laser safety officer; they never say a setup is safe. The laser
+safety officer and the codes in force (IEC 60825 series, ANSI Z136 series, local law) decide.`,
 	},
 	run: runRecords,
 };
