@@ -26,6 +26,7 @@ import {signatureReports, type SignatureReport, type Trust} from './audit-trust.
 import type {RecordBody} from '../records/record-schema.js';
 import {locationInput} from '../interlock/plan/plan-input.js';
 import {RuleTexts} from './audit-rule-texts.js';
+import {reviewRepository, type RepositoryHistory} from './audit-repository.js';
 
 /** A finding with its message in words. */
 export type ReportedFinding = Finding & {text: string};
@@ -72,13 +73,15 @@ export type AuditReport = {
 	findingCodes: FindingCount[];
 	/** With `listing: 'summary'`: each record with findings, in short. */
 	withFindings: RecordWithFindings[];
+	/** Records folders that are git repositories: how many commits were read, and what their history shows. */
+	repositories?: Array<{folder: string; commits: number; remote: string | null; findings: ReportedFinding[]}>;
 	totals: AuditTotals;
 	status: 'authentic_and_consistent' | 'authentic_with_findings' | 'integrity_failure';
 	exitCode: 0 | 1 | 3;
 };
 
 /** What the audit needs besides the files: the site's current rules and the keys the auditor trusts. */
-export type AuditOptions = {current: CompiledRules; trust: Trust; onProgress?: (done: number, total: number) => void; /** The time of the audit (records dated after it are reported). @default now */ now?: Date; /** Keep every record's audit (`all`), or only what the summary needs. @default 'all' */ listing?: 'all' | 'summary'};
+export type AuditOptions = {current: CompiledRules; trust: Trust; onProgress?: (done: number, total: number) => void; /** The time of the audit (records dated after it are reported). @default now */ now?: Date; /** Keep every record's audit (`all`), or only what the summary needs. @default 'all' */ listing?: 'all' | 'summary'; /** The history of each records folder that is a git repository. */ repositories?: RepositoryHistory[]};
 
 function summarise(body: RecordBody): RecordSummary {
 	return {
@@ -276,7 +279,10 @@ export function auditRecords(files: readonly string[], options: AuditOptions): A
 	}
 	const records = listing === 'all' ? audits.map((audit): RecordAudit => ({...audit, findings: audit.findings.map(reported)})) : [];
 	const withFindings = listing === 'all' ? [] : audits.filter((audit) => audit.findings.length > 0).map(listedWithFindings);
-	const status = totals.integrityFailures > 0 ? 'integrity_failure' : totals.withFindings > 0 ? 'authentic_with_findings' : 'authentic_and_consistent';
+	const repositories = (options.repositories ?? []).map((history) => ({folder: history.folder, remote: history.remote?.remote ?? null, ...reviewRepository(history)})).map((found) => ({...found, findings: found.findings.map(reported)}));
+	const repositoryFindings = repositories.flatMap((found) => found.findings);
+	for (const found of repositoryFindings) totals.findings[found.kind] += 1;
+	const status = totals.integrityFailures > 0 || repositoryFindings.some((found) => found.kind === 'integrity') ? 'integrity_failure' : totals.withFindings > 0 || repositoryFindings.length > 0 ? 'authentic_with_findings' : 'authentic_and_consistent';
 	return {
 		tool: {name: 'prelase', version},
 		currentRules: {name: options.current.rules.name, file: options.current.file, sha256: options.current.sha256},
@@ -285,6 +291,7 @@ export function auditRecords(files: readonly string[], options: AuditOptions): A
 		records,
 		findingCodes: [...codes.values()].sort((a, b) => b.count - a.count || a.code.localeCompare(b.code)),
 		withFindings,
+		...(repositories.length > 0 ? {repositories} : {}),
 		totals,
 		status,
 		exitCode: status === 'integrity_failure' ? 3 : status === 'authentic_with_findings' ? 1 : 0,

@@ -10,6 +10,7 @@ import type {AuditReport, RecordAudit} from '../audit/audit.js';
 import type {PolicyChange} from '../audit/audit-policy.js';
 import {shortFingerprint} from '../records/key-material.js';
 import {describeProblem} from '../shared/problems.js';
+import {repositoryLines} from './audit-repository-text.js';
 
 /**
  * Text from a record (or a file name) made safe for one line of a terminal: control and
@@ -157,6 +158,7 @@ function tableText(report: AuditReport): string[] {
 export function auditText(report: AuditReport, paint: Paint, width = 100): string {
 	const out = [paint.bold(`prelase ${version} · audit`), `Current rules  ${inline(report.currentRules.name, 80)} · ${inline(displayPath(report.currentRules.file), 200)} · sha256 ${report.currentRules.sha256.slice(0, 16)}`, ''];
 	for (const audit of report.records) out.push(...recordText(audit, paint, width), '');
+	for (const repository of report.repositories ?? []) out.push(...repositoryLines(repository, paint, width), '');
 	const {totals} = report;
 	if (totals.records > 1) out.push(...tableText(report), '');
 	out.push(totalsLine(report), ...resultLines(report, paint, width));

@@ -8,7 +8,7 @@ import {dirname} from 'node:path';
 import {recordsFolder} from './records-folder.js';
 import type {CompiledRules} from '../rules/compile/compiled-rules.js';
 import {settingsFile} from './settings.js';
-import {signAndStore} from './sign-and-store.js';
+import {signAndStore, type StoredRecord} from './sign-and-store.js';
 import {problem, type Problem} from '../shared/problems.js';
 import {failure, success, type Result} from '../shared/result.js';
 
@@ -29,7 +29,7 @@ export type RecordResultsOptions = {
 export type PlanAsTested = {plan: Plan; file: string; text: string};
 
 /** Where the interlock test record went and what it says. */
-export type RecordedTest = {path: string; fingerprint: string; keyCreated: boolean; outcome: 'passed' | 'failed'; outcomeText: string; testedOn: string; tester: string};
+export type RecordedTest = {path: string; fingerprint: string; keyCreated: boolean; outcome: 'passed' | 'failed'; outcomeText: string; testedOn: string; tester: string} & Pick<StoredRecord, 'commit'>;
 
 /**
  * Holds a filled-in test sheet (a results file) against the plan, then records it with
@@ -60,7 +60,7 @@ export function recordTestResults(tested: PlanAsTested, rules: CompiledRules, re
 	if (options.witnessKey !== undefined && results.witness === undefined) return failure([problem('record-witness-missing', {keyName})]);
 	const body = buildTestBody({plan, planFile: tested.file, planText: tested.text, rules, analysis: analysePlan(plan), sheet, results, now});
 	const witness = options.witnessKey !== undefined && body.witness ? {...body.witness, meaning: 'verified' as const, keyFile: options.witnessKey, ownKey: problem('record-witness-own-key', {keyName})} : undefined;
-	const stored = signAndStore(body, body.tester, witness, dirname(settingsFile(env)), recordsFolder(env, options.records), now);
+	const stored = signAndStore(body, body.tester, witness, dirname(settingsFile(env)), recordsFolder(env, options.records), now, env);
 	if (!stored.ok) return stored;
 	return success({...stored.value, outcome: body.outcome, outcomeText: body.outcomeText, testedOn: body.testedOn, tester: body.tester.name});
 }

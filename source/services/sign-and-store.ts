@@ -7,12 +7,13 @@ import {writeRecord} from '../records/store.js';
 import type {Problem} from '../shared/problems.js';
 import {failure, success, type Result} from '../shared/result.js';
 import {stripControl} from '../shared/text.js';
+import {commitRecord} from './records-repository.js';
 
 /** A second person who signs with their own private key file, and the refusal when it is the operator's key. */
 export type SecondSigner = {name: string; role: string; meaning: Exclude<Signer['meaning'], 'performed'>; keyFile: string; ownKey: Problem};
 
-/** Where a signed record was written and with which key. */
-export type StoredRecord = {path: string; fingerprint: string; keyCreated: boolean};
+/** Where a signed record was written and with which key; in a records repository, its commit (or why there is none). */
+export type StoredRecord = {path: string; fingerprint: string; keyCreated: boolean; commit?: string | Problem};
 
 const clean = (text: string) => stripControl(text).trim();
 
@@ -22,7 +23,7 @@ const clean = (text: string) => stripControl(text).trim();
  * mistake (an unreadable key, the second key being the operator's own) comes back as a failure
  * and nothing is written.
  */
-export function signAndStore<Body extends RecordBody | InterlockTestBody>(body: Body, operator: {name: string; role: string}, second: SecondSigner | undefined, settingsFolder: string, folder: string, now?: Date): Result<StoredRecord, Problem> {
+export function signAndStore<Body extends RecordBody | InterlockTestBody>(body: Body, operator: {name: string; role: string}, second: SecondSigner | undefined, settingsFolder: string, folder: string, now?: Date, env: NodeJS.ProcessEnv = process.env): Result<StoredRecord, Problem> {
 	const own = operatorKey(settingsFolder, true);
 	if (!own.ok) return own;
 	const {privateKey, created} = own.value;
@@ -37,7 +38,9 @@ export function signAndStore<Body extends RecordBody | InterlockTestBody>(body: 
 	const key = fingerprint(rawPublicKey(privateKey));
 	// A record of either kind of body is a record: TypeScript cannot see that through the type parameter.
 	const chained: Body = {...body, previous: previousRecord(folder, key)};
-	const path = writeRecord(folder, signRecord(chained, signers, now) as AnyRecord);
+	const record = signRecord(chained, signers, now) as AnyRecord;
+	const path = writeRecord(folder, record);
 	rememberRecord(folder, key, path);
-	return success({path, fingerprint: shortFingerprint(key), keyCreated: created});
+	const commit = commitRecord(folder, [path], record, signers[0]!.signer.name, key, env);
+	return success({path, fingerprint: shortFingerprint(key), keyCreated: created, ...commit});
 }

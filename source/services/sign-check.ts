@@ -8,7 +8,7 @@ import type {Answers} from '../rules/evaluate/answers.js';
 import type {CompiledRules} from '../rules/compile/compiled-rules.js';
 import type {Evaluation} from '../rules/evaluate/evaluation.js';
 import {loadSettings, settingsFile} from './settings.js';
-import {signAndStore, type SecondSigner} from './sign-and-store.js';
+import {signAndStore, type SecondSigner, type StoredRecord} from './sign-and-store.js';
 import {problem, type Problem} from '../shared/problems.js';
 import {failure, success, type Result} from '../shared/result.js';
 import {stripControl} from '../shared/text.js';
@@ -24,7 +24,7 @@ export type SignOptions = {
 };
 
 /** Where a record was written and with which key. */
-export type WrittenRecord = {path: string; fingerprint: string; keyCreated: boolean; folder: string};
+export type WrittenRecord = {path: string; fingerprint: string; keyCreated: boolean; folder: string} & Pick<StoredRecord, 'commit'>;
 
 /**
  * Builds, signs and writes the record of a bench check (in every outcome). A mistake in what
@@ -57,7 +57,7 @@ export function signAndWrite(rules: CompiledRules, answers: Answers, evaluation:
 	const body = buildRecordBody({rules, answers, evaluation, operator: {name, role}, interlockTest, ...(amends ? {amends} : {})});
 	// The rule text goes in first, so that a record never names a text the folder lacks.
 	storeRuleText(folder, rules.text);
-	const stored = signAndStore(body, {name, role}, second, dirname(settingsFile(env)), folder);
+	const stored = signAndStore(body, {name, role}, second, dirname(settingsFile(env)), folder, undefined, env);
 	if (!stored.ok) return stored;
 	return success({...stored.value, folder});
 }

@@ -1,7 +1,7 @@
 import {Box, Text, useApp, useInput, useStdout} from 'ink';
 import {resolve} from 'node:path';
 import {useEffect, useMemo, useRef, useState} from 'react';
-import {signAndWrite} from '../services/sign-check.js';
+import {signAndWrite, type WrittenRecord} from '../services/sign-check.js';
 import {cachedLinker} from '../interlock/functional-test/test-link.js';
 import {recordsFolder, trustedFingerprints} from '../services/records-folder.js';
 import {loadDraft, removeDraft, saveDraft, type Draft} from '../services/drafts/draft-store.js';
@@ -69,7 +69,7 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 	const [help, setHelp] = useState(false);
 	const [info, setInfo] = useState<{title: string; lines: string[]}>({title: '', lines: []});
 	const [signError, setSignError] = useState<string | undefined>();
-	const [written, setWritten] = useState<{path: string; fingerprint: string} | undefined>();
+	const [written, setWritten] = useState<Pick<WrittenRecord, 'path' | 'fingerprint' | 'commit'> | undefined>();
 	const [draft, setDraft] = useState<Draft | undefined>(() => loadDraft(settings.folder));
 
 	// Read from disk when a screen is entered, not on every frame drawn.
@@ -181,7 +181,7 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 		settings.write({operator: form.name.trim(), role: form.role.trim()});
 		removeDraft(settings.folder);
 		setDraft(undefined);
-		setWritten({path: result.value.path, fingerprint: result.value.fingerprint});
+		setWritten({path: result.value.path, fingerprint: result.value.fingerprint, ...(result.value.commit === undefined ? {} : {commit: result.value.commit})});
 		setSignError(undefined);
 		setScreen('done');
 	};
@@ -231,6 +231,7 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 			<DoneScreen
 				path={written.path}
 				fingerprint={written.fingerprint}
+				{...(written.commit === undefined ? {} : {commit: written.commit})}
 				outcome={session.evaluation.outcome}
 				setup={session.setup}
 				onSaveSetup={() => saveSetup(settings.folder, {name: session.setup || 'unnamed setup', entries: {...session.entries}, savedAt: new Date().toISOString()})}

@@ -4,9 +4,11 @@ import {useState} from 'react';
 import {deferral} from '../shared/deferral.js';
 import {stripControl} from '../shared/text.js';
 import {outcomeStyle} from './verdict-style.js';
+import {commitNote} from '../render/record-commit-text.js';
+import type {Problem} from '../shared/problems.js';
 
 /** After signing: where the record is, and saving the inputs as a named setup. */
-export function DoneScreen(props: {path: string; fingerprint: string; outcome: keyof typeof outcomeStyle; setup: string; onSaveSetup(): string; onHome(): void}) {
+export function DoneScreen(props: {path: string; fingerprint: string; outcome: keyof typeof outcomeStyle; setup: string; /** In a records repository: the record's commit, or why it was not committed. */ commit?: string | Problem; onSaveSetup(): string; onHome(): void}) {
 	const [saved, setSaved] = useState<string | undefined>();
 	useKeystrokes((input, key) => {
 		if (input === 's' && !saved) setSaved(props.onSaveSetup());
@@ -20,6 +22,11 @@ export function DoneScreen(props: {path: string; fingerprint: string; outcome: k
 			</Text>
 			<Text wrap="wrap">{props.path}</Text>
 			<Text>Key {props.fingerprint}</Text>
+			{props.commit === undefined ? null : (
+				<Text wrap="wrap" {...(typeof props.commit === 'string' ? {} : {color: 'red'})}>
+					{commitNote(props).trimEnd()}
+				</Text>
+			)}
 			<Text>
 				Outcome: <Text color={outcome.color}>{outcome.label}</Text>
 			</Text>

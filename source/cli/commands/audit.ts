@@ -8,6 +8,8 @@ import {auditSummaryLines} from '../../render/audit-summary-text.js';
 import {ownFingerprint, readTrusted} from '../../records/key-files.js';
 import {loadRules, shippedRulesPath} from '../../rules/load.js';
 import {openSettings} from '../../services/settings.js';
+import {isRecordsRepository} from '../../services/records-repository.js';
+import {readRepositoryHistory} from '../../services/records-history.js';
 import {terminalSafeJson} from '../../shared/text.js';
 import {UsageError} from '../usage-error.js';
 import {commandHelp, helpOption, parseOptions, type Command, type Io} from '../command.js';
@@ -52,6 +54,7 @@ const options = {
 	rules: {type: 'string', value: 'FILE', summary: 'The current rules (default: the rulesFile setting, else the shipped rules/default.yaml)'},
 	json: {type: 'boolean', summary: 'Print everything the audit found as JSON'},
 	all: {type: 'boolean', summary: `List every record in full (by default, more than ${listAllUpTo} records are summarised: totals, findings, then the records with findings)`},
+	remote: {type: 'boolean', summary: 'For a records repository: also compare its history with its remote (a rewritten history is a finding)'},
 	help: helpOption,
 } as const;
 
@@ -67,6 +70,8 @@ export function runAudit(args: string[], io: Io): number {
 	if (missing.length > 0) throw new UsageError(`no such file or folder: ${missing.map((path) => inline(path, 200)).join(', ')}`);
 	if (files.length === 0) throw new UsageError(`no record files in ${positionals.map((path) => inline(path, 200)).join(', ')} (dotfiles and *.tmp are left out)`);
 
+	const folders = positionals.filter((path) => isRecordsRepository(path));
+	if (values.remote && folders.length === 0) throw new UsageError('--remote compares a records repository with its remote, and none of the folders given is one (prelase records init)');
 	const settings = openSettings(io.env);
 	const rulesFile = values.rules ?? settings.read().rulesFile ?? shippedRulesPath();
 	const current = loadRules(rulesFile);
@@ -79,6 +84,7 @@ export function runAudit(args: string[], io: Io): number {
 		trust: {own: ownFingerprint(settings.folder), trusted: readTrusted(settings.folder)},
 		listing: values.all || files.length <= listAllUpTo ? 'all' : 'summary',
 		...(bar ? {onProgress: bar.update} : {}),
+		repositories: folders.map((folder) => readRepositoryHistory(folder, values.remote ?? false, io.env)),
 	});
 	bar?.end();
 	const paint = paintFor(io.stdout, io.env);
@@ -92,13 +98,13 @@ export function runAudit(args: string[], io: Io): number {
 export const auditCommand: Command = {
 	name: 'audit',
 	summary: 'Check signed records: authentic, consistent, and what the current rules change',
-	usage: 'prelase audit PATH... [--rules FILE] [--json] [--all]',
+	usage: 'prelase audit PATH... [--rules FILE] [--json] [--all] [--remote]',
 	options,
 	help: {
 		intro: `prelase audit — check signed records
 
 Usage:
-  prelase audit PATH... [--rules FILE] [--json] [--all]
+  prelase audit PATH... [--rules FILE] [--json] [--all] [--remote]
 
 PATH is a record file or a folder of records (searched recursively; dotfiles and *.tmp are
 left out). For each record the audit checks:
@@ -115,6 +121,10 @@ left out). For each record the audit checks:
   rule text      a record names the rule text it was made under by SHA-256; the text is
                  stored once in the records folder (rules/<sha256>.yaml): a text missing,
                  unreadable or not matching its hash is a finding
+  repository     for a records folder that is a git repository (prelase records init): its
+                 history, where a record changed or deleted after its commit, a record left
+                 uncommitted, and with --remote a remote whose history was rewritten, are
+                 findings that name the commit
 Record age and interlock test dates are reported as not checked: rule files set no
 validity period or test interval yet.
 
@@ -126,7 +136,8 @@ when more than ${progressAbove} records are audited.`,
   0  every record is authentic and consistent, with no findings
   1  every record is authentic, with findings
   2  bad usage (no PATH, a PATH that does not exist, a current rule file with problems)
-  3  integrity failure in a record (altered, unsigned or unreadable)
+  3  integrity failure in a record (altered, unsigned or unreadable), or a records repository
+     whose history shows a record changed or deleted, or a rewritten remote
 
 The audit says whether a record is authentic and whether its conclusions follow from its
 numbers; it never says a setup is safe. The laser safety officer has the final word.`,

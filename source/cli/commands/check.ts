@@ -17,6 +17,7 @@ import {commandHelp, helpOption, parseOptions, type Command, type Io} from '../c
 import {signAndWrite} from '../../services/sign-check.js';
 import {terminalSafeJson} from '../../shared/text.js';
 import {isInteractive, startScreens} from '../screens.js';
+import {commitNote} from '../../render/record-commit-text.js';
 
 export type {Io} from '../command.js';
 
@@ -100,11 +101,12 @@ function finishCheck(rules: CompiledRules, linked: {answers: Answers; link: Inte
 					),
 				);
 	if (values.json) {
-		const json = {...evaluationToJson(rules, linked.answers, evaluation), ...(linked.link ? {interlockTest: linked.link} : {}), ...(written ? {record: {path: written.path, fingerprint: written.fingerprint}} : {})};
+		const json = {...evaluationToJson(rules, linked.answers, evaluation), ...(linked.link ? {interlockTest: linked.link} : {}), ...(written ? {record: {path: written.path, fingerprint: written.fingerprint, ...(typeof written.commit === 'string' ? {commit: written.commit} : {})}} : {})};
 		io.stdout.write(`${terminalSafeJson(json)}\n`);
+		if (written && typeof written.commit === 'object') io.stderr.write(commitNote(written));
 	} else {
 		io.stdout.write(`${checkText(rules, linked.answers, evaluation, paintFor(io.stdout, io.env), io.stdout.columns ?? 100, linked.link)}\n`);
-		if (written) io.stdout.write(`\nRecord written: ${written.path}\nSigned with key ${written.fingerprint}${written.keyCreated ? ' (a new key, created now; share it with: prelase keys export)' : ''}\n`);
+		if (written) io.stdout.write(`\nRecord written: ${written.path}\nSigned with key ${written.fingerprint}${written.keyCreated ? ' (a new key, created now; share it with: prelase keys export)' : ''}\n${commitNote(written)}`);
 	}
 	return evaluation.outcome === 'clear_to_energize' ? 0 : 1;
 }

@@ -5,11 +5,12 @@ import {calcCommand} from './calc.js';
 import {checkCommand} from './check.js';
 import {keysCommand} from './keys.js';
 import {planCommand} from './plan.js';
+import {recordsCommand} from './records.js';
 import {reportCommand} from './report.js';
 import {rulesCommand} from './rules.js';
 
 /** Every command, in the order the main help lists them. */
-export const commands: readonly Command[] = [checkCommand, calcCommand, rulesCommand, keysCommand, reportCommand, auditCommand, planCommand];
+export const commands: readonly Command[] = [checkCommand, calcCommand, rulesCommand, keysCommand, reportCommand, auditCommand, planCommand, recordsCommand];
 
 /** The main help: usage lines and the command list come from the commands' declarations. */
 export function mainHelp(list: readonly Command[] = commands): string {

@@ -17,6 +17,7 @@ import {interlockTestCaution} from '../../interlock/functional-test/test-record.
 import {UsageError, valueOrUsageError} from '../usage-error.js';
 import {commandHelp, helpOption, parseOptions, type Command, type Io} from '../command.js';
 import {editPlan} from './plan-screen.js';
+import {commitNote} from '../../render/record-commit-text.js';
 
 const sheetWriters = {md: testSheetMarkdown, html: testSheetHtml};
 
@@ -91,6 +92,7 @@ export function runPlan(args: string[], io: Io): number | Promise<number> {
 				...(plan.location === undefined ? ['The plan names no location: no bench check can use this test. Add location: (room and bench) to the plan and test the loop again.'] : []),
 				`Record written: ${recorded.path}`,
 				`Signed with key ${recorded.fingerprint}${recorded.keyCreated ? ' (a new key, created now; share it with: prelase keys export)' : ''}`,
+				...(commitNote(recorded) ? [commitNote(recorded).trimEnd()] : []),
 				'',
 				interlockTestCaution,
 				deferral,

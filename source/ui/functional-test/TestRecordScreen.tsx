@@ -5,6 +5,7 @@ import {interlockTestCaution} from '../../interlock/functional-test/test-record.
 import {stripControl} from '../../shared/text.js';
 import {strayShown} from '../answer-key.js';
 import {entryCounts, entryOutcome, peopleFields, signRow, type StepEntry, type TestEntry} from './test-entry.js';
+import {commitNote} from '../../render/record-commit-text.js';
 
 const markStyle: Record<NonNullable<StepEntry['result']>, {label: string; color: string}> = {
 	pass: {label: '✓ pass', color: 'green'},
@@ -159,6 +160,11 @@ function Recorded({entry}: {entry: TestEntry}) {
 				Signed with key {recorded.fingerprint}
 				{recorded.keyCreated ? ' (a new key, created now; share it with: prelase keys export)' : ''}
 			</Text>
+			{recorded.commit === undefined ? null : (
+				<Text wrap="wrap" {...(typeof recorded.commit === 'string' ? {} : {color: 'red'})}>
+					{commitNote(recorded).trimEnd()}
+				</Text>
+			)}
 			<Box marginTop={1} flexDirection="column">
 				<Text wrap="wrap">{interlockTestCaution}</Text>
 				<Text wrap="wrap">{deferral}</Text>

@@ -339,7 +339,7 @@ describe('prelase audit --help', () => {
 		expect(stdout).toContain('3  integrity failure');
 		expect(stdout).toMatch(/--all\s+List every record in full/);
 		expect(stdout).toContain('more than 20 records are summarised');
-		expect(helpTexts.main).toMatch(/\n {2}audit {4}Check signed records: authentic, consistent, and what the current rules change\n/);
+		expect(helpTexts.main).toMatch(/\n {2}audit {5}Check signed records: authentic, consistent, and what the current rules change\n/);
 	});
 });
 
