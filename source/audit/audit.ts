@@ -19,6 +19,8 @@ import {policyReport, type PolicyReport} from './audit-policy.js';
 import {signatureReports, type SignatureReport, type Trust} from './audit-trust.js';
 import type {RecordBody} from '../records/record-schema.js';
 import {locationInput} from '../interlock/plan/plan-input.js';
+import {signingFindings} from './audit-signing.js';
+import {signingPolicy} from './signing-policy.js';
 
 /** A finding with its message in words. */
 export type ReportedFinding = Finding & {text: string};
@@ -107,7 +109,7 @@ function historyEntry(file: string, bodySha256: string, body: RecordBody): Histo
 }
 
 /** Audits one authentic record's contents: consistency under its own rules, and what the current rules would change. */
-function auditContents(body: RecordBody, rules: RuleCache, current: CompiledRules): {consistency: NonNullable<RecordAudit['consistency']>; policy: PolicyReport; findings: Finding[]} {
+function auditContents(body: RecordBody, rules: RuleCache, current: CompiledRules): {consistency: NonNullable<RecordAudit['consistency']>; policy: PolicyReport; findings: Finding[]; switchedOff: number} {
 	const findings: Finding[] = [];
 	const embedded = rules.get(body.rules.text, body.rules.sha256, body.rules.file);
 	if (embedded.sha256 !== body.rules.sha256) findings.push(finding('consistency', 'audit-rules-hash-mismatch', {stated: body.rules.sha256, actual: embedded.sha256}));
@@ -125,7 +127,7 @@ function auditContents(body: RecordBody, rules: RuleCache, current: CompiledRule
 	const read = own && own.rules === current ? own.read : answersFromRecord(current, body);
 	const evaluation = own && own.rules === current ? own.evaluation : evaluate(current, read.answers);
 	const policy = policyReport(body, current, read, evaluation);
-	return {consistency, policy: policy.report, findings: [...findings, ...policy.findings]};
+	return {consistency, policy: policy.report, findings: [...findings, ...policy.findings], switchedOff: own?.rules.switchedOff.length ?? 0};
 }
 
 const emptyFindings = (): Record<FindingKind, number> => ({integrity: 0, trust: 0, consistency: 0, policy: 0, history: 0});
@@ -140,6 +142,7 @@ const emptyFindings = (): Record<FindingKind, number> => ({integrity: 0, trust: 
 export function auditRecords(files: readonly string[], options: AuditOptions): AuditReport {
 	const keys = new KeyCache();
 	const rules = new RuleCache(options.current);
+	const signing = signingPolicy(options.current);
 	const audits: Array<Omit<RecordAudit, 'findings'> & {findings: Finding[]}> = [];
 	const entries: HistoryEntry[] = [];
 	const entryOf: number[] = [];
@@ -149,14 +152,16 @@ export function auditRecords(files: readonly string[], options: AuditOptions): A
 		const body = checked.record?.body;
 		const record = body?.kind === 'bench-check' ? summarise(body) : null;
 		const interlockTest = body?.kind === 'interlock-test' ? summariseInterlockTest(body) : null;
-		const trust = checked.record ? signatureReports(checked.record, checked.signatures, options.trust) : {signatures: [], findings: []};
+		const trust = checked.record ? signatureReports(checked.record, checked.signatures, options.trust, signing.authorityRoles) : {signatures: [], findings: []};
+		const versionNote = checked.record?.version === 1 ? [{item: 'signature-order', text: describeFinding({code: 'audit-not-checked-signature-order', data: {}})}] : [];
 		if (!checked.ok) {
 			audits.push({file, authentic: false, bodySha256: null, record, interlockTest, signatures: trust.signatures, consistency: null, currentPolicy: null, history: null, notChecked: [], findings: [checked.finding]});
 		} else if (checked.record.body.kind === 'interlock-test') {
 			const contents = interlockTestConsistency(checked.record.body);
 			const consistency = {reevaluated: contents.reevaluated, consistent: contents.findings.length === 0, rulesSha256: checked.record.body.policy.rules.sha256};
 			const today = interlockTestToday(checked.record.body, options.current, options.now ?? new Date(), contents.findings.length === 0);
-			audits.push({file, authentic: true, bodySha256: checked.bodySha256, record, interlockTest, signatures: trust.signatures, consistency, currentPolicy: null, history: null, notChecked: [], findings: [...trust.findings, ...contents.findings, ...today]});
+			const signed = signingFindings(checked.record.body, trust.signatures, signing);
+			audits.push({file, authentic: true, bodySha256: checked.bodySha256, record, interlockTest, signatures: trust.signatures, consistency, currentPolicy: null, history: null, notChecked: versionNote, findings: [...trust.findings, ...signed, ...contents.findings, ...today]});
 		} else {
 			const contents = auditContents(checked.record.body, rules, options.current);
 			benchLocations.set(audits.length, checked.record.body.inputs[locationInput]?.entered);
@@ -172,8 +177,8 @@ export function auditRecords(files: readonly string[], options: AuditOptions): A
 				consistency: contents.consistency,
 				currentPolicy: contents.policy,
 				history: null,
-				notChecked: notChecked.map(({item, code}) => ({item, text: describeFinding({code, data: {}})})),
-				findings: [...trust.findings, ...contents.findings],
+				notChecked: [...notChecked.map(({item, code}) => ({item, text: describeFinding({code, data: {}})})), ...versionNote],
+				findings: [...trust.findings, ...signingFindings(checked.record.body, trust.signatures, signing, {switchedOff: contents.switchedOff}), ...contents.findings],
 			});
 		}
 		options.onProgress?.(index + 1, files.length);

@@ -45,7 +45,7 @@ let home: string;
 beforeAll(() => {
 	folder = mkdtempSync(join(tmpdir(), 'prelase-interlock-link-'));
 	home = join(folder, 'home');
-	operatorKey(home, true);
+	operatorKey(home, true, 'Ines Marlow');
 });
 afterAll(() => rmSync(folder, {recursive: true, force: true}));
 

@@ -28,7 +28,7 @@ export function sampleAnswers(rules: CompiledRules): Answers {
 }
 
 /** One signer with a fresh key, or the key given. */
-export function signerWith(name: string, meaning: Signer['meaning'], key: KeyObject = generateKeyPair().privateKey, role = 'bench operator'): {signer: Signer; key: KeyObject} {
+export function signerWith(name: string, meaning: 'performed' | 'verified' | 'approved', key: KeyObject = generateKeyPair().privateKey, role = 'bench operator'): {signer: Signer; key: KeyObject} {
 	return {signer: {name, role, meaning}, key};
 }
 

@@ -16,6 +16,7 @@ import {interlockPolicy} from '../plan/policy.js';
 import {interlockPlanInput, locationInput} from '../plan/plan-input.js';
 import {futureDated, latestTest, normaliseLocation} from './test-choice.js';
 import {reasonsUnderPolicy} from './test-rejudge.js';
+import {operatorSignatureIndex} from '../../records/signature-purpose.js';
 
 /** A test record that passed integrity checking and whose first signer's key is trusted. */
 export type FoundTest = {file: string; bodySha256: string; body: InterlockTestBody};
@@ -57,7 +58,7 @@ export function addDays(day: string, days: number): string {
 
 /**
  * The interlock test records in a folder (its own files only, named as prelase names them):
- * authentic, and first signed with a trusted key. Returns them with how many were passed over.
+ * authentic, and signed by their operator (tester) with a trusted key. Returns them with how many were passed over.
  */
 export function findTestRecords(folder: string, trusted: ReadonlySet<string>): {found: FoundTest[]; untrusted: number; damaged: number} {
 	let names: string[];
@@ -77,7 +78,7 @@ export function findTestRecords(folder: string, trusted: ReadonlySet<string>): {
 			damaged += 1;
 			continue;
 		}
-		if (!trusted.has(read.record.signatures[0]!.fingerprint)) {
+		if (!trusted.has(read.record.signatures[operatorSignatureIndex(read.record.signatures)]?.fingerprint ?? '')) {
 			untrusted += 1;
 			continue;
 		}
