@@ -182,7 +182,7 @@ export const messages = {
 	'record-witness-missing': '{{keyName}} needs a witness in the results file (witness: {name, role})',
 	'record-witness-own-key': '{{keyName}} is the tester\'s own key; the witness signs with a key of their own',
 	'key-file-open': 'the key file {{path}} can be read by others (mode {{mode}}); run: chmod 600 {{path}}',
-	'key-none-yet': 'no signing key yet; create one with: prelase keys',
+	'key-none-yet': 'no signing key yet; create one with: prelase keys --name NAME',
 	'key-file-unreadable': 'the key file {{path}} cannot be read as a private key ({{detail}})',
 	'key-file-missing': 'no key file at {{path}}',
 	'key-file-not-private': '{{path}} is not a private key ({{detail}})',
