@@ -3,7 +3,9 @@ import {mkdtempSync, readFileSync, rmSync, writeFileSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {join} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
-import type {AuditReport} from '../../source/audit/audit.js';
+import {auditRecords, type AuditReport} from '../../source/audit/audit.js';
+import {ownFingerprint} from '../../source/records/key-files.js';
+import {sampleRules} from '../helpers/sample-record.js';
 import {operatorPrivateKey} from '../helpers/operator-key.js';
 import {generateKeyPair} from '../../source/records/key-material.js';
 import type {InterlockTestBody, InterlockTestRecord} from '../../source/records/record-schema.js';
@@ -280,5 +282,16 @@ describe('audit of a witnessed interlock test record', () => {
 		expect(code).toBe(1);
 		expect(stdout).toContain('witnessed by Tomas Reyes, deputy laser safety officer (named, not signed)');
 		expect(stdout).toContain('[trust] the witness Tomas Reyes is named, not signed: no signature with the purpose witness; a witness who did not sign is not a witness');
+	});
+});
+
+describe('a policy that requires a signed witness for interlock functional tests', () => {
+	it('an interlock test record without a witness signature is a policy finding; without the policy it is not', () => {
+		const rules = sampleRules();
+		const trust = {own: ownFingerprint(home), trusted: []};
+		const strict = {...rules, rules: {...rules.rules, signing: {signed_witness_for_interlock_tests: true}}};
+		const found = (current: typeof rules) => auditRecords([freshPath], {current, trust}).records[0]!.findings.map((entry) => [entry.code, entry.text]);
+		expect(found(strict)).toEqual([['audit-witness-signature-required', 'the policy requires a signed witness for an interlock functional test, and this record has no witness signature by a trusted key']]);
+		expect(found(rules)).toEqual([]);
 	});
 });
