@@ -27,6 +27,8 @@ import type {RecordBody} from '../records/record-schema.js';
 import {locationInput} from '../interlock/plan/plan-input.js';
 import {RuleTexts} from './audit-rule-texts.js';
 import {reviewRepository, type RepositoryHistory} from './audit-repository.js';
+import {signingFindings} from './audit-signing.js';
+import {signingPolicy} from './signing-policy.js';
 
 /** A finding with its message in words. */
 export type ReportedFinding = Finding & {text: string};
@@ -104,7 +106,7 @@ function historyEntry(file: string, bodySha256: string, body: RecordBody): Histo
 }
 
 /** Audits one authentic record's contents: consistency under its own rules, and what the current rules would change. */
-function auditContents(body: RecordBody, file: string, rules: RuleTexts, current: CompiledRules): {consistency: NonNullable<RecordAudit['consistency']>; policy: PolicyReport; findings: Finding[]} {
+function auditContents(body: RecordBody, file: string, rules: RuleTexts, current: CompiledRules): {consistency: NonNullable<RecordAudit['consistency']>; policy: PolicyReport; findings: Finding[]; switchedOff: number} {
 	const own = rules.forRecord(body, file);
 	const findings: Finding[] = [...own.findings];
 	let judged: {rules: CompiledRules; read: RecordAnswers; evaluation: Evaluation} | undefined;
@@ -119,7 +121,7 @@ function auditContents(body: RecordBody, file: string, rules: RuleTexts, current
 	const read = judged && judged.rules === current ? judged.read : answersFromRecord(current, body);
 	const evaluation = judged && judged.rules === current ? judged.evaluation : evaluate(current, read.answers);
 	const policy = policyReport(body, current, read, evaluation);
-	return {consistency, policy: policy.report, findings: [...findings, ...policy.findings]};
+	return {consistency, policy: policy.report, findings: [...findings, ...policy.findings], switchedOff: judged?.rules.switchedOff.length ?? 0};
 }
 
 const emptyFindings = (): Record<FindingKind, number> => ({integrity: 0, trust: 0, consistency: 0, policy: 0, history: 0});
@@ -128,7 +130,7 @@ const emptyFindings = (): Record<FindingKind, number> => ({integrity: 0, trust: 
 type Judged = Omit<RecordAudit, 'findings'> & {findings: Finding[]};
 
 /** What the per-record step needs besides the file. */
-type RunContext = {keys: KeyCache; rules: RuleTexts; options: AuditOptions; now: Date; notChecked: ReadonlyArray<{item: string; text: string}>};
+type RunContext = {keys: KeyCache; rules: RuleTexts; options: AuditOptions; now: Date; notChecked: ReadonlyArray<{item: string; text: string}>; signing: ReturnType<typeof signingPolicy>};
 
 /** What one record leaves for the end of the run: its audit, and for a bench check what relates it to the others. */
 type Judgement = {audit: Judged; bench?: {entry: HistoryEntry; location: string | undefined}; /** The earlier file this one is a byte-identical copy of. */ copyOf?: string};
@@ -146,7 +148,8 @@ function judgeRecord(file: string, index: number, chain: ChainAudit, context: Ru
 	const body = checked.record?.body;
 	const record = body?.kind === 'bench-check' ? summarise(body) : null;
 	const interlockTest = body?.kind === 'interlock-test' ? summariseInterlockTest(body) : null;
-	const trust = checked.record ? signatureReports(checked.record, checked.signatures, options.trust) : {signatures: [], findings: []};
+	const trust = checked.record ? signatureReports(checked.record, checked.signatures, options.trust, context.signing.authorityRoles) : {signatures: [], findings: []};
+	const versionNote = checked.record?.version === 1 ? [{item: 'signature-order', text: describeProblem({code: 'audit-not-checked-signature-order', data: {}})}] : [];
 	if (!checked.ok) {
 		return {audit: {file, authentic: false, bodySha256: null, record, interlockTest, signatures: trust.signatures, consistency: null, currentPolicy: null, history: null, notChecked: [], findings: [checked.finding]}};
 	}
@@ -154,7 +157,8 @@ function judgeRecord(file: string, index: number, chain: ChainAudit, context: Ru
 		const contents = interlockTestConsistency(checked.record.body);
 		const consistency = {reevaluated: contents.reevaluated, consistent: contents.findings.length === 0, rulesSha256: checked.record.body.policy.rules.sha256};
 		const today = interlockTestToday(checked.record.body, options.current, context.now, contents.findings.length === 0);
-		return {audit: {file, authentic: true, bodySha256: checked.bodySha256, record, interlockTest, signatures: trust.signatures, consistency, currentPolicy: null, history: null, notChecked: [], findings: [...trust.findings, ...contents.findings, ...today]}};
+		const signed = signingFindings(checked.record.body, trust.signatures, context.signing);
+		return {audit: {file, authentic: true, bodySha256: checked.bodySha256, record, interlockTest, signatures: trust.signatures, consistency, currentPolicy: null, history: null, notChecked: versionNote, findings: [...trust.findings, ...signed, ...contents.findings, ...today]}};
 	}
 	const contents = auditContents(checked.record.body, file, rules, options.current);
 	return {
@@ -168,8 +172,8 @@ function judgeRecord(file: string, index: number, chain: ChainAudit, context: Ru
 			consistency: contents.consistency,
 			currentPolicy: contents.policy,
 			history: null,
-			notChecked: [...context.notChecked],
-			findings: [...trust.findings, ...contents.findings],
+			notChecked: [...context.notChecked, ...versionNote],
+			findings: [...trust.findings, ...signingFindings(checked.record.body, trust.signatures, context.signing, {switchedOff: contents.switchedOff}), ...contents.findings],
 		},
 		bench: {entry: historyEntry(file, checked.bodySha256, checked.record.body), location: checked.record.body.inputs[locationInput]?.entered},
 		...(copyOf === undefined ? {} : {copyOf}),
@@ -240,7 +244,7 @@ const reported = (found: Finding): ReportedFinding => ({...found, text: describe
  */
 export function auditRecords(files: readonly string[], options: AuditOptions): AuditReport {
 	const listing = options.listing ?? 'all';
-	const context: RunContext = {keys: new KeyCache(), rules: new RuleTexts(options.current), options, now: options.now ?? new Date(), notChecked: notChecked.map(({item, code}) => ({item, text: describeProblem({code, data: {}})}))};
+	const context: RunContext = {keys: new KeyCache(), rules: new RuleTexts(options.current), options, now: options.now ?? new Date(), notChecked: notChecked.map(({item, code}) => ({item, text: describeProblem({code, data: {}})})), signing: signingPolicy(options.current)};
 	const audits: Judged[] = [];
 	const keep = new Interned();
 	const entries: HistoryEntry[] = [];

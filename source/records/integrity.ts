@@ -7,6 +7,7 @@ import {unsafeJsonKey} from './unsafe-json-names.js';
 import {fingerprint, publicKeyFromRaw} from './key-material.js';
 import {schemaForRecord, type AnyRecord, type Signature} from './record-schema.js';
 import {verifyBytes} from './sign.js';
+import {signatureOrderFinding, signatureShapeFinding} from './signature-order.js';
 
 /** Whether one signature verified, and if not, why (a message code). */
 export type SignatureCheck = {index: number; valid: boolean; code?: Finding['code']; what?: string};
@@ -79,6 +80,8 @@ export function checkIntegrity(text: string, keys: KeyCache): IntegrityCheck {
 		return {ok: false, finding: finding('integrity', 'audit-not-record', {field, detail: issue?.message ?? 'invalid'})};
 	}
 	const record = parsed.data;
+	const shape = signatureShapeFinding(record);
+	if (shape) return {ok: false, record, finding: shape};
 	let body: string;
 	try {
 		body = canonicalize(record.body) ?? '';
@@ -91,6 +94,8 @@ export function checkIntegrity(text: string, keys: KeyCache): IntegrityCheck {
 		const signer = record.signatures[bad.index]!.signer.name;
 		return {ok: false, record, signatures, finding: finding('integrity', bad.code!, {index: bad.index + 1, signer, ...(bad.what ? {what: bad.what} : {})})};
 	}
+	const order = record.version === 2 ? signatureOrderFinding(record.signatures) : undefined;
+	if (order) return {ok: false, record, signatures, finding: order};
 	return {ok: true, record, signatures, bodySha256: sha256Hex(body)};
 }
 

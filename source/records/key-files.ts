@@ -7,11 +7,15 @@ import {problem, type Problem} from '../shared/problems.js';
 import {ProblemError} from '../shared/problem-error.js';
 import {failure, success, type Result} from '../shared/result.js';
 import {fingerprint, generateKeyPair, rawPublicKey} from './key-material.js';
+import {cleanKeyName, nameInPem, pemWithName} from './key-name.js';
 
-/** A colleague's public key that this operator trusts. */
-export type TrustedKey = {name: string; publicKey: string; fingerprint: string; addedAt: string};
+/**
+ * A colleague's public key that this operator trusts: under a name, with the roles granted to
+ * it (when any), and the date from which it is revoked (when it is).
+ */
+export type TrustedKey = {name: string; publicKey: string; fingerprint: string; addedAt: string; roles?: string[]; revokedFrom?: string};
 
-const trustedSchema = array(object({name: string(), publicKey: string(), fingerprint: string(), addedAt: string()}).strict());
+const trustedSchema = array(object({name: string(), publicKey: string(), fingerprint: string(), addedAt: string(), roles: array(string()).optional(), revokedFrom: string().optional()}).strict());
 
 /** Where the operator's keys and trusted keys live: a `keys` folder beside the settings. */
 export function keyFolder(settingsFolder: string): string {
@@ -25,43 +29,76 @@ function notPrivate(path: string): Problem | undefined {
 	return mode & 0o077 ? problem('key-file-open', {path, mode: mode.toString(8)}) : undefined;
 }
 
-/** The operator's private key, created on first use with owner-only permissions. */
-export function operatorKey(settingsFolder: string, create: boolean): Result<{privateKey: KeyObject; created: boolean; path: string}, Problem> {
+/** The operator's key: the private key, whether it was just made, its file, and its holder's name (undefined for a key made without one). */
+export type OperatorKey = {privateKey: KeyObject; created: boolean; path: string; name: string | undefined};
+
+/**
+ * The operator's private key, created on first use with owner-only permissions and with the
+ * holder's name (`name`), which a key cannot be created without.
+ */
+export function operatorKey(settingsFolder: string, create: boolean, name?: string): Result<OperatorKey, Problem> {
 	const folder = keyFolder(settingsFolder);
 	const path = join(folder, 'operator.key');
 	if (!existsSync(path)) {
 		if (!create) return failure([problem('key-none-yet')]);
+		const holder = cleanKeyName(name ?? '');
+		if (!holder) return failure([problem('key-no-name')]);
 		mkdirSync(folder, {recursive: true, mode: 0o700});
 		const {privateKey} = generateKeyPair();
-		writeFileSync(path, privateKey.export({format: 'pem', type: 'pkcs8'}), {mode: 0o600, flag: 'wx'});
+		writeFileSync(path, pemWithName(String(privateKey.export({format: 'pem', type: 'pkcs8'})), holder), {mode: 0o600, flag: 'wx'});
 		chmodSync(path, 0o600);
-		writeFileSync(join(folder, 'operator.pub'), publicKeyPem(privateKey), {mode: 0o644});
-		return success({privateKey, created: true, path});
+		writeFileSync(join(folder, 'operator.pub'), publicKeyPem(privateKey, holder), {mode: 0o644});
+		return success({privateKey, created: true, path, name: holder});
 	}
 	const open = notPrivate(path);
 	if (open) return failure([open]);
 	try {
-		return success({privateKey: createPrivateKey(readFileSync(path)), created: false, path});
+		const text = readFileSync(path, 'utf8');
+		return success({privateKey: createPrivateKey(text), created: false, path, name: nameInPem(text)});
 	} catch (error) {
 		return failure([problem('key-file-unreadable', {path, detail: (error as Error).message})]);
 	}
 }
 
+/**
+ * Names the operator's key once (a key made by an earlier version carries no name). The same
+ * name again is accepted; another name is refused: a key belongs to one person.
+ */
+export function nameOperatorKey(settingsFolder: string, name: string): Result<OperatorKey, Problem> {
+	const own = operatorKey(settingsFolder, true, name);
+	if (!own.ok || own.value.created) return own;
+	const holder = cleanKeyName(name);
+	if (!holder) return failure([problem('key-no-name')]);
+	if (own.value.name !== undefined) return own.value.name === holder ? own : failure([problem('key-name-set', {name: own.value.name})]);
+	const {privateKey, path} = own.value;
+	writeFileSync(path, pemWithName(readFileSync(path, 'utf8'), holder), {mode: 0o600});
+	writeFileSync(join(keyFolder(settingsFolder), 'operator.pub'), publicKeyPem(privateKey, holder), {mode: 0o644});
+	return success({...own.value, name: holder});
+}
+
 /** A private key from a file another person gave (a second signer's key on this machine). */
 export function keyFromFile(path: string): Result<KeyObject, Problem> {
+	const named = namedKeyFromFile(path);
+	return named.ok ? success(named.value.key) : named;
+}
+
+/** A private key file with the name of its holder (undefined for a key made without one). */
+export function namedKeyFromFile(path: string): Result<{key: KeyObject; name: string | undefined}, Problem> {
 	if (!existsSync(path)) return failure([problem('key-file-missing', {path})]);
 	const open = notPrivate(path);
 	if (open) return failure([open]);
 	try {
-		return success(createPrivateKey(readFileSync(path)));
+		const text = readFileSync(path, 'utf8');
+		return success({key: createPrivateKey(text), name: nameInPem(text)});
 	} catch (error) {
 		return failure([problem('key-file-not-private', {path, detail: (error as Error).message})]);
 	}
 }
 
-/** The PEM form of the public half of a key. */
-export function publicKeyPem(key: KeyObject): string {
-	return String((key.type === 'private' ? createPublicKey(key) : key).export({format: 'pem', type: 'spki'}));
+/** The PEM form of the public half of a key, with its holder's name before it when given. */
+export function publicKeyPem(key: KeyObject, name?: string): string {
+	const pem = String((key.type === 'private' ? createPublicKey(key) : key).export({format: 'pem', type: 'spki'}));
+	return name ? pemWithName(pem, name) : pem;
 }
 
 function trustedPath(settingsFolder: string): string {

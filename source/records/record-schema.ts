@@ -12,10 +12,18 @@ const person = object({name: text.min(1), role: text}).strict();
  */
 export const chainLinkSchema = object({file: text.min(1), sha256: sha256Hex}).strict().nullable();
 
-/** Who signed, when, what the signature means, with the key that made it. */
+/**
+ * Who signed, when, for what, with the key that made it. A version 1 signature states its
+ * meaning; a version 2 signature states its purpose, the SHA-256 of each signature before it
+ * (endorses) and how many signatures the record was signed to carry (count). The integrity
+ * check requires the fields of the record's version.
+ */
 export const signatureSchema = object({
 		signer: object({name: text.min(1), role: text}).strict(),
-		meaning: oneOf(['performed', 'verified', 'approved']),
+		meaning: oneOf(['performed', 'verified', 'approved']).optional(),
+		purpose: oneOf(['operator', 'witness', 'approval']).optional(),
+		endorses: array(sha256Hex).optional(),
+		count: number().int().positive().optional(),
 		signedAt: text,
 		algorithm: literal('Ed25519'),
 		publicKey: text.regex(/^[A-Za-z0-9+/]{43}=$/, 'a base64 Ed25519 public key'),
@@ -94,7 +102,8 @@ export const interlockTestBodySchema = object({
 		previous: chainLinkSchema.optional(),
 		testedOn: text.regex(/^\d{4}-\d{2}-\d{2}$/),
 		tester: person,
-		witness: person.optional(),
+		/** The witness as named in the results; `signed: false` when they did not sign (named, not signed). Missing in records made before. */
+		witness: person.extend({signed: boolean().optional()}).optional(),
 		/** The plan's location (room and bench): the test answers only a bench check there. Missing in records made before tests carried it. */
 		location: text.optional(),
 		plan: object({name: text, file: text, sha256: sha256Hex, text}).strict(),
@@ -129,7 +138,7 @@ export const interlockTestBodySchema = object({
 /** An interlock test record file: the body and the signatures over it. */
 export const interlockTestRecordSchema = object({
 		format: literal('prelase-record'),
-		version: literal(1),
+		version: union([literal(1), literal(2)]),
 		body: interlockTestBodySchema,
 		signatures: array(signatureSchema).min(1, 'a record needs at least one signature'),
 	})
@@ -138,7 +147,7 @@ export const interlockTestRecordSchema = object({
 /** A record file: the body and the signatures over it. */
 export const recordSchema = object({
 		format: literal('prelase-record'),
-		version: literal(1),
+		version: union([literal(1), literal(2)]),
 		body: recordBodySchema,
 		signatures: array(signatureSchema).min(1, 'a record needs at least one signature'),
 	})

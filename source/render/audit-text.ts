@@ -58,9 +58,10 @@ function policyLines(audit: RecordAudit, paint: Paint, width: number): string[] 
 function signatureLines(audit: RecordAudit, paint: Paint, width: number): string[] {
 	return audit.signatures.flatMap((signature) => {
 		const who = `${inline(signature.signer.name, 80)}${signature.signer.role ? ` (${inline(signature.signer.role, 60)})` : ''}`;
-		const trust = signature.trust === 'own' ? 'your own key' : signature.trust === 'trusted' ? `trusted as ${inline(signature.trustedAs ?? '', 80)}` : paint.advise('! NOT a key you trust');
-		const mark = signature.valid ? paint.pass('✓') : paint.fail('✗ INVALID');
-		return row(`Signature ${signature.index}`, `${mark} ${who}, ${signature.meaning}, ${inline(signature.signedAt, 40)} · key ${shortFingerprint(signature.fingerprint)} · ${trust}`, width);
+		const granted = signature.granted && signature.granted.length > 0 ? ` (granted: ${signature.granted.map((role) => inline(role, 60)).join(', ')})` : '';
+		const trust = signature.trust === 'own' ? 'your own key' : signature.trust === 'trusted' ? `trusted as ${inline(signature.trustedAs ?? '', 80)}${granted}` : paint.advise('! NOT a key you trust: intact, signer unknown');
+		const mark = !signature.valid ? paint.fail('✗ INVALID') : signature.authentic ? paint.pass('✓ authentic') : paint.advise('! intact');
+		return row(`Signature ${signature.index}`, `${mark} ${who}, ${signature.purpose}${signature.meaning ? ` (${signature.meaning})` : ''}, ${inline(signature.signedAt, 40)} · key ${shortFingerprint(signature.fingerprint)} · ${trust}`, width);
 	});
 }
 
@@ -83,7 +84,11 @@ function findingLines(audit: RecordAudit, paint: Paint, width: number): string[]
 
 function integrityLines(audit: RecordAudit, paint: Paint, width: number): string[] {
 	const integrity = audit.findings.find((found) => found.kind === 'integrity');
-	return row('Integrity', integrity ? paint.fail(`✗ NOT AUTHENTIC: ${inline(integrity.text, 300)}`) : `${paint.pass('✓')} authentic: every signature verifies over the body`, width);
+	const unknown = audit.signatures.filter((signature) => !signature.authentic).map((signature) => signature.index);
+	if (integrity) return row('Integrity', paint.fail(`✗ NOT AUTHENTIC: ${inline(integrity.text, 300)}`), width);
+	// "Authentic" is said only of signatures by keys the auditor trusts.
+	if (unknown.length > 0) return row('Integrity', `${paint.advise('!')} intact: every signature verifies over the body; signature ${unknown.join(', ')} not by a key you trust (signer unknown) or made after its key was revoked`, width);
+	return row('Integrity', `${paint.pass('✓')} authentic: every signature verifies over the body`, width);
 }
 
 const person = (who: {name: string; role: string}) => `${inline(who.name, 80)}${who.role ? `, ${inline(who.role, 60)}` : ''}`;
@@ -95,7 +100,7 @@ function interlockTestText(audit: RecordAudit, paint: Paint, width: number): str
 	const out = [paint.bold(inline(displayPath(audit.file), 300))];
 	out.push(...row('Plan tested', `interlock test of ${inline(test.plan.name)}${unverified} · plan sha256 ${test.plan.sha256.slice(0, 16)}`, width));
 	out.push(...row('Location', test.location === null ? 'none recorded: this test answers no bench check' : `${inline(test.location, 200)}${unverified}`, width));
-	out.push(...row('Tested', `${inline(test.testedOn, 20)} by ${person(test.tester)}${test.witness ? `, witnessed by ${person(test.witness)}` : ''}${unverified}`, width));
+	out.push(...row('Tested', `${inline(test.testedOn, 20)} by ${person(test.tester)}${test.witness ? `, witnessed by ${person(test.witness)}${audit.signatures.some((signature) => signature.valid && signature.purpose === 'witness') ? '' : ' (named, not signed)'}` : ''}${unverified}`, width));
 	out.push(...row('Created', `${inline(test.createdAt, 40)} with ${inline(test.tool.name, 20)} ${inline(test.tool.version, 20)}`, width));
 	out.push(...row('Outcome', `${inline(test.outcomeText, 300)} (as recorded${audit.authentic ? '' : ', unverified'})`, width));
 	out.push(...signatureLines(audit, paint, width));

@@ -4,6 +4,7 @@ import {signatureRowsOf, signaturesSummary, type SignatureRow, type SignatureSta
 import type {InterlockTestRecord} from '../records/record-schema.js';
 import {pageHead, reportStyle} from './report-style.js';
 import {stripControl} from '../shared/text.js';
+import {witnessSigned} from '../records/signature-purpose.js';
 
 const clean = (text: string) => stripControl(text);
 
@@ -54,7 +55,7 @@ export function interlockReportModel(record: InterlockTestRecord, signatures: re
 		details: [
 			['Tested on', clean(body.testedOn)],
 			['Tested by', person(body.tester)],
-			['Witness', body.witness ? person(body.witness) : '(none)'],
+			['Witness', body.witness ? `${person(body.witness)}${witnessSigned(record) ? '' : ' (named, not signed)'}` : '(none)'],
 			['Plan', clean(body.plan.name)],
 			['Plan file', clean(body.plan.file)],
 			['Plan SHA-256', body.plan.sha256],

@@ -99,5 +99,5 @@ export function signatureSection(rows: readonly SignatureRow[]): string {
 			'</tbody>',
 		].join(''),
 	);
-	return `<section class="signatures"><h2>Signatures</h2><table class="signature-table"><colgroup><col class="c-number"><col><col class="c-meaning"><col class="c-when"><col class="c-verified"><col class="c-trust"></colgroup><thead><tr><th scope="col">#</th><th scope="col">Signer and role</th><th scope="col">Meaning</th><th scope="col">Signed at</th><th scope="col">Verified</th><th scope="col">Trust</th></tr></thead>${bodies.join('')}</table></section>`;
+	return `<section class="signatures"><h2>Signatures</h2><table class="signature-table"><colgroup><col class="c-number"><col><col class="c-meaning"><col class="c-when"><col class="c-verified"><col class="c-trust"></colgroup><thead><tr><th scope="col">#</th><th scope="col">Signer and role</th><th scope="col">Purpose</th><th scope="col">Signed at</th><th scope="col">Verified</th><th scope="col">Trust</th></tr></thead>${bodies.join('')}</table></section>`;
 }

@@ -78,7 +78,7 @@ export function signatureSection(rows: readonly SignatureRow[]): string[] {
 		'## Signatures',
 		'',
 		...table(
-			['#', 'Signer', 'Role', 'Meaning', 'Signed at', 'Key', 'Verified', 'Trust'],
+			['#', 'Signer', 'Role', 'Purpose', 'Signed at', 'Key', 'Verified', 'Trust'],
 			rows.map((row) => [String(row.number), cell(row.name), cell(row.role), row.meaning, cell(row.signedAt), `${row.key}<br>${row.fingerprint}`, `**${cell(row.verifiedText)}**`, cell(row.trustText)]),
 		),
 		'',

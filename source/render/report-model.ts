@@ -6,6 +6,7 @@ import {shortFingerprint} from '../records/key-material.js';
 import type {TrustedKey} from '../records/key-files.js';
 import type {AnyRecord, BenchRecord, RecordBody} from '../records/record-schema.js';
 import {ruleOutline} from './report-rule-outline.js';
+import {purposeOf} from '../records/signature-purpose.js';
 
 type RecordCheck = RecordBody['checks'][number];
 type RecordConfirmation = RecordBody['confirmations'][number];
@@ -113,7 +114,7 @@ export function signatureRow(record: AnyRecord, status: SignatureStatus | undefi
 		number: index + 1,
 		name: clean(signature.signer.name),
 		role: clean(signature.signer.role),
-		meaning: signature.meaning,
+		meaning: purposeOf(signature),
 		signedAt: clean(signature.signedAt),
 		key: shortFingerprint(signature.fingerprint),
 		fingerprint: signature.fingerprint,

@@ -29,7 +29,7 @@ export type RecordResultsOptions = {
 export type PlanAsTested = {plan: Plan; file: string; text: string};
 
 /** Where the interlock test record went and what it says. */
-export type RecordedTest = {path: string; fingerprint: string; keyCreated: boolean; outcome: 'passed' | 'failed'; outcomeText: string; testedOn: string; tester: string} & Pick<StoredRecord, 'commit'>;
+export type RecordedTest = {path: string; fingerprint: string; keyCreated: boolean; outcome: 'passed' | 'failed'; outcomeText: string; testedOn: string; tester: string; /** The witness named, and whether they signed. */ witness?: {name: string; signed: boolean}} & Pick<StoredRecord, 'commit'>;
 
 /**
  * Holds a filled-in test sheet (a results file) against the plan, then records it with
@@ -59,8 +59,10 @@ export function recordTestResults(tested: PlanAsTested, rules: CompiledRules, re
 	if (problems.length > 0) return failure([...problems, problem('record-results-refused')]);
 	if (options.witnessKey !== undefined && results.witness === undefined) return failure([problem('record-witness-missing', {keyName})]);
 	const body = buildTestBody({plan, planFile: tested.file, planText: tested.text, rules, analysis: analysePlan(plan), sheet, results, now});
-	const witness = options.witnessKey !== undefined && body.witness ? {...body.witness, meaning: 'verified' as const, keyFile: options.witnessKey, ownKey: problem('record-witness-own-key', {keyName})} : undefined;
+	// A witness who does not sign is recorded as named, not signed.
+	if (body.witness) body.witness = {...body.witness, signed: options.witnessKey !== undefined};
+	const witness = options.witnessKey !== undefined && body.witness ? {name: body.witness.name, role: body.witness.role, purpose: 'witness' as const, keyFile: options.witnessKey, ownKey: problem('record-witness-own-key', {keyName})} : undefined;
 	const stored = signAndStore(body, body.tester, witness, dirname(settingsFile(env)), recordsFolder(env, options.records), now, env);
 	if (!stored.ok) return stored;
-	return success({...stored.value, outcome: body.outcome, outcomeText: body.outcomeText, testedOn: body.testedOn, tester: body.tester.name});
+	return success({...stored.value, outcome: body.outcome, outcomeText: body.outcomeText, testedOn: body.testedOn, tester: body.tester.name, ...(body.witness ? {witness: {name: body.witness.name, signed: body.witness.signed === true}} : {})});
 }

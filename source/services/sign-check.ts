@@ -23,6 +23,9 @@ export type SignOptions = {
 	cosign?: {name: string; role?: string; key: string; meaning: string};
 };
 
+/** What a second signature is for, by the word given: the purposes, and the version 1 meanings that stand for them. */
+const cosignPurposes = new Map<string, 'witness' | 'approval'>([['witness', 'witness'], ['approval', 'approval'], ['verified', 'witness'], ['approved', 'approval']]);
+
 /** Where a record was written and with which key. */
 export type WrittenRecord = {path: string; fingerprint: string; keyCreated: boolean; folder: string} & Pick<StoredRecord, 'commit'>;
 
@@ -50,8 +53,9 @@ export function signAndWrite(rules: CompiledRules, answers: Answers, evaluation:
 	let second: SecondSigner | undefined;
 	if (options.cosign) {
 		const {meaning} = options.cosign;
-		if (meaning !== 'verified' && meaning !== 'approved') return failure([problem('sign-cosign-meaning', {meaning})]);
-		second = {name: options.cosign.name, role: options.cosign.role ?? '', meaning, keyFile: options.cosign.key, ownKey: problem('sign-cosign-own-key')};
+		const purpose = cosignPurposes.get(meaning);
+		if (purpose === undefined) return failure([problem('sign-cosign-meaning', {meaning})]);
+		second = {name: options.cosign.name, role: options.cosign.role ?? '', purpose, keyFile: options.cosign.key, ownKey: problem('sign-cosign-own-key')};
 	}
 	const role = stripControl(options.role ?? saved.value.role ?? '').trim();
 	const body = buildRecordBody({rules, answers, evaluation, operator: {name, role}, interlockTest, ...(amends ? {amends} : {})});

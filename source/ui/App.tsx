@@ -168,7 +168,7 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 			{
 				name: form.name,
 				role: form.role,
-				...(form.cosignName.trim() ? {cosign: {name: form.cosignName, role: form.cosignRole, key: form.cosignKey.trim(), meaning: 'verified'}} : {}),
+				...(form.cosignName.trim() ? {cosign: {name: form.cosignName, role: form.cosignRole, key: form.cosignKey.trim(), meaning: 'witness'}} : {}),
 			},
 			env,
 			named.interlockTest,

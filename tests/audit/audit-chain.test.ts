@@ -9,7 +9,8 @@ import {listRecordFiles} from '../../source/audit/audit-files.js';
 import {buildRecordBody} from '../../source/records/build-body.js';
 import {ownFingerprint} from '../../source/records/key-files.js';
 import type {RecordBody} from '../../source/records/record-schema.js';
-import {signRecord} from '../../source/records/sign.js';
+import {signBytes, signRecord} from '../../source/records/sign.js';
+import {canonicalBytes} from '../../source/records/canonical.js';
 import {evaluate} from '../../source/rules/evaluate/evaluate.js';
 import {auditText} from '../../source/render/audit-text.js';
 import {isoWithOffset} from '../../source/shared/iso-time.js';
@@ -224,9 +225,12 @@ describe('records made before the chain', () => {
 		write(alex, fresh('other'), at(0)); // makes Alex's key
 		const key = operatorPrivateKey(alex);
 		for (const minute of [1, 2]) {
-			const old = signRecord(body(at(minute)), [{signer: {name: 'Dana Whitlow', role: 'bench operator', meaning: 'performed'}, key}], at(minute));
-			// Written as a format version 1 record (no chain field), as prelase wrote before the chain.
-			writeFileSync(join(folder, `old-${minute}.json`), `${JSON.stringify({...old, version: 1}, null, 2)}\n`);
+			// A format version 1 record (no chain field, a version 1 signature over {body, signature statement}), as prelase wrote before the chain.
+			const v2 = signRecord(body(at(minute)), [{signer: {name: 'Dana Whitlow', role: 'bench operator', meaning: 'performed'}, key}], at(minute));
+			const statement = {signer: v2.signatures[0]!.signer, meaning: 'performed' as const, signedAt: v2.signatures[0]!.signedAt, algorithm: 'Ed25519' as const, publicKey: v2.signatures[0]!.publicKey};
+			const value = signBytes(canonicalBytes({body: v2.body, signature: statement}), key).toString('base64');
+			const old = {format: 'prelase-record', version: 1, body: v2.body, signatures: [{...statement, fingerprint: v2.signatures[0]!.fingerprint, value}]};
+			writeFileSync(join(folder, `old-${minute}.json`), `${JSON.stringify(old, null, 2)}\n`);
 		}
 		const chained = write(alex, folder, at(3));
 		const report = audit(folder, alex);

@@ -92,7 +92,7 @@ describe('a clean record', () => {
 		expect(record!.findings).toEqual([]);
 		expect(record!.consistency).toEqual({reevaluated: true, consistent: true, rulesSha256: shipped.sha256});
 		expect(record!.signatures).toEqual([
-			expect.objectContaining({index: 1, signer: {name: 'Test Person', role: 'test engineer'}, meaning: 'performed', valid: true, trust: 'own', fingerprint: ownFingerprint(home)}),
+			expect.objectContaining({index: 1, signer: {name: 'Test Person', role: 'test engineer'}, purpose: 'operator', valid: true, authentic: true, trust: 'own', fingerprint: ownFingerprint(home)}),
 		]);
 		expect(record!.bodySha256).toBe(bodySha256(clean.body));
 		expect(record!.record?.outcome).toBe('clear_to_energize');
@@ -260,11 +260,18 @@ describe('trust', () => {
 		expect(report.records[0]!.findings).toEqual([expect.objectContaining({kind: 'trust', code: 'audit-untrusted-key', data: {index: 1, signer: 'Test Person', fingerprint: ownFingerprint(home)!}})]);
 	});
 
-	it('a key in the trusted list is trusted under the name it was added with', () => {
+	it('a key in the trusted list is trusted under the name it was added with; a stated name that differs is a finding', () => {
 		const stated = clean.signatures[0]!;
 		const report = audit([cleanPath], {own: undefined, trusted: [{name: 'T. Person (bench 3)', publicKey: stated.publicKey, fingerprint: stated.fingerprint, addedAt: '2026-01-01T00:00:00+00:00'}]});
+		expect(report.exitCode).toBe(1);
+		expect(report.records[0]!.signatures[0]).toMatchObject({trust: 'trusted', trustedAs: 'T. Person (bench 3)', authentic: true});
+		expect(report.records[0]!.findings.map((found) => [found.code, found.text])).toEqual([['audit-signer-name-differs', 'signature 1: signed as Test Person by the key you trust as T. Person (bench 3)']]);
+	});
+
+	it('the same key trusted under the name the record states: no finding, exit 0', () => {
+		const stated = clean.signatures[0]!;
+		const report = audit([cleanPath], {own: undefined, trusted: [{name: 'Test Person', publicKey: stated.publicKey, fingerprint: stated.fingerprint, addedAt: '2026-01-01T00:00:00+00:00'}]});
 		expect(report.exitCode).toBe(0);
-		expect(report.records[0]!.signatures[0]).toMatchObject({trust: 'trusted', trustedAs: 'T. Person (bench 3)'});
 	});
 });
 

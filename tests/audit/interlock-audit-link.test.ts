@@ -1,3 +1,5 @@
+import {previousRecord, rememberRecord} from '../../source/records/chain.js';
+import {fingerprint, rawPublicKey} from '../../source/records/key-material.js';
 import {mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {join} from 'node:path';
@@ -45,7 +47,7 @@ let home: string;
 beforeAll(() => {
 	folder = mkdtempSync(join(tmpdir(), 'prelase-interlock-link-'));
 	home = join(folder, 'home');
-	operatorKey(home, true);
+	operatorKey(home, true, 'Ines Marlow');
 });
 afterAll(() => rmSync(folder, {recursive: true, force: true}));
 
@@ -79,9 +81,16 @@ function recordTest(records: string, planPath: string, planText: string, rules: 
 		const stopped = time === undefined ? {} : {stopped_in: Number.parseFloat(time) / 1000};
 		return {...entry, ...stopped, ...(entry.step === made.failStep ? {result: 'fail' as const} : {})};
 	});
-	const body: InterlockTestBody = buildTestBody({plan, planFile: planPath, planText, rules, analysis: analysePlan(plan), sheet, results: {...results.value, tested_on: made.testedOn, steps}});
+	// Without the demo's witness: only the tester signs here, and a witness named without signing is a finding of its own.
+	const {witness: _named, ...tested} = results.value;
+	const body: InterlockTestBody = buildTestBody({plan, planFile: planPath, planText, rules, analysis: analysePlan(plan), sheet, results: {...tested, tested_on: made.testedOn, steps}});
 	body.createdAt = made.createdAt;
-	return writeRecord(records, signRecord(body, [{signer: {name: 'Ines Marlow', role: 'photonics engineer', meaning: 'performed'}, key: operatorPrivateKey(home)}]));
+	// Chained to the key's previous record in the folder, as prelase writes records.
+	const key = operatorPrivateKey(home);
+	const chainKey = fingerprint(rawPublicKey(key));
+	const path = writeRecord(records, signRecord({...body, previous: previousRecord(records, chainKey)}, [{signer: {name: 'Ines Marlow', role: 'photonics engineer', meaning: 'performed'}, key}]));
+	rememberRecord(records, chainKey, path);
+	return path;
 }
 
 /** A case folder: the plan (as `plan.yaml`), the bench check's answers naming it at `location`, and an empty records folder. */
@@ -178,7 +187,8 @@ describe('the latest test is the latest instant, whatever the UTC offset it was 
 		recordTest(bench.records, bench.plan, demoPlanText, shipped, {createdAt: atOffset(new Date(t.getTime() + 2000), -300), testedOn: today(), failStep: 3});
 		const audited = await audit(bench.records);
 		expect(audited.code).toBe(1);
-		expect(codesOf(audited.report)).toEqual(['consistency:audit-interlock-not-latest']);
+		// The same key wrote the failure after the check, dated before it: the chain also shows the clock went back.
+		expect(codesOf(audited.report)).toEqual(['history:audit-chain-clock-backwards', 'consistency:audit-interlock-not-latest']);
 	});
 });
 

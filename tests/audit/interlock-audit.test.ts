@@ -3,7 +3,9 @@ import {mkdtempSync, readFileSync, rmSync, writeFileSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {join} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
-import type {AuditReport} from '../../source/audit/audit.js';
+import {auditRecords, type AuditReport} from '../../source/audit/audit.js';
+import {ownFingerprint} from '../../source/records/key-files.js';
+import {sampleRules} from '../helpers/sample-record.js';
 import {operatorPrivateKey} from '../helpers/operator-key.js';
 import {generateKeyPair} from '../../source/records/key-material.js';
 import type {InterlockTestBody, InterlockTestRecord} from '../../source/records/record-schema.js';
@@ -18,6 +20,7 @@ let home: string;
 let witnessKey: string;
 let freshPath: string;
 let fresh: InterlockTestRecord;
+let unwitnessed: string;
 
 const run = async (...argv: string[]) => {
 	const said = await runIn(home, argv);
@@ -44,8 +47,11 @@ beforeAll(async () => {
 	folder = mkdtempSync(join(tmpdir(), 'prelase-interlock-audit-'));
 	home = join(folder, 'home');
 	witnessKey = join(folder, 'witness.key');
-	writeFileSync(witnessKey, generateKeyPair().privateKey.export({format: 'pem', type: 'pkcs8'}), {mode: 0o600});
-	const made = await run('plan', demoPlan, '--record-test', demoResults, '--records', join(folder, 'fresh'));
+	writeFileSync(witnessKey, `Name: Tomas Reyes\n${String(generateKeyPair().privateKey.export({format: 'pem', type: 'pkcs8'}))}`, {mode: 0o600});
+	// The fresh record names no witness: a witness named without signing is a finding of its own (tested below).
+	unwitnessed = join(folder, 'results-without-witness.yaml');
+	writeFileSync(unwitnessed, readFileSync(demoResults, 'utf8').replace(/^witness: .*\n/m, ''));
+	const made = await run('plan', demoPlan, '--record-test', unwitnessed, '--records', join(folder, 'fresh'));
 	if (made.code !== 0) throw new Error(`recording the demo test failed (${made.code}): ${made.stderr}`);
 	freshPath = /Record written: (.+)/.exec(made.stdout)![1]!;
 	fresh = JSON.parse(readFileSync(freshPath, 'utf8')) as InterlockTestRecord;
@@ -62,9 +68,9 @@ describe('audit of a fresh interlock test record', () => {
 		expect(code).toBe(0);
 		expect(stdout).toContain(`Plan tested    interlock test of Fenwick Hollow B.112 bench 3 — enclosure and room loop · plan sha256 ${sha256(readFileSync(demoPlan, 'utf8')).slice(0, 16)}`);
 		expect(stdout).toContain('Location       Room B.112, bench 3\n');
-		expect(stdout).toContain('Tested         2026-11-30 by Ines Marlow, photonics engineer, witnessed by Tomas Reyes, deputy laser safety officer');
+		expect(stdout).toContain('Tested         2026-11-30 by Ines Marlow, photonics engineer\n');
 		expect(stdout).toContain('Outcome        Passed: every step of the functional test passed, and the plan has no stop finding. (as recorded)');
-		expect(stdout).toMatch(/Signature 1 {4}✓ Ines Marlow \(photonics engineer\), performed, .* · your own key/);
+		expect(stdout).toMatch(/Signature 1 {4}✓ authentic Ines Marlow \(photonics engineer\), operator, .* · your own key/);
 		expect(stdout).toContain('Integrity      ✓ authentic: every signature verifies over the body');
 		expect(stdout).toContain("Consistency    ✓ the plan's findings, the test steps and the outcome follow from the embedded plan under the recorded policy");
 		expect(stdout).toContain('Findings       none');
@@ -258,9 +264,34 @@ describe('audit of a witnessed interlock test record', () => {
 		const path = /Record written: (.+)/.exec(made.stdout)![1]!;
 		const {code, stdout} = await run('audit', path);
 		expect(code).toBe(1);
-		expect(stdout).toMatch(/Signature 1 {4}✓ Ines Marlow \(photonics engineer\), performed, .* · your own key/);
-		expect(stdout).toMatch(/Signature 2 {4}✓ Tomas Reyes \(deputy laser safety officer\), verified, .* · ! NOT a key you trust/);
+		expect(stdout).toMatch(/Signature 1 {4}✓ authentic Ines Marlow \(photonics engineer\), operator, .* · your own key/);
+		expect(stdout).toMatch(/Signature 2 {4}! intact Tomas Reyes \(deputy laser safety officer\), witness, .* · ! NOT a key you trust: intact, signer unknown/);
+		expect(stdout).toContain('witnessed by Tomas Reyes, deputy laser safety officer ·'.replace(' ·', ''));
+		expect(stdout).not.toContain('named, not signed');
 		expect(stdout).toContain('[trust] signature 2 (Tomas Reyes) was made with a key you do not trust');
 		expect(stdout).toContain("Consistency    ✓ the plan's findings");
+	});
+
+	it('a witness named without a key is recorded as named, not signed: in the body, the plan output and the audit, with a finding', async () => {
+		const made = await run('plan', demoPlan, '--record-test', demoResults, '--records', join(folder, 'named-only'));
+		expect(made.code).toBe(0);
+		expect(made.stdout).toContain('Witness: Tomas Reyes, named, not signed (a witness who did not sign is not a witness; sign with --witness-key FILE)');
+		const path = /Record written: (.+)/.exec(made.stdout)![1]!;
+		expect((JSON.parse(readFileSync(path, 'utf8')) as InterlockTestRecord).body.witness).toEqual({name: 'Tomas Reyes', role: 'deputy laser safety officer', signed: false});
+		const {code, stdout} = await run('audit', path);
+		expect(code).toBe(1);
+		expect(stdout).toContain('witnessed by Tomas Reyes, deputy laser safety officer (named, not signed)');
+		expect(stdout).toContain('[trust] the witness Tomas Reyes is named, not signed: no signature with the purpose witness; a witness who did not sign is not a witness');
+	});
+});
+
+describe('a policy that requires a signed witness for interlock functional tests', () => {
+	it('an interlock test record without a witness signature is a policy finding; without the policy it is not', () => {
+		const rules = sampleRules();
+		const trust = {own: ownFingerprint(home), trusted: []};
+		const strict = {...rules, rules: {...rules.rules, signing: {signed_witness_for_interlock_tests: true}}};
+		const found = (current: typeof rules) => auditRecords([freshPath], {current, trust}).records[0]!.findings.map((entry) => [entry.code, entry.text]);
+		expect(found(strict)).toEqual([['audit-witness-signature-required', 'the policy requires a signed witness for an interlock functional test, and this record has no witness signature by a trusted key']]);
+		expect(found(rules)).toEqual([]);
 	});
 });

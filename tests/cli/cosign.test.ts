@@ -15,19 +15,19 @@ beforeAll(async () => {
 	folder = mkdtempSync(join(tmpdir(), 'prelase-cosign-'));
 	home = join(folder, 'home');
 	secondKey = join(folder, 'second.key');
-	writeFileSync(secondKey, generateKeyPair().privateKey.export({format: 'pem', type: 'pkcs8'}), {mode: 0o600});
-	expect((await runIn(home, ['keys'])).code).toBe(0);
+	writeFileSync(secondKey, `Name: Tomas Reyes\n${String(generateKeyPair().privateKey.export({format: 'pem', type: 'pkcs8'}))}`, {mode: 0o600});
+	expect((await runIn(home, ['keys', '--name', 'Dana Whitlow'])).code).toBe(0);
 });
 afterAll(() => rmSync(folder, {recursive: true, force: true}));
 
 describe('check --sign with a second signer', () => {
-	it('signs twice: the operator performed, the second signer verified, with their own key', async () => {
+	it('signs twice: the operator, then the second signer as witness, with their own key', async () => {
 		const {code, stdout} = await runIn(home, ['check', '--answers', clearDemo, '--sign', 'Dana Whitlow', '--cosign', 'Tomas Reyes', '--cosign-role', 'deputy laser safety officer', '--cosign-key', secondKey, '--records', join(folder, 'records')]);
 		expect(code).toBe(0);
 		const record = JSON.parse(readFileSync(/Record written: (.+)/.exec(stdout)![1]!, 'utf8')) as BenchRecord;
-		expect(record.signatures.map((signature) => [signature.signer.name, signature.meaning])).toEqual([
-			['Dana Whitlow', 'performed'],
-			['Tomas Reyes', 'verified'],
+		expect(record.signatures.map((signature) => [signature.signer.name, signature.purpose])).toEqual([
+			['Dana Whitlow', 'operator'],
+			['Tomas Reyes', 'witness'],
 		]);
 		expect(record.signatures[0]!.fingerprint).not.toBe(record.signatures[1]!.fingerprint);
 	});

@@ -22,7 +22,8 @@ async function run(...argv: string[]) {
 
 /** The demo results, tested on `day`, with a step failed if asked. */
 function results(day: string, failStep?: number): string {
-	let text = readFileSync(join(demo, 'bench3-interlock-test-results.yaml'), 'utf8').replace('tested_on: 2026-11-30', `tested_on: ${day}`);
+	// Without the witness: a witness named without signing is an audit finding (tests/audit/interlock-audit.test.ts), and this flow's audit is to come out clean.
+	let text = readFileSync(join(demo, 'bench3-interlock-test-results.yaml'), 'utf8').replace('tested_on: 2026-11-30', `tested_on: ${day}`).replace(/^witness: .*\n/m, '');
 	if (failStep !== undefined) text = text.replace(`{step: ${failStep}, concerns: `, `{step: ${failStep}, result: fail, note: did not stop, concerns: `).replace(/(\{step: \d+, result: fail, note: did not stop, concerns: [^,]+), result: pass/, '$1');
 	const file = join(folder, `results-${day}-${failStep ?? 'pass'}.yaml`);
 	writeFileSync(file, text);

@@ -74,7 +74,7 @@ describe.skipIf(!haveTmux())('the screens in a real terminal', () => {
 	it('completes, signs and audits the demo check', {timeout: 120_000}, async () => {
 		const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
 		const records = join(home, 'records');
-		execFileSync('node', [program, 'keys'], {env: {...process.env, PRELASE_HOME: home}});
+		execFileSync('node', [program, 'keys', '--name', 'Dana Whitlow'], {env: {...process.env, PRELASE_HOME: home}});
 		const session = start('full', home, 'check');
 		await session.waitFor((screen) => screen.includes('Step 1 of'), 'the first step');
 		for (let guard = 0; guard < 200; guard += 1) {

@@ -28,7 +28,7 @@ export function sampleAnswers(rules: CompiledRules): Answers {
 }
 
 /** One signer with a fresh key, or the key given. */
-export function signerWith(name: string, meaning: Signer['meaning'], key: KeyObject = generateKeyPair().privateKey, role = 'bench operator'): {signer: Signer; key: KeyObject} {
+export function signerWith(name: string, meaning: 'performed' | 'verified' | 'approved', key: KeyObject = generateKeyPair().privateKey, role = 'bench operator'): {signer: Signer; key: KeyObject} {
 	return {signer: {name, role, meaning}, key};
 }
 
@@ -44,7 +44,8 @@ export function sampleRecord(
 	const signers = options.signers ?? [signerWith('Ada Operator', 'performed')];
 	const operator = options.operator ?? {name: signers[0]!.signer.name, role: signers[0]!.signer.role};
 	const body = buildRecordBody({rules, answers, evaluation: evaluate(rules, answers), operator, ...(options.now ? {now: options.now} : {})});
-	return signRecord(body, signers, options.now);
+	// The first record of its key in its folder, as prelase writes one: it names no previous record.
+	return signRecord({...body, previous: null}, signers, options.now);
 }
 
 /** A record as the store writes it to disk. */

@@ -203,14 +203,14 @@ describe('a record with a second signer', () => {
 	});
 
 	it('verifies both signatures', () => {
-		expect(cosigned.signatures.map((signature) => signature.meaning)).toEqual(['performed', 'verified']);
+		expect(cosigned.signatures.map((signature) => signature.purpose)).toEqual(['operator', 'witness']); // signed as performed and verified, which stand for these purposes
 		expect(cosigned.signatures[0]!.publicKey).not.toBe(cosigned.signatures[1]!.publicKey);
 		expect(checkRecordText(serialise(cosigned))).toMatchObject({ok: true, signatures: [{index: 0, valid: true}, {index: 1, valid: true}]});
 	});
 
-	it('a changed meaning of the second signature is an integrity failure of that signature', () => {
+	it('a changed purpose of the second signature is an integrity failure of that signature', () => {
 		const tampered = structuredClone(cosigned);
-		tampered.signatures[1]!.meaning = 'approved';
+		tampered.signatures[1]!.purpose = 'approval';
 		const result = checkRecordText(serialise(tampered));
 		expect(result).toMatchObject({ok: false, reason: expect.stringMatching(/^signature 2 \(Lin Verifier\): the signature does not match/)});
 		expect(result.ok ? [] : result.signatures?.map((entry) => entry.valid)).toEqual([true, false]);

@@ -32,14 +32,14 @@ describe('prelase report on an interlock test record', () => {
 		expect(stdout).toContain('**Outcome: PASSED**');
 		expect(stdout).toContain('> **CAUTION.** A functional test shows that the loop worked as built on the day it was tested.');
 		expect(stdout).toContain('it never says a setup is safe');
-		for (const row of ['| Tested on | 2026-11-30 |', '| Tested by | Ines Marlow, photonics engineer |', '| Witness | Tomas Reyes, deputy laser safety officer |', '| Plan findings | 0 stop, 0 advise |', '| Policy | largest response 20 ms · resistance margin 25 % · test every 180 days · longest bypass 8 h |', '| Signatures | 1, all verified |']) {
+		for (const row of ['| Tested on | 2026-11-30 |', '| Tested by | Ines Marlow, photonics engineer |', '| Witness | Tomas Reyes, deputy laser safety officer (named, not signed) |', '| Plan findings | 0 stop, 0 advise |', '| Policy | largest response 20 ms · resistance margin 25 % · test every 180 days · longest bypass 8 h |', '| Signatures | 1, all verified |']) {
 			expect(lines).toContain(row);
 		}
 		const steps = stdout.slice(stdout.indexOf('## Steps'), stdout.indexOf('## Signatures')).split('\n').filter((line) => /^\| \d+ \| /.test(line));
 		expect(steps.map((line) => line.split(' | ')[1])).toEqual(['lid_switch', 'fibre_sense', 'estop_bench', 'door_switch', 'chiller_flow', 'key_switch', 'loop wire break', 'power interruption', 'bypass time-out: alignment_bypass']);
 		expect(steps[4]).toContain('| **✓ pass** | 16 ms |');
 		expect(stdout).not.toContain('## Steps not passed');
-		expect(stdout).toMatch(/\| 1 \| Ines Marlow \| photonics engineer \| performed \| .+ \| \*\*✓ verified\*\* \| ✓ your own key \|/);
+		expect(stdout).toMatch(/\| 1 \| Ines Marlow \| photonics engineer \| operator \| .+ \| \*\*✓ verified\*\* \| ✓ your own key \|/);
 	});
 
 	it('puts a failed step first, under Steps not passed, with its note', async () => {

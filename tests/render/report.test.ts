@@ -72,7 +72,7 @@ describe.each(formats)('$name report of the failing demo', ({write, escape}) => 
 		{name: 'the signer key', text: shortFingerprint(operatorFingerprint)},
 		{name: 'the signer key in full', text: operatorFingerprint},
 		{name: 'the own key recognised', text: '✓ your own key'},
-		{name: 'the signature meaning', text: 'performed'},
+		{name: 'the signature purpose', text: 'operator'},
 	])('shows $name', ({text}) => {
 		expect(page).toContain(escape(text));
 	});

@@ -33,7 +33,7 @@ const options = {
 	cosign: {type: 'string', value: 'NAME', summary: 'A second signer (verifier or laser safety officer) signing with their own private key file --cosign-key FILE'},
 	'cosign-key': {type: 'string', value: 'FILE', summary: 'The second signer\'s private key file (with --cosign)'},
 	'cosign-role': {type: 'string', value: 'ROLE', summary: 'The second signer\'s role (with --cosign)'},
-	'cosign-meaning': {type: 'string', value: 'verified|approved', summary: 'What the second signature means: verified (default) or approved'},
+	'cosign-meaning': {type: 'string', value: 'witness|approval', summary: 'What the second signature is for: witness (default) or approval (verified and approved are read as these)'},
 	setup: {type: 'string', value: 'NAME', summary: 'Without --answers, on a terminal: open the on-screen check on the setup NAME'},
 	help: helpOption,
 } as const;
@@ -94,7 +94,7 @@ function finishCheck(rules: CompiledRules, linked: {answers: Answers; link: Inte
 							...(values.reason === undefined ? {} : {reason: values.reason}),
 							...(values.cosign === undefined
 								? {}
-								: {cosign: {name: values.cosign, key: values['cosign-key']!, meaning: values['cosign-meaning'] ?? 'verified', ...(values['cosign-role'] === undefined ? {} : {role: values['cosign-role']})}}),
+								: {cosign: {name: values.cosign, key: values['cosign-key']!, meaning: values['cosign-meaning'] ?? 'witness', ...(values['cosign-role'] === undefined ? {} : {role: values['cosign-role']})}}),
 						},
 						io.env,
 						linked.link,

@@ -89,6 +89,7 @@ export function runPlan(args: string[], io: Io): number | Promise<number> {
 			[
 				`Interlock test of ${stripControl(plan.name)}, ${recorded.testedOn}, by ${stripControl(recorded.tester)}: ${verdict}`,
 				stripControl(recorded.outcomeText),
+				...(recorded.witness ? [`Witness: ${stripControl(recorded.witness.name)}, ${recorded.witness.signed ? 'signed' : 'named, not signed (a witness who did not sign is not a witness; sign with --witness-key FILE)'}`] : []),
 				...(plan.location === undefined ? ['The plan names no location: no bench check can use this test. Add location: (room and bench) to the plan and test the loop again.'] : []),
 				`Record written: ${recorded.path}`,
 				`Signed with key ${recorded.fingerprint}${recorded.keyCreated ? ' (a new key, created now; share it with: prelase keys export)' : ''}`,

@@ -16,6 +16,7 @@ import {interlockPolicy} from '../plan/policy.js';
 import {interlockPlanInput, locationInput} from '../plan/plan-input.js';
 import {futureDated, latestTest, normaliseLocation} from './test-choice.js';
 import {reasonsUnderPolicy} from './test-rejudge.js';
+import {operatorSignatureIndex} from '../../records/signature-purpose.js';
 
 /** A test record that passed integrity checking and whose first signer's key is trusted. */
 export type FoundTest = {file: string; bodySha256: string; body: InterlockTestBody};
@@ -103,7 +104,7 @@ export function findTestRecords(folder: string, trusted: ReadonlySet<string>): {
 		const read = checkRecordText(text, keys);
 		if (!read.ok) damaged += 1;
 		if (!read.ok || read.record.body.kind !== 'interlock-test') continue;
-		if (!trusted.has(read.record.signatures[0]!.fingerprint)) {
+		if (!trusted.has(read.record.signatures[operatorSignatureIndex(read.record.signatures)]?.fingerprint ?? '')) {
 			untrusted += 1;
 			continue;
 		}

@@ -103,6 +103,10 @@ function mergeSite(base: ResolvedRules, site: SiteFile, source: YamlSource, sha2
 		mapTo([key], [key]);
 		book.set(key, source, [key]);
 	}
+	if (site.signing !== undefined) {
+		rules.signing = site.signing;
+		mapTo(['signing'], ['signing']);
+	}
 
 	for (const [id, change] of Object.entries(site.policy_changed)) {
 		const entry = rules.policy[id];

@@ -143,6 +143,34 @@ export const checkSchema = object({
 		}
 	});
 
+const roleName = string().trim().min(1, 'a role cannot be empty');
+
+/**
+ * What the site asks of signatures: the roles that carry authority (they count only when the
+ * auditor's trust list grants them), when a countersignature by a granted role is required,
+ * whether an interlock functional test needs a signed witness, and the purposes each kind of
+ * record needs.
+ */
+export const signingSchema = object({
+		authority_roles: array(roleName).optional().describe('Roles that carry authority; default [laser safety officer, supervisor]. Compared case-insensitively after trimming'),
+		countersign: object({
+				roles: array(roleName).min(1).describe('A countersignature by a key granted one of these roles'),
+				laser_classes: array(identifier).default([]).describe('… is required for a bench check of these laser classes (options of laser_class)'),
+				switched_off_checks: boolean().default(false).describe('… and for any bench check made under rules with a switched-off check'),
+			})
+			.strict()
+			.optional(),
+		signed_witness_for_interlock_tests: boolean().optional().describe('An interlock functional test needs a witness signature by a trusted key'),
+		purposes: object({
+				bench_check: array(oneOf(['operator', 'witness', 'approval'])).optional(),
+				interlock_test: array(oneOf(['operator', 'witness', 'approval'])).optional(),
+			})
+			.strict()
+			.optional()
+			.describe('The purposes each kind of record needs among its signatures'),
+	})
+	.strict();
+
 /** The whole rule file. */
 export const ruleFileSchema = object({
 		format: literal(1).describe('Rule file format version'),
@@ -153,6 +181,7 @@ export const ruleFileSchema = object({
 		steps: array(stepSchema).min(1, 'a rule file needs at least one step'),
 		derived: array(derivedSchema).default([]),
 		checks: array(checkSchema).default([]),
+		signing: signingSchema.optional().describe('What the site asks of signatures (see docs/records.md)'),
 	})
 	.strict();
 

@@ -1,7 +1,7 @@
 import {array, literal, number, object, record, string, union, unknown, enum as oneOf} from 'zod';
 import type {z} from 'zod';
 import {dimensionNames} from '../../quantities/dimensions.js';
-import {checkSchema, confirmationSchema, derivedSchema, inputSchema, policyValueSchema, stepSchema, tableSchema} from './schema.js';
+import {checkSchema, confirmationSchema, derivedSchema, inputSchema, policyValueSchema, signingSchema, stepSchema, tableSchema} from './schema.js';
 
 const identifier = string().regex(/^[a-z][a-z0-9_]*$/, 'an id is lower case letters, digits and underscores, starting with a letter (e.g. current_limit)');
 const words = string().trim().min(1, 'this text cannot be empty');
@@ -48,6 +48,7 @@ export const siteFileSchema = object({
 		add_to_steps: record(identifier, stepAdditionSchema).default({}),
 		add_derived: array(derivedSchema).default([]),
 		add_checks: array(checkSchema).default([]),
+		signing: signingSchema.optional().describe('What the site asks of signatures; replaces the base\'s signing section'),
 	})
 	.strict();
 

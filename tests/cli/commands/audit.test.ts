@@ -64,7 +64,7 @@ describe('prelase audit: exit status', () => {
 		expect(stderr).toBe('');
 		expect(stdout).toContain('Setup          Fenwick Hollow bench 3 — FH-808-2 on LD-5L, constant current');
 		expect(stdout).toContain('Operator       Test Person, test engineer');
-		expect(stdout).toMatch(/Signature 1 {4}✓ Test Person \(test engineer\), performed, .* · your own key/);
+		expect(stdout).toMatch(/Signature 1 {4}✓ authentic Test Person \(test engineer\), operator, .* · your own key/);
 		expect(stdout).toContain('Integrity      ✓ authentic: every signature verifies over the body');
 		expect(stdout).toContain('Consistency    ✓ the recorded values, verdicts and outcome follow from the recorded inputs');
 		expect(stdout).toContain('Findings       none');
@@ -313,7 +313,7 @@ describe('prelase audit --json', () => {
 		expect(record.file).toBe(cleanPath);
 		expect(record.record).toMatchObject({createdAt: clean.body.createdAt, operator: {name: 'Test Person', role: 'test engineer'}, outcome: 'clear_to_energize', setup: clean.body.setup && {name: clean.body.setup.name, fingerprint: clean.body.setup.fingerprint}});
 		expect(record.record.exceptions).toEqual([expect.objectContaining({status: 'not_applicable', note: 'No bypass is fitted on bench 3.'})]);
-		expect(record.signatures[0]).toMatchObject({index: 1, meaning: 'performed', valid: true, trust: 'own'});
+		expect(record.signatures[0]).toMatchObject({index: 1, purpose: 'operator', valid: true, authentic: true, trust: 'own'});
 		expect(record.history).toEqual({amendedBy: []});
 		expect(record.notChecked).toEqual([
 			{item: 'record-age', text: expect.stringContaining('not checked')},

@@ -48,7 +48,7 @@ beforeAll(() => {
 	folder = mkdtempSync(join(tmpdir(), 'prelase-record-test-'));
 	home = join(folder, 'home');
 	witnessKey = join(folder, 'witness.key');
-	writeFileSync(witnessKey, generateKeyPair().privateKey.export({format: 'pem', type: 'pkcs8'}), {mode: 0o600});
+	writeFileSync(witnessKey, `Name: Tomas Reyes\n${String(generateKeyPair().privateKey.export({format: 'pem', type: 'pkcs8'}))}`, {mode: 0o600});
 });
 
 afterAll(() => {
@@ -73,7 +73,7 @@ describe('prelase plan FILE --record-test RESULTS', () => {
 		expect(record.body.outcome).toBe('passed');
 		expect(record.body.plan.file).toBe(demoPlanFile);
 		expect(record.body.steps).toHaveLength(9);
-		expect(record.signatures.map((signature) => [signature.signer.name, signature.signer.role, signature.meaning])).toEqual([['Ines Marlow', 'photonics engineer', 'performed']]);
+		expect(record.signatures.map((signature) => [signature.signer.name, signature.signer.role, signature.purpose])).toEqual([['Ines Marlow', 'photonics engineer', 'operator']]);
 		expect(record.signatures[0]!.fingerprint).toBe(fingerprint(rawPublicKey(operatorPrivateKey(home))));
 	});
 
@@ -146,15 +146,16 @@ describe('prelase plan FILE --record-test RESULTS', () => {
 		expect(existsSync(records)).toBe(false);
 	});
 
-	it('with --witness-key, the witness signs second, meaning verified, with their own key', async () => {
+	it('with --witness-key, the witness signs second, for the purpose witness, with their own key', async () => {
 		const {records} = newCase();
 		const {code, stdout} = await run('plan', demoPlanFile, '--record-test', demoResults, '--records', records, '--witness-key', witnessKey);
 		expect(code).toBe(0);
 		const {record} = writtenRecord(stdout);
-		expect(record.signatures.map((signature) => [signature.signer.name, signature.signer.role, signature.meaning])).toEqual([
-			['Ines Marlow', 'photonics engineer', 'performed'],
-			['Tomas Reyes', 'deputy laser safety officer', 'verified'],
+		expect(record.signatures.map((signature) => [signature.signer.name, signature.signer.role, signature.purpose])).toEqual([
+			['Ines Marlow', 'photonics engineer', 'operator'],
+			['Tomas Reyes', 'deputy laser safety officer', 'witness'],
 		]);
+		expect(record.body.witness).toEqual({name: 'Tomas Reyes', role: 'deputy laser safety officer', signed: true});
 		const witness = rawPublicKey(createPrivateKey(readFileSync(witnessKey)));
 		expect(record.signatures[1]!.publicKey).toBe(witness.toString('base64'));
 		expect(record.signatures[1]!.fingerprint).toBe(fingerprint(witness));

@@ -56,7 +56,7 @@ describe('prelase report: printing a signed record', () => {
 
 	it('says the signer is verified and the key is the reader\'s own', () => {
 		const {stdout} = run(signerHome, 'report', recordPath);
-		expect(stdout).toMatch(/\| 1 \| Test Person \| test engineer \| performed \| .+ \| \*\*✓ verified\*\* \| ✓ your own key \|/);
+		expect(stdout).toMatch(/\| 1 \| Test Person \| test engineer \| operator \| .+ \| \*\*✓ verified\*\* \| ✓ your own key \|/);
 	});
 
 	it('says when the key is not trusted, and names the colleague once it is', () => {

@@ -86,7 +86,7 @@ describe('recording an interlock test on screen', () => {
 		expect(record.body.steps[8]?.note).toBe('key returned to the lock box');
 		expect(record.body.tester).toEqual({name: 'Orla Penhaligon', role: 'laser technician'});
 		expect(record.body.plan.sha256).toBe(sha256Hex(readFileSync(screen.file, 'utf8')));
-		expect(record.signatures.map((entry) => [entry.signer.name, entry.meaning])).toEqual([['Orla Penhaligon', 'performed']]);
+		expect(record.signatures.map((entry) => [entry.signer.name, entry.purpose])).toEqual([['Orla Penhaligon', 'operator']]);
 		// The bench check beside the plan now answers its loop-test confirmations from this record.
 		const answers = join(dirname(screen.file), 'bench3.yaml');
 		writeFileSync(answers, readFileSync(linkedDemo, 'utf8').replace('interlock_plan: bench3-interlock-plan.yaml', 'interlock_plan: plan.yaml'));
@@ -109,13 +109,13 @@ describe('recording an interlock test on screen', () => {
 		expect(frame).toContain('Steps: 8 pass · 1 fail · 0 n/a');
 		expect(frame).toContain('If signed now: FAILED');
 		const key = join(screen.home, 'witness.key');
-		writeFileSync(key, generateKeyPair().privateKey.export({format: 'pem', type: 'pkcs8'}), {mode: 0o600});
+		writeFileSync(key, `Name: Tobias Quenby\n${String(generateKeyPair().privateKey.export({format: 'pem', type: 'pkcs8'}))}`, {mode: 0o600});
 		frame = await signAs(screen, 'Orla Penhaligon', 'laser technician', {name: 'Tobias Quenby', role: 'deputy laser safety officer', key});
 		expect(frame).toContain(': FAILED');
 		const record = theRecord(screen);
 		expect(record.body.outcome).toBe('failed');
 		expect(record.body.outcomeText).toBe('Failed: step 5 (chiller_flow) failed. Tag the loop out of service and tell the laser safety officer.');
-		expect(record.signatures.map((entry) => [entry.signer.name, entry.meaning])).toEqual([['Orla Penhaligon', 'performed'], ['Tobias Quenby', 'verified']]);
+		expect(record.signatures.map((entry) => [entry.signer.name, entry.purpose])).toEqual([['Orla Penhaligon', 'operator'], ['Tobias Quenby', 'witness']]);
 		expect(record.body.steps[4]).toMatchObject({number: 5, subject: 'chiller_flow', result: 'fail', stoppedIn: {text: '31 ms'}});
 	});
 
