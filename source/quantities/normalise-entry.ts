@@ -17,6 +17,5 @@ export function normaliseEntry(text: string): string {
 		.replaceAll('−', '-')
 		.replaceAll(/\bohms\b/g, 'ohm')
 		.replaceAll(/(?:\u221A|sqrt|rt)\(?Hz\)?/g, 'Hz^0.5')
-		.replaceAll('  ', ' ')
 		.trim();
 }

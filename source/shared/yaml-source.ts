@@ -38,11 +38,18 @@ export function readTextFile(file: string, expected: string, maxBytes = maxYamlF
 		const stat = fstatSync(descriptor);
 		if (!stat.isFile()) return failure([problem('file-not-regular', {expected}, {file})]);
 		if (stat.size > maxBytes) return failure([problem('file-too-large', {size: stat.size, max: maxBytes, expected}, {file})]);
-		const buffer = Buffer.alloc(maxBytes + 1);
+		// Read to the end in chunks, stopping past the limit: a file that grows while it is read is still bounded.
+		const chunks: Buffer[] = [];
 		let length = 0;
-		for (let read = -1; read !== 0 && length <= maxBytes; length += read) read = readSync(descriptor, buffer, length, buffer.length - length, null);
-		if (length > maxBytes) return failure([problem('file-too-large', {size: length, max: maxBytes, expected}, {file})]);
-		bytes = buffer.subarray(0, length);
+		for (;;) {
+			const chunk = Buffer.allocUnsafe(Math.min(64 * 1024, maxBytes + 1 - length));
+			const read = readSync(descriptor, chunk, 0, chunk.length, null);
+			if (read === 0) break;
+			chunks.push(chunk.subarray(0, read));
+			length += read;
+			if (length > maxBytes) return failure([problem('file-too-large', {size: length, max: maxBytes, expected}, {file})]);
+		}
+		bytes = Buffer.concat(chunks, length);
 	} catch (error) {
 		const reason = (error as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : String((error as Error).message);
 		return failure([problem('file-unreadable', {reason}, {file})]);

@@ -17,17 +17,12 @@ import {isoWithOffset} from '../../source/shared/iso-time.js';
 import {plain} from '../../source/shared/paint.js';
 import {signAndStore} from '../../source/services/sign-and-store.js';
 import {operatorPrivateKey} from '../helpers/operator-key.js';
+import {caseFolder} from '../helpers/run-cli.js';
 import {sampleAnswers, sampleRules} from '../helpers/sample-record.js';
 
 const top = mkdtempSync(join(tmpdir(), 'prelase-audit-chain-'));
 afterAll(() => rmSync(top, {recursive: true, force: true}));
-let made = 0;
-const fresh = (name: string) => {
-	made += 1;
-	const path = join(top, `${name}-${made}`);
-	mkdirSync(path);
-	return path;
-};
+const fresh = (name: string) => caseFolder(top, name);
 
 const rules = sampleRules();
 const answers = sampleAnswers(rules);

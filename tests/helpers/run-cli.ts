@@ -33,10 +33,10 @@ export function unwrap(text: string): string {
 
 let cases = 0;
 
-/** A new folder of its own below `parent` for one test case (case-1, case-2, ...). */
-export function caseFolder(parent: string): string {
+/** A new folder of its own below `parent` for one test case (case-1, case-2, ..., or NAME-1, NAME-2, ...). */
+export function caseFolder(parent: string, name = 'case'): string {
 	cases += 1;
-	const dir = join(parent, `case-${cases}`);
+	const dir = join(parent, `${name}-${cases}`);
 	mkdirSync(dir, {recursive: true});
 	return dir;
 }

@@ -14,16 +14,11 @@ import {evaluate} from '../../source/rules/evaluate/evaluate.js';
 import {signAndStore} from '../../source/services/sign-and-store.js';
 import {problem} from '../../source/shared/problems.js';
 import {sampleAnswers, sampleRules} from '../helpers/sample-record.js';
+import {caseFolder} from '../helpers/run-cli.js';
 
 const top = mkdtempSync(join(tmpdir(), 'prelase-chain-'));
 afterAll(() => rmSync(top, {recursive: true, force: true}));
-let made = 0;
-const fresh = (name: string) => {
-	made += 1;
-	const path = join(top, `${name}-${made}`);
-	mkdirSync(path);
-	return path;
-};
+const fresh = (name: string) => caseFolder(top, name);
 
 const rules = sampleRules();
 const answers = sampleAnswers(rules);
