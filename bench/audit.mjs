@@ -263,7 +263,8 @@ async function buildGenerator() {
 	return outfile;
 }
 
-// Records as a site would have them: 500 setups checked about 20 times each by three operators,
+// Records as a site would have them: 500 setups checked about 20 times each by three operators
+// (each operator's records chained as prelase chains them),
 // with setpoints and ambient temperatures that vary (some records clear, some do not), every
 // tenth one also approved by the laser safety officer, and every hundredth an amendment of the
 // setup's previous record. Each record is built and signed by prelase's own code; the rule text
@@ -276,6 +277,8 @@ import {mkdirSync, writeFileSync} from 'node:fs';
 import {isDeepStrictEqual} from 'node:util';
 import {join} from 'node:path';
 import {buildRecordBody, bodySha256} from './source/records/build-body.js';
+import {recordJson} from './source/records/record-json.js';
+import {sha256Hex} from './source/shared/sha256.js';
 import {writeTrusted} from './source/records/key-files.js';
 import {fingerprint, generateKeyPair, rawPublicKey} from './source/records/key-material.js';
 import {storeRuleText} from './source/records/rule-texts.js';
@@ -296,7 +299,7 @@ export function generateRecords({folder, home, count, marker}) {
 	const officer = {name: 'R. Osei', role: 'laser safety officer', ...generateKeyPair()};
 	writeTrusted(home, [...people, officer].map((person) => {
 		const raw = rawPublicKey(person.publicKey);
-		return {name: person.name, publicKey: raw.toString('base64'), fingerprint: fingerprint(raw), addedAt: '2026-01-01T00:00:00+00:00'};
+		return {name: person.name, publicKey: raw.toString('base64'), fingerprint: fingerprint(raw), addedAt: '2026-01-01T00:00:00+00:00', ...(person === officer ? {roles: ['laser safety officer']} : {})};
 	}));
 	const entry = (id, text) => {
 		const parsed = parseInputEntry(rules.inputs.get(id), text);
@@ -307,6 +310,8 @@ export function generateRecords({folder, home, count, marker}) {
 	const hashes = new Map();
 	const evaluations = new Map();
 	const months = new Set();
+	// Each operator's records form a chain: each names the previous record of its key (file and SHA-256 of its bytes).
+	const last = new Map();
 	const start = Date.parse('2026-01-05T08:00:00Z');
 	for (let index = 0; index < count; index += 1) {
 		const setup = index % setups;
@@ -328,21 +333,23 @@ export function generateRecords({folder, home, count, marker}) {
 		const amends = index >= setups && index % 100 === 0 && hashes.has(index - setups)
 			? {record: 'record-' + (index - setups) + '.json', bodySha256: hashes.get(index - setups), reason: 'ambient maximum re-measured'}
 			: undefined;
-		const body = buildRecordBody({rules, answers, evaluation, operator: {name: person.name, role: person.role}, now, ...(amends ? {amends} : {})});
+		const body = {...buildRecordBody({rules, answers, evaluation, operator: {name: person.name, role: person.role}, now, ...(amends ? {amends} : {})}), previous: last.get(person.name) ?? null};
 		if (index % 997 === 0) {
 			const fresh = buildRecordBody({rules, answers, evaluation: evaluate(rules, answers), operator: {name: person.name, role: person.role}, now, ...(amends ? {amends} : {})});
-			if (!isDeepStrictEqual(fresh, body)) throw new Error('record ' + index + ': the reused evaluation gives another body than a fresh one');
+			if (!isDeepStrictEqual({...fresh, previous: body.previous}, body)) throw new Error('record ' + index + ': the reused evaluation gives another body than a fresh one');
 		}
 		if ((index + setups) % 100 === 0) hashes.set(index, bodySha256(body));
-		const signers = [{signer: {name: person.name, role: person.role, meaning: 'performed'}, key: person.privateKey}];
-		if (index % 10 === 0) signers.push({signer: {name: officer.name, role: officer.role, meaning: 'approved'}, key: officer.privateKey});
+		const signers = [{signer: {name: person.name, role: person.role, purpose: 'operator'}, key: person.privateKey}];
+		if (index % 10 === 0) signers.push({signer: {name: officer.name, role: officer.role, purpose: 'approval'}, key: officer.privateKey});
 		const record = signRecord(body, signers, now);
 		const month = join(folder, body.createdAt.slice(0, 7));
 		if (!months.has(month)) {
 			mkdirSync(month, {recursive: true});
 			months.add(month);
 		}
-		writeFileSync(join(month, 'record-' + index + '.json'), JSON.stringify(record, null, 2) + '\\n');
+		const text = recordJson(record);
+		writeFileSync(join(month, 'record-' + index + '.json'), text);
+		last.set(person.name, {file: 'record-' + index + '.json', sha256: sha256Hex(Buffer.from(text, 'utf8'))});
 	}
 	writeFileSync(marker, JSON.stringify({count}));
 }

@@ -2,7 +2,7 @@ import {describeProblem, problem} from '../shared/problems.js';
 import type {Answers, ConfirmationAnswer, InputAnswer} from '../rules/evaluate/answers.js';
 import type {CompiledInput, CompiledRules} from '../rules/compile/compiled-rules.js';
 import {parseInputEntry} from '../rules/evaluate/input-entry.js';
-import type {RecordBody} from '../records/record-schema.js';
+import {confirmationList, inputEntry, type RecordBody} from '../records/record-schema.js';
 
 /** An input the rules refuse as entered (outside a range, not an option, wrong dimension). */
 export type RefusedInput = {id: string; entered: string; detail: string};
@@ -39,7 +39,8 @@ export function answersFromRecord(rules: CompiledRules, body: RecordBody): Recor
 	const inputs = new Map<string, InputAnswer>();
 	const unknownInputs: string[] = [];
 	const refusedInputs: RefusedInput[] = [];
-	for (const [id, entry] of Object.entries(body.inputs)) {
+	for (const [id, value] of Object.entries(body.inputs)) {
+		const entry = inputEntry(value)!;
 		const compiled = rules.inputs.get(id);
 		if (!compiled) {
 			unknownInputs.push(id);
@@ -51,7 +52,7 @@ export function answersFromRecord(rules: CompiledRules, body: RecordBody): Recor
 	}
 	const confirmations = new Map<string, ConfirmationAnswer>();
 	const unknownConfirmations: string[] = [];
-	for (const entry of body.confirmations) {
+	for (const entry of confirmationList(body)) {
 		if (!answered.has(entry.status)) continue;
 		if (!rules.confirmations.has(entry.id)) {
 			unknownConfirmations.push(entry.id);

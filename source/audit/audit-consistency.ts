@@ -5,7 +5,7 @@ import {outcomeWords, type Evaluation, type Shown, type Verdict} from '../rules/
 import type {RecordAnswers} from './audit-answers.js';
 import {finding, type Finding} from '../records/findings.js';
 import {setupFingerprint} from '../records/build-body.js';
-import type {RecordBody} from '../records/record-schema.js';
+import {confirmationList, derivedEntry, inputEntry, type RecordBody} from '../records/record-schema.js';
 
 type RecordedShown = {si: number; text: string} | undefined;
 
@@ -28,7 +28,9 @@ function inputFindings(body: RecordBody, read: RecordAnswers): Finding[] {
 	for (const id of read.unknownInputs) found.push(finding('consistency', 'audit-input-unknown', {id}));
 	for (const refused of read.refusedInputs) found.push(finding('consistency', 'audit-input-refused', {...refused}));
 	for (const [id, answer] of read.answers.inputs) {
-		const recorded = body.inputs[id]!;
+		const recorded = inputEntry(body.inputs[id])!;
+		// A record made since the lean body keeps only what was entered: nothing else to compare.
+		if (recorded.si === undefined && recorded.option === undefined && recorded.value === undefined) continue;
 		const mismatch = (computed: string, held: string) => found.push(finding('consistency', 'audit-input-value-mismatch', {id, entered: recorded.entered, computed, recorded: held}));
 		if (answer.kind === 'quantity') {
 			if (recorded.si === undefined || !sameNumber(recorded.si, answer.si)) mismatch(formatQuantity(answer.si, answer.dimension), recorded.si === undefined ? 'no value' : (recorded.text ?? String(recorded.si)));
@@ -44,17 +46,18 @@ function inputFindings(body: RecordBody, read: RecordAnswers): Finding[] {
 
 function derivedFindings(body: RecordBody, evaluation: Evaluation): Finding[] {
 	const found: Finding[] = [];
-	const describe = (entry: RecordBody['derived'][string] | undefined) => (!entry ? 'absent' : 'si' in entry ? entry.text : 'open' in entry ? 'open' : 'not computable');
+	const describe = (entry: ReturnType<typeof derivedEntry> | undefined) => (!entry ? 'absent' : 'si' in entry ? entry.text : 'open' in entry ? 'open' : 'not computable');
 	const seen = new Set<string>();
 	for (const entry of evaluation.derived) {
 		seen.add(entry.id);
-		const recorded = body.derived[entry.id];
+		const stated = body.derived[entry.id];
+		const recorded = stated === undefined ? undefined : derivedEntry(stated);
 		const computed = entry.status === 'value' ? entry.value.text : entry.status === 'open' ? 'open' : 'not computable';
 		const same =
 			entry.status === 'value' ? recorded !== undefined && 'si' in recorded && sameNumber(recorded.si, entry.value.si) : entry.status === 'open' ? recorded !== undefined && 'open' in recorded : recorded !== undefined && 'error' in recorded;
 		if (!same) found.push(finding('consistency', 'audit-derived-mismatch', {id: entry.id, recorded: describe(recorded), computed}));
 	}
-	for (const id of Object.keys(body.derived)) if (!seen.has(id)) found.push(finding('consistency', 'audit-derived-mismatch', {id, recorded: describe(body.derived[id]), computed: 'absent'}));
+	for (const id of Object.keys(body.derived)) if (!seen.has(id)) found.push(finding('consistency', 'audit-derived-mismatch', {id, recorded: describe(derivedEntry(body.derived[id]!)), computed: 'absent'}));
 	return found;
 }
 
@@ -94,7 +97,7 @@ function checkFindings(body: RecordBody, evaluation: Evaluation): Finding[] {
 
 function confirmationFindings(body: RecordBody, evaluation: Evaluation): Finding[] {
 	const found: Finding[] = [];
-	const recorded = new Map(body.confirmations.map((entry) => [entry.id, entry.status as string]));
+	const recorded = new Map(confirmationList(body).map((entry) => [entry.id, entry.status as string]));
 	for (const entry of evaluation.confirmations) {
 		const held = recorded.get(entry.id) ?? 'absent';
 		recorded.delete(entry.id);

@@ -10,6 +10,8 @@ export type HistoryEntry = {
 	/** The identifying inputs as entered (null when not given). */
 	identifying: Record<string, string | null>;
 	amends?: {record: string; bodySha256: string; reason: string};
+	/** It carries a countersignature the signing policy accepts. */
+	countersigned?: boolean;
 };
 
 /** Another record, named by file and time. */
@@ -21,6 +23,8 @@ export type History = {
 	amends?: {record: string; bodySha256: string; reason: string; file: string | null};
 	/** Later records that correct this one. */
 	amendedBy: Array<RecordRef & {reason: string}>;
+	/** A later record that corrects this one and is countersigned: it stands for this one's missing countersignature. */
+	countersignedBy?: RecordRef;
 	/** The next later record for the same setup fingerprint. */
 	supersededBy?: RecordRef;
 	/** The previous record of the same setup name, when its fingerprint differs: which identifying inputs changed. */
@@ -72,6 +76,7 @@ export function relateRecords(entries: readonly HistoryEntry[]): Array<{history:
 			return;
 		}
 		results[original]!.history.amendedBy.push({...ref(index), reason: entry.amends.reason});
+		if (entry.countersigned && !results[original]!.history.countersignedBy) results[original]!.history.countersignedBy = ref(index);
 		results[original]!.findings.push(finding('history', 'audit-amended-by', {...ref(index), reason: entry.amends.reason}));
 	});
 

@@ -2,7 +2,7 @@ import type {CompiledRules} from '../rules/compile/compiled-rules.js';
 import {outcomeWords, type Evaluation, type Outcome, type Verdict} from '../rules/evaluate/evaluation.js';
 import type {RecordAnswers, RefusedInput} from './audit-answers.js';
 import {finding, type Finding} from '../records/findings.js';
-import type {RecordBody} from '../records/record-schema.js';
+import {confirmationList, type RecordBody} from '../records/record-schema.js';
 
 /** A check whose verdict would differ under the current rules (null: the check is not in that rule file). */
 export type PolicyChange = {
@@ -54,9 +54,9 @@ export function policyReport(body: RecordBody, current: CompiledRules, read: Rec
 			...(check.relation ? {relation: check.relation} : {}),
 		});
 	}
-	for (const [id, check] of recorded) if (check.verdict !== 'skip') checks.push({id, title: check.title, recorded: check.verdict, current: null});
+	for (const [id, check] of recorded) if (check.verdict !== 'skip') checks.push({id, title: check.title ?? id, recorded: check.verdict, current: null});
 
-	const answeredIds = new Set(body.confirmations.map((entry) => entry.id));
+	const answeredIds = new Set(confirmationList(body).map((entry) => entry.id));
 	const report: PolicyReport = {
 		rules: {name: current.rules.name, file: current.file, sha256: current.sha256},
 		sameRules: current.sha256 === body.rules.sha256,

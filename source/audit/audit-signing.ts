@@ -1,5 +1,5 @@
 import {finding, type Finding} from '../records/findings.js';
-import type {AnyBody} from '../records/record-schema.js';
+import {inputEntry, type AnyBody} from '../records/record-schema.js';
 import type {Purpose} from '../records/signature-purpose.js';
 import type {SignatureReport} from './audit-trust.js';
 import {sameRole} from './audit-trust.js';
@@ -28,12 +28,17 @@ export function signingFindings(body: AnyBody, signatures: readonly SignatureRep
 	if (lacking.length > 0) findings.push(finding('policy', 'audit-purpose-required', {purposes: lacking.join(', '), kind: body.kind}));
 	if (body.kind === 'interlock-test' && policy.signedWitnessForInterlockTests && !has('witness')) findings.push(finding('policy', 'audit-witness-signature-required'));
 	if (body.kind === 'bench-check' && policy.countersignRoles.length > 0) {
-		const laserClass = body.inputs['laser_class']?.option ?? body.inputs['laser_class']?.entered;
+		const laserClassInput = inputEntry(body.inputs['laser_class']);
+		const laserClass = laserClassInput?.option ?? laserClassInput?.entered;
 		const reasons: string[] = [];
 		if (laserClass !== undefined && policy.countersignClasses.includes(laserClass)) reasons.push(`laser class ${laserClass}`);
 		if (policy.countersignSwitchedOff && context.switchedOff > 0) reasons.push(`a check switched off in its rules (${context.switchedOff})`);
-		const countersigned = authentic.some((signature) => signature.purpose !== 'operator' && (signature.granted ?? []).some((role) => policy.countersignRoles.some((wanted) => sameRole(role, wanted))));
-		if (reasons.length > 0 && !countersigned) findings.push(finding('policy', 'audit-countersign-required', {roles: policy.countersignRoles.join(' or '), why: reasons.join(' and ')}));
+		if (reasons.length > 0 && !isCountersigned(signatures, policy)) findings.push(finding('policy', 'audit-countersign-required', {roles: policy.countersignRoles.join(' or '), why: reasons.join(' and ')}));
 	}
 	return findings;
+}
+
+/** Whether a record carries a countersignature the policy accepts: an authentic signature other than the operator's, by a key the trust list grants one of the countersigning roles. */
+export function isCountersigned(signatures: readonly SignatureReport[], policy: SigningPolicy): boolean {
+	return policy.countersignRoles.length > 0 && signatures.some((signature) => signature.authentic && signature.purpose !== 'operator' && (signature.granted ?? []).some((role) => policy.countersignRoles.some((wanted) => sameRole(role, wanted))));
 }

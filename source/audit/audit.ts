@@ -23,11 +23,12 @@ import {linkInterlockTests} from './audit-interlock-link.js';
 import type {RecordSummary} from './record-summary.js';
 import {policyReport, type PolicyReport} from './audit-policy.js';
 import {signatureReports, type SignatureReport, type Trust} from './audit-trust.js';
-import type {RecordBody} from '../records/record-schema.js';
+import {confirmationList, inputEntry, type RecordBody} from '../records/record-schema.js';
 import {locationInput} from '../interlock/plan/plan-input.js';
-import {RuleTexts} from './audit-rule-texts.js';
+import {RuleTexts, type RecordRules} from './audit-rule-texts.js';
+import {withRuleWords} from '../records/record-words.js';
 import {reviewRepository, type RepositoryHistory} from './audit-repository.js';
-import {signingFindings} from './audit-signing.js';
+import {isCountersigned, signingFindings} from './audit-signing.js';
 import {signingPolicy} from './signing-policy.js';
 
 /** A finding with its message in words. */
@@ -94,20 +95,19 @@ function summarise(body: RecordBody): RecordSummary {
 		outcome: body.outcome,
 		rules: {name: body.rules.name, file: body.rules.file, sha256: body.rules.sha256},
 		interlockTest: body.interlockTest ?? null,
-		exceptions: body.confirmations
+		exceptions: confirmationList(body)
 			.filter((entry) => entry.status === 'no' || entry.status === 'not_applicable')
-			.map((entry) => ({id: entry.id, statement: entry.statement, status: entry.status, ...(entry.note ? {note: entry.note} : {})})),
+			.map((entry) => ({id: entry.id, statement: entry.statement ?? entry.id, status: entry.status, ...(entry.note ? {note: entry.note} : {})})),
 	};
 }
 
 function historyEntry(file: string, bodySha256: string, body: RecordBody): HistoryEntry {
-	const identifying = Object.fromEntries(body.setup.identifying.map((id) => [id, body.inputs[id]?.entered ?? null]));
+	const identifying = Object.fromEntries((body.setup.identifying ?? []).map((id) => [id, inputEntry(body.inputs[id])?.entered ?? null]));
 	return {file, bodySha256, createdAt: body.createdAt, setupName: body.setup.name, fingerprint: body.setup.fingerprint, identifying, ...(body.amends ? {amends: body.amends} : {})};
 }
 
 /** Audits one authentic record's contents: consistency under its own rules, and what the current rules would change. */
-function auditContents(body: RecordBody, file: string, rules: RuleTexts, current: CompiledRules): {consistency: NonNullable<RecordAudit['consistency']>; policy: PolicyReport; findings: Finding[]; switchedOff: number} {
-	const own = rules.forRecord(body, file);
+function auditContents(body: RecordBody, own: RecordRules, current: CompiledRules): {consistency: NonNullable<RecordAudit['consistency']>; policy: PolicyReport; findings: Finding[]; switchedOff: number} {
 	const findings: Finding[] = [...own.findings];
 	let judged: {rules: CompiledRules; read: RecordAnswers; evaluation: Evaluation} | undefined;
 	if (own.rules) {
@@ -145,7 +145,10 @@ function judgeRecord(file: string, index: number, chain: ChainAudit, context: Ru
 	const {keys, rules, options} = context;
 	const checked = readIntegrity(file, keys);
 	const copyOf = chain.add(chainEntry(index, file, checked));
-	const body = checked.record?.body;
+	// A bench check's words (titles, statements) are its rule text's, read from the text it names.
+	const stated = checked.record?.body;
+	const own = checked.ok && stated?.kind === 'bench-check' ? rules.forRecord(stated, file) : undefined;
+	const body = stated?.kind === 'bench-check' ? withRuleWords(stated, own?.rules ?? null) : stated;
 	const record = body?.kind === 'bench-check' ? summarise(body) : null;
 	const interlockTest = body?.kind === 'interlock-test' ? summariseInterlockTest(body) : null;
 	const trust = checked.record ? signatureReports(checked.record, checked.signatures, options.trust, context.signing.authorityRoles) : {signatures: [], findings: []};
@@ -160,7 +163,8 @@ function judgeRecord(file: string, index: number, chain: ChainAudit, context: Ru
 		const signed = signingFindings(checked.record.body, trust.signatures, context.signing);
 		return {audit: {file, authentic: true, bodySha256: checked.bodySha256, record, interlockTest, signatures: trust.signatures, consistency, currentPolicy: null, history: null, notChecked: versionNote, findings: [...trust.findings, ...signed, ...contents.findings, ...today]}};
 	}
-	const contents = auditContents(checked.record.body, file, rules, options.current);
+	const bench = body as RecordBody;
+	const contents = auditContents(bench, own!, options.current);
 	return {
 		audit: {
 			file,
@@ -173,9 +177,9 @@ function judgeRecord(file: string, index: number, chain: ChainAudit, context: Ru
 			currentPolicy: contents.policy,
 			history: null,
 			notChecked: [...context.notChecked, ...versionNote],
-			findings: [...trust.findings, ...signingFindings(checked.record.body, trust.signatures, context.signing, {switchedOff: contents.switchedOff}), ...contents.findings],
+			findings: [...trust.findings, ...signingFindings(bench, trust.signatures, context.signing, {switchedOff: contents.switchedOff}), ...contents.findings],
 		},
-		bench: {entry: historyEntry(file, checked.bodySha256, checked.record.body), location: checked.record.body.inputs[locationInput]?.entered},
+		bench: {entry: {...historyEntry(file, checked.bodySha256, bench), ...(isCountersigned(trust.signatures, context.signing) ? {countersigned: true} : {})}, location: inputEntry(bench.inputs[locationInput])?.entered},
 		...(copyOf === undefined ? {} : {copyOf}),
 	};
 }
@@ -190,6 +194,8 @@ function endOfRun(audits: Judged[], entries: readonly HistoryEntry[], entryOf: r
 	relateRecords(entries).forEach(({history, findings}, index) => {
 		const audit = audits[entryOf[index]!]!;
 		audit.history = history;
+		// A countersigned amendment completes a record that lacked its countersignature (the amendment is reported).
+		if (history.countersignedBy) audit.findings = audit.findings.filter((found) => found.code !== 'audit-countersign-required');
 		audit.findings.push(...findings);
 	});
 }

@@ -34,18 +34,35 @@ export function bodySha256(body: AnyBody): string {
 /** Builds the body of a bench-check record, validated as plain data before anyone signs it. */
 export function buildRecordBody(input: {rules: CompiledRules; answers: Answers; evaluation: Evaluation; operator: {name: string; role: string}; amends?: Amendment; /** The interlock test record the confirmations were answered from (the link's own shape). */ interlockTest?: NonNullable<RecordBody['interlockTest']> | null; now?: Date}): RecordBody {
 	const {rules, answers, evaluation, operator, amends} = input;
-	const {tool, rules: _rulesSummary, setup, ...evaluated} = evaluationToJson(rules, answers, evaluation);
+	const {tool, rules: _rulesSummary, setup, outcomeText: _outcomeText, caution: _caution, deferral: _deferral, inputs, derived, checks, confirmations, ...evaluated} = evaluationToJson(rules, answers, evaluation);
 	const body = {
 		kind: 'bench-check' as const,
 		tool,
 		createdAt: isoWithOffset(input.now ?? new Date()),
 		operator,
-		setup: {name: setup, ...setupFingerprint(rules, answers)},
+		setup: {name: setup, fingerprint: setupFingerprint(rules, answers).fingerprint},
 		...(amends ? {amends} : {}),
 		// The text itself is stored once in the records folder under its SHA-256 (records/rule-texts.ts).
 		rules: {name: rules.rules.name, file: displayPath(rules.file), sha256: rules.sha256},
 		...evaluated,
+		// What was entered, computed and concluded; the words of the rule text (titles, statements,
+		// bases, the caution) are read from the stored text (records/record-words.ts); a margin's
+		// number and fraction follow from the value and the limit.
+		inputs: Object.fromEntries(Object.entries(inputs).map(([id, entry]) => [id, entry.entered])),
+		derived: Object.fromEntries(Object.entries(derived).map(([id, entry]) => [id, 'si' in entry ? entry.si : entry])),
+		checks: checks.map(({step: _step, title: _title, severity: _severity, relation: _relation, explanation: _explanation, basis: _basis, value, limit, margin, ...check}) => ({
+			...check,
+			...(value ? {value: figure(value)} : {}),
+			...(limit ? {limit: figure(limit)} : {}),
+			...(margin ? {margin: margin.text} : {}),
+		})),
+		confirmations: Object.fromEntries(confirmations.map(({id, step: _step, statement: _statement, status, ...more}) => [id, Object.keys(more).length === 0 ? status : {status, ...more}])),
 		...(input.interlockTest ? {interlockTest: input.interlockTest} : {}),
 	};
 	return recordBodySchema.parse(JSON.parse(JSON.stringify(body)));
+}
+
+/** A value as a record keeps it: the SI number and the text shown (the unit is the check's, in the rule text). */
+function figure(value: {si: number; text: string}): {si: number; text: string} {
+	return {si: value.si, text: value.text};
 }

@@ -4,6 +4,10 @@ import type {z} from 'zod';
 
 const text = string();
 const shown = object({si: number(), unit: string(), text: string()}).strict();
+/** A value as a record shows it: the SI number and the text shown (records before the lean body also state the SI unit). */
+const figure = object({si: number(), unit: string().optional(), text: string()}).strict();
+/** An input as records made before the lean body keep it: as entered, and what it was read as. */
+const recordedInput = object({entered: string(), si: number().optional(), unit: string().optional(), text: string().optional(), option: string().optional(), value: union([boolean(), string()]).optional()}).strict();
 const sha256Hex = text.regex(/^[0-9a-f]{64}$/);
 const person = object({name: text.min(1), role: text}).strict();
 /**
@@ -32,54 +36,69 @@ export const signatureSchema = object({
 	})
 	.strict();
 
-/** The signed content of a bench-check record. */
+const confirmationStatus = oneOf(['yes', 'no', 'not_applicable', 'unanswered', 'skip', 'open']);
+const confirmationEntry = object({
+		id: text,
+		step: text.optional(),
+		statement: text.optional(),
+		status: confirmationStatus,
+		note: text.optional(),
+		needs: array(text).optional(),
+	})
+	.strict();
+
+/**
+ * The signed content of a bench-check record. A record states what was entered, what was
+ * computed and concluded, and the SHA-256 of the rule text it was judged under; the words that
+ * come from that text (check titles, explanations, bases, steps, confirmation statements, the
+ * caution) are read from the stored text (records/record-words.ts), so a record made since the
+ * lean body carries none of them. Records made before carry them, and still read.
+ */
 export const recordBodySchema = object({
 		kind: literal('bench-check'),
 		tool: object({name: literal('prelase'), version: text}).strict(),
 		createdAt: text,
 		operator: object({name: text.min(1), role: text}).strict(),
-		setup: object({name: text.nullable(), fingerprint: text.regex(/^sha256:[0-9a-f]{64}$/), identifying: array(text)}).strict(),
+		setup: object({name: text.nullable(), fingerprint: text.regex(/^sha256:[0-9a-f]{64}$/), identifying: array(text).optional()}).strict(),
 		previous: chainLinkSchema.optional(),
 		amends: object({record: text, bodySha256: text.regex(/^[0-9a-f]{64}$/), reason: text.min(1)}).strict().optional(),
 		/** The rule text is stored once in the records folder under its SHA-256 (rules/<sha256>.yaml); records made before that embed it as `text`. */
 		rules: object({name: text, file: text, sha256: text.regex(/^[0-9a-f]{64}$/), text: text.optional()}).strict(),
 		outcome: oneOf(['clear_to_energize', 'do_not_energize', 'incomplete']),
-		outcomeText: text,
+		/** The outcome in words (records made before the lean body). */
+		outcomeText: text.optional(),
 		counts: record(text, number()),
 		missingInputs: array(text),
-		inputs: record(text, object({entered: text, si: number().optional(), unit: text.optional(), text: text.optional(), option: text.optional(), value: union([boolean(), text]).optional()}).strict()),
-		derived: record(text, union([shown, object({open: array(text)}).strict(), object({error: text}).strict()])),
+		/** Each input as entered (records made before the lean body also state what it was read as). Read it with inputEntry(). */
+		inputs: record(text, union([text, recordedInput])),
+		/** Each derived value: its SI number (records since the lean body; the dimension is the rule text's), or as shown, or open, or not computable. */
+		derived: record(text, union([number(), figure, object({open: array(text)}).strict(), object({error: text}).strict()])),
 		checks: array(
 			object({
 					id: text,
-					step: text,
-					title: text,
-					severity: oneOf(['stop', 'advise']),
+					step: text.optional(),
+					title: text.optional(),
+					severity: oneOf(['stop', 'advise']).optional(),
 					verdict: oneOf(['pass', 'fail', 'advise', 'open', 'skip']),
 					relation: oneOf(['at_most', 'at_least']).optional(),
-					value: shown.optional(),
-					limit: shown.optional(),
-					margin: shown.extend({fraction: number().nullable()}).strict().optional(),
+					value: figure.optional(),
+					limit: figure.optional(),
+					/** The margin as shown (records since the lean body), or with its SI number and fraction of the limit (before). */
+					margin: union([text, object({si: number(), unit: string(), text: string(), fraction: number().nullable()}).strict()]).optional(),
 					needs: array(text).optional(),
 					message: text.optional(),
 					error: text.optional(),
 					reason: text.optional(),
-					explanation: text,
-					basis: text,
+					explanation: text.optional(),
+					basis: text.optional(),
 				})
 				.strict(),
 		),
-		confirmations: array(
-			object({
-					id: text,
-					step: text,
-					statement: text,
-					status: oneOf(['yes', 'no', 'not_applicable', 'unanswered', 'skip', 'open']),
-					note: text.optional(),
-					needs: array(text).optional(),
-				})
-				.strict(),
-		),
+		/**
+		 * Each confirmation's answer: since the lean body a map from id to the answer (or to
+		 * {status, note, needs}); before, a list with each statement. Read it with confirmationList().
+		 */
+		confirmations: union([array(confirmationEntry), record(text, union([confirmationStatus, confirmationEntry.omit({id: true, step: true, statement: true})]))]),
 		interlockTest: object({
 				status: oneOf(['current', 'overdue', 'failed', 'stricter-policy', 'other-location', 'untested', 'unreadable']),
 				plan: object({file: text, sha256: sha256Hex.nullable()}).strict(),
@@ -88,8 +107,8 @@ export const recordBodySchema = object({
 			})
 			.strict()
 			.optional(),
-		caution: text,
-		deferral: text,
+		caution: text.optional(),
+		deferral: text.optional(),
 	})
 	.strict();
 
@@ -154,6 +173,27 @@ export const recordSchema = object({
 	.strict();
 
 export type RecordBody = z.infer<typeof recordBodySchema>;
+/** An input of a record as an object: as entered, and (in records made before the lean body) what it was read as. */
+export type RecordedInput = z.infer<typeof recordedInput>;
+
+/** A derived value of a record as an object: a bare SI number (whose dimension the rules did not give) reads as that number. */
+export function derivedEntry(value: RecordBody['derived'][string]): Exclude<RecordBody['derived'][string], number> {
+	return typeof value === 'number' ? {si: value, text: String(value)} : value;
+}
+
+/** A confirmation of a record with its id, whichever way the record keeps the answers. */
+export type RecordConfirmation = z.infer<typeof confirmationEntry>;
+
+/** A record's confirmations as a list in the record's order, whichever way the record keeps them. */
+export function confirmationList(body: Pick<RecordBody, 'confirmations'>): RecordConfirmation[] {
+	if (Array.isArray(body.confirmations)) return body.confirmations;
+	return Object.entries(body.confirmations).map(([id, answer]) => (typeof answer === 'string' ? {id, status: answer} : {id, ...answer}));
+}
+
+/** An input of a record as an object, whichever way the record keeps it (undefined when the record has no such input). */
+export function inputEntry(value: RecordBody['inputs'][string] | undefined): RecordedInput | undefined {
+	return typeof value === 'string' ? {entered: value} : value;
+}
 export type Signature = z.infer<typeof signatureSchema>;
 export type BenchRecord = z.infer<typeof recordSchema>;
 export type InterlockTestBody = z.infer<typeof interlockTestBodySchema>;

@@ -3,6 +3,7 @@ import {join} from 'node:path';
 import {fsyncFolder, writeSyncedTemporary} from '../shared/atomic-file.js';
 import type {AnyRecord} from './record-schema.js';
 import {bodySha256} from './build-body.js';
+import {recordJson} from './record-json.js';
 
 /** A short, file-name-safe form of a setup name. */
 function slug(text: string | null): string {
@@ -31,7 +32,7 @@ export function recordFileName(record: AnyRecord): string {
  */
 export function writeRecord(folder: string, record: AnyRecord): string {
 	mkdirSync(folder, {recursive: true});
-	const data = `${JSON.stringify(record, null, 2)}\n`;
+	const data = recordJson(record);
 	const temporary = writeSyncedTemporary(join(folder, 'record'), data, 0o644);
 	try {
 		const base = recordFileName(record).replace(/\.json$/, '');

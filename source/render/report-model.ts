@@ -2,14 +2,14 @@ import {verdictWords} from '../rules/evaluate/verdict-words.js';
 import {formatQuantity, roundedText} from '../quantities/format.js';
 import {outcomeWords} from '../rules/evaluate/evaluation.js';
 import {stripControl} from '../shared/text.js';
+import {deferral} from '../shared/deferral.js';
 import {shortFingerprint} from '../records/key-material.js';
 import type {TrustedKey} from '../records/key-files.js';
-import type {AnyRecord, BenchRecord, RecordBody} from '../records/record-schema.js';
+import {confirmationList, derivedEntry, inputEntry, type AnyRecord, type RecordConfirmation, type BenchRecord, type RecordBody} from '../records/record-schema.js';
 import {ruleOutline} from './report-rule-outline.js';
 import {purposeOf} from '../records/signature-purpose.js';
 
 type RecordCheck = RecordBody['checks'][number];
-type RecordConfirmation = RecordBody['confirmations'][number];
 
 /** How each signature fared when the record was read (from the integrity check). */
 export type SignatureStatus = {index: number; valid: boolean; reason?: string};
@@ -74,34 +74,55 @@ const attentionOrder = {fail: 0, advise: 1, open: 2, pass: 3, skip: 4} as const;
 
 const clean = (text: string | null | undefined): string => stripControl(text ?? '');
 
+/** Said in place of a check's basis or a confirmation's statement when the rule text a record names could not be read. */
+const missingWords = 'in the rule text this record names, which could not be read';
+
+/** Said in place of the rule file's caution when the rule text a record names could not be read. */
+const missingCaution = 'The rule text this record names could not be read, so its caution is not shown here. Laser radiation can injure eyes and skin: follow the site\'s procedures and wear the eyewear they require.';
+
+/**
+ * A check's margin with its fraction of the limit. Records since the lean body state the margin
+ * as shown; its number and fraction follow from the value and the limit, as in the evaluation.
+ */
+function marginOf(check: RecordCheck): {text: string; fraction: number | null} | undefined {
+	const margin = check.margin;
+	if (margin === undefined) return undefined;
+	if (typeof margin !== 'string') return {text: margin.text, fraction: margin.fraction};
+	if (!check.value || !check.limit || !check.relation || check.limit.si === 0) return {text: margin, fraction: null};
+	const si = check.relation === 'at_most' ? check.limit.si - check.value.si : check.value.si - check.limit.si;
+	return {text: margin, fraction: si / Math.abs(check.limit.si)};
+}
+
 function checkRow(check: RecordCheck): CheckRow {
-	const sign = check.relation === 'at_least' ? '≥' : '≤';
+	// Without the rule text a lean record does not say which side of its limit a check holds on.
+	const sign = check.relation === 'at_least' ? '≥' : check.relation === 'at_most' ? '≤' : 'limit';
+	const figures = marginOf(check);
 	let margin = '';
-	if (check.margin) {
-		const amount = clean(check.margin.text).replace(/^[-\u2212]/, '');
-		margin = check.verdict === 'pass' ? amount : `${check.relation === 'at_least' ? 'short by' : 'over by'} ${amount}`;
+	if (figures) {
+		const amount = clean(figures.text).replace(/^[-\u2212]/, '');
+		margin = check.verdict === 'pass' ? amount : `${check.relation === 'at_least' ? 'short by' : check.relation === 'at_most' ? 'over by' : 'misses by'} ${amount}`;
 	}
-	const fraction = check.margin?.fraction === null || check.margin?.fraction === undefined ? '' : formatQuantity(Math.abs(check.margin.fraction), 'ratio');
+	const fraction = figures?.fraction === null || figures?.fraction === undefined ? '' : formatQuantity(Math.abs(figures.fraction), 'ratio');
 	const notes = [check.message, check.needs?.length ? `needs ${check.needs.join(', ')}` : undefined, check.error].filter((entry): entry is string => Boolean(entry)).map(clean);
 	return {
 		id: clean(check.id),
 		verdict: check.verdict,
 		verdictText: verdictWords[check.verdict],
-		title: clean(check.title),
-		severity: check.severity,
+		title: clean(check.title ?? check.id),
+		severity: check.severity ?? 'severity unknown',
 		value: check.value ? clean(check.value.text) : '',
 		limit: check.limit ? `${sign} ${clean(check.limit.text)}` : '',
 		margin,
 		fraction,
 		notes,
-		explanation: clean(check.explanation),
-		basis: clean(check.basis),
+		explanation: clean(check.explanation ?? ''),
+		basis: clean(check.basis ?? missingWords),
 	};
 }
 
 function confirmationRow(entry: RecordConfirmation): ConfirmationRow {
 	const needs = entry.needs?.length ? `needs ${entry.needs.join(', ')}` : '';
-	return {id: clean(entry.id), status: entry.status, answerText: answerWords[entry.status], statement: clean(entry.statement), note: clean(entry.note ?? needs)};
+	return {id: clean(entry.id), status: entry.status, answerText: answerWords[entry.status], statement: clean(entry.statement ?? missingWords), note: clean(entry.note ?? needs)};
 }
 
 /** One signature of a record with its verification and trust, for printing. */
@@ -137,29 +158,31 @@ export function reportModel(record: BenchRecord, signatures: readonly SignatureS
 	const setupName = body.setup.name === null ? '(no setup name)' : clean(body.setup.name);
 	const outcomeText = outcomeWords[body.outcome];
 	const checks = body.checks.map(checkRow);
-	const confirmations = body.confirmations.map(confirmationRow);
+	const recordedConfirmations = confirmationList(body);
+	const confirmations = recordedConfirmations.map(confirmationRow);
 
 	const stepIds = [...outline.steps.map((step) => step.id)];
 	const inputStep = (id: string) => outline.labels.get(id)?.step ?? '';
-	for (const id of [...body.checks.map((check) => check.step), ...body.confirmations.map((entry) => entry.step), ...Object.keys(body.inputs).map(inputStep)]) {
+	for (const id of [...body.checks.map((check) => check.step ?? ''), ...recordedConfirmations.map((entry) => entry.step ?? ''), ...Object.keys(body.inputs).map(inputStep)]) {
 		if (!stepIds.includes(id)) stepIds.push(id);
 	}
 	const titles = new Map(outline.steps.map((step) => [step.id, step.title]));
 	const steps = stepIds
 		.map((id) => ({
 			id: clean(id),
-			title: clean(id === '' ? 'Other inputs' : (titles.get(id) ?? id)),
+			title: clean(id === '' ? (outline.steps.length === 0 ? 'Inputs, checks and confirmations (the rule text with their steps could not be read)' : 'Other inputs') : (titles.get(id) ?? id)),
 			inputs: Object.entries(body.inputs)
 				.filter(([inputId]) => inputStep(inputId) === id)
-				.map(([inputId, input]): InputRow => {
+				.map(([inputId, recorded]): InputRow => {
+					const input = inputEntry(recorded)!;
 					const known = outline.labels.get(inputId);
 					const option = input.option === undefined ? undefined : (known?.options?.[input.option] ?? input.option);
 					const value = input.text ?? option ?? (typeof input.value === 'boolean' ? (input.value ? 'yes' : 'no') : (input.value ?? ''));
 					const si = input.si === undefined ? '' : `${roundedText(input.si, 6)} ${input.unit ?? ''}`.trim();
 					return {id: clean(inputId), label: clean(known?.label ?? inputId), entered: clean(input.entered), value: clean(value), si: clean(si)};
 				}),
-			checks: checks.filter((_, index) => body.checks[index]!.step === id),
-			confirmations: confirmations.filter((_, index) => body.confirmations[index]!.step === id),
+			checks: checks.filter((_, index) => (body.checks[index]!.step ?? '') === id),
+			confirmations: confirmations.filter((_, index) => (recordedConfirmations[index]!.step ?? '') === id),
 		}))
 		.filter((step) => step.inputs.length + step.checks.length + step.confirmations.length > 0);
 
@@ -173,8 +196,8 @@ export function reportModel(record: BenchRecord, signatures: readonly SignatureS
 		setupKey: shortFingerprint(body.setup.fingerprint),
 		outcome: body.outcome,
 		outcomeText,
-		caution: clean(body.caution),
-		deferral: clean(body.deferral),
+		caution: clean(body.caution ?? missingCaution),
+		deferral: clean(body.deferral ?? deferral),
 		countsText,
 		attention: checks.filter((check) => attentionOrder[check.verdict] < 3).sort((a, b) => attentionOrder[a.verdict] - attentionOrder[b.verdict]),
 		attentionConfirmations: [...confirmations.filter((entry) => entry.status === 'no'), ...confirmations.filter((entry) => entry.status === 'unanswered' || entry.status === 'open')],
@@ -182,7 +205,7 @@ export function reportModel(record: BenchRecord, signatures: readonly SignatureS
 		details: [
 			['Setup', setupName],
 			['Setup fingerprint', `${shortFingerprint(body.setup.fingerprint)} (${body.setup.fingerprint})`],
-			['Identifying inputs', body.setup.identifying.map(clean).join(', ')],
+			['Identifying inputs', (body.setup.identifying ?? []).map(clean).join(', ')],
 			['Operator', [clean(body.operator.name), clean(body.operator.role)].filter(Boolean).join(', ')],
 			['Created', clean(body.createdAt)],
 			['Tool', `${clean(body.tool.name)} ${clean(body.tool.version)}`],
@@ -193,7 +216,7 @@ export function reportModel(record: BenchRecord, signatures: readonly SignatureS
 		],
 		...(body.amends ? {amendment: {record: clean(body.amends.record), bodySha256: body.amends.bodySha256, reason: clean(body.amends.reason)}} : {}),
 		steps,
-		derived: Object.entries(body.derived).map(([id, entry]) => ({
+		derived: Object.entries(body.derived).map(([id, stated]) => ({ entry: derivedEntry(stated), id })).map(({id, entry}) => ({
 			id: clean(id),
 			label: clean(outline.labels.get(id)?.label ?? id),
 			value: clean('text' in entry ? entry.text : 'open' in entry ? `open: needs ${entry.open.join(', ')}` : `error: ${entry.error}`),

@@ -1,14 +1,16 @@
-import {mkdtempSync, rmSync, writeFileSync} from 'node:fs';
+import {mkdtempSync, readFileSync, rmSync, writeFileSync} from 'node:fs';
 import type {KeyObject} from 'node:crypto';
 import {tmpdir} from 'node:os';
-import {join} from 'node:path';
+import {basename, join} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
 import {auditRecords} from '../../source/audit/audit.js';
 import type {Trust} from '../../source/audit/audit-trust.js';
 import {canonicalBytes} from '../../source/records/canonical.js';
 import {fingerprint, generateKeyPair, rawPublicKey} from '../../source/records/key-material.js';
 import type {BenchRecord} from '../../source/records/record-schema.js';
-import {signBytes} from '../../source/records/sign.js';
+import {signBytes, signRecord} from '../../source/records/sign.js';
+import {bodySha256} from '../../source/records/build-body.js';
+import {sha256Hex} from '../../source/shared/sha256.js';
 import type {CompiledRules} from '../../source/rules/compile/compiled-rules.js';
 import type {RuleFile} from '../../source/rules/file/schema.js';
 import {sampleRecord, sampleRules, serialise, signerWith} from '../helpers/sample-record.js';
@@ -103,6 +105,34 @@ describe('the signing policy of the rule file', () => {
 			['audit-countersign-required', 'incomplete until countersigned: the policy requires a countersignature by a granted laser safety officer for laser class class_4; have them countersign an amendment (check --sign NAME --amends THIS-RECORD --reason ... --cosign NAME --cosign-key FILE --cosign-meaning approval)'],
 		]);
 		expect(findings(cosigned(), trust(['laser safety officer']), current)).toEqual([]);
+	});
+
+	it('a countersigned amendment completes the record it amends: the original then reports the amendment, not the missing countersignature', () => {
+		const current = withSigning({countersign: {roles: ['laser safety officer'], laser_classes: ['class_4'], switched_off_checks: false}});
+		const original = sampleRecord({rules, now: new Date('2026-06-10T09:00:00Z'), signers: [signerWith('Ada Operator', 'performed', operator)]});
+		const originalPath = write(original);
+		// The amendment, as `check --sign Ada --amends ORIGINAL --reason ... --cosign Lin --cosign-meaning approval` writes it:
+		// it names the original by body hash and the previous record of Ada's key by the SHA-256 of its bytes.
+		const body = {
+			...original.body,
+			createdAt: '2026-06-10T10:00:00+00:00',
+			amends: {record: basename(originalPath), bodySha256: bodySha256(original.body), reason: 'countersigned by the laser safety officer'},
+			previous: {file: basename(originalPath), sha256: sha256Hex(readFileSync(originalPath))},
+		};
+		const amendment = signRecord(body, [signerWith('Ada Operator', 'performed', operator), signerWith('Lin Officer', 'approved', officer, 'laser safety officer')], new Date('2026-06-10T10:00:00Z'));
+		const amendmentPath = write(amendment);
+		const report = auditRecords([originalPath, amendmentPath], {current, trust: trust(['laser safety officer'])});
+		const [first, second] = report.records;
+		expect(first!.findings.map((found) => found.code)).toEqual(['audit-amended-by']);
+		expect(first!.history?.countersignedBy?.file).toBe(amendmentPath);
+		expect(second!.findings).toEqual([]);
+		// Without the countersignature the amendment completes nothing: both lack it.
+		const unsigned = signRecord({...body, amends: {...body.amends, reason: 'ambient re-measured'}}, [signerWith('Ada Operator', 'performed', operator)], new Date('2026-06-10T10:00:00Z'));
+		const plain = auditRecords([originalPath, write(unsigned)], {current, trust: trust(['laser safety officer'])});
+		expect(plain.records.map((audit) => audit.findings.map((found) => found.code).sort())).toEqual([
+			['audit-amended-by', 'audit-countersign-required'],
+			['audit-countersign-required'],
+		]);
 	});
 
 	it('the purposes the policy requires', () => {

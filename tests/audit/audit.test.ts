@@ -13,7 +13,7 @@ import {ownFingerprint} from '../../source/records/key-files.js';
 import {operatorPrivateKey} from '../helpers/operator-key.js';
 import {fingerprint, generateKeyPair, rawPublicKey} from '../../source/records/key-material.js';
 import {readRecord} from '../../source/records/read-record.js';
-import type {BenchRecord, RecordBody} from '../../source/records/record-schema.js';
+import {confirmationList, type BenchRecord, type RecordBody} from '../../source/records/record-schema.js';
 import {signedBytes, signRecord} from '../../source/records/sign.js';
 import type {CompiledRules} from '../../source/rules/compile/compiled-rules.js';
 import {loadRules, loadRulesFromText, shippedRulesPath} from '../../source/rules/load.js';
@@ -82,6 +82,12 @@ afterAll(() => {
 	rmSync(folder, {recursive: true, force: true});
 });
 
+/** The text with its first `from` replaced by `to`; a test whose change does not apply fails here rather than passing unchanged. */
+function replaced(text: string, from: string, to: string): string {
+	if (!text.includes(from)) throw new Error(`the record text has no ${from}`);
+	return text.replace(from, to);
+}
+
 describe('a clean record', () => {
 	it('is authentic and consistent, signed with the auditor\'s own key, with no findings', () => {
 		const report = audit([cleanPath]);
@@ -114,8 +120,8 @@ describe('a clean record', () => {
 describe('integrity failures (exit 3)', () => {
 	const otherKey = rawPublicKey(generateKeyPair().publicKey);
 	const cases: Array<{name: string; make: () => string; code: string}> = [
-		{name: 'a byte changed in the body', make: () => cleanText.replace('"entered": "2.5 A"', '"entered": "3.5 A"'), code: 'audit-signature-invalid'},
-		{name: 'a verdict changed without signing again', make: () => cleanText.replace('"verdict": "pass"', '"verdict": "fail"'), code: 'audit-signature-invalid'},
+		{name: 'a byte changed in the body', make: () => replaced(cleanText, '"diode_max_current": "2.5 A"', '"diode_max_current": "3.5 A"'), code: 'audit-signature-invalid'},
+		{name: 'a verdict changed without signing again', make: () => replaced(cleanText, '"verdict":"pass"', '"verdict":"fail"'), code: 'audit-signature-invalid'},
 		{name: 'the signature removed', make: () => JSON.stringify({...clean, signatures: []}), code: 'audit-unsigned'},
 		{name: 'no signatures field', make: () => JSON.stringify({format: clean.format, version: clean.version, body: clean.body}), code: 'audit-unsigned'},
 		{name: 'the public key swapped (fingerprint left)', make: () => JSON.stringify({...clean, signatures: [{...clean.signatures[0]!, publicKey: otherKey.toString('base64')}]}), code: 'audit-fingerprint-mismatch'},
@@ -205,13 +211,25 @@ describe('consistency: altered and signed again with a valid key (exit 1)', () =
 		expect(audited!.findings.find((found) => found.code === 'audit-outcome-mismatch')!.text).toContain("the record's conclusions do not follow from its numbers");
 	});
 
-	it('an input entered as one value and recorded as another', () => {
+	it('an input entered as one value and recorded as another (a record made before the lean body states both)', () => {
 		const record = resigned((body) => {
-			body.inputs['current_limit']!.entered = '2.4 A';
+			body.inputs['current_limit'] = {entered: '2.4 A', si: 2, unit: 'A', text: '2 A'};
 		});
 		const [audited] = audit([writeRecordFile(record)]).records;
 		expect(audited!.findings).toContainEqual(expect.objectContaining({code: 'audit-input-value-mismatch', data: {id: 'current_limit', entered: '2.4 A', computed: '2.4 A', recorded: '2 A'}}));
 		// At 2.4 A the derived dissipation differs too.
+		expect(codes(audited!)).toContain('audit-derived-mismatch');
+	});
+
+	it('an input entered as another value than the one the conclusions were drawn from', () => {
+		const record = resigned((body) => {
+			body.inputs['current_limit'] = '2.4 A';
+		});
+		const [audited] = audit([writeRecordFile(record)]).records;
+		// At 2.4 A the limit is above the ceiling of 2.25 A (2.5 A less 10 %): the recorded pass does not follow;
+		// the limit is also the value of the check against the driver's maximum: 2 A recorded, 2.4 A from what was entered.
+		expect(audited!.findings).toContainEqual(expect.objectContaining({code: 'audit-verdict-mismatch', data: {id: 'limit_below_diode_maximum', recorded: 'pass', computed: 'fail'}}));
+		expect(audited!.findings).toContainEqual(expect.objectContaining({code: 'audit-figure-mismatch', data: {id: 'limit_within_driver', what: 'value', recorded: '2 A', computed: '2.4 A'}}));
 		expect(codes(audited!)).toContain('audit-derived-mismatch');
 	});
 
@@ -235,10 +253,11 @@ describe('consistency: altered and signed again with a valid key (exit 1)', () =
 
 	it('a confirmation status that its answer cannot give', () => {
 		const record = resigned((body) => {
-			body.confirmations[0]!.status = 'skip';
+			const [first] = Object.keys(body.confirmations);
+			(body.confirmations as Record<string, string>)[first!] = 'skip';
 		});
 		const [audited] = audit([writeRecordFile(record)]).records;
-		expect(audited!.findings).toContainEqual(expect.objectContaining({code: 'audit-confirmation-mismatch', data: {id: clean.body.confirmations[0]!.id, recorded: 'skip', computed: 'unanswered'}}));
+		expect(audited!.findings).toContainEqual(expect.objectContaining({code: 'audit-confirmation-mismatch', data: {id: confirmationList(clean.body)[0]!.id, recorded: 'skip', computed: 'unanswered'}}));
 	});
 
 	it('embedded rules that do not load cannot be re-evaluated', () => {

@@ -247,8 +247,8 @@ describe('audit of an interlock test record changed without signing again', () =
 
 	it('a changed step time is an integrity failure too, as JSON', async () => {
 		const text = readFileSync(freshPath, 'utf8');
-		expect(text).toContain('"text": "16 ms"');
-		const {code, report} = await auditJson(writeRecordFile(text.replace('"text": "16 ms"', '"text": "12 ms"')));
+		expect(text).toContain('"text":"16 ms"');
+		const {code, report} = await auditJson(writeRecordFile(text.replace('"text":"16 ms"', '"text":"12 ms"')));
 		expect(code).toBe(3);
 		expect(report.status).toBe('integrity_failure');
 		expect(report.records[0]!.authentic).toBe(false);

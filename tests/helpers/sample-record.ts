@@ -1,3 +1,4 @@
+import {recordJson} from '../../source/records/record-json.js';
 import type {KeyObject} from 'node:crypto';
 import {resolve} from 'node:path';
 import {buildRecordBody} from '../../source/records/build-body.js';
@@ -50,5 +51,5 @@ export function sampleRecord(
 
 /** A record as the store writes it to disk. */
 export function serialise(record: unknown): string {
-	return `${JSON.stringify(record, null, 2)}\n`;
+	return recordJson(record);
 }

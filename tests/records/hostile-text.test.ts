@@ -4,7 +4,7 @@ import {join} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
 import {main} from '../../source/cli/dispatch.js';
 import {readRecord} from '../../source/records/read-record.js';
-import type {BenchRecord} from '../../source/records/record-schema.js';
+import {confirmationList, type BenchRecord} from '../../source/records/record-schema.js';
 import {writeRecord} from '../../source/records/store.js';
 import type {Answers} from '../../source/rules/evaluate/answers.js';
 import type {CompiledRules} from '../../source/rules/compile/compiled-rules.js';
@@ -81,7 +81,7 @@ describe('hostile text in the record itself', () => {
 	it('keeps the setup name and the note byte-exact in the file, and the file verifies', () => {
 		const data = JSON.parse(readFileSync(written, 'utf8')) as BenchRecord;
 		expect(data.body.setup.name).toBe(hostileSetup);
-		expect(data.body.confirmations.find((entry) => entry.id === 'bypass_recorded')?.note).toBe(hostileNote);
+		expect(confirmationList(data.body).find((entry) => entry.id === 'bypass_recorded')?.note).toBe(hostileNote);
 		expect(readRecord(written)).toMatchObject({ok: true});
 	});
 
@@ -131,7 +131,7 @@ describe('prelase check --sign with hostile text in the answers file', () => {
 		const name = readdirSync(recordsFolder).find((entry) => entry.endsWith('.json'))!;
 		const data = JSON.parse(readFileSync(join(recordsFolder, name), 'utf8')) as BenchRecord;
 		expect(data.body.setup.name).toBe(hostileSetup);
-		expect(data.body.confirmations.find((entry) => entry.id === 'bypass_recorded')?.note).toBe(hostileNote);
+		expect(confirmationList(data.body).find((entry) => entry.id === 'bypass_recorded')?.note).toBe(hostileNote);
 	});
 
 	it('the record it wrote verifies', () => {

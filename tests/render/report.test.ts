@@ -3,11 +3,12 @@ import {deferral} from '../../source/shared/deferral.js';
 import {buildRecordBody} from '../../source/records/build-body.js';
 import {checkRecordText} from '../../source/records/read-record.js';
 import {fingerprint, generateKeyPair, rawPublicKey, shortFingerprint} from '../../source/records/key-material.js';
-import type {BenchRecord, RecordBody} from '../../source/records/record-schema.js';
+import {confirmationList, type BenchRecord, type RecordBody} from '../../source/records/record-schema.js';
 import {htmlText, reportHtml} from '../../source/render/report-html.js';
 import {markdownText, reportMarkdown} from '../../source/render/report-markdown.js';
 import type {SignatureStatus, TrustInfo} from '../../source/render/report-model.js';
 import {signRecord} from '../../source/records/sign.js';
+import {withInputsRead, withRuleWords} from '../../source/records/record-words.js';
 import {evaluate} from '../../source/rules/evaluate/evaluate.js';
 import {loadAnswers} from '../../source/rules/evaluate/load-answers.js';
 import {loadRules, shippedRulesPath} from '../../source/rules/load.js';
@@ -31,9 +32,9 @@ function signed(body: RecordBody): {record: BenchRecord; signatures: SignatureSt
 	const record = signRecord(body, [{signer: {name: 'Test Person', role: 'test engineer', meaning: 'performed'}, key: operatorKey}], now);
 	const integrity = checkRecordText(JSON.stringify(record));
 	if (!integrity.ok || integrity.record.body.kind !== 'bench-check') throw new Error('test setup: the record must verify as a bench check');
-	// The report command attaches the rule text stored with the records, as a record made before the store carries it.
+	// The report command reads the rule text stored with the records and puts its words back (titles, statements, caution).
 	const read = integrity.record.body;
-	return {record: {...integrity.record, body: {...read, rules: {...read.rules, text: read.rules.text ?? rules.text}}}, signatures: integrity.signatures};
+	return {record: {...integrity.record, body: withInputsRead(withRuleWords({...read, rules: {...read.rules, text: read.rules.text ?? rules.text}}, rules), rules)}, signatures: integrity.signatures};
 }
 
 const ownTrust: TrustInfo = {own: operatorFingerprint, trusted: []};
@@ -79,9 +80,9 @@ describe.each(formats)('$name report of the failing demo', ({write, escape}) => 
 
 	it('shows the caution and the deferral before the summary', () => {
 		const summary = page.indexOf('Summary');
-		expect(body.caution).toMatch(/laser safety officer/);
-		expect(page.indexOf(escape(body.caution))).toBeGreaterThan(0);
-		expect(page.indexOf(escape(body.caution))).toBeLessThan(summary);
+		expect(body.caution!).toMatch(/laser safety officer/);
+		expect(page.indexOf(escape(body.caution!))).toBeGreaterThan(0);
+		expect(page.indexOf(escape(body.caution!))).toBeLessThan(summary);
 		expect(page.indexOf(escape(deferral))).toBeLessThan(summary);
 	});
 
@@ -97,7 +98,7 @@ describe.each(formats)('$name report of the failing demo', ({write, escape}) => 
 
 	it('never calls the setup safe (outside the deferral that says so)', () => {
 		expect(page).toMatch(/never says a setup is safe/);
-		const rest = page.replaceAll(escape(deferral), '').replaceAll(escape(body.caution), '');
+		const rest = page.replaceAll(escape(deferral), '').replaceAll(escape(body.caution!), '');
 		expect(rest).not.toMatch(/\bis safe\b|\bsafe to (energize|operate)\b/i);
 	});
 });
@@ -111,7 +112,7 @@ describe.each([
 		const page = write(record, signatures, ownTrust);
 		expect(page).toContain(outcome);
 		expect(page).toMatch(summary);
-		expect(page).toContain(record.body.caution.slice(0, 40));
+		expect(page).toContain(record.body.caution!.slice(0, 40));
 	});
 });
 
@@ -136,7 +137,7 @@ describe('signature status', () => {
 describe('hostile text from a record', () => {
 	const hostileNote = 'ok <script>alert(1)</script>\u001b[2J\u202eevil " onload=\'x\' | cell\nnext line';
 	const body = structuredClone(failing.record.body);
-	body.confirmations[0]!.note = hostileNote;
+	body.confirmations = confirmationList(body).map((entry, index) => (index === 0 ? {...entry, note: hostileNote} : entry));
 	body.setup.name = '<img src=x onerror=alert(2)>';
 	const {record, signatures} = signed(body);
 	const html = reportHtml(record, signatures, ownTrust);

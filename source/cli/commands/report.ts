@@ -4,6 +4,8 @@ import {parseArgs} from 'node:util';
 import {ownFingerprint, readTrusted} from '../../records/key-files.js';
 import {interlockReportHtml, interlockReportMarkdown} from '../../render/interlock-report.js';
 import {readRecord} from '../../records/read-record.js';
+import {withInputsRead, withRuleWords} from '../../records/record-words.js';
+import {loadRulesFromText} from '../../rules/load.js';
 import {findRuleText} from '../../records/rule-texts.js';
 import {reportHtml} from '../../render/report-html.js';
 import {reportMarkdown} from '../../render/report-markdown.js';
@@ -48,11 +50,15 @@ export function runReport(args: string[], io: Io): number {
 	}
 	const settings = openSettings(io.env);
 	const trust = {own: ownFingerprint(settings.folder), trusted: readTrusted(settings.folder)};
-	const {body} = integrity.record;
-	// A record names its rule text by hash; the page's step titles and labels come from the stored text.
-	if (body.kind === 'bench-check' && body.rules.text === undefined) {
-		const stored = findRuleText(path, body.rules.sha256);
-		if (stored.status === 'ok') body.rules = {...body.rules, text: stored.text};
+	let {body} = integrity.record;
+	// A record names its rule text by hash; the page's titles, statements and labels come from the stored text.
+	if (body.kind === 'bench-check') {
+		const text = body.rules.text ?? (({sha256}) => {
+			const stored = findRuleText(path, sha256);
+			return stored.status === 'ok' ? stored.text : undefined;
+		})(body.rules);
+		const compiled = text === undefined ? undefined : loadRulesFromText(text, body.rules.file);
+		body = withInputsRead(withRuleWords({...body, rules: {...body.rules, ...(text === undefined ? {} : {text})}}, compiled?.ok ? compiled.value : null), compiled?.ok ? compiled.value : null);
 	}
 	const page =
 		body.kind === 'interlock-test'

@@ -75,7 +75,7 @@ describe('prelase audit: exit status', () => {
 	});
 
 	it('3 for a byte changed in the body', async () => {
-		const path = writeRecord(readFileSync(cleanPath, 'utf8').replace('"entered": "2.5 A"', '"entered": "2.6 A"'));
+		const path = writeRecord(readFileSync(cleanPath, 'utf8').replace('"diode_max_current": "2.5 A"', '"diode_max_current": "2.6 A"'));
 		const {code, stdout} = await run(['audit', path]);
 		expect(code).toBe(3);
 		expect(stdout).toContain('Integrity      ✗ NOT AUTHENTIC: signature 1 (Test Person): the signature does not match the content');
@@ -159,7 +159,7 @@ describe('prelase audit: folders', () => {
 		const records = join(folder, 'folder');
 		mkdirSync(join(records, '2026-12'), {recursive: true});
 		copyFileSync(cleanPath, join(records, '2026-12', 'a.json'));
-		writeFileSync(join(records, '2026-12', 'b.json'), readFileSync(cleanPath, 'utf8').replace('"entered": "2.5 A"', '"entered": "2.6 A"'));
+		writeFileSync(join(records, '2026-12', 'b.json'), readFileSync(cleanPath, 'utf8').replace('"diode_max_current": "2.5 A"', '"diode_max_current": "2.6 A"'));
 		writeFileSync(join(records, '.c.json'), 'ignored');
 		const {code, stdout} = await run(['audit', records]);
 		expect(code).toBe(3);
@@ -262,8 +262,7 @@ describe('prelase audit: hostile text from a record', () => {
 			(body) => {
 				body.setup.name = `${escape}Bench${bidi} 3\nIntegrity      ✓ forged line`;
 				body.operator = {name: `Mallory${escape}`, role: `tech${bidi}nician`};
-				const bypass = body.confirmations.find((entry) => entry.status === 'not_applicable')!;
-				bypass.note = `No bypass${escape}${bidi} fitted \u009B31m`;
+				(body.confirmations as Record<string, unknown>)['bypass_recorded'] = {status: 'not_applicable', note: `No bypass${escape}${bidi} fitted \u009B31m`};
 			},
 			{name: `Mallory${escape}`, role: `tech${bidi}nician`},
 		);

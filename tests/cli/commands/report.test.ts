@@ -73,7 +73,7 @@ describe('prelase report: printing a signed record', () => {
 });
 
 describe('prelase report: the rule text stored with the records', () => {
-	it('gives the step titles from the text the record names by hash; without that file, the step ids', () => {
+	it('gives the titles, steps and caution from the text the record names by hash; without that file, ids and what the record itself says', () => {
 		const body = (JSON.parse(recordText) as {body: {rules: {sha256: string; text?: string}}}).body;
 		expect(body.rules.text).toBeUndefined();
 		expect(run(signerHome, 'report', recordPath).stdout).toContain('## 2. Laser diode ratings');
@@ -84,7 +84,10 @@ describe('prelase report: the rule text stored with the records', () => {
 			const page = run(signerHome, 'report', recordPath);
 			expect(page.code).toBe(0);
 			expect(page.stdout).not.toContain('Laser diode ratings');
-			expect(page.stdout).toContain('## 1. driver');
+			// A record keeps what was entered, computed and concluded; the titles, steps and caution are the text's.
+			expect(page.stdout).toContain('## 1. Inputs, checks and confirmations (the rule text with their steps could not be read)');
+			expect(page.stdout).toContain('The rule text this record names could not be read, so its caution is not shown here.');
+			expect(page.stdout).toContain('| **✗ FAIL** | cold_power_at_limit (`cold_power_at_limit`, severity unknown) | 2.62 W | limit 2.5 W | misses by 125 mW |');
 		} finally {
 			writeFileSync(stored, kept);
 		}
@@ -121,8 +124,8 @@ describe('prelase report: bad usage and records that fail their integrity check'
 		{name: 'two records', args: () => ['report', recordPath, recordPath], code: 2, says: 'one record at a time'},
 		{name: 'unknown format', args: () => ['report', recordPath, '--format', 'pdf'], code: 2, says: 'unknown format "pdf"'},
 		{name: 'unknown option', args: () => ['report', recordPath, '--fromat', 'md'], code: 2, says: 'unknown option --fromat (did you mean "--format"?)'},
-		{name: 'a changed value', args: () => ['report', writeTemp('altered.json', recordText.replace('"text": "2.62 W"', '"text": "1.62 W"'))], code: 3, says: 'signature 1 (Test Person): the signature does not match the content'},
-		{name: 'a changed verdict', args: () => ['report', writeTemp('verdict.json', recordText.replace('"verdict": "fail"', '"verdict": "pass"'))], code: 3, says: 'fails its integrity check'},
+		{name: 'a changed value', args: () => ['report', writeTemp('altered.json', recordText.replace(`"text":"2.62 W"`, `"text":"1.62 W"`))], code: 3, says: 'signature 1 (Test Person): the signature does not match the content'},
+		{name: 'a changed verdict', args: () => ['report', writeTemp('verdict.json', recordText.replace(`"verdict":"fail"`, `"verdict":"pass"`))], code: 3, says: 'fails its integrity check'},
 		{name: 'no signatures', args: () => ['report', writeTemp('unsigned.json', JSON.stringify({...JSON.parse(recordText), signatures: []}))], code: 3, says: 'the record is unsigned'},
 		{name: 'not JSON', args: () => ['report', writeTemp('broken.json', recordText.slice(0, 200))], code: 3, says: 'not valid JSON'},
 		{name: 'no such file', args: () => ['report', join(folder, 'missing.json')], code: 3, says: 'cannot read the file (ENOENT)'},
@@ -137,7 +140,7 @@ describe('prelase report: bad usage and records that fail their integrity check'
 
 	it('writes no file for a record that fails its integrity check', () => {
 		const out = join(folder, 'never.html');
-		const altered = writeTemp('altered-out.json', recordText.replace('"text": "2.62 W"', '"text": "1.62 W"'));
+		const altered = writeTemp('altered-out.json', recordText.replace(`"text":"2.62 W"`, `"text":"1.62 W"`));
 		expect(run(signerHome, 'report', altered, '--out', out).code).toBe(3);
 		expect(existsSync(out)).toBe(false);
 	});
