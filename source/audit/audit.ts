@@ -8,6 +8,7 @@
  */
 import type {CompiledRules} from '../rules/compile/compiled-rules.js';
 import {evaluate} from '../rules/evaluate/evaluate.js';
+import {evaluationKey} from '../rules/evaluate/evaluation-key.js';
 import type {Evaluation} from '../rules/evaluate/evaluation.js';
 import {version} from '../shared/version.js';
 import {answersFromRecord, type RecordAnswers} from './audit-answers.js';
@@ -26,7 +27,7 @@ import {signatureReports, type SignatureReport, type Trust} from './audit-trust.
 import {confirmationList, inputEntry, type RecordBody} from '../records/record-schema.js';
 import {locationInput} from '../interlock/plan/plan-input.js';
 import {RuleTexts, type RecordRules} from './audit-rule-texts.js';
-import {withRuleWords} from '../records/record-words.js';
+import {ruleWords, type RuleWords} from '../records/record-words.js';
 import {reviewRepository, type RepositoryHistory} from './audit-repository.js';
 import {isCountersigned, signingFindings} from './audit-signing.js';
 import {signingPolicy} from './signing-policy.js';
@@ -86,7 +87,7 @@ export type AuditReport = {
 /** What the audit needs besides the files: the site's current rules and the keys the auditor trusts. */
 export type AuditOptions = {current: CompiledRules; trust: Trust; onProgress?: (done: number, total: number) => void; /** The time of the audit (records dated after it are reported). @default now */ now?: Date; /** Keep every record's audit (`all`), or only what the summary needs. @default 'all' */ listing?: 'all' | 'summary'; /** The history of each records folder that is a git repository. */ repositories?: RepositoryHistory[]};
 
-function summarise(body: RecordBody): RecordSummary {
+function summarise(body: RecordBody, words: RuleWords | undefined): RecordSummary {
 	return {
 		createdAt: body.createdAt,
 		tool: body.tool,
@@ -97,29 +98,49 @@ function summarise(body: RecordBody): RecordSummary {
 		interlockTest: body.interlockTest ?? null,
 		exceptions: confirmationList(body)
 			.filter((entry) => entry.status === 'no' || entry.status === 'not_applicable')
-			.map((entry) => ({id: entry.id, statement: entry.statement ?? entry.id, status: entry.status, ...(entry.note ? {note: entry.note} : {})})),
+			.map((entry) => ({id: entry.id, statement: entry.statement ?? words?.statement(entry.id) ?? entry.id, status: entry.status, ...(entry.note ? {note: entry.note} : {})})),
 	};
 }
 
-function historyEntry(file: string, bodySha256: string, body: RecordBody): HistoryEntry {
-	const identifying = Object.fromEntries((body.setup.identifying ?? []).map((id) => [id, inputEntry(body.inputs[id])?.entered ?? null]));
+function historyEntry(file: string, bodySha256: string, body: RecordBody, words: RuleWords | undefined): HistoryEntry {
+	const identifying = Object.fromEntries((body.setup.identifying ?? words?.identifying ?? []).map((id) => [id, inputEntry(body.inputs[id])?.entered ?? null]));
 	return {file, bodySha256, createdAt: body.createdAt, setupName: body.setup.name, fingerprint: body.setup.fingerprint, identifying, ...(body.amends ? {amends: body.amends} : {})};
 }
 
 /** Audits one authentic record's contents: consistency under its own rules, and what the current rules would change. */
-function auditContents(body: RecordBody, own: RecordRules, current: CompiledRules): {consistency: NonNullable<RecordAudit['consistency']>; policy: PolicyReport; findings: Finding[]; switchedOff: number} {
+/**
+ * Evaluations already made in this audit, by evaluation key: records of one setup with the
+ * same numbers under the same rules are evaluated once (evaluate is pure). Bounded: the oldest
+ * is dropped first.
+ */
+class Evaluations {
+	readonly #known = new Map<string, Evaluation>();
+
+	of(rules: CompiledRules, answers: RecordAnswers['answers']): Evaluation {
+		const key = evaluationKey(rules, answers);
+		let evaluation = this.#known.get(key);
+		if (!evaluation) {
+			evaluation = evaluate(rules, answers);
+			if (this.#known.size >= 512) this.#known.delete(this.#known.keys().next().value!);
+			this.#known.set(key, evaluation);
+		}
+		return evaluation;
+	}
+}
+
+function auditContents(body: RecordBody, own: RecordRules, current: CompiledRules, evaluations: Evaluations): {consistency: NonNullable<RecordAudit['consistency']>; policy: PolicyReport; findings: Finding[]; switchedOff: number} {
 	const findings: Finding[] = [...own.findings];
 	let judged: {rules: CompiledRules; read: RecordAnswers; evaluation: Evaluation} | undefined;
 	if (own.rules) {
 		const read = answersFromRecord(own.rules, body);
-		judged = {rules: own.rules, read, evaluation: evaluate(own.rules, read.answers)};
+		judged = {rules: own.rules, read, evaluation: evaluations.of(own.rules, read.answers)};
 		findings.push(...consistencyFindings(body, judged.rules, read, judged.evaluation));
 	}
 	const consistency = {reevaluated: judged !== undefined, consistent: findings.length === 0, rulesSha256: own.sha256};
 
 	// The same rule text and the same answers give the same evaluation: evaluate is pure.
 	const read = judged && judged.rules === current ? judged.read : answersFromRecord(current, body);
-	const evaluation = judged && judged.rules === current ? judged.evaluation : evaluate(current, read.answers);
+	const evaluation = judged && judged.rules === current ? judged.evaluation : evaluations.of(current, read.answers);
 	const policy = policyReport(body, current, read, evaluation);
 	return {consistency, policy: policy.report, findings: [...findings, ...policy.findings], switchedOff: judged?.rules.switchedOff.length ?? 0};
 }
@@ -130,7 +151,7 @@ const emptyFindings = (): Record<FindingKind, number> => ({integrity: 0, trust: 
 type Judged = Omit<RecordAudit, 'findings'> & {findings: Finding[]};
 
 /** What the per-record step needs besides the file. */
-type RunContext = {keys: KeyCache; rules: RuleTexts; options: AuditOptions; now: Date; notChecked: ReadonlyArray<{item: string; text: string}>; signing: ReturnType<typeof signingPolicy>};
+type RunContext = {evaluations: Evaluations; keys: KeyCache; rules: RuleTexts; options: AuditOptions; now: Date; notChecked: ReadonlyArray<{item: string; text: string}>; signing: ReturnType<typeof signingPolicy>};
 
 /** What one record leaves for the end of the run: its audit, and for a bench check what relates it to the others. */
 type Judgement = {audit: Judged; bench?: {entry: HistoryEntry; location: string | undefined}; /** The earlier file this one is a byte-identical copy of. */ copyOf?: string};
@@ -145,11 +166,11 @@ function judgeRecord(file: string, index: number, chain: ChainAudit, context: Ru
 	const {keys, rules, options} = context;
 	const checked = readIntegrity(file, keys);
 	const copyOf = chain.add(chainEntry(index, file, checked));
-	// A bench check's words (titles, statements) are its rule text's, read from the text it names.
-	const stated = checked.record?.body;
-	const own = checked.ok && stated?.kind === 'bench-check' ? rules.forRecord(stated, file) : undefined;
-	const body = stated?.kind === 'bench-check' ? withRuleWords(stated, own?.rules ?? null) : stated;
-	const record = body?.kind === 'bench-check' ? summarise(body) : null;
+	// A bench check's words (statements, the identifying inputs) are its rule text's, read from the text it names.
+	const body = checked.record?.body;
+	const own = checked.ok && body?.kind === 'bench-check' ? rules.forRecord(body, file) : undefined;
+	const words = own?.rules ? ruleWords(own.rules) : undefined;
+	const record = body?.kind === 'bench-check' ? summarise(body, words) : null;
 	const interlockTest = body?.kind === 'interlock-test' ? summariseInterlockTest(body) : null;
 	const trust = checked.record ? signatureReports(checked.record, checked.signatures, options.trust, context.signing.authorityRoles) : {signatures: [], findings: []};
 	const versionNote = checked.record?.version === 1 ? [{item: 'signature-order', text: describeProblem({code: 'audit-not-checked-signature-order', data: {}})}] : [];
@@ -164,7 +185,7 @@ function judgeRecord(file: string, index: number, chain: ChainAudit, context: Ru
 		return {audit: {file, authentic: true, bodySha256: checked.bodySha256, record, interlockTest, signatures: trust.signatures, consistency, currentPolicy: null, history: null, notChecked: versionNote, findings: [...trust.findings, ...signed, ...contents.findings, ...today]}};
 	}
 	const bench = body as RecordBody;
-	const contents = auditContents(bench, own!, options.current);
+	const contents = auditContents(bench, own!, options.current, context.evaluations);
 	return {
 		audit: {
 			file,
@@ -179,7 +200,7 @@ function judgeRecord(file: string, index: number, chain: ChainAudit, context: Ru
 			notChecked: [...context.notChecked, ...versionNote],
 			findings: [...trust.findings, ...signingFindings(bench, trust.signatures, context.signing, {switchedOff: contents.switchedOff}), ...contents.findings],
 		},
-		bench: {entry: {...historyEntry(file, checked.bodySha256, bench), ...(isCountersigned(trust.signatures, context.signing) ? {countersigned: true} : {})}, location: inputEntry(bench.inputs[locationInput])?.entered},
+		bench: {entry: {...historyEntry(file, checked.bodySha256, bench, words), ...(isCountersigned(trust.signatures, context.signing) ? {countersigned: true} : {})}, location: inputEntry(bench.inputs[locationInput])?.entered},
 		...(copyOf === undefined ? {} : {copyOf}),
 	};
 }
@@ -250,7 +271,7 @@ const reported = (found: Finding): ReportedFinding => ({...found, text: describe
  */
 export function auditRecords(files: readonly string[], options: AuditOptions): AuditReport {
 	const listing = options.listing ?? 'all';
-	const context: RunContext = {keys: new KeyCache(), rules: new RuleTexts(options.current), options, now: options.now ?? new Date(), notChecked: notChecked.map(({item, code}) => ({item, text: describeProblem({code, data: {}})})), signing: signingPolicy(options.current)};
+	const context: RunContext = {evaluations: new Evaluations(), keys: new KeyCache(), rules: new RuleTexts(options.current), options, now: options.now ?? new Date(), notChecked: notChecked.map(({item, code}) => ({item, text: describeProblem({code, data: {}})})), signing: signingPolicy(options.current)};
 	const audits: Judged[] = [];
 	const keep = new Interned();
 	const entries: HistoryEntry[] = [];

@@ -8,7 +8,7 @@ import {htmlText, reportHtml} from '../../source/render/report-html.js';
 import {markdownText, reportMarkdown} from '../../source/render/report-markdown.js';
 import type {SignatureStatus, TrustInfo} from '../../source/render/report-model.js';
 import {signRecord} from '../../source/records/sign.js';
-import {withInputsRead, withRuleWords} from '../../source/records/record-words.js';
+import {withValuesShown, withRuleWords} from '../../source/records/record-words.js';
 import {evaluate} from '../../source/rules/evaluate/evaluate.js';
 import {loadAnswers} from '../../source/rules/evaluate/load-answers.js';
 import {loadRules, shippedRulesPath} from '../../source/rules/load.js';
@@ -34,7 +34,7 @@ function signed(body: RecordBody): {record: BenchRecord; signatures: SignatureSt
 	if (!integrity.ok || integrity.record.body.kind !== 'bench-check') throw new Error('test setup: the record must verify as a bench check');
 	// The report command reads the rule text stored with the records and puts its words back (titles, statements, caution).
 	const read = integrity.record.body;
-	return {record: {...integrity.record, body: withInputsRead(withRuleWords({...read, rules: {...read.rules, text: read.rules.text ?? rules.text}}, rules), rules)}, signatures: integrity.signatures};
+	return {record: {...integrity.record, body: withValuesShown(withRuleWords({...read, rules: {...read.rules, text: read.rules.text ?? rules.text}}, rules), rules)}, signatures: integrity.signatures};
 }
 
 const ownTrust: TrustInfo = {own: operatorFingerprint, trusted: []};

@@ -4,7 +4,7 @@ import {parseArgs} from 'node:util';
 import {ownFingerprint, readTrusted} from '../../records/key-files.js';
 import {interlockReportHtml, interlockReportMarkdown} from '../../render/interlock-report.js';
 import {readRecord} from '../../records/read-record.js';
-import {withInputsRead, withRuleWords} from '../../records/record-words.js';
+import {withValuesShown, withRuleWords} from '../../records/record-words.js';
 import {loadRulesFromText} from '../../rules/load.js';
 import {findRuleText} from '../../records/rule-texts.js';
 import {reportHtml} from '../../render/report-html.js';
@@ -58,7 +58,7 @@ export function runReport(args: string[], io: Io): number {
 			return stored.status === 'ok' ? stored.text : undefined;
 		})(body.rules);
 		const compiled = text === undefined ? undefined : loadRulesFromText(text, body.rules.file);
-		body = withInputsRead(withRuleWords({...body, rules: {...body.rules, ...(text === undefined ? {} : {text})}}, compiled?.ok ? compiled.value : null), compiled?.ok ? compiled.value : null);
+		body = withValuesShown(withRuleWords({...body, rules: {...body.rules, ...(text === undefined ? {} : {text})}}, compiled?.ok ? compiled.value : null), compiled?.ok ? compiled.value : null);
 	}
 	const page =
 		body.kind === 'interlock-test'
