@@ -1,6 +1,6 @@
 import {htmlText as h, signatureSection as signatureHtml} from './report-html.js';
 import {markdownText, signatureSection as signatureMarkdown, table} from './report-markdown.js';
-import {signatureRowsOf, signaturesSummary, type SignatureRow, type SignatureStatus, type TrustInfo} from './report-model.js';
+import {previousText, signatureRowsOf, signaturesSummary, type SignatureRow, type SignatureStatus, type TrustInfo} from './report-model.js';
 import type {InterlockTestRecord} from '../records/record-schema.js';
 import {pageHead, reportStyle} from './report-style.js';
 import {stripControl} from '../shared/text.js';
@@ -65,6 +65,7 @@ export function interlockReportModel(record: InterlockTestRecord, signatures: re
 			['Created', clean(body.createdAt)],
 			['Tool', `${clean(body.tool.name)} ${clean(body.tool.version)}`],
 			['Signatures', signaturesSummary(rows)],
+			['Previous record of the signing key', previousText(body.previous)],
 		],
 		exceptions: steps.filter((step) => step.result !== 'pass'),
 		steps,

@@ -74,6 +74,16 @@ const attentionOrder = {fail: 0, advise: 1, open: 2, pass: 3, skip: 4} as const;
 
 const clean = (text: string | null | undefined): string => stripControl(text ?? '');
 
+/**
+ * The link of a record to the previous record its key wrote to the same folder, in words: how
+ * an auditor sees that no record of the chain went missing (prelase audit checks the links).
+ */
+export function previousText(previous: RecordBody['previous']): string {
+	if (previous === undefined) return 'not stated (the record was made before records were chained)';
+	if (previous === null) return 'none: the first record of this key in its records folder';
+	return `${clean(previous.file)} (SHA-256 of its bytes ${previous.sha256})`;
+}
+
 /** Said in place of a check's basis or a confirmation's statement when the rule text a record names could not be read. */
 const missingWords = 'in the rule text this record names, which could not be read';
 
@@ -213,6 +223,7 @@ export function reportModel(record: BenchRecord, signatures: readonly SignatureS
 			['Rule file path', clean(body.rules.file)],
 			['Rule file SHA-256', body.rules.sha256],
 			['Signatures', signaturesSummary(signatureRows)],
+			['Previous record of the signing key', previousText(body.previous)],
 		],
 		...(body.amends ? {amendment: {record: clean(body.amends.record), bodySha256: body.amends.bodySha256, reason: clean(body.amends.reason)}} : {}),
 		steps,

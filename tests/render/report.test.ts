@@ -6,7 +6,7 @@ import {fingerprint, generateKeyPair, rawPublicKey, shortFingerprint} from '../.
 import {confirmationList, type BenchRecord, type RecordBody} from '../../source/records/record-schema.js';
 import {htmlText, reportHtml} from '../../source/render/report-html.js';
 import {markdownText, reportMarkdown} from '../../source/render/report-markdown.js';
-import type {SignatureStatus, TrustInfo} from '../../source/render/report-model.js';
+import {previousText, type SignatureStatus, type TrustInfo} from '../../source/render/report-model.js';
 import {signRecord} from '../../source/records/sign.js';
 import {withValuesShown, withRuleWords} from '../../source/records/record-words.js';
 import {evaluate} from '../../source/rules/evaluate/evaluate.js';
@@ -38,7 +38,9 @@ function signed(body: RecordBody): {record: BenchRecord; signatures: SignatureSt
 }
 
 const ownTrust: TrustInfo = {own: operatorFingerprint, trusted: []};
-const failing = signed(demoBody('bench6-chilled-mount-cold-power-fail'));
+// The failing demo as the second record of its key in its folder: it names the first by the SHA-256 of its bytes.
+const previous = {file: '2026-03-04-091000-fenwick-hollow-bench-6-fh-915-3-on-ld-5l-0a1b2c3d.json', sha256: 'ab'.repeat(32)};
+const failing = signed({...demoBody('bench6-chilled-mount-cold-power-fail'), previous});
 
 const formats = [
 	{name: 'markdown', write: reportMarkdown, escape: (text: string) => markdownText(text)},
@@ -74,6 +76,7 @@ describe.each(formats)('$name report of the failing demo', ({write, escape}) => 
 		{name: 'the signer key in full', text: operatorFingerprint},
 		{name: 'the own key recognised', text: '✓ your own key'},
 		{name: 'the signature purpose', text: 'operator'},
+		{name: 'the chain link to the previous record of the key', text: `${previous.file} (SHA-256 of its bytes ${'ab'.repeat(32)})`},
 	])('shows $name', ({text}) => {
 		expect(page).toContain(escape(text));
 	});
@@ -227,5 +230,15 @@ describe('escaping helpers', () => {
 
 	it('markdown cells keep line breaks as <br>', () => {
 		expect(markdownText('a\r\nb\nc', true)).toBe('a<br>b<br>c');
+	});
+});
+
+describe('the chain link in words', () => {
+	it.each([
+		{name: 'a record made before the chain', previous: undefined, text: 'not stated (the record was made before records were chained)'},
+		{name: 'the first record of its key', previous: null, text: 'none: the first record of this key in its records folder'},
+		{name: 'a later record', previous: {file: 'a.json', sha256: 'cd'.repeat(32)}, text: `a.json (SHA-256 of its bytes ${'cd'.repeat(32)})`},
+	])('$name', ({previous: link, text}) => {
+		expect(previousText(link)).toBe(text);
 	});
 });
