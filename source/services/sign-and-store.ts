@@ -23,9 +23,9 @@ const clean = (text: string) => stripControl(text).trim();
  * operator's name, as the one who did the work; a second signer with their key file) and writes
  * it to the folder. Each signer must sign under the name their key carries. A mistake (an
  * unreadable or unnamed key, a name that is not the key's, the second key being the
- * operator's own) comes back as a failure and nothing is written.
+ * operator's own) comes back as a failure and nothing is written, not even what `before` writes.
  */
-export function signAndStore<Body extends RecordBody | InterlockTestBody>(body: Body, operator: {name: string; role: string}, second: SecondSigner | undefined, settingsFolder: string, folder: string, now?: Date, env: NodeJS.ProcessEnv = process.env): Result<StoredRecord, Problem> {
+export function signAndStore<Body extends RecordBody | InterlockTestBody>(body: Body, operator: {name: string; role: string}, second: SecondSigner | undefined, settingsFolder: string, folder: string, now?: Date, env: NodeJS.ProcessEnv = process.env, /** Written once the signers are known good, before the record (a bench check's rule text). */ before?: () => void): Result<StoredRecord, Problem> {
 	const own = operatorKey(settingsFolder, true, operator.name);
 	if (!own.ok) return own;
 	const {privateKey, created, name: keyName, path: keyPath} = own.value;
@@ -45,6 +45,7 @@ export function signAndStore<Body extends RecordBody | InterlockTestBody>(body: 
 	// A record of either kind of body is a record: TypeScript cannot see that through the type parameter.
 	const chained: Body = {...body, previous: previousRecord(folder, key)};
 	const record = signRecord(chained, signers, now) as AnyRecord;
+	before?.();
 	const path = writeRecord(folder, record);
 	rememberRecord(folder, key, path);
 	const commit = commitRecord(folder, [path], record, signers[0]!.signer.name, key, env);

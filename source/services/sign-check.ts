@@ -59,9 +59,8 @@ export function signAndWrite(rules: CompiledRules, answers: Answers, evaluation:
 	}
 	const role = stripControl(options.role ?? saved.value.role ?? '').trim();
 	const body = buildRecordBody({rules, answers, evaluation, operator: {name, role}, interlockTest, ...(amends ? {amends} : {})});
-	// The rule text goes in first, so that a record never names a text the folder lacks.
-	storeRuleText(folder, rules.text);
-	const stored = signAndStore(body, {name, role}, second, dirname(settingsFile(env)), folder, undefined, env);
+	// The rule text goes in first, so that a record never names a text the folder lacks (and only once the signers are known good).
+	const stored = signAndStore(body, {name, role}, second, dirname(settingsFile(env)), folder, undefined, env, () => storeRuleText(folder, rules.text));
 	if (!stored.ok) return stored;
 	return success({...stored.value, folder});
 }

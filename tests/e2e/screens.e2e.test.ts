@@ -1,5 +1,5 @@
 import {execFileSync, spawnSync} from 'node:child_process';
-import {mkdtempSync, readdirSync, readFileSync} from 'node:fs';
+import {existsSync, mkdtempSync, readdirSync, readFileSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {join, resolve} from 'node:path';
 import {afterEach, describe, expect, it, vi} from 'vitest';
@@ -110,6 +110,35 @@ describe.skipIf(!haveTmux())('the screens in a real terminal', () => {
 		await session.waitFor((screen) => screen.includes('Start a bench check'), 'the home screen');
 		session.press('C-c');
 		await session.waitFor((screen) => screen.includes('EXITED 130'), 'the program to leave with 130');
+	});
+
+	it('refuses to sign under a name that is not the key\'s, at 80x24, and writes nothing', {timeout: 60_000}, async () => {
+		const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
+		execFileSync('node', [program, 'keys', '--name', 'Dana Whitlow'], {env: {...process.env, PRELASE_HOME: home}});
+		const session = start('wrong-name', home, 'check', [80, 24]);
+		await session.waitFor((screen) => screen.includes('Step 1 of'), 'the first step');
+		for (let step = 2; step <= 9; step += 1) {
+			session.press('PageDown');
+			await session.waitFor((screen) => screen.includes(`Step ${step} of 9`), `step ${step}`);
+		}
+		session.press('PageDown');
+		await session.waitFor((screen) => screen.includes('Outcome: INCOMPLETE'), 'the summary');
+		session.press('Enter');
+		await session.waitFor((screen) => screen.includes('Sign-off'), 'the sign-off');
+		session.type('Bench 3 demo');
+		session.press('Enter');
+		session.type('Sam Colleague');
+		session.press('Enter');
+		session.type('test engineer');
+		session.press('Enter', 'Down', 'Down', 'Down');
+		await session.settle();
+		session.press('Enter');
+		const refused = await session.waitFor((screen) => screen.includes('your key is the key of'), 'the refusal');
+		expect(refused.replaceAll(/\s+/g, ' ')).toContain('✗ you sign as "Sam Colleague", but your key is the key of "Dana Whitlow"; sign under your key\'s name (prelase keys shows it)');
+		expect(refused).toContain('Sign-off');
+		// Nothing was written: no record, and not the rule text either.
+		const records = join(home, 'records');
+		expect(existsSync(records) ? readdirSync(records, {recursive: true}) : []).toEqual([]);
 	});
 
 	it('resumes a check after the program is killed', {timeout: 60_000}, async () => {
