@@ -1,0 +1,61 @@
+import {mkdtempSync, readFileSync, rmSync, writeFileSync} from 'node:fs';
+import {tmpdir} from 'node:os';
+import {join, resolve} from 'node:path';
+import {afterAll, beforeAll, describe, expect, it} from 'vitest';
+import type {BenchRecord} from '../../source/records/record-schema.js';
+import {signRecord} from '../../source/records/sign.js';
+import {shippedRulesPath} from '../../source/rules/load.js';
+import {operatorPrivateKey} from '../helpers/operator-key.js';
+import {runCli, runCliNow} from '../helpers/run-cli.js';
+
+/** Any C0 control but tab and line feed, DEL, any C1 control, and the bidirectional overrides, isolates and marks. */
+const control = /[\u0000-\u0008\u000B-\u001F\u007F-\u009F\u061C\u200E\u200F\u202A-\u202E\u2066-\u2069]/u;
+/** OSC 52 (set the clipboard), ED (clear the screen), CUP (cursor home), SGR 8 (conceal): ECMA-48 §8.3.89, §8.3.39, §8.3.21, §8.3.117; OSC 52 as xterm defines it. */
+const hostileId = 'x\u001B]52;c;cHduZWQ=\u0007\u001B[2J\u001B[H\u001B[8m';
+
+let folder: string;
+let home: string;
+
+beforeAll(() => {
+	folder = mkdtempSync(join(tmpdir(), 'prelase-terminal-io-'));
+	home = join(folder, 'home');
+});
+
+afterAll(() => {
+	rmSync(folder, {recursive: true, force: true});
+});
+
+describe('audit: text from a record never reaches the terminal raw', () => {
+	it('a check id holding OSC 52, ED, CUP and SGR 8, re-signed by a stranger, prints stripped in the policy lines', async () => {
+		const made = await runCli(['check', '--answers', resolve('docs/examples/bench3-808nm-clear.yaml'), '--sign', 'Test Person', '--records', join(folder, 'clean')], {PRELASE_HOME: home});
+		const record = JSON.parse(readFileSync(/Record written: (.+)/.exec(made.stdout)![1]!, 'utf8')) as BenchRecord;
+		const body = structuredClone(record.body);
+		body.checks[0]!.id = hostileId;
+		body.checks[0]!.title = `Fake ${hostileId} title\u202E`;
+		const forged = signRecord(body, [{signer: {name: 'Stranger\u009B2J', role: 'x', meaning: 'performed'}, key: operatorPrivateKey(home)}]);
+		const path = join(folder, 'forged.json');
+		writeFileSync(path, `${JSON.stringify(forged, null, 2)}\n`);
+		const {stdout, stderr} = await runCli(['audit', path], {PRELASE_HOME: home});
+		expect(stdout).toContain('x]52;c;cHduZWQ=[2J[H[8m'); // the id reached the output, stripped
+		expect(stdout).not.toMatch(control);
+		expect(stderr).not.toMatch(control);
+	});
+});
+
+describe('check: text from a site rule file never reaches the terminal raw', () => {
+	it('check titles, step titles, confirmation statements, labels and option labels holding ESC, OSC and BEL print stripped', () => {
+		const site = readFileSync(shippedRulesPath(), 'utf8')
+			.replace('title: Setup and authorisation', 'title: "Setup \\e[2J\\e]0;owned\\a and authorisation"')
+			.replace('statement: Use of this laser on this bench is authorised by the laser safety officer.', 'statement: "Use is authorised \\e]52;c;aGk=\\a by the laser safety officer.\\e[8m"')
+			.replace('label: Room and bench', 'label: "Room \\x9b2J and bench"')
+			.replaceAll(/(\n\s+title: )([^\n"]+)/g, '$1"$2 \\e[2J\\a\\u202e"');
+		const file = join(folder, 'site.yaml');
+		writeFileSync(file, site);
+		const {code, stdout, stderr} = runCliNow(['check', '--answers', resolve('docs/examples/bench6-chilled-mount-cold-power-fail.yaml'), '--rules', file]);
+		expect(stderr).toBe('');
+		expect(code).toBe(1);
+		expect(stdout).toContain('Use is authorised ]52;c;aGk= by the laser safety officer.[8m');
+		expect(stdout).toContain('Setup [2J]0;owned and authorisation');
+		expect(stdout).not.toMatch(control);
+	});
+});
