@@ -59,3 +59,16 @@ describe('check: text from a site rule file never reaches the terminal raw', () 
 		expect(stdout).not.toMatch(control);
 	});
 });
+
+describe('plan --test-sheet md: markup and escapes from a plan name', () => {
+	it('prints <img onerror> and <iframe> as text, and no escape sequence', () => {
+		const plan = join(folder, 'hostile-plan.yaml');
+		const text = readFileSync('docs/examples/interlock/bench3-interlock-plan.yaml', 'utf8').replace('name: Fenwick Hollow B.112 bench 3 — enclosure and room loop', 'name: "Loop <img src=x onerror=alert(1)> <iframe src=//x></iframe> \\e[2J"');
+		writeFileSync(plan, text);
+		const {code, stdout} = runCliNow(['plan', plan, '--test-sheet', 'md']);
+		expect(code).toBe(0);
+		expect(stdout.split('\n')[0]).toBe('# Interlock functional test — Loop &lt;img src=x onerror=alert(1)&gt; &lt;iframe src=//x&gt;&lt;/iframe&gt; \\[2J');
+		expect(stdout).not.toMatch(/<img|<iframe/i);
+		expect(stdout).not.toMatch(control);
+	});
+});
