@@ -10,6 +10,7 @@ import {formatQuantity} from '../quantities/format.js';
 import {confirmationWords, countVerdicts, verdictWords} from '../rules/evaluate/verdict-words.js';
 import {version} from '../shared/version.js';
 import {wrap} from '../shared/wrap.js';
+import {oneLine} from '../shared/one-line.js';
 import {displayPath} from '../shared/display-path.js';
 
 const order = {fail: 0, advise: 1, open: 2, pass: 3, skip: 4} as const;
@@ -65,9 +66,9 @@ function confirmationLines(entry: ConfirmationResult, paint: Paint, width: numbe
 
 function answerText(input: Input, answer: InputAnswer): string {
 	if (answer.kind === 'quantity') return formatQuantity(answer.si, answer.dimension);
-	if (answer.kind === 'choice' && input.kind === 'choice') return input.options[answer.option] ?? answer.option;
+	if (answer.kind === 'choice' && input.kind === 'choice') return oneLine(input.options[answer.option] ?? answer.option);
 	if (answer.kind === 'yes_no') return answer.value ? 'yes' : 'no';
-	return answer.entered;
+	return oneLine(answer.entered);
 }
 
 /**
@@ -78,13 +79,14 @@ function answerText(input: Input, answer: InputAnswer): string {
 export function checkText(rules: CompiledRules, answers: Answers, evaluation: Evaluation, paint: Paint, width = 100, interlock: InterlockLink | null = null): string {
 	const out: string[] = [];
 	out.push(paint.bold(`prelase ${version} · bench check`));
-	out.push(`Rules   ${rules.rules.name}`);
+	// Single-line fields are refused with a line break at load; oneLine keeps that true here too.
+	out.push(`Rules   ${oneLine(rules.rules.name)}`);
 	out.push(`        ${displayPath(rules.file)} · sha256 ${rules.sha256.slice(0, 16)}`);
-	if (answers.setup) out.push(`Setup   ${answers.setup}`);
+	if (answers.setup) out.push(`Setup   ${oneLine(answers.setup)}`);
 	out.push('', paint.bold('CAUTION'), ...wrap(rules.rules.caution, width, '  '));
 
 	rules.rules.steps.forEach((step, index) => {
-		out.push('', paint.bold(`${index + 1}. ${step.title}`));
+		out.push('', paint.bold(`${index + 1}. ${oneLine(step.title)}`));
 		if (step.summary) out.push(...wrap(step.summary, width, '   ').map((line) => paint.dim(line)));
 		for (const input of step.inputs) {
 			const answer = answers.inputs.get(input.id);
