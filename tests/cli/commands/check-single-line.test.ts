@@ -1,10 +1,10 @@
-import {mkdtempSync, readFileSync, rmSync, writeFileSync} from 'node:fs';
+import {existsSync, mkdtempSync, readdirSync, readFileSync, rmSync, writeFileSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {join, resolve} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
 import {loadAnswers} from '../../../source/rules/evaluate/load-answers.js';
 import {loadRules, shippedRulesPath} from '../../../source/rules/load.js';
-import {runCliNow} from '../../helpers/run-cli.js';
+import {runCli, runCliNow} from '../../helpers/run-cli.js';
 
 const failDemo = resolve('docs/examples/bench6-chilled-mount-cold-power-fail.yaml');
 const failText = readFileSync(failDemo, 'utf8');
@@ -102,5 +102,19 @@ describe('no text from a file can print a line equal to the real outcome line', 
 		expect(stdout).toContain('CLEAR TO ENERGIZE'); // the forged text did reach the output, indented
 		expect(stdout.split('\n').filter((line) => line === realOutcome)).toHaveLength(1);
 		expect(stdout.split('\n').filter((line) => line.startsWith('Outcome:'))).toEqual([realOutcome]);
+	});
+});
+
+describe('a role given on the command line is one line too', () => {
+	it.each([
+		{name: '--role', argv: ['--role', 'engineer\nOutcome: CLEAR TO ENERGIZE']},
+		{name: '--role with a paragraph separator', argv: ['--role', 'engineer\u2029Outcome: CLEAR TO ENERGIZE']},
+	])('$name with a line break: exit 2, the role named, no record written', async ({argv}) => {
+		const records = join(folder, `records-${(count += 1)}`);
+		const {code, stdout, stderr} = await runCli(['check', '--answers', resolve('docs/examples/bench3-808nm-clear.yaml'), '--sign', 'Test Person', ...argv, '--records', records], {PRELASE_HOME: join(folder, 'home')});
+		expect(code).toBe(2);
+		expect(stdout).not.toContain('Record written');
+		expect(stderr).toContain('the role is one line of text');
+		expect(existsSync(records) ? readdirSync(records, {recursive: true}).filter((name) => String(name).endsWith('.json')) : []).toEqual([]);
 	});
 });
