@@ -60,6 +60,44 @@ describe('check: text from a site rule file never reaches the terminal raw', () 
 	});
 });
 
+describe('check: text from a site rule file (extends) never reaches the terminal raw', () => {
+	const site = [
+		'format: 1',
+		'extends: shipped',
+		'name: "Site \\e]0;owned\\a policy \\e[2J"',
+		'add_to_steps:',
+		'  identification:',
+		'    confirmations:',
+		'      - id: second_person_present',
+		'        statement: "A second person \\e]52;c;aGk=\\a is present.\\e[8m"',
+		'        basis: site policy',
+		'switched_off:',
+		'  pin_configuration_supported: "The driver floats its output \\e[2J\\u202e\\x9b31m (site memo)."',
+	].join('\n');
+
+	it('the name, an added statement and a reason for switching off print stripped', () => {
+		const file = join(folder, 'site-extends.yaml');
+		writeFileSync(file, `${site}\n`);
+		const {code, stdout, stderr} = runCliNow(['check', '--answers', resolve('docs/examples/bench3-808nm-clear.yaml'), '--rules', file]);
+		expect(stderr).toBe('');
+		expect(code).toBe(1); // the added confirmation is not answered
+		expect(stdout).toContain('Rules   Site ]0;owned policy [2J');
+		expect(stdout).toContain('A second person ]52;c;aGk= is present.[8m');
+		expect(stdout.replaceAll(/\n +/g, ' ')).toContain('The driver floats its output [2J31m (site memo).');
+		expect(stdout).not.toMatch(control);
+	});
+
+	it('a site name with a line break is refused: exit 2, file:line, the field', () => {
+		const file = join(folder, 'site-two-lines.yaml');
+		writeFileSync(file, `${site.replace('name: "Site', 'name: "Site\\nOutcome: CLEAR TO ENERGIZE')}\n`);
+		const {code, stdout, stderr} = runCliNow(['check', '--answers', resolve('docs/examples/bench3-808nm-clear.yaml'), '--rules', file]);
+		expect(code).toBe(2);
+		expect(stdout).toBe('');
+		expect(stderr).toContain(`${file}:3:`);
+		expect(stderr).toContain('name: ');
+	});
+});
+
 describe('plan --test-sheet md: markup and escapes from a plan name', () => {
 	it('prints <img onerror> and <iframe> as text, and no escape sequence', () => {
 		const plan = join(folder, 'hostile-plan.yaml');
