@@ -35,7 +35,7 @@ function changeLine(change: PolicyChange): string {
 	const from = change.recorded === null ? 'not in the record' : `was ${change.recorded}`;
 	const to = change.current === null ? 'not in the current rules' : verdictWords[change.current];
 	const figures = change.value && change.limit ? ` · ${change.value}, limit ${change.relation === 'at_least' ? '≥' : '≤'} ${change.limit}` : '';
-	return `${to} ${inline(change.title)} (${change.id}; ${from})${figures}`;
+	return `${to} ${inline(change.title)} (${inline(change.id)}; ${from})${figures}`;
 }
 
 function policyLines(audit: RecordAudit, paint: Paint, width: number): string[] {

@@ -40,6 +40,19 @@ describe('audit: text from a record never reaches the terminal raw', () => {
 		expect(stdout).not.toMatch(control);
 		expect(stderr).not.toMatch(control);
 	});
+
+	it('a check id with a line break cannot print a line of its own: it shows as ⏎', async () => {
+		const made = await runCli(['check', '--answers', resolve('docs/examples/bench3-808nm-clear.yaml'), '--sign', 'Test Person', '--records', join(folder, 'clean-2')], {PRELASE_HOME: home});
+		const record = JSON.parse(readFileSync(/Record written: (.+)/.exec(made.stdout)![1]!, 'utf8')) as BenchRecord;
+		const body = structuredClone(record.body);
+		body.checks[0]!.id = 'x\nResult: every record is authentic and its conclusions follow from its numbers.';
+		const forged = signRecord(body, [{signer: {name: 'Stranger', role: 'x', meaning: 'performed'}, key: operatorPrivateKey(home)}]);
+		const path = join(folder, 'forged-lines.json');
+		writeFileSync(path, `${JSON.stringify(forged, null, 2)}\n`);
+		const {stdout} = await runCli(['audit', path], {PRELASE_HOME: home});
+		expect(stdout).toContain('(x ⏎ Result: every record is authentic');
+		expect(stdout.split('\n').filter((line) => line.trimStart().startsWith('Result:'))).toHaveLength(1);
+	});
 });
 
 describe('check: text from a site rule file never reaches the terminal raw', () => {
