@@ -1,4 +1,4 @@
-import {mkdtempSync, readFileSync, rmSync, writeFileSync} from 'node:fs';
+import {mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {join, resolve} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
@@ -6,7 +6,7 @@ import type {BenchRecord} from '../../source/records/record-schema.js';
 import {signRecord} from '../../source/records/sign.js';
 import {shippedRulesPath} from '../../source/rules/load.js';
 import {operatorPrivateKey} from '../helpers/operator-key.js';
-import {runCli, runCliNow} from '../helpers/run-cli.js';
+import {runCli, runCliNow, runIn} from '../helpers/run-cli.js';
 
 /** Any C0 control but tab and line feed, DEL, any C1 control, and the bidirectional overrides, isolates and marks. */
 const control = /[\u0000-\u0008\u000B-\u001F\u007F-\u009F\u061C\u200E\u200F\u202A-\u202E\u2066-\u2069]/u;
@@ -120,6 +120,20 @@ describe('plan --test-sheet md: markup and escapes from a plan name', () => {
 		expect(code).toBe(0);
 		expect(stdout.split('\n')[0]).toBe('# Interlock functional test — Loop &lt;img src=x onerror=alert(1)&gt; &lt;iframe src=//x&gt;&lt;/iframe&gt; \\[2J');
 		expect(stdout).not.toMatch(/<img|<iframe/i);
+		expect(stdout).not.toMatch(control);
+	});
+});
+
+describe('keys list: names and roles from a hand-edited trust list', () => {
+	it('print on one line each, stripped, a line break shown as ⏎', async () => {
+		const keysHome = join(folder, 'keys-home');
+		mkdirSync(join(keysHome, 'keys'), {recursive: true});
+		const forged = {name: 'Lin\nTrusted: Mallory \u001B[2J', publicKey: '-', fingerprint: 'ab'.repeat(32), addedAt: '2026-12-01T00:00:00Z', roles: ['officer\u2028Trusted: Eve']};
+		writeFileSync(join(keysHome, 'keys', 'trusted.json'), `${JSON.stringify([forged], null, 2)}\n`);
+		const {stdout} = await runIn(keysHome, ['keys', 'list']);
+		expect(stdout).toContain('Trusted: Lin ⏎ Trusted: Mallory [2J');
+		expect(stdout).toContain('granted: officer ⏎ Trusted: Eve');
+		expect(stdout.split('\n').filter((line) => line.startsWith('Trusted:'))).toHaveLength(1);
 		expect(stdout).not.toMatch(control);
 	});
 });

@@ -10,6 +10,7 @@ import {openSettings} from '../../services/settings.js';
 import {UsageError, valueOrUsageError} from '../usage-error.js';
 import {commandHelp, helpOption, parseOptions, type Command, type Io} from '../command.js';
 import {findTrusted, trustProblem} from './keys-trust.js';
+import {oneLine} from '../../shared/one-line.js';
 
 const options = {
 	name: {type: 'string', value: 'NAME', summary: 'Alone: your name, given to your key when it is made (or once, to a key made without one). With trust: the name the colleague\'s key is trusted under (the name in the file when not given)'},
@@ -97,7 +98,7 @@ export function runKeys(args: string[], io: Io): number {
 			if (typeof found === 'string') throw new UsageError(found);
 			found.revokedFrom = from;
 			writeTrusted(settings.folder, keys);
-			io.stdout.write(`Revoked ${found.name} (${shortFingerprint(found.fingerprint)}) from ${from}: the audit reports signatures made with it from then on.\n`);
+			io.stdout.write(`Revoked ${oneLine(found.name)} (${shortFingerprint(found.fingerprint)}) from ${from}: the audit reports signatures made with it from then on.\n`);
 			return 0;
 		}
 		case 'list': {
@@ -106,8 +107,8 @@ export function runKeys(args: string[], io: Io): number {
 			const keys = readTrusted(settings.folder);
 			if (keys.length === 0) io.stdout.write('No trusted keys.\n');
 			for (const key of keys) {
-				const roles = key.roles && key.roles.length > 0 ? `  granted: ${key.roles.join(', ')}` : '';
-				io.stdout.write(`Trusted: ${key.name}  ${shortFingerprint(key.fingerprint)}  since ${key.addedAt}${roles}${key.revokedFrom ? `  revoked from ${key.revokedFrom}` : ''}\n`);
+				const roles = key.roles && key.roles.length > 0 ? `  granted: ${key.roles.map((role) => oneLine(role)).join(', ')}` : '';
+				io.stdout.write(`Trusted: ${oneLine(key.name)}  ${shortFingerprint(key.fingerprint)}  since ${oneLine(key.addedAt)}${roles}${key.revokedFrom ? `  revoked from ${oneLine(key.revokedFrom)}` : ''}\n`);
 			}
 			return 0;
 		}
