@@ -18,7 +18,7 @@ describe('hostile text from a plan file in the Markdown test sheet', () => {
 
 	it.each([
 		{name: 'the plan name', changes: {name: `Loop ${image}`}, where: (md: string) => md.split('\n')[0]!, expected: '# Interlock functional test — Loop &lt;img src=x onerror=alert(1)&gt;'},
-		{name: 'a device description', changes: {devices: [doorSwitch('door_switch', {description: `${image}\n# heading`})]}, where: (md: string) => stepRows(md)[0]![2]!, expected: 'With emission on, open door_switch (&lt;img src=x onerror=alert(1)&gt;<br># heading), then close it again.'},
+		{name: 'a device description', changes: {devices: [doorSwitch('door_switch', {description: `${image} *bold* [link](javascript:x)`})]}, where: (md: string) => stepRows(md)[0]![2]!, expected: 'With emission on, open door_switch (&lt;img src=x onerror=alert(1)&gt; \\*bold\\* \\[link\\](javascript:x)), then close it again.'},
 		{name: 'a bypass owner', changes: {devices: [doorSwitch('door_switch'), bypassKey]}, where: (md: string) => stepRows(md).at(-1)![2]!, expected: 'Engage the bypass bypass as its owner (&lt;iframe src="//example.invalid"&gt;&lt;/iframe&gt; \\| x) would, and wait 1 h.'},
 	])('$name is escaped as the record reports escape it', ({changes, where, expected}) => {
 		const markdown = testSheetMarkdown(testSheet(makePlan(changes)));
