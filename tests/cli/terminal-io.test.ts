@@ -7,6 +7,8 @@ import {signRecord} from '../../source/records/sign.js';
 import {shippedRulesPath} from '../../source/rules/load.js';
 import {operatorPrivateKey} from '../helpers/operator-key.js';
 import {runCli, runCliNow, runIn} from '../helpers/run-cli.js';
+import {fakeIo} from '../helpers/fake-io.js';
+import {terminalIo} from '../../source/cli/terminal-io.js';
 
 /** Any C0 control but tab and line feed, DEL, any C1 control, and the bidirectional overrides, isolates and marks. */
 const control = /[\u0000-\u0008\u000B-\u001F\u007F-\u009F\u061C\u200E\u200F\u202A-\u202E\u2066-\u2069]/u;
@@ -23,6 +25,25 @@ beforeAll(() => {
 
 afterAll(() => {
 	rmSync(folder, {recursive: true, force: true});
+});
+
+describe('terminalIo', () => {
+	it('strips what is written as text or bytes, and passes the rest of the stream through', () => {
+		const given = fakeIo();
+		(given.stdout as unknown as {isTTY: boolean; columns: number}).isTTY = true;
+		(given.stdout as unknown as {columns: number}).columns = 77;
+		const io = terminalIo(given);
+		let called = false;
+		io.stdout.write('a\u001B[2Jb\n', () => {
+			called = true;
+		});
+		io.stdout.write(new TextEncoder().encode('c\u009B31m\u202Ed\n'));
+		io.stderr.write('e\u0007f\n');
+		expect(given.stdout.text).toBe('a[2Jb\nc31md\n');
+		expect(given.stderr.text).toBe('ef\n');
+		expect(called).toBe(true);
+		expect([io.stdout.isTTY, io.stdout.columns, io.env]).toEqual([true, 77, given.env]);
+	});
 });
 
 describe('audit: text from a record never reaches the terminal raw', () => {
