@@ -6,11 +6,13 @@ import {didYouMean} from '../shared/did-you-mean.js';
 import {UsageError} from './usage-error.js';
 import {ProblemError} from '../shared/problem-error.js';
 import {version} from '../shared/version.js';
+import {terminalIo} from './terminal-io.js';
 
 const byName = new Map(commands.map((command) => [command.name, command]));
 
 /** Runs the program with its arguments; returns the exit status. Never throws. */
-export function main(argv: string[], io: Io): number | Promise<number> {
+export function main(argv: string[], given: Io): number | Promise<number> {
+	const io = terminalIo(given);
 	try {
 		const [first, ...rest] = argv;
 		if (first === undefined && isInteractive(io)) return startScreens(io, {});

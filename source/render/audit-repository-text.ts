@@ -1,13 +1,10 @@
 import type {AuditReport} from '../audit/audit.js';
 import {displayPath} from '../shared/display-path.js';
 import type {Paint} from '../shared/paint.js';
-import {stripControl} from '../shared/text.js';
+import {oneLine} from '../shared/one-line.js';
 import {wrap} from '../shared/wrap.js';
 
-const flat = (text: string, max = 400) => {
-	const line = stripControl(text).replaceAll(/\s+/g, ' ').trim();
-	return line.length > max ? `${line.slice(0, max - 1)}…` : line;
-};
+const flat = (text: string, max = 400) => oneLine(text, max);
 
 /** What the audit read in a records repository's history, and each finding there, for a person. */
 export function repositoryLines(repository: NonNullable<AuditReport['repositories']>[number], paint: Paint, width = 100): string[] {

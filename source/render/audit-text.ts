@@ -3,7 +3,7 @@ import {deferral} from '../shared/deferral.js';
 import {displayPath} from '../shared/display-path.js';
 import type {Paint} from '../shared/paint.js';
 import {outcomeWords} from '../rules/evaluate/evaluation.js';
-import {stripControl} from '../shared/text.js';
+import {oneLine} from '../shared/one-line.js';
 import {version} from '../shared/version.js';
 import {wrap} from '../shared/wrap.js';
 import type {AuditReport, RecordAudit} from '../audit/audit.js';
@@ -13,12 +13,11 @@ import {describeProblem} from '../shared/problems.js';
 import {repositoryLines} from './audit-repository-text.js';
 
 /**
- * Text from a record (or a file name) made safe for one line of a terminal: control and
- * bidirectional characters removed, line breaks and tabs folded to spaces, very long text cut.
+ * Text from a record (or a file name) on one line of the audit: line breaks shown as ⏎, other
+ * white space folded, very long text cut (control characters are the terminal boundary's job).
  */
 export function inline(text: string, max = 160): string {
-	const flat = stripControl(text).replaceAll(/\s+/g, ' ').trim();
-	return flat.length > max ? `${flat.slice(0, max - 1)}…` : flat;
+	return oneLine(text, max);
 }
 
 export function count(n: number, noun: string): string {
@@ -36,7 +35,7 @@ function changeLine(change: PolicyChange): string {
 	const from = change.recorded === null ? 'not in the record' : `was ${change.recorded}`;
 	const to = change.current === null ? 'not in the current rules' : verdictWords[change.current];
 	const figures = change.value && change.limit ? ` · ${change.value}, limit ${change.relation === 'at_least' ? '≥' : '≤'} ${change.limit}` : '';
-	return `${to} ${inline(change.title)} (${change.id}; ${from})${figures}`;
+	return `${to} ${inline(change.title)} (${inline(change.id)}; ${from})${figures}`;
 }
 
 function policyLines(audit: RecordAudit, paint: Paint, width: number): string[] {

@@ -7,10 +7,10 @@ import type {CompiledRules} from '../rules/compile/compiled-rules.js';
 import {outcomeWords, type CheckResult, type ConfirmationResult, type DerivedResult, type Evaluation, type Verdict} from '../rules/evaluate/evaluation.js';
 import {shownDerived} from '../rules/evaluate/shown-derived.js';
 import {formatQuantity} from '../quantities/format.js';
-import {stripControl} from '../shared/text.js';
 import {confirmationWords, countVerdicts, verdictWords} from '../rules/evaluate/verdict-words.js';
 import {version} from '../shared/version.js';
 import {wrap} from '../shared/wrap.js';
+import {oneLine} from '../shared/one-line.js';
 import {displayPath} from '../shared/display-path.js';
 
 const order = {fail: 0, advise: 1, open: 2, pass: 3, skip: 4} as const;
@@ -42,13 +42,13 @@ function checkLines(check: CheckResult, paint: Paint, width: number, withMessage
 	if (figures) lines.push(...wrap(figures, width, '                '));
 	if (check.needs?.length) lines.push(...wrap(`needs ${check.needs.join(', ')}`, width, '                '));
 	if (check.error) lines.push(...wrap(check.error, width, '                '));
-	if (check.reason) lines.push(...wrap(stripControl(check.reason), width, '                '));
-	if (withMessage && check.message) lines.push(...wrap(stripControl(check.message), width, '                '));
+	if (check.reason) lines.push(...wrap(check.reason, width, '                '));
+	if (withMessage && check.message) lines.push(...wrap(check.message, width, '                '));
 	return lines;
 }
 
 function derivedLines(entry: DerivedResult, text: string, width: number): string[] {
-	const lines = wrap(stripControl(entry.label), width, '                ');
+	const lines = wrap(entry.label, width, '                ');
 	lines[0] = `   ${'derived'.padEnd(12)} ${lines[0]!.trimStart()}`;
 	lines.push(...wrap(`= ${text}`, width, '                '));
 	return lines;
@@ -60,15 +60,15 @@ function confirmationLines(entry: ConfirmationResult, paint: Paint, width: numbe
 	const painted = status === 'yes' ? paint.pass(text) : status === 'no' ? paint.fail(text) : status === 'unanswered' || status === 'open' ? paint.open(text) : paint.dim(text);
 	const lines = wrap(entry.statement, width, '                ');
 	lines[0] = `   ${painted} ${lines[0]!.trimStart()}`;
-	if (entry.note) lines.push(...wrap(`note: ${stripControl(entry.note)}`, width, '                '));
+	if (entry.note) lines.push(...wrap(`note: ${entry.note}`, width, '                '));
 	return lines;
 }
 
 function answerText(input: Input, answer: InputAnswer): string {
 	if (answer.kind === 'quantity') return formatQuantity(answer.si, answer.dimension);
-	if (answer.kind === 'choice' && input.kind === 'choice') return stripControl(input.options[answer.option] ?? answer.option);
+	if (answer.kind === 'choice' && input.kind === 'choice') return oneLine(input.options[answer.option] ?? answer.option);
 	if (answer.kind === 'yes_no') return answer.value ? 'yes' : 'no';
-	return stripControl(answer.entered);
+	return oneLine(answer.entered);
 }
 
 /**
@@ -79,14 +79,15 @@ function answerText(input: Input, answer: InputAnswer): string {
 export function checkText(rules: CompiledRules, answers: Answers, evaluation: Evaluation, paint: Paint, width = 100, interlock: InterlockLink | null = null): string {
 	const out: string[] = [];
 	out.push(paint.bold(`prelase ${version} · bench check`));
-	out.push(`Rules   ${stripControl(rules.rules.name)}`);
+	// Single-line fields are refused with a line break at load; oneLine keeps that true here too.
+	out.push(`Rules   ${oneLine(rules.rules.name)}`);
 	out.push(`        ${displayPath(rules.file)} · sha256 ${rules.sha256.slice(0, 16)}`);
-	if (answers.setup) out.push(`Setup   ${stripControl(answers.setup)}`);
-	out.push('', paint.bold('CAUTION'), ...wrap(stripControl(rules.rules.caution), width, '  '));
+	if (answers.setup) out.push(`Setup   ${oneLine(answers.setup)}`);
+	out.push('', paint.bold('CAUTION'), ...wrap(rules.rules.caution, width, '  '));
 
 	rules.rules.steps.forEach((step, index) => {
-		out.push('', paint.bold(`${index + 1}. ${stripControl(step.title)}`));
-		if (step.summary) out.push(...wrap(stripControl(step.summary), width, '   ').map((line) => paint.dim(line)));
+		out.push('', paint.bold(`${index + 1}. ${oneLine(step.title)}`));
+		if (step.summary) out.push(...wrap(step.summary, width, '   ').map((line) => paint.dim(line)));
 		for (const input of step.inputs) {
 			const answer = answers.inputs.get(input.id);
 			const asked = Boolean(answer) || evaluation.missingInputs.includes(input.id) || input.optional;
@@ -100,7 +101,7 @@ export function checkText(rules: CompiledRules, answers: Answers, evaluation: Ev
 
 	if (rules.switchedOff.length > 0) {
 		out.push('', paint.bold('Switched off by the rule file'));
-		for (const {check} of rules.switchedOff) out.push(...wrap(`- off      ${stripControl(check.title)}: ${stripControl(check.switched_off ?? '')}`, width, '             ').map((line, index) => (index === 0 ? `   ${line.trimStart()}` : line)));
+		for (const {check} of rules.switchedOff) out.push(...wrap(`- off      ${check.title}: ${check.switched_off ?? ''}`, width, '             ').map((line, index) => (index === 0 ? `   ${line.trimStart()}` : line)));
 	}
 
 	const counts = countVerdicts(evaluation.checks);
@@ -113,7 +114,7 @@ export function checkText(rules: CompiledRules, answers: Answers, evaluation: Ev
 	if (notable.length === 0) out.push('   Every check that applies holds.');
 	if (interlock) {
 		const mark = interlock.status === 'current' ? paint.pass('✓') : paint.fail('✗');
-		out.push('', ...wrap(`${mark} Interlock test (${interlock.status}): ${stripControl(interlock.text)}`, width, '   '));
+		out.push('', ...wrap(`${mark} Interlock test (${interlock.status}): ${interlock.text}`, width, '   '));
 	}
 
 	const words = outcomeWords[evaluation.outcome].toUpperCase();

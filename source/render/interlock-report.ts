@@ -3,10 +3,7 @@ import {markdownText, signatureSection as signatureMarkdown, table} from './repo
 import {previousText, signatureRowsOf, signaturesSummary, type SignatureRow, type SignatureStatus, type TrustInfo} from './report-model.js';
 import type {InterlockTestRecord} from '../records/record-schema.js';
 import {pageHead, reportStyle} from './report-style.js';
-import {stripControl} from '../shared/text.js';
 import {witnessSigned} from '../records/signature-purpose.js';
-
-const clean = (text: string) => stripControl(text);
 
 /** Step results as a word with a symbol, so they read without colour. */
 const resultWords = {pass: '✓ pass', fail: '✗ FAIL', not_applicable: '– not applicable'} as const;
@@ -32,38 +29,38 @@ export type InterlockReportModel = {
 /** Prepares an interlock test record for printing: every text stripped of control characters, each signature with its verification and trust. */
 export function interlockReportModel(record: InterlockTestRecord, signatures: readonly SignatureStatus[], trust: TrustInfo): InterlockReportModel {
 	const body = record.body;
-	const person = (who: {name: string; role: string}) => [clean(who.name), clean(who.role)].filter(Boolean).join(', ');
+	const person = (who: {name: string; role: string}) => [who.name, who.role].filter(Boolean).join(', ');
 	const steps = body.steps.map((step): StepRow => ({
 		number: step.number,
-		subject: clean(step.subject),
-		action: clean(step.action),
-		expect: clean(step.expect),
+		subject: step.subject,
+		action: step.action,
+		expect: step.expect,
 		result: step.result,
 		resultText: resultWords[step.result],
-		stoppedIn: step.stoppedIn ? clean(step.stoppedIn.text) : '',
-		note: clean(step.note ?? ''),
+		stoppedIn: step.stoppedIn ? step.stoppedIn.text : '',
+		note: step.note ?? '',
 	}));
 	const rows = signatureRowsOf(record, signatures, trust);
 	const policy = body.policy;
 	return {
-		title: `Interlock test record: ${clean(body.plan.name)}`,
-		planName: clean(body.plan.name),
+		title: `Interlock test record: ${body.plan.name}`,
+		planName: body.plan.name,
 		outcome: body.outcome,
-		outcomeText: clean(body.outcomeText),
-		caution: clean(body.caution),
-		deferral: clean(body.deferral),
+		outcomeText: body.outcomeText,
+		caution: body.caution,
+		deferral: body.deferral,
 		details: [
-			['Tested on', clean(body.testedOn)],
+			['Tested on', body.testedOn],
 			['Tested by', person(body.tester)],
 			['Witness', body.witness ? `${person(body.witness)}${witnessSigned(record) ? '' : ' (named, not signed)'}` : '(none)'],
-			['Plan', clean(body.plan.name)],
-			['Plan file', clean(body.plan.file)],
+			['Plan', body.plan.name],
+			['Plan file', body.plan.file],
 			['Plan SHA-256', body.plan.sha256],
-			['Plan findings', `${body.planFindings.stops} stop, ${body.planFindings.advises} advise${body.planFindings.codes.length > 0 ? ` (${body.planFindings.codes.map(clean).join(', ')})` : ''}`],
-			['Policy', `largest response ${clean(policy.maxResponseTime.text)} · resistance margin ${clean(policy.resistanceMargin.text)} · test every ${clean(policy.testInterval.text)} · longest bypass ${clean(policy.longestBypass.text)}`],
-			['Rule file', `${clean(policy.rules.name)} (${clean(policy.rules.file)}, SHA-256 ${policy.rules.sha256})`],
-			['Created', clean(body.createdAt)],
-			['Tool', `${clean(body.tool.name)} ${clean(body.tool.version)}`],
+			['Plan findings', `${body.planFindings.stops} stop, ${body.planFindings.advises} advise${body.planFindings.codes.length > 0 ? ` (${body.planFindings.codes.join(', ')})` : ''}`],
+			['Policy', `largest response ${policy.maxResponseTime.text} · resistance margin ${policy.resistanceMargin.text} · test every ${policy.testInterval.text} · longest bypass ${policy.longestBypass.text}`],
+			['Rule file', `${policy.rules.name} (${policy.rules.file}, SHA-256 ${policy.rules.sha256})`],
+			['Created', body.createdAt],
+			['Tool', `${body.tool.name} ${body.tool.version}`],
 			['Signatures', signaturesSummary(rows)],
 			['Previous record of the signing key', previousText(body.previous)],
 		],

@@ -1,7 +1,6 @@
 import {deferral} from '../shared/deferral.js';
 import {formatQuantity} from '../quantities/format.js';
 import type {Dimension} from '../quantities/dimensions.js';
-import {stripControl} from '../shared/text.js';
 import {planVerdict, type PlanAnalysis} from '../interlock/analysis/analyse.js';
 import {durationText} from '../interlock/analysis/duration-text.js';
 import {subjectText} from '../interlock/analysis/finding.js';
@@ -49,9 +48,9 @@ export function planText(plan: Plan, analysis: PlanAnalysis, file: string, polic
 	const margin = formatQuantity(plan.policy.resistance_margin, 'ratio');
 	const current = plan.input.sense_current === undefined ? 'loop voltage over source resistance, loop shorted' : 'sense current';
 	const lines = [
-		`Interlock plan: ${stripControl(plan.name)} (${file})`,
-		`Location:       ${plan.location === undefined ? 'none given: add location (room and bench, as the bench check gives it), or no bench check can use a test of this plan' : stripControl(plan.location)}`,
-		`Policy from:    ${stripControl(policySource.name)} (${policySource.file})`,
+		`Interlock plan: ${plan.name} (${file})`,
+		`Location:       ${plan.location === undefined ? 'none given: add location (room and bench, as the bench check gives it), or no bench check can use a test of this plan' : plan.location}`,
+		`Policy from:    ${policySource.name} (${policySource.file})`,
 		'',
 		'Loop',
 		`  resistance  ${formatQuantity(r.total, 'resistance')} (contacts ${formatQuantity(r.contacts, 'resistance')} + wire ${formatQuantity(r.wires, 'resistance')} at ${formatQuantity(plan.wire_temperature, 'temperature')})`,
@@ -62,7 +61,7 @@ export function planText(plan: Plan, analysis: PlanAnalysis, file: string, polic
 			: '  response    no series device',
 		'',
 		`Findings (${analysis.findings.length})`,
-		...(analysis.findings.length === 0 ? ['  none'] : analysis.findings.map((entry) => `  ${entry.severity === 'stop' ? 'STOP  ' : 'ADVISE'}  ${subjectText(entry.subject)}: ${stripControl(describeProblem(entry))}`)),
+		...(analysis.findings.length === 0 ? ['  none'] : analysis.findings.map((entry) => `  ${entry.severity === 'stop' ? 'STOP  ' : 'ADVISE'}  ${subjectText(entry.subject)}: ${describeProblem(entry)}`)),
 		'',
 		`Verdict: ${planVerdict(analysis)}`,
 		'',

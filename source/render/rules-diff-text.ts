@@ -1,20 +1,18 @@
 import {displayPath} from '../shared/display-path.js';
 import {differenceCount, type RulesDiff} from '../rules/inspect/diff.js';
-import {stripControl} from '../shared/text.js';
 
 const fieldWords: Record<string, string> = {severity: 'severity', step: 'step', when: 'when', value: 'value', at_most: 'at most', at_least: 'at least', holds: 'holds', dimension: 'dimension'};
 
 /** The difference between two rule files, in lines a laser safety officer reads. */
 export function diffText(diff: RulesDiff): string {
-	const clean = (text: string) => stripControl(text);
 	const lines = [
-		`From  ${clean(diff.from.name)}  ${displayPath(diff.from.file)} · sha256 ${diff.from.sha256.slice(0, 16)}`,
-		`To    ${clean(diff.to.name)}  ${displayPath(diff.to.file)} · sha256 ${diff.to.sha256.slice(0, 16)}`,
+		`From  ${diff.from.name}  ${displayPath(diff.from.file)} · sha256 ${diff.from.sha256.slice(0, 16)}`,
+		`To    ${diff.to.name}  ${displayPath(diff.to.file)} · sha256 ${diff.to.sha256.slice(0, 16)}`,
 		'',
 	];
 	const section = (title: string, entries: string[]) => {
 		if (entries.length === 0) return;
-		lines.push(`${title}:`, ...entries.map((entry) => `  ${clean(entry)}`), '');
+		lines.push(`${title}:`, ...entries.map((entry) => `  ${entry}`), '');
 	};
 	if (diff.name) section('Name changed', [`${diff.name.from} → ${diff.name.to}`]);
 	if (diff.cautionChanged) section('Caution changed', ['the caution text differs']);

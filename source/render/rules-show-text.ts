@@ -1,6 +1,5 @@
 import {deferral} from '../shared/deferral.js';
 import type {RulesShow, ShowCheck, ShowOrigin} from '../rules/inspect/outline.js';
-import {stripControl} from '../shared/text.js';
 
 const at = (origin: ShowOrigin | null) => (origin ? `${origin.file}:${origin.line}` : 'unknown');
 
@@ -54,5 +53,5 @@ export function showText(show: RulesShow): string {
 	lines.push('', 'Switched off (not evaluated)');
 	if (show.switchedOff.length === 0) lines.push('  none');
 	for (const check of show.switchedOff) lines.push(...checkLines(check, '  '), `          switched off in ${at(check.switchedOffAt)}: ${check.reason}`);
-	return lines.map((line) => stripControl(line)).join('\n');
+	return lines.join('\n');
 }

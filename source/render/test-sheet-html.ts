@@ -1,10 +1,9 @@
 import {deferral} from '../shared/deferral.js';
 import {htmlText} from './report-html.js';
 import {pageHead, pageStyle} from './report-style.js';
-import {stripControl} from '../shared/text.js';
 import {policyLine, sheetWords, type TestSheet} from '../interlock/functional-test/test-sheet.js';
 
-const h = (text: string) => htmlText(stripControl(text));
+const h = htmlText;
 
 /** Bordered cells tall enough to write in by hand; the step columns take what is left. */
 const sheetStyle = `

@@ -1,13 +1,13 @@
 import {deferral} from '../shared/deferral.js';
-import {stripControl} from '../shared/text.js';
+import {markdownText} from './report-markdown.js';
 import {policyLine, sheetWords, type TestSheet} from '../interlock/functional-test/test-sheet.js';
 
-const cell = (text: string) => stripControl(text).replaceAll('|', '\\|').replaceAll('\n', ' ');
+const cell = (text: string) => markdownText(text, true);
 
 /** The functional test sheet as Markdown, with blanks for the result, initials and date of every step. */
 export function testSheetMarkdown(sheet: TestSheet): string {
 	const lines = [
-		`# Interlock functional test — ${cell(sheet.name)}`,
+		`# Interlock functional test — ${markdownText(sheet.name)}`,
 		'',
 		`> ${deferral}`,
 		'',

@@ -12,6 +12,7 @@ import {signAndStore, type SecondSigner, type StoredRecord} from './sign-and-sto
 import {problem, type Problem} from '../shared/problems.js';
 import {failure, success, type Result} from '../shared/result.js';
 import {stripControl} from '../shared/text.js';
+import {hasLineBreak} from '../shared/one-line.js';
 
 /** What `check --sign` was asked to do. */
 export type SignOptions = {
@@ -58,6 +59,7 @@ export function signAndWrite(rules: CompiledRules, answers: Answers, evaluation:
 		second = {name: options.cosign.name, role: options.cosign.role ?? '', purpose, keyFile: options.cosign.key, ownKey: problem('sign-cosign-own-key')};
 	}
 	const role = stripControl(options.role ?? saved.value.role ?? '').trim();
+	if (hasLineBreak(role) || hasLineBreak(options.cosign?.role ?? '')) return failure([problem('single-line', {label: 'the role'})]);
 	const body = buildRecordBody({rules, answers, evaluation, operator: {name, role}, interlockTest, ...(amends ? {amends} : {})});
 	// The rule text goes in first, so that a record never names a text the folder lacks (and only once the signers are known good).
 	const stored = signAndStore(body, {name, role}, second, dirname(settingsFile(env)), folder, undefined, env, () => storeRuleText(folder, rules.text));

@@ -65,6 +65,7 @@ export const messages = {
 	'answers-bad-answer': '"{{entered}}" is not an answer to the confirmation; write yes, no or not applicable',
 	'answers-note-required': 'a "not applicable" answer needs a note saying why',
 	'answers-not-applicable-forbidden': 'this confirmation cannot be answered "not applicable"; answer yes or no',
+	'single-line': '{{label}} is one line of text, but this holds a line break; write it on one line (a line break here would print as a line of its own)',
 	'calc-unknown': 'no calculation named "{{name}}"{{hint}}; prelase calc lists them',
 	'calc-entry': '"{{entry}}" is not key=value (for example supply=28V)',
 	'calc-unknown-key': '{{calc}} has no input "{{key}}"{{hint}}; its inputs are {{allowed}}',

@@ -1,4 +1,5 @@
 import chalk, {type ChalkInstance} from 'chalk';
+import {ownControl} from './terminal-text.js';
 
 /** Colours for text output; every colour is paired with a word or symbol, never used alone. */
 export type Paint = {
@@ -18,5 +19,13 @@ export function paintFor(stream: NodeJS.WriteStream, env: NodeJS.ProcessEnv = pr
 	if (env['NO_COLOR'] !== undefined && env['NO_COLOR'] !== '') return plain;
 	if (!stream.isTTY && env['FORCE_COLOR'] === undefined) return plain;
 	const c: ChalkInstance = chalk;
-	return {pass: c.green, fail: (t) => c.red.bold(t), advise: c.yellow, open: c.cyan, dim: c.dim, bold: c.bold};
+	return {pass: own(c.green), fail: own(c.red.bold), advise: own(c.yellow), open: own(c.cyan), dim: own(c.dim), bold: own(c.bold)};
+}
+
+/** A chalk style whose sequences travel as prelase's own (terminal-text.ts), so the terminal boundary keeps them. */
+function own(style: (text: string) => string): (text: string) => string {
+	const [start = '', end = ''] = style('\u0000').split('\u0000');
+	const [open, close] = [ownControl(start), ownControl(end)];
+	// As chalk does: text that closes the style inside reopens it, so nested colours stay.
+	return (text) => (start === '' ? text : `${open}${text.replaceAll(close, close + open)}${close}`);
 }

@@ -19,7 +19,8 @@ const longLine = 'ABCDEFGHIJ'.repeat(1000);
  * (OSC 0 … BEL), flip the reading direction (RLO, LRI … PDI), the same through C1 controls
  * (NEL, CSI, DCS, OSC, ST), and a very long line.
  */
-const hostileSetup = 'Bench 3 \u001b[2J\u001b]0;title\u0007 \u202eright-to-left\u202c \u2066isolate\u2069 \u0085\u009b2J\u0090dcs\u009c\u009d0;t\u009c \u001b[31mred\u001b[0m end.';
+// NEL (U+0085) is a line break, refused in a one-line setup name (docs/rule-file.md); the note carries it.
+const hostileSetup = 'Bench 3 \u001b[2J\u001b]0;title\u0007 \u202eright-to-left\u202c \u2066isolate\u2069 \u009b2J\u0090dcs\u009c\u009d0;t\u009c \u001b[31mred\u001b[0m end.';
 const hostileNote = `No bypass \u001b[2J\u001b]0;title\u0007 here \u202eevil\u202c \u2066\u2067\u2068x\u2069 C1:\u0080\u0085\u009b31m\u009f\u007f ${longLine} done.`;
 
 /** Every character a terminal could act on; tabs and newlines are allowed in output. */
@@ -90,7 +91,8 @@ describe('hostile text in the record itself', () => {
 		expect(bytes.includes(Buffer.from(String.raw`\u001b[2J\u001b]0;title\u0007`))).toBe(true);
 		expect(bytes.includes(0x1b)).toBe(false);
 		expect(bytes.includes(Buffer.from('\u202eright-to-left\u202c', 'utf8'))).toBe(true);
-		expect(bytes.includes(Buffer.from(' \u0085\u009b2J', 'utf8'))).toBe(true);
+		expect(bytes.includes(Buffer.from(' \u009b2J', 'utf8'))).toBe(true);
+		expect(bytes.includes(Buffer.from('C1:\u0080\u0085\u009b31m', 'utf8'))).toBe(true);
 		expect(bytes.includes(Buffer.from(longLine))).toBe(true);
 	});
 });

@@ -2,6 +2,7 @@ import {describe, expect, it} from 'vitest';
 import {deferral} from '../../source/shared/deferral.js';
 import {testSheet} from '../../source/interlock/functional-test/test-sheet.js';
 import {testSheetHtml} from '../../source/render/test-sheet-html.js';
+import {terminalText} from '../../source/shared/terminal-text.js';
 import {loadPlanUnderShippedPolicy as demo, doorSwitch, makePlan} from '../interlock/plan-fixture.js';
 
 /** The cells of each row in the table body, as written in the page. */
@@ -64,8 +65,8 @@ describe('hostile text from a plan file', () => {
 		{name: 'in the plan name', changes: {name: hostile}, where: (html: string) => /<h1>(.*)<\/h1>/.exec(html)![1]!, expected: `Interlock functional test — ${escaped}`},
 		{name: 'in a device description', changes: {devices: [doorSwitch('door_switch', {description: hostile})]}, where: (html: string) => bodyRows(html)[0]![2]!, expected: `With emission on, open door_switch (${escaped}), then close it again.`},
 		{name: 'in a bypass owner', changes: {devices: [doorSwitch('door_switch'), bypassKey]}, where: (html: string) => bodyRows(html).at(-1)![2]!, expected: `Engage the bypass bypass as its owner (${escaped}) would, and wait 1 h.`},
-	])('$name is escaped, its control characters stripped', ({changes, where, expected}) => {
-		const html = testSheetHtml(testSheet(makePlan(changes)));
+	])('$name is escaped, its control characters stripped at the terminal boundary', ({changes, where, expected}) => {
+		const html = terminalText(testSheetHtml(testSheet(makePlan(changes))));
 		expect(where(html)).toBe(expected);
 		expect(html).not.toContain('<script');
 		expect(html).not.toMatch(/[\u0000-\u0008\u000b-\u001f\u007f-\u009f\u202a-\u202e\u2066-\u2069]/u);

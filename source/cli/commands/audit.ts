@@ -11,6 +11,7 @@ import {openSettings} from '../../services/settings.js';
 import {isRecordsRepository} from '../../services/records-repository.js';
 import {readRepositoryHistory} from '../../services/records-history.js';
 import {terminalSafeJson} from '../../shared/text.js';
+import {ownControl} from '../../shared/terminal-text.js';
 import {UsageError} from '../usage-error.js';
 import {commandHelp, helpOption, parseOptions, type Command, type Io} from '../command.js';
 
@@ -42,10 +43,10 @@ function progress(io: Io): {update(done: number, total: number): void; end(): vo
 			if (done < total && now - last < 100) return;
 			last = now;
 			shown = true;
-			io.stderr.write(`\rAuditing records: ${done} of ${total} (${Math.floor((done / total) * 100)} %)`);
+			io.stderr.write(`${ownControl('\r')}Auditing records: ${done} of ${total} (${Math.floor((done / total) * 100)} %)`);
 		},
 		end() {
-			if (shown) io.stderr.write('\r\u001B[2K');
+			if (shown) io.stderr.write(ownControl('\r\u001B[2K'));
 		},
 	};
 }

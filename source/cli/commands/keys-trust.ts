@@ -1,6 +1,6 @@
 import type {TrustedKey} from '../../records/key-files.js';
 import {shortFingerprint} from '../../records/key-material.js';
-import {stripControl} from '../../shared/text.js';
+import {oneLine} from '../../shared/one-line.js';
 
 /**
  * Why a key cannot be trusted under a name, or undefined: your own key needs no trust (the
@@ -12,7 +12,7 @@ export function trustProblem(print: string, name: string, own: string | undefine
 		return `this is your own key (${shortFingerprint(print)}): the audit already knows your signatures as yours, and a trust list entry would let it pass under another name; give the file to colleagues instead`;
 	}
 	const other = trusted.find((key) => key.fingerprint === print && key.name !== name);
-	if (other) return `this key (${shortFingerprint(print)}) is already trusted as "${stripControl(other.name)}"; one key is one person: prelase keys forget "${stripControl(other.name)}" first if the name was wrong`;
+	if (other) return `this key (${shortFingerprint(print)}) is already trusted as "${oneLine(other.name)}"; one key is one person: prelase keys forget "${oneLine(other.name)}" first if the name was wrong`;
 	return undefined;
 }
 

@@ -7,10 +7,10 @@ import {cleanKeyName, nameInPem} from '../../records/key-name.js';
 import {isoWithOffset} from '../../shared/iso-time.js';
 import {describeProblem, problem} from '../../shared/problems.js';
 import {openSettings} from '../../services/settings.js';
-import {stripControl} from '../../shared/text.js';
 import {UsageError, valueOrUsageError} from '../usage-error.js';
 import {commandHelp, helpOption, parseOptions, type Command, type Io} from '../command.js';
 import {findTrusted, trustProblem} from './keys-trust.js';
+import {oneLine} from '../../shared/one-line.js';
 
 const options = {
 	name: {type: 'string', value: 'NAME', summary: 'Alone: your name, given to your key when it is made (or once, to a key made without one). With trust: the name the colleague\'s key is trusted under (the name in the file when not given)'},
@@ -47,7 +47,7 @@ export function runKeys(args: string[], io: Io): number {
 			const given = values.name ?? settings.read().operator;
 			const {privateKey, created, path, name} = valueOrUsageError(values.name === undefined ? operatorKey(settings.folder, true, given) : nameOperatorKey(settings.folder, values.name));
 			const full = fingerprint(rawPublicKey(privateKey));
-			io.stdout.write(`${created ? 'Created your signing key' : 'Your signing key'}: ${path}\nName: ${name === undefined ? '(none)' : stripControl(name)}\nFingerprint: ${shortFingerprint(full)} (${full})\n`);
+			io.stdout.write(`${created ? 'Created your signing key' : 'Your signing key'}: ${path}\nName: ${name === undefined ? '(none)' : name}\nFingerprint: ${shortFingerprint(full)} (${full})\n`);
 			if (name === undefined) io.stdout.write(`${describeProblem(problem('key-unnamed', {path}))}\n`);
 			return 0;
 		}
@@ -98,7 +98,7 @@ export function runKeys(args: string[], io: Io): number {
 			if (typeof found === 'string') throw new UsageError(found);
 			found.revokedFrom = from;
 			writeTrusted(settings.folder, keys);
-			io.stdout.write(`Revoked ${stripControl(found.name)} (${shortFingerprint(found.fingerprint)}) from ${from}: the audit reports signatures made with it from then on.\n`);
+			io.stdout.write(`Revoked ${oneLine(found.name)} (${shortFingerprint(found.fingerprint)}) from ${from}: the audit reports signatures made with it from then on.\n`);
 			return 0;
 		}
 		case 'list': {
@@ -107,8 +107,8 @@ export function runKeys(args: string[], io: Io): number {
 			const keys = readTrusted(settings.folder);
 			if (keys.length === 0) io.stdout.write('No trusted keys.\n');
 			for (const key of keys) {
-				const roles = key.roles && key.roles.length > 0 ? `  granted: ${key.roles.map(stripControl).join(', ')}` : '';
-				io.stdout.write(`Trusted: ${stripControl(key.name)}  ${shortFingerprint(key.fingerprint)}  since ${key.addedAt}${roles}${key.revokedFrom ? `  revoked from ${key.revokedFrom}` : ''}\n`);
+				const roles = key.roles && key.roles.length > 0 ? `  granted: ${key.roles.map((role) => oneLine(role)).join(', ')}` : '';
+				io.stdout.write(`Trusted: ${oneLine(key.name)}  ${shortFingerprint(key.fingerprint)}  since ${oneLine(key.addedAt)}${roles}${key.revokedFrom ? `  revoked from ${oneLine(key.revokedFrom)}` : ''}\n`);
 			}
 			return 0;
 		}

@@ -11,7 +11,7 @@ import {testSheetMarkdown} from '../../render/test-sheet-markdown.js';
 import {recordTest} from '../../services/record-functional-test.js';
 import {formatProblem} from '../../shared/problems.js';
 import {editorJsonSchema} from '../../shared/json-schema.js';
-import {stripControl, terminalSafeJson} from '../../shared/text.js';
+import {terminalSafeJson} from '../../shared/text.js';
 import {deferral} from '../../shared/deferral.js';
 import {interlockTestCaution} from '../../interlock/functional-test/test-record.js';
 import {UsageError, valueOrUsageError} from '../usage-error.js';
@@ -87,9 +87,9 @@ export function runPlan(args: string[], io: Io): number | Promise<number> {
 		const verdict = recorded.outcome === 'passed' ? 'PASSED' : 'FAILED';
 		io.stdout.write(
 			[
-				`Interlock test of ${stripControl(plan.name)}, ${recorded.testedOn}, by ${stripControl(recorded.tester)}: ${verdict}`,
-				stripControl(recorded.outcomeText),
-				...(recorded.witness ? [`Witness: ${stripControl(recorded.witness.name)}, ${recorded.witness.signed ? 'signed' : 'named, not signed (a witness who did not sign is not a witness; sign with --witness-key FILE)'}`] : []),
+				`Interlock test of ${plan.name}, ${recorded.testedOn}, by ${recorded.tester}: ${verdict}`,
+				recorded.outcomeText,
+				...(recorded.witness ? [`Witness: ${recorded.witness.name}, ${recorded.witness.signed ? 'signed' : 'named, not signed (a witness who did not sign is not a witness; sign with --witness-key FILE)'}`] : []),
 				...(plan.location === undefined ? ['The plan names no location: no bench check can use this test. Add location: (room and bench) to the plan and test the loop again.'] : []),
 				`Record written: ${recorded.path}`,
 				`Signed with key ${recorded.fingerprint}${recorded.keyCreated ? ' (a new key, created now; share it with: prelase keys export)' : ''}`,

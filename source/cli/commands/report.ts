@@ -10,7 +10,7 @@ import {findRuleText} from '../../records/rule-texts.js';
 import {reportHtml} from '../../render/report-html.js';
 import {reportMarkdown} from '../../render/report-markdown.js';
 import {openSettings} from '../../services/settings.js';
-import {stripControl} from '../../shared/text.js';
+import {terminalText} from '../../shared/terminal-text.js';
 import {UsageError} from '../usage-error.js';
 import {commandHelp, helpOption, parseOptions, type Command, type Io} from '../command.js';
 
@@ -21,7 +21,7 @@ const interlockWriters = {md: interlockReportMarkdown, html: interlockReportHtml
 function chooseFormat(format: string | undefined, out: string | undefined): keyof typeof writers {
 	if (format !== undefined) {
 		if (format === 'md' || format === 'html') return format;
-		throw new UsageError(`unknown format "${stripControl(format)}"; use --format md or --format html`);
+		throw new UsageError(`unknown format "${format}"; use --format md or --format html`);
 	}
 	return out && ['.html', '.htm'].includes(extname(out).toLowerCase()) ? 'html' : 'md';
 }
@@ -45,7 +45,7 @@ export function runReport(args: string[], io: Io): number {
 
 	const integrity = readRecord(path);
 	if (!integrity.ok) {
-		io.stderr.write(`prelase: ${stripControl(path)} fails its integrity check: ${stripControl(integrity.reason)}\nNo report was printed; a record that fails its integrity check cannot be relied on (prelase audit ${stripControl(path)} says more).\n`);
+		io.stderr.write(`prelase: ${path} fails its integrity check: ${integrity.reason}\nNo report was printed; a record that fails its integrity check cannot be relied on (prelase audit ${path} says more).\n`);
 		return 3;
 	}
 	const settings = openSettings(io.env);
@@ -70,7 +70,8 @@ export function runReport(args: string[], io: Io): number {
 		return 0;
 	}
 	try {
-		writeFileSync(values.out, page, {flag: 'wx'});
+		// A report file is read in a terminal too (cat, less): it passes the same boundary as stdout.
+		writeFileSync(values.out, terminalText(page), {flag: 'wx'});
 	} catch (error) {
 		const code = (error as NodeJS.ErrnoException).code;
 		if (code === 'EEXIST') throw new UsageError(`${values.out} already exists; prelase does not overwrite it (choose another --out FILE)`);

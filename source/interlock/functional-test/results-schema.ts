@@ -2,9 +2,12 @@
 import {array, literal, number, object, string, enum as oneOf} from 'zod';
 import type {z} from 'zod';
 import {quantityOf} from '../plan/plan-schema.js';
+import {singleLinePattern} from '../../shared/one-line.js';
 
 const words = string().trim().min(1, 'this text cannot be empty');
-const person = object({name: words, role: string().trim().default('')}).strict();
+/** Names, roles and what a step concerns: one line, since a line break would print as a line of its own. */
+const line = words.regex(singleLinePattern, 'this is one line of text but holds a line break; write it on one line');
+const person = object({name: line, role: string().trim().regex(singleLinePattern, 'a role is one line of text but holds a line break; write it on one line').default('')}).strict();
 
 const dayPattern = /^\d{4}-\d{2}-\d{2}$/;
 
@@ -19,7 +22,7 @@ const isoDate = string().regex(dayPattern, 'write the date as YYYY-MM-DD, e.g. 2
 /** One step of a filled-in test sheet. */
 export const stepResultSchema = object({
 		step: number().int().positive().describe('The step number on the test sheet'),
-		concerns: words.describe('What the step concerns, as on the sheet (a device id, "emergency stop", ...): guards against results for another sheet'),
+		concerns: line.describe('What the step concerns, as on the sheet (a device id, "emergency stop", ...): guards against results for another sheet'),
 		result: oneOf(['pass', 'fail', 'not_applicable']),
 		stopped_in: quantityOf('time').optional().describe('Measured time until emission stopped'),
 		note: words.optional(),

@@ -5,9 +5,12 @@ import {dimensions, type Dimension} from '../../quantities/dimensions.js';
 import {parseQuantity} from '../../quantities/parse-quantity.js';
 import {describeProblem, problem} from '../../shared/problems.js';
 import type {InterlockPolicy} from './policy.js';
+import {singleLinePattern} from '../../shared/one-line.js';
 
 const identifier = string().regex(/^[a-z][a-z0-9_]*$/, 'an id is lower case letters, digits and underscores, starting with a letter (e.g. lid_switch)');
 const words = string().trim().min(1, 'this text cannot be empty');
+/** A name, description, owner or location: one line, since a line break would print as a line of its own. */
+const line = words.regex(singleLinePattern, 'this is one line of text but holds a line break; write it on one line');
 
 /**
  * A value with its unit (`50 mohm`, `2 ms`), read into the coherent SI unit of its
@@ -49,7 +52,7 @@ export const wireRunSchema = object({
 
 /** Owner, reason and time limit of a bypass; each is checked by the analysis, so each may be missing here. */
 const bypassSchema = object({
-		owner: words.optional(),
+		owner: line.optional(),
 		reason: words.optional(),
 		time_limit: quantityOf('time', 'positive').optional(),
 	})
@@ -59,7 +62,7 @@ const bypassSchema = object({
 export const deviceSchema = object({
 		id: identifier,
 		kind: oneOf(deviceKinds),
-		description: words,
+		description: line,
 		contact: oneOf(['normally_closed', 'normally_open']),
 		wiring: oneOf(['series', 'parallel']).default('series'),
 		contact_resistance: quantityOf('resistance'),
@@ -77,7 +80,7 @@ export const deviceSchema = object({
 /** A way into the beam enclosure or the room. */
 export const accessPointSchema = object({
 		id: identifier,
-		description: words,
+		description: line,
 		beam_reachable: boolean(),
 		secured_by: oneOf(['interlock', 'tool', 'none']),
 		device: identifier.optional().describe('The device that interlocks it'),
@@ -86,7 +89,7 @@ export const accessPointSchema = object({
 
 /** The driver's (or shutter controller's) interlock input. */
 export const interlockInputSchema = object({
-		description: words,
+		description: line,
 		loop_voltage: quantityOf('voltage', 'positive'),
 		sense_current: quantityOf('current', 'positive').optional(),
 		source_resistance: quantityOf('resistance', 'positive').optional(),
@@ -104,8 +107,8 @@ export const interlockInputSchema = object({
 /** An interlock plan file. */
 export const planSchema = object({
 		format: literal(1),
-		name: words,
-		location: words.optional().describe('Room and bench of the loop, as the bench check gives its location; a test of this plan answers only a check at this location'),
+		name: line,
+		location: line.optional().describe('Room and bench of the loop, as the bench check gives its location; a test of this plan answers only a check at this location'),
 		laser_class: oneOf(['class_1', 'class_1m', 'class_2', 'class_2m', 'class_3r', 'class_3b', 'class_4']),
 		wire_temperature: quantityOf('temperature', 'positive'),
 		input: interlockInputSchema,

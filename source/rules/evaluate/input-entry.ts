@@ -4,6 +4,7 @@ import type {ConfirmationAnswer, InputAnswer} from './answers.js';
 import {dimensionWords} from '../../quantities/dimensions.js';
 import type {CompiledConfirmation, CompiledInput} from '../compile/compiled-rules.js';
 import type {ProblemCode} from '../../shared/messages.js';
+import {hasLineBreak} from '../../shared/one-line.js';
 
 /** Why an entry was refused: a message code and what fills it. */
 export type EntryProblem = {code: ProblemCode; data: Record<string, string | number>};
@@ -60,6 +61,7 @@ export function parseInputEntry(compiled: CompiledInput, raw: unknown): Entry<In
 			// Kept as written; the screens and text output strip control characters when they show it.
 			const value = String(raw);
 			if (value.length > input.max_length) return {ok: false, problem: {code: 'answers-text-too-long', data: {label, length: value.length, max: input.max_length}}};
+			if (hasLineBreak(value)) return {ok: false, problem: {code: 'single-line', data: {label}}};
 			return {ok: true, value: {kind: 'text', entered: value, value}};
 		}
 	}

@@ -5,6 +5,7 @@ import type {Answers, ConfirmationAnswer, InputAnswer} from './answers.js';
 import type {CompiledRules} from '../compile/compiled-rules.js';
 import {parseConfirmationEntry, parseInputEntry} from './input-entry.js';
 import {didYouMean} from '../../shared/did-you-mean.js';
+import {hasLineBreak} from '../../shared/one-line.js';
 
 const expected = 'an answers file (YAML with setup, inputs and confirmations)';
 const topKeys = new Set(['setup', 'inputs', 'confirmations']);
@@ -31,6 +32,7 @@ export function loadAnswersFromText(text: string, file: string, rules: CompiledR
 
 	for (const key of Object.keys(data)) if (!topKeys.has(key)) problems.push(problem('answers-unknown-key', {key}, at([key])));
 	if (data['setup'] !== undefined && typeof data['setup'] !== 'string') problems.push(problem('answers-not-text', {label: 'setup', received: typeof data['setup']}, at(['setup'])));
+	else if (typeof data['setup'] === 'string' && hasLineBreak(data['setup'])) problems.push(problem('single-line', {label: 'the setup name'}, at(['setup'])));
 
 	const inputs = new Map<string, InputAnswer>();
 	for (const [id, raw] of entries(data['inputs'], 'inputs', source, problems)) {

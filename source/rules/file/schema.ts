@@ -2,6 +2,7 @@
 import {array, boolean, discriminatedUnion, literal, number, object, preprocess, record, string, tuple, union, enum as oneOf} from 'zod';
 import type {z} from 'zod';
 import {dimensionNames} from '../../quantities/dimensions.js';
+import {singleLinePattern} from '../../shared/one-line.js';
 
 const identifier = string()
 	.regex(/^[a-z][a-z0-9_]*$/, 'an id is lower case letters, digits and underscores, starting with a letter (e.g. current_limit)');
@@ -9,6 +10,8 @@ const identifier = string()
 const formula = string().trim().min(1, 'a formula cannot be empty');
 const quantityText = union([string(), number()]);
 const words = string().trim().min(1, 'this text cannot be empty');
+/** A name, title, label or role: one line, since a line break would print as a line of its own. */
+const line = words.regex(singleLinePattern, 'this is one line of text but holds a line break; write it on one line');
 
 /**
  * A site-tunable constant with its meaning and basis: a quantity with its unit and dimension,
@@ -32,7 +35,7 @@ export const policyValueSchema = object({
 
 const inputCommon = {
 	id: identifier,
-	label: words,
+	label: line,
 	help: string().optional().describe('One line shown under the input'),
 	when: formula.optional().describe('The input is asked only when this holds'),
 	identifies: boolean().optional().describe('Part of what identifies the setup (diode, driver, supply, wiring, location)'),
@@ -53,7 +56,7 @@ export const quantityInputSchema = object({
 export const choiceInputSchema = object({
 		...inputCommon,
 		kind: literal('choice'),
-		options: record(identifier, words).refine((options) => Object.keys(options).length >= 2, 'a choice needs at least two options'),
+		options: record(identifier, line).refine((options) => Object.keys(options).length >= 2, 'a choice needs at least two options'),
 		default: identifier.optional(),
 	})
 	.strict();
@@ -88,7 +91,7 @@ export const confirmationSchema = object({
 /** A screen's worth of the bench check. */
 export const stepSchema = object({
 		id: identifier,
-		title: words,
+		title: line,
 		summary: string().optional(),
 		inputs: array(inputSchema).default([]),
 		confirmations: array(confirmationSchema).default([]),
@@ -98,7 +101,7 @@ export const stepSchema = object({
 /** A value computed from inputs, policy values and other derived values. */
 export const derivedSchema = object({
 		id: identifier,
-		label: words,
+		label: line,
 		dimension: oneOf(dimensionNames),
 		step: identifier.optional().describe('Show this value with the inputs of this step (a converted or worst-case figure the operator should see)'),
 		formula,
@@ -119,7 +122,7 @@ export const tableSchema = object({
 export const checkSchema = object({
 		id: identifier,
 		step: identifier,
-		title: words,
+		title: line,
 		when: formula.optional(),
 		skip_reason: words.optional().describe('Why the check is skipped when its `when` does not hold; shown with the skip'),
 		value: formula.optional().describe('The quantity being checked'),
@@ -143,7 +146,7 @@ export const checkSchema = object({
 		}
 	});
 
-const roleName = string().trim().min(1, 'a role cannot be empty');
+const roleName = string().trim().min(1, 'a role cannot be empty').regex(singleLinePattern, 'a role is one line of text but holds a line break; write it on one line');
 
 /**
  * What the site asks of signatures: the roles that carry authority (they count only when the
@@ -174,7 +177,7 @@ export const signingSchema = object({
 /** The whole rule file. */
 export const ruleFileSchema = object({
 		format: literal(1).describe('Rule file format version'),
-		name: words,
+		name: line,
 		caution: words.describe('Shown at the start of every check, on the summary and in every record'),
 		policy: record(identifier, policyValueSchema).default({}),
 		tables: record(identifier, tableSchema).default({}),

@@ -1,6 +1,7 @@
 import {array, literal, number, object, record, string, union, unknown, enum as oneOf} from 'zod';
 import type {z} from 'zod';
 import {dimensionNames} from '../../quantities/dimensions.js';
+import {singleLinePattern} from '../../shared/one-line.js';
 import {checkSchema, confirmationSchema, derivedSchema, inputSchema, policyValueSchema, signingSchema, stepSchema, tableSchema} from './schema.js';
 
 const identifier = string().regex(/^[a-z][a-z0-9_]*$/, 'an id is lower case letters, digits and underscores, starting with a letter (e.g. current_limit)');
@@ -36,7 +37,7 @@ export const stepAdditionSchema = object({
 export const siteFileSchema = object({
 		format: literal(1).describe('Rule file format version'),
 		extends: words.describe('The base: "shipped" for the shipped policy, or a path relative to this file'),
-		name: words.optional().describe('Shown on every screen and record (the base\'s name when absent)'),
+		name: words.regex(singleLinePattern, 'this is one line of text but holds a line break; write it on one line').optional().describe('Shown on every screen and record (the base\'s name when absent)'),
 		caution: words.optional().describe('Shown at the start of every check (the base\'s caution when absent)'),
 		policy_changed: record(identifier, policyChangeSchema).default({}),
 		checks_changed: record(identifier, checkChangeSchema).default({}),

@@ -275,7 +275,7 @@ describe('prelase audit: hostile text from a record', () => {
 		expect(stdout).not.toContain('\u001B');
 		expect(stdout).not.toContain(bidi);
 		expect(stdout).not.toContain('\u009B');
-		expect(stdout).toContain('Setup          [2JBench 3 Integrity ✓ forged line');
+		expect(stdout).toContain('Setup          [2JBench 3 ⏎ Integrity ✓ forged line');
 		expect(stdout).toContain('Operator       Mallory[2J, technician');
 		expect(stdout).toContain('note: No bypass[2J fitted 31m');
 		// The line break in the setup name cannot start a forged line of its own.
