@@ -1,7 +1,6 @@
 import {verdictWords} from '../rules/evaluate/verdict-words.js';
 import {formatQuantity, roundedText} from '../quantities/format.js';
 import {outcomeWords} from '../rules/evaluate/evaluation.js';
-import {stripControl} from '../shared/text.js';
 import {deferral} from '../shared/deferral.js';
 import {shortFingerprint} from '../records/key-material.js';
 import type {TrustedKey} from '../records/key-files.js';
@@ -21,7 +20,7 @@ export type TrustInfo = {own?: string; trusted: readonly TrustedKey[]};
 /** Confirmation answers as a word with a symbol. */
 export const answerWords = {yes: '✓ yes', no: '✗ NO', not_applicable: '– not applicable', unanswered: '? unanswered', skip: '– skip', open: '? open'} as const;
 
-/** One check, every piece of text already stripped of control characters. */
+/** One check, as a report shows it. */
 export type CheckRow = {
 	id: string;
 	verdict: RecordCheck['verdict'];
@@ -72,7 +71,8 @@ export type ReportModel = {
 
 const attentionOrder = {fail: 0, advise: 1, open: 2, pass: 3, skip: 4} as const;
 
-const clean = (text: string | null | undefined): string => stripControl(text ?? '');
+// Control characters in text from a record are removed at the output boundary (cli/terminal-io.ts), as for every renderer.
+const clean = (text: string | null | undefined): string => text ?? '';
 
 /**
  * The link of a record to the previous record its key wrote to the same folder, in words: how
@@ -157,8 +157,8 @@ export function signatureRow(record: AnyRecord, status: SignatureStatus | undefi
 }
 
 /**
- * Prepares a record for printing: every text from the record is stripped of control
- * characters, checks are grouped by step in the rule file's order, failures are gathered
+ * Prepares a record for printing (control characters are removed at the output boundary),
+ * checks are grouped by step in the rule file's order, failures are gathered
  * for the summary, and each signature carries its verification and trust status.
  */
 export function reportModel(record: BenchRecord, signatures: readonly SignatureStatus[], trust: TrustInfo): ReportModel {

@@ -140,7 +140,6 @@ describe('no command reaches the terminal except through the boundary', () => {
 
 	it('no renderer or command strips control characters on its own: the boundary is the one place', () => {
 		const strippers = [...sources(resolve('source/render')), ...sources(resolve('source/cli'))].filter(({text}) => /\bstripControl\b/.test(text)).map(({file}) => file.replace(`${resolve('source')}/`, ''));
-		// report-model.ts still strips while its body shape changes elsewhere; the boundary makes it redundant.
-		expect(strippers).toEqual(['render/report-model.ts']);
+		expect(strippers).toEqual([]);
 	});
 });

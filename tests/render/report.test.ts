@@ -8,6 +8,7 @@ import {htmlText, reportHtml} from '../../source/render/report-html.js';
 import {markdownText, reportMarkdown} from '../../source/render/report-markdown.js';
 import {previousText, type SignatureStatus, type TrustInfo} from '../../source/render/report-model.js';
 import {signRecord} from '../../source/records/sign.js';
+import {terminalText} from '../../source/shared/terminal-text.js';
 import {withValuesShown, withRuleWords} from '../../source/records/record-words.js';
 import {evaluate} from '../../source/rules/evaluate/evaluate.js';
 import {loadAnswers} from '../../source/rules/evaluate/load-answers.js';
@@ -143,8 +144,9 @@ describe('hostile text from a record', () => {
 	body.confirmations = confirmationList(body).map((entry, index) => (index === 0 ? {...entry, note: hostileNote} : entry));
 	body.setup.name = '<img src=x onerror=alert(2)>';
 	const {record, signatures} = signed(body);
-	const html = reportHtml(record, signatures, ownTrust);
-	const markdown = reportMarkdown(record, signatures, ownTrust);
+	// As the page reaches the terminal or the --out file: through the output boundary, which removes control characters.
+	const html = terminalText(reportHtml(record, signatures, ownTrust));
+	const markdown = terminalText(reportMarkdown(record, signatures, ownTrust));
 
 	it.each([
 		{name: 'html', page: html},
