@@ -21,11 +21,13 @@ const sameLocation = (a: string | null | undefined, b: string | null | undefined
 export function linkInterlockTests(audits: Audited[], benchLocations: ReadonlyMap<number, string | undefined>): void {
 	const authenticTests = audits.filter((audit) => audit.authentic && audit.interlockTest && audit.bodySha256);
 	const tests = new Map(authenticTests.map((audit) => [audit.bodySha256!, audit]));
+	// One note shared by every check that named no plan: a large folder has many.
+	const notTested = {item: 'interlock-test', text: describeProblem({code: 'audit-not-checked-interlock', data: {}})};
 	audits.forEach((audit, index) => {
 		if (!audit.authentic || !audit.record) return;
 		const used = audit.record.interlockTest?.record;
 		if (!audit.record.interlockTest) {
-			audit.notChecked.push({item: 'interlock-test', text: describeProblem({code: 'audit-not-checked-interlock', data: {}})});
+			audit.notChecked.push(notTested);
 			return;
 		}
 		// The check named a plan but found no usable test: its confirmations say no, and the consistency check covers that.

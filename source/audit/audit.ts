@@ -62,8 +62,8 @@ export type AuditTotals = {records: number; authentic: number; integrityFailures
 /** How often a finding occurs in the audit. */
 export type FindingCount = {kind: FindingKind; code: Finding['code']; count: number; example: string};
 
-/** A record with findings, in the short form of a summarised audit. */
-export type RecordWithFindings = {file: string; authentic: boolean; kind: 'bench-check' | 'interlock-test' | null; createdAt: string | null; outcome: string | null; findings: ReportedFinding[]};
+/** A record with findings, in the short form of a summarised audit: each finding as code and data, put in words as it is written out (describeProblem), so that a large audit does not hold the words of every finding at once. */
+export type RecordWithFindings = {file: string; authentic: boolean; kind: 'bench-check' | 'interlock-test' | null; createdAt: string | null; outcome: string | null; findings: Finding[]};
 
 /** The whole audit. It says whether records are authentic and their conclusions follow, never that a setup is safe. */
 export type AuditReport = {
@@ -235,6 +235,18 @@ class Interned {
 	nullable(value: string | null | undefined): string | null {
 		return value === null || value === undefined ? null : this.text(value);
 	}
+
+	/** One copy of each small object of texts that repeats from record to record (a tool, an operator, a rule file, a setup). */
+	object<T extends Record<string, string | null>>(value: T): T {
+		const key = JSON.stringify(value);
+		const known = this.#objects.get(key);
+		if (known !== undefined) return known as T;
+		const kept = Object.fromEntries(Object.entries(value).map(([name, text]) => [name, this.nullable(text)])) as T;
+		this.#objects.set(key, kept);
+		return kept;
+	}
+
+	readonly #objects = new Map<string, object>();
 }
 
 /**
@@ -244,13 +256,14 @@ class Interned {
 function slim(audit: Judged, keep: Interned): Judged {
 	const record = audit.record && {
 		...audit.record,
-		tool: {name: audit.record.tool.name, version: keep.text(audit.record.tool.version)},
-		operator: {name: keep.text(audit.record.operator.name), role: keep.text(audit.record.operator.role)},
-		setup: {name: keep.nullable(audit.record.setup.name), fingerprint: keep.text(audit.record.setup.fingerprint)},
-		rules: {name: keep.text(audit.record.rules.name), file: keep.text(audit.record.rules.file), sha256: keep.text(audit.record.rules.sha256)},
+		tool: keep.object(audit.record.tool),
+		operator: keep.object(audit.record.operator),
+		setup: keep.object({name: audit.record.setup.name, fingerprint: audit.record.setup.fingerprint}),
+		rules: keep.object({name: audit.record.rules.name, file: audit.record.rules.file, sha256: audit.record.rules.sha256}),
 		exceptions: [],
 	};
-	return {...audit, record, signatures: [], currentPolicy: null, notChecked: []};
+	const consistency = audit.consistency && keep.object({reevaluated: String(audit.consistency.reevaluated), consistent: String(audit.consistency.consistent), rulesSha256: audit.consistency.rulesSha256});
+	return {...audit, record, signatures: [], currentPolicy: null, notChecked: [], consistency: consistency && {reevaluated: consistency.reevaluated === 'true', consistent: consistency.consistent === 'true', rulesSha256: consistency.rulesSha256}};
 }
 
 /** What relates a record to the others, its texts shared with the other records'. */
@@ -331,5 +344,5 @@ export function auditRecords(files: readonly string[], options: AuditOptions): A
 
 function listedWithFindings(audit: Judged): RecordWithFindings {
 	const what = audit.record ? {kind: 'bench-check' as const, createdAt: audit.record.createdAt, outcome: audit.record.outcome} : audit.interlockTest ? {kind: 'interlock-test' as const, createdAt: audit.interlockTest.createdAt, outcome: audit.interlockTest.outcome} : {kind: null, createdAt: null, outcome: null};
-	return {file: audit.file, authentic: audit.authentic, ...what, findings: audit.findings.map(reported)};
+	return {file: audit.file, authentic: audit.authentic, ...what, findings: audit.findings};
 }

@@ -1,4 +1,5 @@
 import {displayPath} from '../shared/display-path.js';
+import {describeProblem} from '../shared/problems.js';
 import type {Paint} from '../shared/paint.js';
 import {outcomeWords, type Outcome} from '../rules/evaluate/evaluation.js';
 import {version} from '../shared/version.js';
@@ -38,7 +39,7 @@ export function* auditSummaryLines(report: AuditReport, paint: Paint, width = 10
 		const mark = entry.authentic ? '' : `${paint.fail('✗ NOT AUTHENTIC')} · `;
 		yield `  ${mark}${inline(displayPath(entry.file), 300)} · ${what(entry)} · ${count(entry.findings.length, 'finding')}`;
 		for (const found of entry.findings) {
-			const text = `${found.kind === 'integrity' ? paint.fail('✗') : paint.advise('!')} [${found.kind}] ${inline(found.text, 400)}`;
+			const text = `${found.kind === 'integrity' ? paint.fail('✗') : paint.advise('!')} [${found.kind}] ${inline(describeProblem(found), 400)}`;
 			yield* wrap(text, width, '      ').map((line, index) => (index === 0 ? `    ${line.trimStart()}` : line));
 		}
 	}

@@ -74,13 +74,15 @@ afterAll(() => {
 	rmSync(folder, {recursive: true, force: true});
 });
 
-type Row = {via: string; run: () => Promise<CliRun>};
+/** `arrives`: what the hostile text looks like when it arrives (JSON writes control characters as inert \\u escapes). */
+type Row = {via: string; run: () => Promise<CliRun>; arrives?: RegExp};
 
 /** How each renderer's output reaches a person; `partOf` names the row whose output holds it. */
 const renderers: Record<string, Row | {partOf: string}> = {
 	'check-text.ts': {via: 'check under a site rule file with hostile titles and name, answers with a hostile setup and serial', run: () => cli(['check', '--answers', files['answers']!, '--rules', files['rules']!])},
 	'audit-text.ts': {via: 'audit of a record with a hostile setup, signer and role, under the current rules', run: () => cli(['audit', files['record']!, '--rules', files['rules']!])},
 	'audit-summary-text.ts': {via: 'audit of 21 records with hostile file names (summarised)', run: () => cli(['audit', files['many']!])},
+	'audit-json.ts': {via: 'audit --json of 21 records with hostile file names (summarised)', run: () => cli(['audit', files['many']!, '--json']), arrives: /HOST\\u001b\[2J\\u001b\]52;c;aGk=\\u0007\\u009b31m\\u202e\\u2066\\u0090\\u2069ILE/},
 	'audit-repository-text.ts': {via: 'audit of a records repository with an uncommitted hostile file', run: () => cli(['audit', files['repository']!])},
 	'record-commit-text.ts': {via: 'check --sign into a records repository', run: async () => JSON.parse(files['repositorySign']!) as CliRun},
 	'plan-report.ts': {via: 'plan with a hostile name and description', run: () => cli(['plan', files['plan']!])},
@@ -104,9 +106,9 @@ describe('every renderer writes through the terminal boundary', () => {
 
 	const rows = Object.entries(renderers).flatMap(([file, row]) => ('run' in row ? [{file, ...row}] : []));
 
-	it.each(rows)('$file ($via): the hostile text arrives, stripped', async ({run}) => {
+	it.each(rows)('$file ($via): the hostile text arrives, stripped', async ({run, arrives}) => {
 		const {stdout, stderr} = await run();
-		expect(`${stdout}\n${stderr}`).toMatch(arrived);
+		expect(`${stdout}\n${stderr}`).toMatch(arrives ?? arrived);
 		expect(stdout).not.toMatch(control);
 		expect(stderr).not.toMatch(control);
 	});

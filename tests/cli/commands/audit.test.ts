@@ -242,7 +242,7 @@ describe('prelase audit: a large audit is summarised, --all lists every record',
 		expect(summary.listing).toBe('summary');
 		expect(summary.records).toEqual([]);
 		expect(summary.withFindings).toHaveLength(20);
-		expect(summary.withFindings[0]).toMatchObject({file: join(records, 'r00.json'), authentic: true, kind: 'bench-check', outcome: 'clear_to_energize', findings: [{code: 'audit-superseded'}]});
+		expect(summary.withFindings[0]).toMatchObject({file: join(records, 'r00.json'), authentic: true, kind: 'bench-check', outcome: 'clear_to_energize', findings: [{code: 'audit-superseded', text: expect.stringContaining('a later record for the same setup fingerprint supersedes this one')}]});
 		expect(summary.findingCodes).toEqual([{kind: 'history', code: 'audit-superseded', count: 20, example: expect.stringContaining('r01.json')}]);
 		const all = JSON.parse((await run(['audit', records, '--json', '--all'])).stdout) as {listing: string; records: unknown[]; withFindings: unknown[]};
 		expect(all.listing).toBe('all');
