@@ -6,6 +6,7 @@ import {didYouMean} from '../shared/did-you-mean.js';
 import {UsageError} from './usage-error.js';
 import {ProblemError} from '../shared/problem-error.js';
 import {version} from '../shared/version.js';
+import {machineFailure} from './machine-failure.js';
 
 const byName = new Map(commands.map((command) => [command.name, command]));
 
@@ -65,6 +66,11 @@ function report(error: unknown, io: Io): number {
 	if (isArgumentError(error)) {
 		io.stderr.write(`prelase: ${error.message} (see --help)\n`);
 		return 2;
+	}
+	const refused = machineFailure(error);
+	if (refused !== undefined) {
+		io.stderr.write(`prelase: ${refused}\n`);
+		return 74;
 	}
 	const detail = error instanceof Error ? (error.stack ?? error.message) : String(error);
 	io.stderr.write(`prelase ${version}: internal error — this is a bug in prelase, not in your input.\nPlease report it with the command you ran and this text:\n${detail}\n`);
