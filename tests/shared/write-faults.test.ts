@@ -1,4 +1,5 @@
 import {spawnSync} from 'node:child_process';
+import {build} from 'esbuild';
 import {mkdtempSync, readdirSync, readFileSync, statSync, writeFileSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {join, resolve} from 'node:path';
@@ -15,18 +16,31 @@ const bundle = resolve('dist/prelase.js');
 const example = resolve('docs/examples/bench3-808nm-clear.yaml');
 let root: string;
 
-beforeAll(() => {
+let harness: string;
+
+beforeAll(async () => {
 	root = mkdtempSync(join(tmpdir(), 'prelase-write-faults-'));
+	harness = join(root, 'harness.mjs');
+	await build({
+		entryPoints: ['tests/helpers/write-fault-harness.ts'],
+		outfile: harness,
+		bundle: true,
+		platform: 'node',
+		format: 'esm',
+		target: 'node20',
+		banner: {js: "import {createRequire as __cr} from 'node:module'; const require = __cr(import.meta.url);"},
+		logLevel: 'error',
+	});
 });
 afterAll(() => rmSync(root, {recursive: true, force: true}));
 
 type Run = {code: number | null; stdout: string; stderr: string};
 
 /** Runs the bundle with PRELASE_HOME=home, under `ulimit -f limitKb` when given; output goes to pipes (never limited). */
-function run(home: string, args: string[], limitKb?: number): Run {
+function run(home: string, args: string[], limitKb?: number, program = bundle): Run {
 	const quoted = args.map((arg) => `'${arg.replaceAll("'", "'\\''")}'`).join(' ');
-	const script = `${limitKb === undefined ? '' : `ulimit -f ${limitKb}; `}exec "${process.execPath}" "${bundle}" ${quoted}`;
-	const result = spawnSync('bash', ['-c', script], {env: {PATH: process.env['PATH'], PRELASE_HOME: home}, encoding: 'utf8', timeout: 30_000});
+	const script = `${limitKb === undefined ? '' : `ulimit -f ${limitKb}; `}exec "${process.execPath}" "${program}" ${quoted}`;
+	const result = spawnSync("bash", ["--norc", "--noprofile", "-c", script], {env: {PATH: process.env['PATH'], PRELASE_HOME: home}, encoding: 'utf8', timeout: 30_000});
 	return {code: result.status, stdout: result.stdout, stderr: result.stderr};
 }
 
@@ -112,5 +126,27 @@ describe('a write cut short by the file size limit (ulimit -f) leaves the previo
 			}
 		}
 		expect(statSync(join(home, 'keys', 'trusted.json')).size).toBeGreaterThan(0);
+	});
+});
+
+describe('the files only the screens write (a draft, a plan, the settings) under the file size limit', () => {
+	// [kind, the file it writes in the folder, its name in the message]
+	it.each([
+		['draft', join('drafts', 'current.json'), /could not write .*current\.json.*file size limit/s],
+		['plan', 'plan.yaml', /could not write .*plan\.yaml.*file size limit/s],
+		['settings', 'config.json', /could not .*config\.json.*file size limit/s],
+	])('%s: a 30 kB save under a 20 kB limit fails with a message, the 4 kB file before it is intact, no temporary is left, and the next save works', (kind, file, message) => {
+		const folder = caseFolder(root, kind);
+		const harnessRun = (size: number, limitKb?: number) => run(folder, [kind, folder, String(size)], limitKb, harness);
+		expect(harnessRun(4000).code).toBe(0);
+		const before = readFileSync(join(folder, file), 'utf8');
+		expect(before.length).toBeGreaterThan(4000);
+		const faulted = harnessRun(30_000, 20);
+		expect(faulted.stderr).toMatch(message);
+		expect(faulted.code).toBe(74);
+		expect(readFileSync(join(folder, file), 'utf8')).toBe(before);
+		expect(Object.keys(snapshot(folder)).filter((name) => name.endsWith('.tmp'))).toEqual([]);
+		expect(harnessRun(30_000).code).toBe(0);
+		expect(statSync(join(folder, file)).size).toBeGreaterThan(30_000);
 	});
 });
