@@ -6,7 +6,7 @@ import {didYouMean} from '../shared/did-you-mean.js';
 import {UsageError} from './usage-error.js';
 import {ProblemError} from '../shared/problem-error.js';
 import {version} from '../shared/version.js';
-import {machineFailure} from './machine-failure.js';
+import {machineFailure} from '../shared/machine-failure.js';
 
 const byName = new Map(commands.map((command) => [command.name, command]));
 

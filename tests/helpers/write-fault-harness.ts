@@ -3,7 +3,7 @@
 // the screens use, then exits 0, or prints what a command would print for the failure and
 // exits with the status the command line would give (74 the machine refused, 70 a bug).
 import {join} from 'node:path';
-import {machineFailure} from '../../source/cli/machine-failure.js';
+import {machineFailure} from '../../source/shared/machine-failure.js';
 import {writePlanFile} from '../../source/interlock/plan/save-plan.js';
 import {saveDraft} from '../../source/services/drafts/draft-store.js';
 import {openSettings} from '../../source/services/settings.js';

@@ -1,5 +1,5 @@
-import {FileWriteError, failureReason, isMachineRefusal} from '../shared/file-write-error.js';
-import {describeProblem, problem} from '../shared/problems.js';
+import {FileWriteError, failureReason, isMachineRefusal} from './file-write-error.js';
+import {describeProblem, problem} from './problems.js';
 
 /**
  * The message for a failure of the machine rather than of prelase or its input: a write cut
