@@ -2,9 +2,8 @@ import {randomBytes} from 'node:crypto';
 import {closeSync, fstatSync, fsyncSync, linkSync, openSync, renameSync, rmSync, unlinkSync, writeSync} from 'node:fs';
 import {basename, dirname, join} from 'node:path';
 import {asWriteError, FileWriteError} from './file-write-error.js';
+import {removeStaleTemporaries} from './stale-temporaries.js';
 
-/** The name pattern of our temporary files: `.NAME.PID-HEX.tmp`, in the folder of the file they become. */
-export const temporaryPattern = /^\..+\.\d+-[0-9a-f]{12}\.tmp$/;
 
 /** Writes every byte of `data` to an open file, or throws: a write that returns fewer bytes is continued, one that returns none fails. */
 function writeAll(handle: number, data: Buffer, path: string): void {
@@ -19,10 +18,13 @@ function writeAll(handle: number, data: Buffer, path: string): void {
 /**
  * Writes text to a new temporary file in the folder of `path` (so a rename or link to `path`
  * stays on one file system), synced to disk; returns the temporary file's path. Every byte is
- * written (a short write is continued) and the size on disk is checked after the sync. When
+ * written (a short write is continued) and the size on disk is checked after the sync; the
+ * name is `.NAME.PID-12HEX.tmp` (stale ones are removed here, see stale-temporaries). When
  * anything fails the temporary file is removed and a FileWriteError naming `path` is thrown.
  */
 export function writeSyncedTemporary(path: string, text: string, mode: number): string {
+	// Each write first clears what killed writes left in its folder (drafts/, the records folder, keys/...).
+	removeStaleTemporaries(dirname(path));
 	const temporary = join(dirname(path), `.${basename(path)}.${process.pid}-${randomBytes(6).toString('hex')}.tmp`);
 	const data = Buffer.from(text, 'utf8');
 	let handle: number;
