@@ -129,6 +129,10 @@ describe('a write cut short by the file size limit (ulimit -f) leaves the previo
 	});
 });
 
+it.each([['check'], ['keys'], ['plan']])('prelase %s --help names exit status 74 for a file that could not be written', (command) => {
+	expect(run(root, [command, '--help']).stdout).toMatch(/^ {2}74 a file could not be written \(disk full, file size limit, read-only or denied folder\);$/m);
+});
+
 describe('the files only the screens write (a draft, a plan, the settings) under the file size limit', () => {
 	// [kind, the file it writes in the folder, its name in the message]
 	it.each([
