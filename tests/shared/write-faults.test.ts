@@ -129,6 +129,33 @@ describe('a write cut short by the file size limit (ulimit -f) leaves the previo
 	});
 });
 
+describe('new files a command writes (rules init FILE, report --out FILE) are whole or absent', () => {
+	it('rules init under a 4 kB limit leaves no file (the template is larger), and the next run writes it', () => {
+		const folder = caseFolder(root, 'init');
+		const file = join(folder, 'site.yaml');
+		const faulted = run(folder, ['rules', 'init', file], 4);
+		expect(faulted.code).toBe(74);
+		expect(faulted.stderr).toMatch(/could not write .*site\.yaml.*file size limit/s);
+		expect(readdirSync(folder)).toEqual([]);
+		expect(run(folder, ['rules', 'init', file]).code).toBe(0);
+		expect(run(folder, ['rules', 'validate', file]).code).toBe(0);
+	});
+
+	it('report --out under a zero limit leaves no file, and the next run writes it', () => {
+		const home = caseFolder(root, 'home');
+		const records = join(home, 'records');
+		expect(run(home, sign(records)).code).toBe(0);
+		const [record] = readdirSync(records).filter((name) => name.endsWith('.json'));
+		const out = join(home, 'report.html');
+		const faulted = run(home, ['report', join(records, record!), '--format', 'html', '--out', out], 0);
+		expect(faulted.code).toBe(74);
+		expect(faulted.stderr).toMatch(/could not write .*report\.html.*file size limit/s);
+		expect(readdirSync(home)).not.toContain('report.html');
+		expect(run(home, ['report', join(records, record!), '--format', 'html', '--out', out]).code).toBe(0);
+		expect(statSync(out).size).toBeGreaterThan(1000);
+	});
+});
+
 it.each([['check'], ['keys'], ['plan']])('prelase %s --help names exit status 74 for a file that could not be written', (command) => {
 	expect(run(root, [command, '--help']).stdout).toMatch(/^ {2}74 a file could not be written \(disk full, file size limit, read-only or denied folder\);$/m);
 });

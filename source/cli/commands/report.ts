@@ -1,4 +1,5 @@
-import {writeFileSync} from 'node:fs';
+import {createFileAtomically} from '../../shared/atomic-file.js';
+import {FileWriteError} from '../../shared/file-write-error.js';
 import {extname} from 'node:path';
 import {parseArgs} from 'node:util';
 import {ownFingerprint, readTrusted} from '../../records/key-files.js';
@@ -63,13 +64,15 @@ export function runReport(args: string[], io: Io): number {
 		io.stdout.write(page);
 		return 0;
 	}
+	let created: boolean;
 	try {
-		writeFileSync(values.out, page, {flag: 'wx'});
+		// Whole or not at all: a write cut short (a full disk) leaves no part of a report under its name.
+		created = createFileAtomically(values.out, page, 0o644);
 	} catch (error) {
-		const code = (error as NodeJS.ErrnoException).code;
-		if (code === 'EEXIST') throw new UsageError(`${values.out} already exists; prelase does not overwrite it (choose another --out FILE)`);
-		throw new UsageError(`cannot write ${values.out} (${code ?? (error as Error).message})`);
+		if (error instanceof FileWriteError) throw error;
+		throw new UsageError(`cannot write ${values.out} (${(error as NodeJS.ErrnoException).code ?? (error as Error).message})`);
 	}
+	if (!created) throw new UsageError(`${values.out} already exists; prelase does not overwrite it (choose another --out FILE)`);
 	io.stdout.write(`Report written: ${values.out}\n`);
 	return 0;
 }
