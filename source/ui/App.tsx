@@ -247,7 +247,12 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 				{...(written.commit === undefined ? {} : {commit: written.commit})}
 				outcome={session.evaluation.outcome}
 				setup={session.setup}
-				onSaveSetup={() => saveSetup(settings.folder, {name: session.setup || 'unnamed setup', entries: {...session.entries}, savedAt: new Date().toISOString()})}
+				onSaveSetup={() => {
+					// A refused write is shown under the header, and the key offer stays so it can be tried again.
+					let path = '';
+					setWriteProblem(refusedWrite(() => (path = saveSetup(settings.folder, {name: session.setup || 'unnamed setup', entries: {...session.entries}, savedAt: new Date().toISOString()}))));
+					return path;
+				}}
 				onHome={() => setScreen('home')}
 			/>
 		);
