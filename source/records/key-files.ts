@@ -119,7 +119,10 @@ export function readTrusted(settingsFolder: string): TrustedKey[] {
 	try {
 		data = JSON.parse(readFileSync(path, 'utf8'));
 	} catch (error) {
-		throw new ProblemError(problem('key-trusted-damaged', {path, detail: (error as NodeJS.ErrnoException).code ?? (error as Error).message}));
+		// Words of our own, not the parser's message, which quotes the file's text.
+		const code = (error as NodeJS.ErrnoException).code;
+		const detail = code ?? (/end of (JSON )?input|unterminated/i.test((error as Error).message) ? 'it ends part-way, as a write cut short leaves it' : 'it is not JSON');
+		throw new ProblemError(problem('key-trusted-damaged', {path, detail}));
 	}
 	const parsed = trustedSchema.safeParse(data);
 	if (!parsed.success) throw new ProblemError(problem('key-trusted-invalid', {path}));

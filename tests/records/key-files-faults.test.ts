@@ -58,11 +58,11 @@ describe('a damaged key folder is a message, never an internal error', () => {
 
 	// A trust list cut short by a full disk, written by another program, or replaced by something else.
 	it.each([
-		['truncated', '[\n  {\n    "name": "Bo Re'],
-		['empty', ''],
-		['not JSON', 'trusted keys: none\n'],
-		['wrong shape', '{"name": "Bo Reyes"}\n'],
-	])('a %s trusted.json is a clear error naming the file (exit 2) in audit and keys list', async (_what, text) => {
+		['truncated', '[\n  {\n    "name": "Bo Re', 'is damaged (it ends part-way, as a write cut short leaves it)'],
+		['empty', '', 'is damaged (it ends part-way, as a write cut short leaves it)'],
+		['not JSON', 'trusted keys: none\n', 'is damaged (it is not JSON)'],
+		['wrong shape', '{"name": "Bo Reyes"}\n', 'is not valid'],
+	])('a %s trusted.json is a clear error naming the file (exit 2) in audit and keys list', async (_what, text, says) => {
 		const home = caseFolder(root);
 		const records = join(home, 'records');
 		expect((await runIn(home, ['check', '--answers', example, '--sign', 'Ada Quill', '--records', records])).code).toBe(0);
@@ -72,7 +72,7 @@ describe('a damaged key folder is a message, never an internal error', () => {
 		for (const argv of [['audit', records], ['keys', 'list']]) {
 			const run = await runIn(home, argv);
 			expect(run.code).toBe(2);
-			expect(run.stderr).toContain(`the trusted keys file ${path} is`);
+			expect(run.stderr).toContain(`the trusted keys file ${path} ${says}`);
 			expect(run.stderr).not.toContain('internal error');
 		}
 	});
