@@ -21,8 +21,8 @@ export async function runScreens(options: ScreenOptions): Promise<number> {
 	}
 	const audit =
 		options.audit ??
-		// The audit runs in a worker thread of this same program, so a signal is honoured at once while it works.
-		((folder: string) => auditInWorker({folder, rulesFile: rulesPath, settingsFolder: settings.folder, columns: process.stdout.columns ?? 80}, process.argv[1]!));
+		// The audit runs in a worker thread of this same program (this module's file is the bundle), so a signal is honoured at once while it works.
+		((folder: string) => auditInWorker({folder, rulesFile: rulesPath, settingsFolder: settings.folder, columns: process.stdout.columns ?? 80}, new URL(import.meta.url)));
 	let code = 0;
 	const instance = render(<App rules={rules.value} settings={settings} env={options.env} {...(options.startCheck ? {startCheck: options.startCheck} : {})} {...(options.startPlan === undefined ? {} : {startPlan: options.startPlan})} audit={audit} onExit={(value) => (code = value)} />, {exitOnCtrlC: false});
 	await instance.waitUntilExit();
