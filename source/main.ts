@@ -1,5 +1,6 @@
 import chalk from 'chalk';
 import {main} from './cli/dispatch.js';
+import {runWorkerTask} from './ui/worker-task.js';
 
 // Ink's chalk ignores NO_COLOR; turn colour off for every chalk user before anything draws.
 if (process.env['NO_COLOR'] !== undefined && process.env['NO_COLOR'] !== '') chalk.level = 0;
@@ -10,4 +11,5 @@ process.stdout.on('error', (error: NodeJS.ErrnoException) => {
 	throw error;
 });
 
-process.exitCode = await main(process.argv.slice(2), {stdout: process.stdout, stderr: process.stderr, env: process.env, stdin: process.stdin});
+// A worker thread of this program (the screens' audit) runs its task instead of a command.
+if (!(await runWorkerTask())) process.exitCode = await main(process.argv.slice(2), {stdout: process.stdout, stderr: process.stderr, env: process.env, stdin: process.stdin});

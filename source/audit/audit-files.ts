@@ -1,4 +1,4 @@
-import {lstatSync, readdirSync, realpathSync, statSync} from 'node:fs';
+import {lstatSync, readdirSync, realpathSync, statSync, type Stats} from 'node:fs';
 import {join, resolve} from 'node:path';
 
 /** Record files found under the paths given, and the paths that do not exist. */
@@ -30,23 +30,45 @@ export function listRecordFiles(paths: readonly string[]): RecordFiles {
 		files.push(path);
 	};
 	const walk = (folder: string) => {
-		const real = realpathSync(folder);
-		if (seenFolders.has(real)) return;
-		seenFolders.add(real);
-		const names = readdirSync(folder).filter((name) => !skipped(name)).sort();
+		const names = listFolder(folder, seenFolders);
+		// A folder that cannot be listed is audited as a file: it is then reported as unreadable, never passed over.
+		if (names === 'unreadable') return add(folder);
 		for (const name of names) {
 			const path = join(folder, name);
-			const stat = statSync(path, {throwIfNoEntry: false});
-			if (stat?.isDirectory()) walk(path);
+			const stat = statOrDenied(path);
+			if (stat === 'denied') add(path);
+			else if (stat?.isDirectory()) walk(path);
 			// A dangling link is audited too, so that it is reported as unreadable rather than passed over.
 			else if (recordName(name) && (stat || lstatSync(path, {throwIfNoEntry: false}))) add(path);
 		}
 	};
 	for (const path of paths) {
-		const stat = statSync(path, {throwIfNoEntry: false});
-		if (!stat) missing.push(path);
+		const stat = statOrDenied(path);
+		if (stat === 'denied') add(path);
+		else if (!stat) missing.push(path);
 		else if (stat.isDirectory()) walk(path);
 		else add(path);
 	}
 	return {files, missing};
+}
+
+/** The names to look at in a folder (none when it was seen already by another path), or 'unreadable' when it cannot be listed. */
+function listFolder(folder: string, seenFolders: Set<string>): string[] | 'unreadable' {
+	try {
+		const real = realpathSync(folder);
+		if (seenFolders.has(real)) return [];
+		seenFolders.add(real);
+		return readdirSync(folder).filter((name) => !skipped(name)).sort();
+	} catch {
+		return 'unreadable';
+	}
+}
+
+/** A path's stat (undefined when nothing is there), or 'denied' when even its stat is refused (a folder without search permission). */
+function statOrDenied(path: string): Stats | undefined | 'denied' {
+	try {
+		return statSync(path, {throwIfNoEntry: false});
+	} catch {
+		return 'denied';
+	}
 }

@@ -7,6 +7,7 @@ import {UsageError} from './usage-error.js';
 import {ProblemError} from '../shared/problem-error.js';
 import {version} from '../shared/version.js';
 import {terminalIo} from './terminal-io.js';
+import {machineFailure} from '../shared/machine-failure.js';
 
 const byName = new Map(commands.map((command) => [command.name, command]));
 
@@ -67,6 +68,11 @@ function report(error: unknown, io: Io): number {
 	if (isArgumentError(error)) {
 		io.stderr.write(`prelase: ${error.message} (see --help)\n`);
 		return 2;
+	}
+	const refused = machineFailure(error);
+	if (refused !== undefined) {
+		io.stderr.write(`prelase: ${refused}\n`);
+		return 74;
 	}
 	const detail = error instanceof Error ? (error.stack ?? error.message) : String(error);
 	io.stderr.write(`prelase ${version}: internal error — this is a bug in prelase, not in your input.\nPlease report it with the command you ran and this text:\n${detail}\n`);

@@ -1,4 +1,4 @@
-import {chmodSync, existsSync, mkdirSync, readFileSync, statSync, writeFileSync} from 'node:fs';
+import {chmodSync, existsSync, mkdirSync, readFileSync, statSync} from 'node:fs';
 import {createPrivateKey, createPublicKey, type KeyObject} from 'node:crypto';
 import {join} from 'node:path';
 // Named imports (not the z namespace) let the bundler leave out the parts of zod not used.
@@ -7,6 +7,8 @@ import {problem, type Problem} from '../shared/problems.js';
 import {ProblemError} from '../shared/problem-error.js';
 import {failure, success, type Result} from '../shared/result.js';
 import {fingerprint, generateKeyPair, rawPublicKey} from './key-material.js';
+import {createFileAtomically, replaceFileAtomically} from '../shared/atomic-file.js';
+import {asWriteError} from '../shared/file-write-error.js';
 import {cleanKeyName, nameInPem, pemWithName} from './key-name.js';
 
 /**
@@ -43,17 +45,21 @@ export function operatorKey(settingsFolder: string, create: boolean, name?: stri
 		if (!create) return failure([problem('key-none-yet')]);
 		const holder = cleanKeyName(name ?? '');
 		if (!holder) return failure([problem('key-no-name')]);
-		mkdirSync(folder, {recursive: true, mode: 0o700});
+		makeKeyFolder(folder);
 		const {privateKey} = generateKeyPair();
-		writeFileSync(path, pemWithName(String(privateKey.export({format: 'pem', type: 'pkcs8'})), holder), {mode: 0o600, flag: 'wx'});
-		chmodSync(path, 0o600);
-		writeFileSync(join(folder, 'operator.pub'), publicKeyPem(privateKey, holder), {mode: 0o644});
-		return success({privateKey, created: true, path, name: holder});
+		// Written whole or not at all, never over a key: when another process made the key a
+		// moment before (two first signatures at once), its key is read and used below.
+		if (createFileAtomically(path, pemWithName(String(privateKey.export({format: 'pem', type: 'pkcs8'})), holder), 0o600)) {
+			chmodSync(path, 0o600);
+			replaceFileAtomically(join(folder, 'operator.pub'), publicKeyPem(privateKey, holder), 0o644);
+			return success({privateKey, created: true, path, name: holder});
+		}
 	}
 	const open = notPrivate(path);
 	if (open) return failure([open]);
 	try {
 		const text = readFileSync(path, 'utf8');
+		if (text.trim() === '') return failure([problem('key-file-empty', {path})]);
 		return success({privateKey: createPrivateKey(text), created: false, path, name: nameInPem(text)});
 	} catch (error) {
 		return failure([problem('key-file-unreadable', {path, detail: (error as Error).message})]);
@@ -71,8 +77,8 @@ export function nameOperatorKey(settingsFolder: string, name: string): Result<Op
 	if (!holder) return failure([problem('key-no-name')]);
 	if (own.value.name !== undefined) return own.value.name === holder ? own : failure([problem('key-name-set', {name: own.value.name})]);
 	const {privateKey, path} = own.value;
-	writeFileSync(path, pemWithName(readFileSync(path, 'utf8'), holder), {mode: 0o600});
-	writeFileSync(join(keyFolder(settingsFolder), 'operator.pub'), publicKeyPem(privateKey, holder), {mode: 0o644});
+	replaceFileAtomically(path, pemWithName(readFileSync(path, 'utf8'), holder), 0o600);
+	replaceFileAtomically(join(keyFolder(settingsFolder), 'operator.pub'), publicKeyPem(privateKey, holder), 0o644);
 	return success({...own.value, name: holder});
 }
 
@@ -105,24 +111,52 @@ function trustedPath(settingsFolder: string): string {
 	return join(keyFolder(settingsFolder), 'trusted.json');
 }
 
-/** The colleagues' public keys this operator trusts. */
+/** The colleagues' public keys this operator trusts; a file that is not the JSON list prelase writes (truncated, damaged) is a ProblemError naming it. */
 export function readTrusted(settingsFolder: string): TrustedKey[] {
 	const path = trustedPath(settingsFolder);
 	if (!existsSync(path)) return [];
-	const parsed = trustedSchema.safeParse(JSON.parse(readFileSync(path, 'utf8')));
+	let data: unknown;
+	try {
+		data = JSON.parse(readFileSync(path, 'utf8'));
+	} catch (error) {
+		// Words of our own, not the parser's message, which quotes the file's text.
+		const code = (error as NodeJS.ErrnoException).code;
+		const detail = code ?? (/end of (JSON )?input|unterminated/i.test((error as Error).message) ? 'it ends part-way, as a write cut short leaves it' : 'it is not JSON');
+		throw new ProblemError(problem('key-trusted-damaged', {path, detail}));
+	}
+	const parsed = trustedSchema.safeParse(data);
 	if (!parsed.success) throw new ProblemError(problem('key-trusted-invalid', {path}));
 	return parsed.data;
 }
 
-/** Replaces the list of trusted keys. */
+/** Replaces the list of trusted keys, atomically: a failed write leaves the list as it was. */
 export function writeTrusted(settingsFolder: string, keys: TrustedKey[]): void {
-	mkdirSync(keyFolder(settingsFolder), {recursive: true, mode: 0o700});
-	writeFileSync(trustedPath(settingsFolder), `${JSON.stringify(keys, null, 2)}\n`, {mode: 0o644});
+	makeKeyFolder(keyFolder(settingsFolder));
+	replaceFileAtomically(trustedPath(settingsFolder), `${JSON.stringify(keys, null, 2)}\n`, 0o644);
 }
 
-/** The fingerprint of the operator's own key, when there is one. */
+/** Makes the owner-only keys folder; a folder that cannot be made is a FileWriteError naming it. */
+function makeKeyFolder(folder: string): void {
+	try {
+		mkdirSync(folder, {recursive: true, mode: 0o700});
+	} catch (error) {
+		throw asWriteError(folder, error);
+	}
+}
+
+/**
+ * The fingerprint of the operator's own key, when there is one: from the private key, else from
+ * the public key file beside it. A key file that cannot be read (empty, damaged, denied) gives
+ * none, so a command that only needs to know which signatures are the operator's (the audit,
+ * the report) still runs; their signatures are then reported as by an untrusted key.
+ */
 export function ownFingerprint(settingsFolder: string): string | undefined {
-	const path = join(keyFolder(settingsFolder), 'operator.key');
-	if (!existsSync(path)) return undefined;
-	return fingerprint(rawPublicKey(createPrivateKey(readFileSync(path))));
+	for (const [file, read] of [['operator.key', createPrivateKey], ['operator.pub', createPublicKey]] as const) {
+		try {
+			return fingerprint(rawPublicKey(read(readFileSync(join(keyFolder(settingsFolder), file)))));
+		} catch {
+			// Missing or unreadable: try the next file.
+		}
+	}
+	return undefined;
 }

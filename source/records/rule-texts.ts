@@ -2,6 +2,7 @@ import {linkSync, mkdirSync, readFileSync, unlinkSync} from 'node:fs';
 import {dirname, join} from 'node:path';
 import {fsyncFolder, replaceFileAtomically, writeSyncedTemporary} from '../shared/atomic-file.js';
 import {sha256Hex} from '../shared/sha256.js';
+import {asWriteError} from '../shared/file-write-error.js';
 
 /**
  * Rule texts stored once, by content: `<records folder>/rules/<sha256>.yaml`. A record names
@@ -44,7 +45,11 @@ export function storeRuleText(folder: string, text: string): string {
 	const path = ruleTextPath(folder, sha256);
 	const found = readRuleText(path, sha256);
 	if (found.status === 'ok') return sha256;
-	mkdirSync(dirname(path), {recursive: true});
+	try {
+		mkdirSync(dirname(path), {recursive: true});
+	} catch (error) {
+		throw asWriteError(dirname(path), error);
+	}
 	if (found.status !== 'missing') {
 		replaceFileAtomically(path, text, 0o644);
 		return sha256;
@@ -55,7 +60,7 @@ export function storeRuleText(folder: string, text: string): string {
 		fsyncFolder(dirname(path));
 	} catch (error) {
 		// Another writer stored the same text first: it is the same text, by its name.
-		if ((error as NodeJS.ErrnoException).code !== 'EEXIST') throw error;
+		if ((error as NodeJS.ErrnoException).code !== 'EEXIST') throw asWriteError(path, error);
 	} finally {
 		unlinkSync(temporary);
 	}

@@ -1,6 +1,7 @@
 import {linkSync, mkdirSync, unlinkSync} from 'node:fs';
 import {join} from 'node:path';
 import {fsyncFolder, writeSyncedTemporary} from '../shared/atomic-file.js';
+import {asWriteError} from '../shared/file-write-error.js';
 import type {AnyRecord} from './record-schema.js';
 import {bodySha256} from './build-body.js';
 import {recordJson} from './record-json.js';
@@ -31,7 +32,11 @@ export function recordFileName(record: AnyRecord): string {
  * Returns the path written.
  */
 export function writeRecord(folder: string, record: AnyRecord): string {
-	mkdirSync(folder, {recursive: true});
+	try {
+		mkdirSync(folder, {recursive: true});
+	} catch (error) {
+		throw asWriteError(folder, error);
+	}
 	const data = recordJson(record);
 	const temporary = writeSyncedTemporary(join(folder, 'record'), data, 0o644);
 	try {
@@ -43,7 +48,7 @@ export function writeRecord(folder: string, record: AnyRecord): string {
 				fsyncFolder(folder);
 				return path;
 			} catch (error) {
-				if ((error as NodeJS.ErrnoException).code !== 'EEXIST') throw error;
+				if ((error as NodeJS.ErrnoException).code !== 'EEXIST') throw asWriteError(path, error);
 			}
 		}
 		throw new Error(`no free record name in ${folder} after 100 tries`);

@@ -1,12 +1,13 @@
-import Conf from 'conf';
 import envPaths from 'env-paths';
-import {existsSync, readFileSync} from 'node:fs';
+import {existsSync, mkdirSync, readFileSync} from 'node:fs';
 import {dirname, join} from 'node:path';
 // Named imports (not the z namespace) let the bundler leave out the parts of zod not used.
 import {object, string} from 'zod';
 import {problem, type Problem} from '../shared/problems.js';
 import {ProblemError} from '../shared/problem-error.js';
 import {failure, success, type Result} from '../shared/result.js';
+import {replaceFileAtomically} from '../shared/atomic-file.js';
+import {asWriteError} from '../shared/file-write-error.js';
 
 /** What prelase remembers between runs. */
 export type Settings = {
@@ -60,30 +61,29 @@ export function loadSettings(env: NodeJS.ProcessEnv = process.env): Result<Setti
 export type SettingsStore = {folder: string; path: string; read(): Settings; write(changes: Settings): void};
 
 /**
- * Opens the settings (conf, owner-only file). PRELASE_HOME overrides the folder, for tests and
- * for keeping a bench's settings on removable media; otherwise the platform's config folder.
+ * Opens the settings (an owner-only JSON file). PRELASE_HOME overrides the folder, for tests
+ * and for keeping a bench's settings on removable media; otherwise the platform's config
+ * folder. A write reads the file, applies the changes and replaces the file atomically with
+ * every byte checked (the conf store this replaced wrote its temporary file with one write
+ * call and did not check the count, so a full disk left a truncated settings file).
  */
 export function openSettings(env: NodeJS.ProcessEnv = process.env): SettingsStore {
-	const home = env['PRELASE_HOME'];
 	const path = settingsFile(env);
-	// The conf store is built only when something is written: reading is a plain file read.
-	let store: Conf<Settings> | undefined;
-	const open = (): Conf<Settings> => {
-		if (store) return store;
-		try {
-			store = new Conf<Settings>({projectName: 'prelase', projectSuffix: '', configFileMode: 0o600, clearInvalidConfig: false, ...(home ? {cwd: home} : {})});
-		} catch (error) {
-			throw new ProblemError(problem('settings-store-unreadable', {detail: (error as Error).message}));
-		}
-		return store;
-	};
 	return {
 		folder: dirname(path),
 		path,
 		read: () => readSettings(env),
 		write(changes) {
-			const target = open();
-			for (const [key, value] of Object.entries(changes)) if (value !== undefined) target.set(key, value);
+			const loaded = loadSettings(env);
+			if (!loaded.ok) throw new ProblemError(loaded.errors[0]!);
+			const next: Record<string, string> = {...loaded.value};
+			for (const [key, value] of Object.entries(changes)) if (value !== undefined) next[key] = value;
+			try {
+				mkdirSync(dirname(path), {recursive: true, mode: 0o700});
+			} catch (error) {
+				throw asWriteError(dirname(path), error);
+			}
+			replaceFileAtomically(path, JSON.stringify(next, undefined, '\t'), 0o600);
 		},
 	};
 }

@@ -27,6 +27,8 @@ import {SettingsScreen} from './SettingsScreen.js';
 import {SignOffScreen, type SignOffForm} from './bench-check/SignOffScreen.js';
 import {StepScreen} from './bench-check/StepScreen.js';
 import {SummaryScreen} from './bench-check/SummaryScreen.js';
+import {refusedWrite} from './refused-write.js';
+import {machineFailure} from '../shared/machine-failure.js';
 
 type Screen = 'home' | 'step' | 'summary' | 'signoff' | 'done' | 'settings' | 'info' | 'plan-open' | 'planner';
 
@@ -69,6 +71,7 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 	const [help, setHelp] = useState(false);
 	const [info, setInfo] = useState<{title: string; lines: string[]}>({title: '', lines: []});
 	const [signError, setSignError] = useState<string | undefined>();
+	const [writeProblem, setWriteProblem] = useState<string | undefined>();
 	const [written, setWritten] = useState<Pick<WrittenRecord, 'path' | 'fingerprint' | 'commit'> | undefined>();
 	const [draft, setDraft] = useState<Draft | undefined>(() => loadDraft(settings.folder));
 
@@ -80,7 +83,8 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 		const file = resolve(path);
 		const opened = openPlanForEditing(file, rules);
 		if (!opened.ok) return {problems: opened.errors.map(formatProblem)};
-		settings.write({planFile: file});
+		// Remembering the plan is a convenience: a refused write is not a reason to refuse opening it.
+		refusedWrite(() => settings.write({planFile: file}));
 		return restorePlanDraft(opened.value);
 	}
 
@@ -96,7 +100,7 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 	}
 
 	const planDrafts = {
-		save: (editing: PlanEditing) => savePlanDraft(settings.folder, editing.file, editing.original, planEditingText(editing)),
+		save: (editing: PlanEditing) => setWriteProblem(refusedWrite(() => savePlanDraft(settings.folder, editing.file, editing.original, planEditingText(editing)))),
 		clear: (file: string) => removePlanDraft(settings.folder, file),
 	};
 
@@ -112,7 +116,7 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 	useEffect(() => {
 		if (screen !== 'step' && screen !== 'summary' && screen !== 'signoff') return;
 		const confirmations = Object.fromEntries(Object.entries(session.confirmations).map(([id, answer]) => [id, answer.note ? {answer: answer.answer, note: answer.note} : {answer: answer.answer}]));
-		saveDraft(settings.folder, {rulesFile: rules.file, rulesSha256: rules.sha256, setup: session.setup, entries: {...session.entries}, confirmations, step: stepIndex, savedAt: new Date().toISOString()});
+		setWriteProblem(refusedWrite(() => saveDraft(settings.folder, {rulesFile: rules.file, rulesSha256: rules.sha256, setup: session.setup, entries: {...session.entries}, confirmations, step: stepIndex, savedAt: new Date().toISOString()})));
 	}, [session, stepIndex, screen]);
 
 	const choose = (choice: HomeChoice) => {
@@ -161,7 +165,9 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 	const sign = (form: SignOffForm) => {
 		const named = nameSetup(session, form.setup);
 		setSession(named);
-		const result = signAndWrite(
+		let result: ReturnType<typeof signAndWrite>;
+		try {
+			result = signAndWrite(
 			rules,
 			named.answers,
 			named.evaluation,
@@ -173,12 +179,19 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 			env,
 			named.interlockTest,
 		);
+		} catch (error) {
+			// The machine refused the write (disk full, read-only folder): no record was written; say so on the form.
+			const refused = machineFailure(error);
+			if (refused === undefined) throw error;
+			setSignError(refused);
+			return;
+		}
 		// A mistake in the form comes back as a failure and is shown on the form; anything thrown is a bug and propagates.
 		if (!result.ok) {
 			setSignError(describeProblem(result.errors.at(-1)!));
 			return;
 		}
-		settings.write({operator: form.name.trim(), role: form.role.trim()});
+		setWriteProblem(refusedWrite(() => settings.write({operator: form.name.trim(), role: form.role.trim()})));
 		removeDraft(settings.folder);
 		setDraft(undefined);
 		setWritten({path: result.value.path, fingerprint: result.value.fingerprint, ...(result.value.commit === undefined ? {} : {commit: result.value.commit})});
@@ -234,7 +247,12 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 				{...(written.commit === undefined ? {} : {commit: written.commit})}
 				outcome={session.evaluation.outcome}
 				setup={session.setup}
-				onSaveSetup={() => saveSetup(settings.folder, {name: session.setup || 'unnamed setup', entries: {...session.entries}, savedAt: new Date().toISOString()})}
+				onSaveSetup={() => {
+					// A refused write is shown under the header, and the key offer stays so it can be tried again.
+					let path = '';
+					setWriteProblem(refusedWrite(() => (path = saveSetup(settings.folder, {name: session.setup || 'unnamed setup', entries: {...session.entries}, savedAt: new Date().toISOString()}))));
+					return path;
+				}}
 				onHome={() => setScreen('home')}
 			/>
 		);
@@ -254,6 +272,7 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 	return (
 		<Box flexDirection="column" width={width}>
 			{header}
+			{writeProblem === undefined ? null : <Text color="red">{writeProblem}</Text>}
 			{help ? <HelpOverlay screen={screen} onClose={() => setHelp(false)} /> : null}
 			{/* Hidden, not unmounted, under the help: the step keeps its focus and what was typed. */}
 			<Box display={help ? 'none' : 'flex'} flexDirection="column">

@@ -3,7 +3,7 @@ import {loadRules, shippedRulesPath} from '../rules/load.js';
 import {formatProblem} from '../shared/problems.js';
 import {openSettings} from '../services/settings.js';
 import {App} from './App.js';
-import {plain} from '../shared/paint.js';
+import {auditInWorker} from './audit-worker.js';
 
 
 /** Options of the screens: where they start. */
@@ -21,19 +21,8 @@ export async function runScreens(options: ScreenOptions): Promise<number> {
 	}
 	const audit =
 		options.audit ??
-		(async (folder: string) => {
-			// The audit is loaded when asked for, not before the home screen's first frame.
-			const [{listRecordFiles}, {auditRecords}, {auditText}, {ownFingerprint, readTrusted}] = await Promise.all([
-				import('../audit/audit-files.js'),
-				import('../audit/audit.js'),
-				import('../render/audit-text.js'),
-				import('../records/key-files.js'),
-			]);
-			const {files} = listRecordFiles([folder]);
-			if (files.length === 0) return [`No records in ${folder} yet.`];
-			const report = auditRecords(files, {current: rules.value, trust: {own: ownFingerprint(settings.folder), trusted: readTrusted(settings.folder)}});
-			return auditText(report, plain, process.stdout.columns ?? 80).split('\n');
-		});
+		// The audit runs in a worker thread of this same program (this module's file is the bundle), so a signal is honoured at once while it works.
+		((folder: string) => auditInWorker({folder, rulesFile: rulesPath, settingsFolder: settings.folder, columns: process.stdout.columns ?? 80}, new URL(import.meta.url)));
 	let code = 0;
 	const instance = render(<App rules={rules.value} settings={settings} env={options.env} {...(options.startCheck ? {startCheck: options.startCheck} : {})} {...(options.startPlan === undefined ? {} : {startPlan: options.startPlan})} audit={audit} onExit={(value) => (code = value)} />, {exitOnCtrlC: false});
 	await instance.waitUntilExit();

@@ -1,5 +1,5 @@
 import {execFileSync, spawnSync} from 'node:child_process';
-import {existsSync, mkdtempSync, readdirSync, readFileSync} from 'node:fs';
+import {existsSync, linkSync, mkdtempSync, readdirSync, readFileSync, writeFileSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {join, resolve} from 'node:path';
 import {afterEach, describe, expect, it, vi} from 'vitest';
@@ -236,5 +236,36 @@ describe.skipIf(!haveTmux())('the screens in a real terminal', () => {
 		// The same screen is coloured without NO_COLOR (so the check below can fail), and has not one CSI with it.
 		expect(raw.includes('\u001B['), raw).toBe(expectEscapes);
 		expect(raw).toContain('Step 1 of 9');
+	});
+
+	// A terminal that closes, a service manager or `kill` sends SIGTERM; conventionally a program
+	// ended by signal N exits with 128 + N (POSIX shells report it so): 143 for SIGTERM (15).
+	it('leaves within 1.5 s on SIGTERM while the home screen audits a large records folder', {timeout: 60_000}, async () => {
+		const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
+		const records = join(home, 'records');
+		const signed = spawnSync('node', [program, 'check', '--answers', 'docs/examples/bench3-808nm-clear.yaml', '--sign', 'Dana Whitlow', '--records', records], {env: {...process.env, PRELASE_HOME: home}, encoding: 'utf8'});
+		expect(signed.status, signed.stderr).toBe(0);
+		const [record] = readdirSync(records).filter((file) => file.endsWith('.json'));
+		// 1,500 names for one record: seconds of synchronous audit work (about 5 ms a record, measured).
+		for (let copy = 0; copy < 1500; copy += 1) linkSync(join(records, record!), join(records, `copy-${copy}.json`));
+		writeFileSync(join(home, 'config.json'), JSON.stringify({recordsFolder: records}));
+		const session = start('sigterm', home);
+		await session.waitFor((screen) => screen.includes('Audit the records folder'), 'the home screen');
+		const menu = ['Start a bench check', 'Audit the records folder'];
+		await session.settle();
+		for (let step = 0; !/❯ Audit the records folder/.test(session.screen()) && step < 5; step += 1) {
+			session.press('Down');
+			await session.settle();
+		}
+		expect(session.screen()).toContain(`❯ ${menu[1]}`);
+		session.press('Enter');
+		// One second into the audit (a screen that works on its own thread shows "Auditing…" meanwhile; one that blocks shows nothing new).
+		await new Promise((resolve) => setTimeout(resolve, 1000));
+		const pane = spawnSync('tmux', ['-L', session.socket, 'list-panes', '-F', '#{pane_pid}'], {encoding: 'utf8'}).stdout.trim();
+		const node = spawnSync('pgrep', ['-P', pane], {encoding: 'utf8'}).stdout.trim().split('\n')[0]!;
+		const sent = Date.now();
+		process.kill(Number(node), 'SIGTERM');
+		await session.waitFor((screen) => screen.includes('EXITED 143'), 'the program to leave with 143', 1500);
+		expect(Date.now() - sent).toBeLessThan(1500);
 	});
 });

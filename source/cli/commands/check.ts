@@ -136,6 +136,8 @@ Exit status:
   0  clear to energize
   1  do not energize, or incomplete
   2  bad usage or bad input (the message names the file, line and field)
+  74 a file could not be written (disk full, file size limit, read-only or denied folder);
+     nothing was written and the file there before is unchanged
 
 Without --answers, on a terminal, the check runs on screen (--setup NAME starts it on that
 setup); elsewhere give --answers FILE.`,

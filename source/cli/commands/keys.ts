@@ -158,6 +158,8 @@ The same key is not trusted under two names, and your own key is not put in the 
   2  bad usage or a refusal (no name for a new key, a key named differently, a file that is
      not a public key, your own key or a key already trusted under another name, an unknown
      fingerprint, a date that is not a date)
+  74 a file could not be written (disk full, file size limit, read-only or denied folder);
+     nothing was written and the file there before is unchanged
   70 an internal error (a bug in prelase)`,
 	},
 	run: runKeys,

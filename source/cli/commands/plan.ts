@@ -141,6 +141,8 @@ severity and the device or access point it concerns:
   1  one or more stop findings (or the test recorded failed: the record is written anyway)
   2  bad usage, a bad plan or results file (the message names the file, line and field);
      nothing is recorded
+  74 a file could not be written (disk full, file size limit, read-only or denied folder);
+     nothing was written and the file there before is unchanged
 
 The planner says which findings it has; it never says a loop is safe. The laser safety
 officer and the codes in force (IEC 60825 series, ANSI Z136 series, local law) decide.`,

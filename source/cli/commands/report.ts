@@ -1,4 +1,5 @@
-import {writeFileSync} from 'node:fs';
+import {createFileAtomically} from '../../shared/atomic-file.js';
+import {FileWriteError} from '../../shared/file-write-error.js';
 import {extname} from 'node:path';
 import {parseArgs} from 'node:util';
 import {ownFingerprint, readTrusted} from '../../records/key-files.js';
@@ -69,14 +70,16 @@ export function runReport(args: string[], io: Io): number {
 		io.stdout.write(page);
 		return 0;
 	}
+	let created: boolean;
 	try {
-		// A report file is read in a terminal too (cat, less): it passes the same boundary as stdout.
-		writeFileSync(values.out, terminalText(page), {flag: 'wx'});
+		// Whole or not at all (a write cut short leaves no part of a report under its name); a report
+		// file is read in a terminal too (cat, less), so it passes the same boundary as stdout.
+		created = createFileAtomically(values.out, terminalText(page), 0o644);
 	} catch (error) {
-		const code = (error as NodeJS.ErrnoException).code;
-		if (code === 'EEXIST') throw new UsageError(`${values.out} already exists; prelase does not overwrite it (choose another --out FILE)`);
-		throw new UsageError(`cannot write ${values.out} (${code ?? (error as Error).message})`);
+		if (error instanceof FileWriteError) throw error;
+		throw new UsageError(`cannot write ${values.out} (${(error as NodeJS.ErrnoException).code ?? (error as Error).message})`);
 	}
+	if (!created) throw new UsageError(`${values.out} already exists; prelase does not overwrite it (choose another --out FILE)`);
 	io.stdout.write(`Report written: ${values.out}\n`);
 	return 0;
 }

@@ -1,4 +1,5 @@
-import {writeFileSync} from 'node:fs';
+import {createFileAtomically} from '../../shared/atomic-file.js';
+import {FileWriteError} from '../../shared/file-write-error.js';
 import {parseArgs} from 'node:util';
 import {formatProblem} from '../../shared/problems.js';
 import type {CompiledRules} from '../../rules/compile/compiled-rules.js';
@@ -68,12 +69,15 @@ export function runRules(args: string[], io: Io): number {
 		case 'init': {
 			if (files.length !== 1) throw new UsageError('name the file to write: prelase rules init FILE');
 			const text = siteFileTemplate(loadOrRefuse(shippedRulesPath()));
+			let created: boolean;
 			try {
-				writeFileSync(files[0]!, text, {flag: 'wx'});
+				// Whole or not at all: a write cut short (a full disk) leaves no part of the file under its name.
+				created = createFileAtomically(files[0]!, text, 0o644);
 			} catch (error) {
-				const code = (error as NodeJS.ErrnoException).code;
-				throw new UsageError(code === 'EEXIST' ? `${files[0]} already exists; prelase rules init never overwrites a file` : `cannot write ${files[0]} (${(error as Error).message})`);
+				if (error instanceof FileWriteError) throw error;
+				throw new UsageError(`cannot write ${files[0]} (${(error as Error).message})`);
 			}
+			if (!created) throw new UsageError(`${files[0]} already exists; prelase rules init never overwrites a file`);
 			io.stdout.write(`Wrote ${files[0]}: a site rule file that extends the shipped policy and changes nothing yet.\nEdit it, then: prelase rules validate ${files[0]}\n`);
 			return 0;
 		}

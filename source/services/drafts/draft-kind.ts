@@ -1,6 +1,7 @@
 import {existsSync, mkdirSync, readFileSync, renameSync, rmSync} from 'node:fs';
 import {dirname, join} from 'node:path';
 import {replaceFileAtomically} from '../../shared/atomic-file.js';
+import {asWriteError} from '../../shared/file-write-error.js';
 import {sha256Hex} from '../../shared/sha256.js';
 import type {ZodType} from 'zod';
 
@@ -28,7 +29,11 @@ export function draftStore<T, K>(kind: DraftKind<T, K>): DraftStore<T, K> {
 		path,
 		save(settingsFolder, key, draft) {
 			const file = path(settingsFolder, key);
-			mkdirSync(dirname(file), {recursive: true, mode: 0o700});
+			try {
+				mkdirSync(dirname(file), {recursive: true, mode: 0o700});
+			} catch (error) {
+				throw asWriteError(dirname(file), error);
+			}
 			replaceFileAtomically(file, JSON.stringify(draft), 0o600);
 		},
 		load(settingsFolder, key) {

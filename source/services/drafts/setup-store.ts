@@ -1,6 +1,7 @@
 import {existsSync, mkdirSync, readdirSync, readFileSync} from 'node:fs';
 import {join} from 'node:path';
 import {replaceFileAtomically} from '../../shared/atomic-file.js';
+import {asWriteError} from '../../shared/file-write-error.js';
 // Named imports (not the z namespace) let the bundler leave out the parts of zod not used.
 import {object, record, string} from 'zod';
 
@@ -20,7 +21,11 @@ function folderOf(settingsFolder: string): string {
 /** Saves (or replaces) a named setup. */
 export function saveSetup(settingsFolder: string, setup: SavedSetup): string {
 	const folder = folderOf(settingsFolder);
-	mkdirSync(folder, {recursive: true});
+	try {
+		mkdirSync(folder, {recursive: true});
+	} catch (error) {
+		throw asWriteError(folder, error);
+	}
 	const path = join(folder, fileName(setup.name));
 	replaceFileAtomically(path, `${JSON.stringify(setup, null, 2)}\n`, 0o644);
 	return path;

@@ -1,12 +1,14 @@
 import {loadTestDraft, removeTestDraft, saveTestDraft, setTestDraftAside} from '../../services/drafts/test-draft-store.js';
 import {restoreDraft} from '../draft-restore.js';
+import {refusedWrite} from '../refused-write.js';
 import {resumeTestEntry, type TestEntry} from './test-entry.js';
 
 /** Where the planner keeps the entries of a test in progress, so that a crash or Ctrl-C loses none. */
 export type TestDrafts = {
 	/** A new test as it starts: given the entries of an earlier one of the same plan text, with a notice saying so, or why not. */
 	start(entry: TestEntry): TestEntry;
-	save(entry: TestEntry): void;
+	/** Saves the entries; returns why the machine refused it (disk full, read-only folder), so the screen says so and goes on. */
+	save(entry: TestEntry): string | undefined;
 	clear(file: string): void;
 };
 
@@ -29,14 +31,15 @@ export function testDraftsIn(settingsFolder: string): TestDrafts {
 			});
 			return notice ? {...value, notice} : value;
 		},
-		save: (entry) => saveTestDraft(settingsFolder, entry.tested.file, entry.tested.text, {steps: entry.steps, people: entry.people}),
+		save: (entry) => refusedWrite(() => saveTestDraft(settingsFolder, entry.tested.file, entry.tested.text, {steps: entry.steps, people: entry.people})),
 		clear: (file) => removeTestDraft(settingsFolder, file),
 	};
 }
 
-/** Keeps the draft in step with a key's change to the test: saved after each change to the entries, removed once signed or left. */
-export function followTestEntry(drafts: TestDrafts, before: TestEntry, after: TestEntry | undefined): void {
+/** Keeps the draft in step with a key's change to the test: saved after each change to the entries, removed once signed or left; returns why a save was refused. */
+export function followTestEntry(drafts: TestDrafts, before: TestEntry, after: TestEntry | undefined): string | undefined {
 	if (!after || after.recorded) {
 		if (!before.recorded) drafts.clear(before.tested.file);
-	} else if (after.steps !== before.steps || after.people !== before.people) drafts.save(after);
+	} else if (after.steps !== before.steps || after.people !== before.people) return drafts.save(after);
+	return undefined;
 }

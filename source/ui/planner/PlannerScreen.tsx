@@ -98,7 +98,9 @@ export function PlannerScreen({editing, rulesName, rows, width, recorder, drafts
 		else if (view.name === 'leave') next = leaveKey(current, input, key, arrival, actions);
 		else if (view.name === 'record') {
 			next = recordKey(current, view.entry, input, key, arrival, recorder);
-			followTestEntry(testDrafts, view.entry, next.view.name === 'record' ? next.view.entry : undefined);
+			const refused = followTestEntry(testDrafts, view.entry, next.view.name === 'record' ? next.view.entry : undefined);
+			// The entries could not be saved (disk full, read-only folder): the test goes on, and the screen says why.
+			if (refused !== undefined && next.view.name === 'record') next = {...next, view: {...next.view, entry: {...next.view.entry, notice: {text: `the entries could not be saved as a draft: ${refused}`, error: true}}}};
 		}
 		else if (key.escape) next = {...current, view: {name: 'list'}};
 		else if (key.upArrow || key.downArrow) next = {...current, view: {name: 'findings', offset: Math.max(0, view.offset + (key.upArrow ? -1 : 1))}};

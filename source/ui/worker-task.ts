@@ -1,0 +1,19 @@
+import {isMainThread, parentPort, workerData} from 'node:worker_threads';
+
+import {isAuditTask} from './audit-task.js';
+
+/**
+ * In a worker thread started by the screens (auditInWorker): runs its task and posts the
+ * answer; false in the main thread, which runs a command. Kept small: the program's entry
+ * imports it, and the audit itself is loaded only in the worker.
+ */
+export async function runWorkerTask(): Promise<boolean> {
+	if (isMainThread || !isAuditTask(workerData)) return false;
+	try {
+		const {auditLines} = await import('./audit-worker.js');
+		parentPort?.postMessage({lines: auditLines(workerData)});
+	} catch (error) {
+		parentPort?.postMessage({error: error instanceof Error ? error.message : String(error)});
+	}
+	return true;
+}
