@@ -56,12 +56,12 @@ function snapshot(folder: string): Record<string, string> {
 const sign = (records: string) => ['check', '--answers', example, '--sign', 'Ada Quill', '--records', records];
 
 describe('a write cut short by the file size limit (ulimit -f) leaves the previous file and says so', () => {
-	it('record: check --sign under a 20 kB limit writes no record (a record is ~40 kB), exits non-zero, and the next run signs', () => {
+	it('record: check --sign under a 4 kB limit writes no record (a record is ~9 kB), exits non-zero, and the next run signs', () => {
 		const home = caseFolder(root, 'home');
 		const records = join(home, 'records');
 		expect(run(home, sign(records)).code).toBe(0);
 		const before = snapshot(records);
-		const faulted = run(home, sign(records), 20);
+		const faulted = run(home, sign(records), 4);
 		expect(faulted.code).not.toBe(0);
 		expect(faulted.code).not.toBe(70);
 		expect(faulted.stdout).not.toContain('Record written');
