@@ -70,8 +70,12 @@ export class ChainAudit {
 		this.#now = now;
 	}
 
+	/** One copy of each key fingerprint: a folder of many records is signed by a few keys. */
+	readonly #keys = new Map<string, string>();
+
 	/** Adds a record file; returns the file it is a byte-identical copy of, if any (the copy is then left out of the chain). */
 	add(entry: ChainEntry): string | undefined {
+		this.#share(entry);
 		const folder = this.#folder(dirname(entry.file));
 		folder.byName.set(basename(entry.file), entry);
 		const sha = entry.fileSha256;
@@ -88,6 +92,20 @@ export class ChainAudit {
 		}
 		this.#entries.push(entry);
 		return undefined;
+	}
+
+	/**
+	 * Keeps what the entry holds in one copy where another entry has it already: its key's
+	 * fingerprint, and the SHA-256 its link names (the bytes of a record added before).
+	 */
+	#share(entry: ChainEntry): void {
+		const chained = entry.chained;
+		if (!chained) return;
+		const key = this.#keys.get(chained.key);
+		if (key === undefined) this.#keys.set(chained.key, chained.key);
+		else chained.key = key;
+		const named = chained.previous ? this.#bySha.get(chained.previous.sha256) : undefined;
+		if (named?.fileSha256 && chained.previous) chained.previous = {file: chained.previous.file, sha256: named.fileSha256};
 	}
 
 	/** How many authentic records were made before the chain (they state no link). */

@@ -237,11 +237,11 @@ class Interned {
 	}
 
 	/** One copy of each small object of texts that repeats from record to record (a tool, an operator, a rule file, a setup). */
-	object<T extends Record<string, string | null>>(value: T): T {
+	object<T extends Record<string, string | number | boolean | null>>(value: T): T {
 		const key = JSON.stringify(value);
 		const known = this.#objects.get(key);
 		if (known !== undefined) return known as T;
-		const kept = Object.fromEntries(Object.entries(value).map(([name, text]) => [name, this.nullable(text)])) as T;
+		const kept = Object.fromEntries(Object.entries(value).map(([name, item]) => [name, typeof item === 'string' ? this.text(item) : item])) as T;
 		this.#objects.set(key, kept);
 		return kept;
 	}
@@ -262,14 +262,12 @@ function slim(audit: Judged, keep: Interned): Judged {
 		rules: keep.object({name: audit.record.rules.name, file: audit.record.rules.file, sha256: audit.record.rules.sha256}),
 		exceptions: [],
 	};
-	const consistency = audit.consistency && keep.object({reevaluated: String(audit.consistency.reevaluated), consistent: String(audit.consistency.consistent), rulesSha256: audit.consistency.rulesSha256});
-	return {...audit, record, signatures: [], currentPolicy: null, notChecked: [], consistency: consistency && {reevaluated: consistency.reevaluated === 'true', consistent: consistency.consistent === 'true', rulesSha256: consistency.rulesSha256}};
+	return {...audit, record, signatures: [], currentPolicy: null, notChecked: [], consistency: audit.consistency && keep.object(audit.consistency)};
 }
 
 /** What relates a record to the others, its texts shared with the other records'. */
 function slimEntry(entry: HistoryEntry, keep: Interned): HistoryEntry {
-	const identifying = Object.fromEntries(Object.entries(entry.identifying).map(([id, value]) => [keep.text(id), keep.nullable(value)]));
-	return {...entry, setupName: keep.nullable(entry.setupName), fingerprint: keep.text(entry.fingerprint), identifying};
+	return {...entry, setupName: keep.nullable(entry.setupName), fingerprint: keep.text(entry.fingerprint), identifying: keep.object(entry.identifying)};
 }
 
 const reported = (found: Finding): ReportedFinding => ({...found, text: describeProblem(found)});
