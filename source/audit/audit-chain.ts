@@ -7,33 +7,61 @@ import type {IntegrityCheck} from '../records/integrity.js';
 import type {ChainLink} from '../records/record-schema.js';
 import {isoWithOffset} from '../shared/iso-time.js';
 
-/**
- * What the chain audit keeps of one record file: small enough to keep for every record of a
- * large folder. `chained` is there only for an authentic record.
- */
-export type ChainEntry = {
-	/** The record's place in the audit. */
-	index: number;
-	file: string;
-	/** SHA-256 of the file's exact bytes; null when it could not be read. */
-	fileSha256: string | null;
-	chained?: {
-		/** The fingerprint of the first signature's key (the operator's or tester's). */
-		key: string;
-		/** The link the body states; undefined in a record made before the chain. */
-		previous: ChainLink | undefined;
-		createdAt: string;
-		kind: 'bench-check' | 'interlock-test';
-		version: number;
-	};
+/** What the chain audit reads of an authentic record: its key, its link, when and what it is. */
+type Chained = {
+	/** The fingerprint of the first signature's key (the operator's or tester's). */
+	key: string;
+	/** The link the body states; undefined in a record made before the chain. */
+	previous: ChainLink | undefined;
+	createdAt: string;
+	kind: 'bench-check' | 'interlock-test';
+	version: number;
 };
+
+/**
+ * What the chain audit keeps of one record file, in flat fields (a large folder has one for
+ * every record, so no nested objects): `chained` reads them back, and is there only for an
+ * authentic record.
+ */
+export class ChainEntry {
+	/** The fingerprint of the first signature's key; null when the record is not authentic. */
+	key: string | null = null;
+	/** The previous record's file name and SHA-256; `previousSha` is null for a first record and undefined before the chain. */
+	previousFile: string | undefined;
+	previousSha: string | null | undefined;
+	createdAt = '';
+	kind: Chained['kind'] = 'bench-check';
+	version = 0;
+
+	/**
+	 * @param index The record's place in the audit.
+	 * @param fileSha256 SHA-256 of the file's exact bytes; null when it could not be read.
+	 */
+	constructor(
+		readonly index: number,
+		readonly file: string,
+		readonly fileSha256: string | null,
+	) {}
+
+	get chained(): Chained | undefined {
+		if (this.key === null) return undefined;
+		const previous = this.previousSha === undefined ? undefined : this.previousSha === null ? null : {file: this.previousFile!, sha256: this.previousSha};
+		return {key: this.key, previous, createdAt: this.createdAt, kind: this.kind, version: this.version};
+	}
+}
 
 /** The chain entry of one record file, from its integrity check. */
 export function chainEntry(index: number, file: string, checked: IntegrityCheck): ChainEntry {
-	const entry: ChainEntry = {index, file, fileSha256: checked.fileSha256 ?? null};
+	const entry = new ChainEntry(index, file, checked.fileSha256 ?? null);
 	if (!checked.ok) return entry;
 	const {body, signatures, version} = checked.record;
-	return {...entry, chained: {key: signatures[0]!.fingerprint, previous: body.previous, createdAt: body.createdAt, kind: body.kind, version}};
+	entry.key = signatures[0]!.fingerprint;
+	entry.previousSha = body.previous === undefined ? undefined : (body.previous?.sha256 ?? null);
+	entry.previousFile = body.previous?.file;
+	entry.createdAt = body.createdAt;
+	entry.kind = body.kind;
+	entry.version = version;
+	return entry;
 }
 
 /** The instant of a date-time, later than any other when it cannot be read (it then sorts last and is never "earliest"). */
@@ -99,13 +127,12 @@ export class ChainAudit {
 	 * fingerprint, and the SHA-256 its link names (the bytes of a record added before).
 	 */
 	#share(entry: ChainEntry): void {
-		const chained = entry.chained;
-		if (!chained) return;
-		const key = this.#keys.get(chained.key);
-		if (key === undefined) this.#keys.set(chained.key, chained.key);
-		else chained.key = key;
-		const named = chained.previous ? this.#bySha.get(chained.previous.sha256) : undefined;
-		if (named?.fileSha256 && chained.previous) chained.previous = {file: chained.previous.file, sha256: named.fileSha256};
+		if (entry.key === null) return;
+		const key = this.#keys.get(entry.key);
+		if (key === undefined) this.#keys.set(entry.key, entry.key);
+		else entry.key = key;
+		const named = entry.previousSha ? this.#bySha.get(entry.previousSha) : undefined;
+		if (named?.fileSha256) entry.previousSha = named.fileSha256;
 	}
 
 	/** How many authentic records were made before the chain (they state no link). */

@@ -4,7 +4,7 @@ import {tmpdir} from 'node:os';
 import {basename, join} from 'node:path';
 import {afterAll, describe, expect, it} from 'vitest';
 import {auditRecords, type AuditReport} from '../../source/audit/audit.js';
-import {ChainAudit} from '../../source/audit/audit-chain.js';
+import {ChainAudit, ChainEntry} from '../../source/audit/audit-chain.js';
 import {listRecordFiles} from '../../source/audit/audit-files.js';
 import {buildRecordBody} from '../../source/records/build-body.js';
 import {ownFingerprint} from '../../source/records/key-files.js';
@@ -250,12 +250,11 @@ describe('a record that refers to a record it cannot find', () => {
 });
 
 describe('the accumulator on its own (the shape a streaming audit feeds)', () => {
-	const entry = (index: number, version: number, previous: {file: string; sha256: string} | null | undefined) => ({
-		index,
-		file: `/records/r${index}.json`,
-		fileSha256: String(index).repeat(64),
-		chained: {key: `sha256:${'c'.repeat(64)}`, previous, createdAt: '2026-03-04T09:00:00+00:00', kind: 'bench-check' as const, version},
-	});
+	const entry = (index: number, version: number, previous: {file: string; sha256: string} | null | undefined) => {
+		const made = new ChainEntry(index, `/records/r${index}.json`, String(index).repeat(64));
+		Object.assign(made, {key: `sha256:${'c'.repeat(64)}`, previousSha: previous === undefined ? undefined : (previous?.sha256 ?? null), previousFile: previous?.file, createdAt: '2026-03-04T09:00:00+00:00', kind: 'bench-check', version});
+		return made;
+	};
 
 	it.each([
 		{name: 'a version 1 record without the link: made before the chain, no finding', version: 1, codes: [], before: 1},
