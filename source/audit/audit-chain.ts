@@ -70,8 +70,15 @@ const instant = (createdAt: string) => {
 	return Number.isNaN(value) ? Number.POSITIVE_INFINITY : value;
 };
 
-/** The record files of one folder: the first of each SHA-256, and the file of each name. */
-type FolderFiles = {bySha: Map<string, ChainEntry>; byName: Map<string, ChainEntry>};
+/** A file's path in the form a link's name joined to its folder gives (the same text, not a copy, when it already is). */
+function pathKey(file: string): string {
+	const joined = join(dirname(file), basename(file));
+	return joined === file ? file : joined;
+}
+
+/** The record files of one folder: the first of each SHA-256, and the file at each path. */
+/** `byPath` is keyed by the file's path as audited (the same text as the file list's: no copy per record). */
+type FolderFiles = {bySha: Map<string, ChainEntry>; byPath: Map<string, ChainEntry>};
 
 /** The words for the others in a fork: "both" for one other record, "all" for more. */
 const forkWords = (others: readonly ChainEntry[]) => ({others: others.map((other) => basename(other.file)).join(', '), both: others.length === 1 ? 'both' : 'all'});
@@ -105,7 +112,7 @@ export class ChainAudit {
 	add(entry: ChainEntry): string | undefined {
 		this.#share(entry);
 		const folder = this.#folder(dirname(entry.file));
-		folder.byName.set(basename(entry.file), entry);
+		folder.byPath.set(pathKey(entry.file), entry);
 		const sha = entry.fileSha256;
 		const original = sha === null ? undefined : this.#bySha.get(sha);
 		if (original) {
@@ -180,7 +187,7 @@ export class ChainAudit {
 				add(entry, finding('history', 'audit-chain-clock-backwards', {dated: createdAt, file: previous.file, previousDated: found.chained.createdAt}));
 			}
 			if (found) continue;
-			const sameName = folder.byName.get(previous.file);
+			const sameName = folder.byPath.get(join(dirname(entry.file), previous.file));
 			if (sameName) add(entry, finding('history', 'audit-chain-changed', {file: previous.file, sha256: previous.sha256, actual: sameName.fileSha256 ?? '(unreadable)'}));
 			else missing.push({entry, previous});
 		}
@@ -211,7 +218,7 @@ export class ChainAudit {
 		const path = dirname(members[0]!.file);
 		const head = readHead(path, members[0]!.chained!.key);
 		if (!head || folder.bySha.has(head.sha256) || this.#bySha.has(head.sha256)) return;
-		const sameName = folder.byName.get(head.file);
+		const sameName = folder.byPath.get(join(path, head.file));
 		if (sameName) {
 			add(sameName, finding('history', 'audit-chain-head-changed', {sha256: head.sha256, actual: sameName.fileSha256 ?? '(unreadable)'}));
 			return;
@@ -227,7 +234,7 @@ export class ChainAudit {
 	#folder(path: string): FolderFiles {
 		let folder = this.#folders.get(path);
 		if (!folder) {
-			folder = {bySha: new Map(), byName: new Map()};
+			folder = {bySha: new Map(), byPath: new Map()};
 			this.#folders.set(path, folder);
 		}
 		return folder;

@@ -27,7 +27,8 @@ export function linkInterlockTests(audits: Audited[], benchLocations: ReadonlyMa
 		if (!audit.authentic || !audit.record) return;
 		const used = audit.record.interlockTest?.record;
 		if (!audit.record.interlockTest) {
-			audit.notChecked.push(notTested);
+			// A summarised audit keeps no notes per record (its list is shared and frozen).
+			if (!Object.isFrozen(audit.notChecked)) audit.notChecked.push(notTested);
 			return;
 		}
 		// The check named a plan but found no usable test: its confirmations say no, and the consistency check covers that.

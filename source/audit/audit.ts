@@ -249,6 +249,9 @@ class Interned {
 	readonly #objects = new Map<string, object>();
 }
 
+/** The empty list every summarised record shares (frozen: nothing may add to it). */
+const none: never[] = Object.freeze([]) as unknown as never[];
+
 /**
  * A record's audit with only what the summary shows and the end of the run needs, its texts
  * shared with the other records': it keeps memory small over many records.
@@ -262,7 +265,7 @@ function slim(audit: Judged, keep: Interned): Judged {
 		rules: keep.object({name: audit.record.rules.name, file: audit.record.rules.file, sha256: audit.record.rules.sha256}),
 		exceptions: [],
 	};
-	return {...audit, record, signatures: [], currentPolicy: null, notChecked: [], consistency: audit.consistency && keep.object(audit.consistency)};
+	return {...audit, record, signatures: none, currentPolicy: null, notChecked: none, consistency: audit.consistency && keep.object(audit.consistency)};
 }
 
 /** What relates a record to the others, its texts shared with the other records'. */

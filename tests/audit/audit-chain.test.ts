@@ -267,3 +267,17 @@ describe('the accumulator on its own (the shape a streaming audit feeds)', () =>
 		expect(chain.beforeChain()).toBe(before);
 	});
 });
+
+describe('files named with a leading ./ or a doubled slash', () => {
+	it('a changed predecessor is still found by its name in its folder', () => {
+		const chain = new ChainAudit(auditNow);
+		const first = new ChainEntry(0, './records//r0.json', 'a'.repeat(64));
+		Object.assign(first, {key: 'sha256:k', previousSha: null, createdAt: '2026-03-04T09:00:00+00:00', kind: 'bench-check', version: 2});
+		const second = new ChainEntry(1, './records//r1.json', 'b'.repeat(64));
+		// It names r0.json with other bytes than r0.json has now: r0.json was changed after r1.json was written.
+		Object.assign(second, {key: 'sha256:k', previousSha: 'c'.repeat(64), previousFile: 'r0.json', createdAt: '2026-03-04T10:00:00+00:00', kind: 'bench-check', version: 2});
+		chain.add(first);
+		chain.add(second);
+		expect(chain.findings().map(({index, finding}) => [index, finding.code])).toContainEqual([1, 'audit-chain-changed']);
+	});
+});
