@@ -210,11 +210,12 @@ function judgeRecord(file: string, index: number, chain: ChainAudit, context: Ru
  * the interlock tests the checks used, amendments, superseded records, changed setups. A new
  * finding that needs more than one record is added here, from small per-record summaries.
  */
-function endOfRun(audits: Judged[], entries: readonly HistoryEntry[], entryOf: readonly number[], benchLocations: ReadonlyMap<number, string | undefined>): void {
+function endOfRun(audits: Judged[], entries: readonly HistoryEntry[], entryOf: readonly number[], benchLocations: ReadonlyMap<number, string | undefined>, listing: 'all' | 'summary'): void {
 	linkInterlockTests(audits, benchLocations);
 	relateRecords(entries).forEach(({history, findings}, index) => {
 		const audit = audits[entryOf[index]!]!;
-		audit.history = history;
+		// A summary shows each record's findings, not its history: it is not kept for every record.
+		if (listing === 'all') audit.history = history;
 		// A countersigned amendment completes a record that lacked its countersignature (the amendment is reported).
 		if (history.countersignedBy) audit.findings = audit.findings.filter((found) => found.code !== 'audit-countersign-required');
 		audit.findings.push(...findings);
@@ -295,7 +296,8 @@ export function auditRecords(files: readonly string[], options: AuditOptions): A
 	files.forEach((file, index) => {
 		const {audit, bench, copyOf} = judgeRecord(file, audits.length, chain, context);
 		if (bench) {
-			benchLocations.set(audits.length, listing === 'all' ? bench.location : (keep.nullable(bench.location) ?? undefined));
+			// The location matters only to a check that used an interlock test (linkInterlockTests).
+			if (listing === 'all' || audit.record?.interlockTest?.record) benchLocations.set(audits.length, listing === 'all' ? bench.location : (keep.nullable(bench.location) ?? undefined));
 			// A byte-identical copy is the same record: it neither supersedes nor amends the original.
 			if (copyOf === undefined) {
 				entryOf[entries.length] = audits.length;
@@ -305,7 +307,7 @@ export function auditRecords(files: readonly string[], options: AuditOptions): A
 		audits.push(listing === 'all' ? audit : slim(audit, keep));
 		options.onProgress?.(index + 1, files.length);
 	});
-	endOfRun(audits, entries, entryOf, benchLocations);
+	endOfRun(audits, entries, entryOf, benchLocations, listing);
 	for (const {index, finding: found} of chain.findings()) audits[index]!.findings.push(found);
 
 	const totals: AuditTotals = {records: audits.length, authentic: 0, integrityFailures: 0, consistent: 0, withFindings: 0, findings: emptyFindings(), beforeChain: chain.beforeChain()};
