@@ -264,7 +264,7 @@ function slim(audit: Judged, keep: Interned): Judged {
 		operator: keep.object(audit.record.operator),
 		setup: keep.object({name: audit.record.setup.name, fingerprint: audit.record.setup.fingerprint}),
 		rules: keep.object({name: audit.record.rules.name, file: audit.record.rules.file, sha256: audit.record.rules.sha256}),
-		exceptions: [],
+		exceptions: none,
 	};
 	return {...audit, record, signatures: none, currentPolicy: null, notChecked: none, consistency: audit.consistency && keep.object(audit.consistency)};
 }
