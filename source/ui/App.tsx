@@ -14,6 +14,8 @@ import {describeProblem, formatProblem} from '../shared/problems.js';
 import type {CompiledRules} from '../rules/compile/compiled-rules.js';
 import type {SettingsStore} from '../services/settings.js';
 import {stripControl} from '../shared/text.js';
+import {CautionContext} from './caution-context.js';
+import {CautionLine} from './CautionLine.js';
 import {DoneScreen} from './DoneScreen.js';
 import {HelpOverlay} from './HelpOverlay.js';
 import {HomeScreen, type HomeChoice} from './HomeScreen.js';
@@ -110,6 +112,8 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 	};
 	useInput((input, key) => {
 		if (key.ctrl && input === 'c') quit(130);
+		// Screens without a field to type in take `?` here: the keys, then the caution in full.
+		else if (input === '?' && !help && (screen === 'done' || screen === 'info')) setHelp(true);
 	});
 
 	// Never lose an answer: the draft is saved after every change while a check is open.
@@ -201,8 +205,15 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 
 	const header = (
 		<Box borderStyle="single" borderLeft={false} borderRight={false} borderTop={false} justifyContent="space-between">
-			<Text bold>prelase · {screen === 'planner' || screen === 'plan-open' ? 'interlock planner' : 'bench check'}</Text>
-			<Text dimColor>{stripControl(session.setup || rules.rules.name)}</Text>
+			<Box flexShrink={0}>
+				<Text bold>prelase · {screen === 'planner' || screen === 'plan-open' ? 'interlock planner' : 'bench check'}</Text>
+			</Box>
+			{/* A long setup name is cut, never drawn over the title. */}
+			<Box flexShrink={1} marginLeft={2} justifyContent="flex-end">
+				<Text dimColor wrap="truncate">
+					{stripControl(session.setup || rules.rules.name)}
+				</Text>
+			</Box>
 		</Box>
 	);
 	const footer: Record<Screen, string> = {
@@ -227,7 +238,7 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 				session={session}
 				getSession={() => sessionRef.current}
 				stepIndex={stepIndex}
-				rows={rows - 3}
+				rows={rows - 4}
 				width={width}
 				onSession={setSession}
 				onStep={(index) => (index >= rules.rules.steps.length ? setScreen('summary') : setStepIndex(Math.max(0, index)))}
@@ -236,7 +247,7 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 				active={!help}
 			/>
 		);
-	else if (screen === 'summary') body = <SummaryScreen session={session} rows={rows - 3} width={width} onSign={() => setScreen('signoff')} onBack={() => setScreen('step')} onHelp={() => setHelp(true)} active={!help} />;
+	else if (screen === 'summary') body = <SummaryScreen session={session} rows={rows - 4} width={width} onSign={() => setScreen('signoff')} onBack={() => setScreen('step')} onHelp={() => setHelp(true)} active={!help} />;
 	else if (screen === 'signoff') {
 		body = <SignOffScreen session={session} initial={{setup: session.setup, name: saved.operator ?? '', role: saved.role ?? '', cosignName: '', cosignRole: '', cosignKey: ''}} {...(signError ? {error: signError} : {})} onSign={sign} onBack={() => setScreen('summary')} />;
 	} else if (screen === 'done' && written)
@@ -265,11 +276,12 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 			return undefined;
 		};
 		body = <PlanOpenScreen initial={plan.problems && startPlan ? startPlan : (saved.planFile ?? '')} {...(plan.problems ? {problems: plan.problems} : {})} onOpen={open} onBack={() => setScreen('home')} onHelp={() => setHelp(true)} active={!help} />;
-	} else if (screen === 'planner' && plan.editing) body = <PlannerScreen editing={plan.editing} rulesName={rules.rules.name} rows={rows - 2} width={width} recorder={testRecorder(rules, settings, env)} drafts={planDrafts} testDrafts={testDraftsIn(settings.folder)} notice={plan.notice} onLeave={() => setScreen('home')} />;
+	} else if (screen === 'planner' && plan.editing) body = <PlannerScreen editing={plan.editing} rulesName={rules.rules.name} rows={rows - 3} width={width} recorder={testRecorder(rules, settings, env)} drafts={planDrafts} testDrafts={testDraftsIn(settings.folder)} notice={plan.notice} onLeave={() => setScreen('home')} />;
 	else if (screen === 'settings') body = <SettingsScreen initial={saved} path={settings.path} onSave={(changes) => settings.write(changes)} onBack={() => setScreen('home')} />;
 	else body = <InfoScreen title={info.title} lines={info.lines} onBack={() => setScreen('home')} />;
 
 	return (
+		<CautionContext.Provider value={rules.rules.caution}>
 		<Box flexDirection="column" width={width}>
 			{header}
 			{writeProblem === undefined ? null : <Text color="red">{writeProblem}</Text>}
@@ -278,11 +290,14 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 			<Box display={help ? 'none' : 'flex'} flexDirection="column">
 				{body}
 			</Box>
+			{/* The full caution is on the home screen; every other screen says it in one line, with the key that shows it. */}
+			{screen === 'home' || help ? null : <CautionLine />}
 			{footer[screen] ? (
 				<Text dimColor wrap="truncate">
 					{footer[screen]}
 				</Text>
 			) : null}
 		</Box>
+		</CautionContext.Provider>
 	);
 }

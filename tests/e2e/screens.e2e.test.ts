@@ -4,7 +4,7 @@ import {tmpdir} from 'node:os';
 import {join, resolve} from 'node:path';
 import {afterEach, describe, expect, it, vi} from 'vitest';
 import {parse} from 'yaml';
-import {loadDraft} from '../../source/services/drafts/draft-store.js';
+import {loadDraft, saveDraft} from '../../source/services/drafts/draft-store.js';
 import {openSettings} from '../../source/services/settings.js';
 import {haveTmux, TmuxSession} from './tmux-driver.js';
 
@@ -267,5 +267,82 @@ describe.skipIf(!haveTmux())('the screens in a real terminal', () => {
 		process.kill(Number(node), 'SIGTERM');
 		await session.waitFor((screen) => screen.includes('EXITED 143'), 'the program to leave with 143', 1500);
 		expect(Date.now() - sent).toBeLessThan(1500);
+	});
+});
+
+/** A draft of the demo check as if typed on screen, less some confirmations, resumed at a step (0-based). */
+function seedDemoDraft(home: string, leaveOut: string[], step = 0): void {
+	const confirmations: Record<string, {answer: 'yes' | 'no' | 'not_applicable'; note?: string}> = {};
+	for (const [id, raw] of Object.entries(demo.confirmations)) {
+		if (leaveOut.includes(id)) continue;
+		if (typeof raw === 'object' && raw !== null) {
+			const {answer, note} = raw as {answer: string; note: string};
+			confirmations[id] = {answer: answer.replace(' ', '_') as 'not_applicable', note};
+		} else confirmations[id] = {answer: raw === true || raw === 'yes' ? 'yes' : 'no'};
+	}
+	const entries = Object.fromEntries(Object.entries(demo.inputs).map(([id, value]) => [id, String(value)]));
+	saveDraft(openSettings({PRELASE_HOME: home}).folder, {rulesFile: resolve('rules/default.yaml'), rulesSha256: '', setup: demo.setup, entries, confirmations, step, savedAt: '2026-12-05T09:00:00.000Z'});
+}
+
+/** Resumes the seeded draft from the home screen and pages on until the wanted screen shows. */
+async function resumeAndPage(session: TmuxSession, until: (screen: string) => boolean, what: string): Promise<string> {
+	await session.waitFor((screen) => screen.includes('Resume the draft'), 'the offer to resume');
+	await session.settle();
+	session.press('Enter');
+	await session.waitFor((screen) => /Step \d of 9/.test(screen), 'the resumed step');
+	for (let guard = 0; guard < 12; guard += 1) {
+		const screen = await session.settle();
+		if (until(screen)) return screen;
+		session.press('PageDown');
+		await session.waitFor((now) => now !== screen, 'the next page');
+	}
+	return session.waitFor(until, what, 100);
+}
+
+const cautionStart = 'prelase checks arithmetic and records answers';
+const deferralStart = 'prelase says which checks held';
+
+describe.skipIf(!haveTmux())('the screens at 80x24, as a technician meets them', () => {
+	it('the summary puts what blocks energizing first and keeps its reason, title and one caution line in view', {timeout: 60_000}, async () => {
+		const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
+		seedDemoDraft(home, ['use_authorised', 'sop_present', 'operator_trained']);
+		const session = start('summary-order', home, '', [80, 24]);
+		const screen = await resumeAndPage(session, (now) => now.includes('Summary:'), 'the summary');
+		const lines = screen.split('\n');
+		expect(lines[0]).toMatch(/^prelase · bench check/);
+		expect(screen).toContain('Outcome: INCOMPLETE');
+		// The reason for the outcome, in view without scrolling: the first confirmation left unanswered.
+		expect(screen).toContain('? unanswered');
+		expect(screen).toContain('Use of this laser on this bench is authorised');
+		const first = (pattern: RegExp) => lines.findIndex((line) => pattern.test(line));
+		expect(first(/^\? unanswered/)).toBeGreaterThan(0);
+		// Unanswered before advice, advice before passes.
+		expect(first(/^\? unanswered/)).toBeLessThan(first(/^! advise/));
+		if (first(/^✓ pass/) >= 0) expect(first(/^! advise/)).toBeLessThan(first(/^✓ pass/));
+		// The caution is said once, on the home screen; here one line with the key that opens it.
+		expect(screen).not.toContain(cautionStart);
+		expect(screen).not.toContain(deferralStart);
+		const cautionLines = lines.filter((line) => line.includes('local codes'));
+		expect(cautionLines).toHaveLength(1);
+		expect(cautionLines[0]).toMatch(/\? /);
+		expect(lines.filter((line) => line.trim() !== '').at(-1)).toContain('Enter sign-off');
+		session.type('?');
+		await session.waitFor((now) => now.includes('? again: the caution in full'), 'the keys of the summary');
+		session.type('?');
+		const opened = await session.waitFor((now) => now.replaceAll(/\s+/g, ' ').includes(cautionStart), 'the full caution');
+		expect(opened.replaceAll(/\s+/g, ' ')).toContain(deferralStart);
+		expect(opened.split('\n')[0]).toMatch(/^prelase · bench check/);
+	});
+
+	it('step 8 keeps its title line and key line on the screen', {timeout: 60_000}, async () => {
+		const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
+		seedDemoDraft(home, [], 7);
+		const session = start('step-eight', home, '', [80, 24]);
+		const screen = await resumeAndPage(session, (now) => now.includes('Step 8 of 9'), 'step 8');
+		const lines = screen.split('\n');
+		expect(lines[0]).toMatch(/^prelase · bench check +\S/);
+		expect(lines[2]).toBe('Step 8 of 9: People around the bench');
+		expect(screen).toContain('Enter accept · ↑ ↓ field · PgDn PgUp step · Esc back · ? help');
+		expect(lines.filter((line) => line.includes('local codes') && line.includes('?'))).toHaveLength(1);
 	});
 });

@@ -205,14 +205,13 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 	// On a short terminal the checks panel gives way so that more fields stay in view.
 	const panelRows = Math.min(rows < 30 ? 6 : 8, Math.max(2, checks.length * 2));
 	const derived = shownDerived(session.evaluation, step.id);
+	const summary = step.summary ? wrap(stripControl(step.summary), width) : [];
 	return (
 		<Box flexDirection="column">
 			<Text bold>
 				Step {stepIndex + 1} of {session.rules.rules.steps.length}: {stripControl(step.title)}
 			</Text>
-			{step.summary ? (
-				<Text dimColor>{wrap(stripControl(step.summary), width).join('\n')}</Text>
-			) : null}
+			{summary.length > 0 ? <Text dimColor>{summary.join('\n')}</Text> : null}
 			<Box marginTop={1} flexDirection="column">
 				{fields.length === 0 ? <Text dimColor>Nothing to answer in this step for this setup. Enter or PgDn to go on.</Text> : null}
 				<FieldList
@@ -224,7 +223,7 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 					{...(state.message ? {message: state.message} : {})}
 					noteMode={state.noteMode}
 					stray={state.stray}
-					rows={Math.max(5, rows - panelRows - derived.length - (step.summary ? 7 : 5))}
+					rows={Math.max(5, rows - panelRows - derived.length - 6 - summary.length)}
 					width={width}
 				/>
 			</Box>
