@@ -249,7 +249,7 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 		);
 	else if (screen === 'summary') body = <SummaryScreen session={session} rows={rows - 4} width={width} onSign={() => setScreen('signoff')} onBack={() => setScreen('step')} onHelp={() => setHelp(true)} active={!help} />;
 	else if (screen === 'signoff') {
-		body = <SignOffScreen session={session} initial={{setup: session.setup, name: saved.operator ?? '', role: saved.role ?? '', cosignName: '', cosignRole: '', cosignKey: ''}} {...(signError ? {error: signError} : {})} onSign={sign} onBack={() => setScreen('summary')} />;
+		body = <SignOffScreen session={session} initial={{setup: session.setup, name: saved.operator ?? '', role: saved.role ?? '', cosignName: '', cosignRole: '', cosignKey: ''}} {...(signError ? {error: signError} : {})} onSign={sign} onBack={() => setScreen('summary')} onHelp={() => setHelp(true)} active={!help} />;
 	} else if (screen === 'done' && written)
 		body = (
 			<DoneScreen

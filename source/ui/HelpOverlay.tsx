@@ -72,6 +72,13 @@ export const screenKeys: Record<string, Array<[string, string]>> = {
 		['PgDn', 'to the tester, the witness and the date'],
 		['Esc', 'leave (asks before the entries are dropped)'],
 	],
+	settings: [
+		['type', 'fill a field'],
+		['Enter', 'check and save the field'],
+		['↑ ↓', 'move between fields'],
+		['Esc', 'back to the home screen'],
+	],
+	info: [['Enter Esc', 'back to the home screen']],
 	done: [
 		['s', 'save these inputs as a named setup'],
 		['Enter', 'back to the home screen'],

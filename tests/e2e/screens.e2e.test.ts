@@ -334,6 +334,28 @@ describe.skipIf(!haveTmux())('the screens at 80x24, as a technician meets them',
 		expect(opened.split('\n')[0]).toMatch(/^prelase · bench check/);
 	});
 
+	it("shows a step's verdicts after its last answer until the user moves on, each title whole", {timeout: 60_000}, async () => {
+		const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
+		seedDemoDraft(home, [], 4);
+		const session = start('step-verdicts', home, '', [80, 24]);
+		let screen = await resumeAndPage(session, (now) => now.includes('Step 5 of 9: Driver dissipation'), 'step 5');
+		// Enter on each field accepts the value the draft holds; after the last one the step stays.
+		for (let guard = 0; guard < 8 && screen.split('\n').some((line) => line.startsWith('› ')); guard += 1) {
+			session.press('Enter');
+			screen = await session.waitFor((now) => now !== screen, 'the next field');
+			screen = await session.settle();
+		}
+		expect(screen).toContain('Step 5 of 9: Driver dissipation');
+		const flat = screen.replaceAll(/\s+/g, ' ');
+		// The step's two checks (rules/default.yaml, step thermal), whole, with their verdicts.
+		expect(flat).toContain('✓ pass Worst-case driver dissipation within its derated rating');
+		expect(flat).toContain('! advise Dissipation with the output shorted within the derated rating');
+		expect(screen).toContain('Enter or PgDn: on to step 6');
+		expect(screen.split('\n')[0]).toMatch(/^prelase · bench check/);
+		session.press('Enter');
+		await session.waitFor((now) => now.includes('Step 6 of 9'), 'step 6 after Enter');
+	});
+
 	it('step 8 keeps its title line and key line on the screen', {timeout: 60_000}, async () => {
 		const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
 		seedDemoDraft(home, [], 7);

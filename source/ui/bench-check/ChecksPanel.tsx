@@ -19,7 +19,7 @@ export function checkDetailLines(check: CheckResult, width: number): string[] {
  * above them, one line for each derived value the step shows (a converted or worst-case figure).
  * As many checks as fit in `rows` are shown whole; the rest are counted and left to the summary.
  */
-export function ChecksPanel({checks, rows, width = 80, derived = []}: {checks: CheckResult[]; rows: number; width?: number; derived?: ShownDerived[]}) {
+export function ChecksPanel({checks, rows, width = 80, derived = [], full = false}: {checks: CheckResult[]; rows: number; width?: number; derived?: ShownDerived[]; /** Derived values' labels wrapped whole rather than cut. @default false */ full?: boolean}) {
 	if (checks.length === 0 && derived.length === 0) return <Text dimColor>No checks in this step; its confirmations are listed above.</Text>;
 	const shown: Array<{check: CheckResult; title: string[]; detail: string[]}> = [];
 	let used = 0;
@@ -33,7 +33,7 @@ export function ChecksPanel({checks, rows, width = 80, derived = []}: {checks: C
 	return (
 		<Box flexDirection="column">
 			{derived.map(({entry, text}) => (
-				<Text key={entry.id} dimColor wrap="truncate">
+				<Text key={entry.id} dimColor wrap={full ? 'wrap' : 'truncate'}>
 					{`= ${stripControl(text)}`.padEnd(10)} {stripControl(entry.label)}
 				</Text>
 			))}

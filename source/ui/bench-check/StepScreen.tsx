@@ -82,10 +82,13 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 		const current = getSession();
 		editor.set(editorFor(current, stepFields(current, stepIndex)[index], index));
 	};
+	/** After the last answer the step stays, showing its verdicts, until the user moves on. */
+	const hasVerdicts = () => session.evaluation.checks.some((check) => check.step === session.rules.rules.steps[stepIndex]!.id);
 	const move = (delta: number) => {
 		const next = editor.current.focus + delta;
 		const count = fieldsNow().length;
-		if (next >= count) onStep(stepIndex + 1);
+		if (next === count && count > 0 && hasVerdicts()) editor.set({...editorFor(getSession(), undefined, count)});
+		else if (next >= count) onStep(stepIndex + 1);
 		else if (next < 0) {
 			if (stepIndex > 0) onStep(stepIndex - 1);
 		} else focusTo(next);
@@ -137,6 +140,13 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 		if (key.pageDown) return onStep(stepIndex + 1);
 		if (key.pageUp) return stepIndex > 0 ? onStep(stepIndex - 1) : undefined;
 		if (key.escape) return onBack();
+		if (fields.length > 0 && state.focus >= fields.length) {
+			// Reviewing the step's verdicts: on, or back to the last field.
+			if (key.return || key.downArrow) onStep(stepIndex + 1);
+			else if (key.upArrow) focusTo(fields.length - 1);
+			else if (input === '?' && arrival.alone) onHelp();
+			return;
+		}
 		if (!field) {
 			if (key.return) onStep(stepIndex + 1);
 			return;
@@ -206,6 +216,26 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 	const panelRows = Math.min(rows < 30 ? 6 : 8, Math.max(2, checks.length * 2));
 	const derived = shownDerived(session.evaluation, step.id);
 	const summary = step.summary ? wrap(stripControl(step.summary), width) : [];
+	const steps = session.rules.rules.steps;
+	if (fields.length > 0 && state.focus >= fields.length) {
+		const next = steps[stepIndex + 1];
+		return (
+			<Box flexDirection="column">
+				<Text bold>
+					Step {stepIndex + 1} of {steps.length}: {stripControl(step.title)}
+				</Text>
+				<Text dimColor>All {fields.length} fields of this step answered · ↑ back to the last field</Text>
+				<Box marginTop={1} flexDirection="column">
+					<ChecksPanel checks={checks} rows={Math.max(4, rows - derived.length * 2 - 5)} derived={derived} width={width} full />
+				</Box>
+				<Box marginTop={1}>
+					<Text bold wrap="truncate">
+						{next ? `Enter or PgDn: on to step ${stepIndex + 2}: ${stripControl(next.title)}` : 'Enter or PgDn: on to the summary'}
+					</Text>
+				</Box>
+			</Box>
+		);
+	}
 	return (
 		<Box flexDirection="column">
 			<Text bold>
