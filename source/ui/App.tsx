@@ -7,6 +7,7 @@ import {recordsFolder, trustedFingerprints} from '../services/records-folder.js'
 import {loadDraft, removeDraft, saveDraft, type Draft} from '../services/drafts/draft-store.js';
 import {listSetups, loadSetup, saveSetup} from '../services/drafts/setup-store.js';
 import {displayPath} from '../shared/display-path.js';
+import {checkRuleFileSetting} from '../services/rule-file-setting.js';
 import {openPlanForEditing, planEditingFromText, planEditingText, type PlanEditing} from '../interlock/plan/plan-edit.js';
 import {loadPlanDraft, removePlanDraft, savePlanDraft} from '../services/drafts/plan-draft-store.js';
 import {restoreDraft, type DraftNotice} from './draft-restore.js';
@@ -46,17 +47,21 @@ export type AppProps = {
 	/** Audits the records folder and returns lines to show (kept outside so the core stays out of the screens). */
 	audit?: (folder: string) => Promise<string[]>;
 	onExit(code: number): void;
+	/** The rule file named in the settings does not load: the home screen says so and no check starts until it is fixed or the shipped policy is chosen. */
+	brokenRules?: {file: string; settingsPath: string; problems: string[]};
 };
 
 /** The bench-check interface: home, steps, summary, sign-off, and the pages around them. */
-export function App({rules, settings, env, startCheck, startPlan, audit, onExit}: AppProps) {
+export function App({rules: givenRules, settings, env, startCheck, startPlan, audit, onExit, brokenRules}: AppProps) {
 	const {exit} = useApp();
+	const [rules, setRules] = useState(givenRules);
+	const [broken, setBroken] = useState(brokenRules);
 	const {stdout} = useStdout();
 	const rows = stdout.rows ?? 24;
 	const width = stdout.columns ?? 80;
 	// The plan is opened before the first frame, so `plan FILE --edit` starts on it (or on its problems).
 	const [plan, setPlan] = useState<{editing?: PlanEditing; problems?: string[]; notice?: {text: string; error?: boolean}}>(() => (startPlan === undefined ? {} : openPlan(startPlan)));
-	const [screen, setScreen] = useState<Screen>(startPlan !== undefined ? (plan.editing ? 'planner' : 'plan-open') : startCheck ? 'step' : 'home');
+	const [screen, setScreen] = useState<Screen>(startPlan !== undefined ? (plan.editing ? 'planner' : 'plan-open') : startCheck && !broken ? 'step' : 'home');
 	const [stepIndex, setStepIndex] = useState(0);
 	// Confirmations answered by the interlock test come from the records folder; plan paths are read from the working folder.
 	const linker = useMemo(() => cachedLinker(rules, () => ({base: process.cwd(), folder: recordsFolder(env), trusted: trustedFingerprints(env), now: new Date()})), [rules, env]);
@@ -123,7 +128,21 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 		setWriteProblem(refusedWrite(() => saveDraft(settings.folder, {rulesFile: rules.file, rulesSha256: rules.sha256, setup: session.setup, entries: {...session.entries}, confirmations, step: stepIndex, savedAt: new Date().toISOString()})));
 	}, [session, stepIndex, screen]);
 
+	/** Rules that loaded, from Settings or the shipped policy: they are in force from now on, and a check may start. */
+	const useRules = (loaded: CompiledRules) => {
+		setRules(loaded);
+		setBroken(undefined);
+	};
+	const checkRuleFile = (typed: string) => {
+		const checked = checkRuleFileSetting(typed, process.cwd());
+		if (!checked.ok) return {ok: false as const, problems: checked.errors.map(formatProblem)};
+		useRules(checked.value.rules);
+		return {ok: true as const, value: checked.value.file};
+	};
+
 	const choose = (choice: HomeChoice) => {
+		// No check starts on a rule file that does not load (the menu does not offer one; this holds for any other way in).
+		if (broken && (choice.action === 'start' || choice.action === 'resume' || choice.action === 'setup')) return;
 		switch (choice.action) {
 			case 'start':
 				setSession(startSession(rules, {}, linker));
@@ -161,6 +180,11 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 				return setScreen('plan-open');
 			case 'settings':
 				return setScreen('settings');
+			case 'shipped': {
+				const shipped = checkRuleFileSetting('', process.cwd());
+				if (shipped.ok) useRules(shipped.value.rules);
+				return;
+			}
 			case 'quit':
 				return quit(0);
 		}
@@ -211,7 +235,7 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 			{/* A long setup name is cut, never drawn over the title. */}
 			<Box flexShrink={1} marginLeft={2} justifyContent="flex-end">
 				<Text dimColor wrap="truncate">
-					{stripControl(session.setup || rules.rules.name)}
+					{broken ? 'no rules in force: the rule file does not load' : stripControl(session.setup || rules.rules.name)}
 				</Text>
 			</Box>
 		</Box>
@@ -230,7 +254,7 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 	};
 
 	let body;
-	if (screen === 'home') body = <HomeScreen rulesName={rules.rules.name} rulesFile={displayPath(rules.file)} rulesSha256={rules.sha256} caution={rules.rules.caution} {...(draft ? {draft: {setup: draft.setup, savedAt: draft.savedAt}} : {})} setups={setups} onChoose={choose} />;
+	if (screen === 'home') body = <HomeScreen {...(broken ? {broken} : {})} rulesName={rules.rules.name} rulesFile={displayPath(rules.file)} rulesSha256={rules.sha256} caution={rules.rules.caution} {...(draft ? {draft: {setup: draft.setup, savedAt: draft.savedAt}} : {})} setups={setups} onChoose={choose} />;
 	else if (screen === 'step')
 		body = (
 			<StepScreen
@@ -277,7 +301,7 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 		};
 		body = <PlanOpenScreen initial={plan.problems && startPlan ? startPlan : (saved.planFile ?? '')} {...(plan.problems ? {problems: plan.problems} : {})} onOpen={open} onBack={() => setScreen('home')} onHelp={() => setHelp(true)} active={!help} />;
 	} else if (screen === 'planner' && plan.editing) body = <PlannerScreen editing={plan.editing} rulesName={rules.rules.name} rows={rows - 3} width={width} recorder={testRecorder(rules, settings, env)} drafts={planDrafts} testDrafts={testDraftsIn(settings.folder)} notice={plan.notice} onLeave={() => setScreen('home')} />;
-	else if (screen === 'settings') body = <SettingsScreen initial={saved} path={settings.path} onSave={(changes) => settings.write(changes)} onBack={() => setScreen('home')} />;
+	else if (screen === 'settings') body = <SettingsScreen initial={saved} path={settings.path} onSave={(changes) => settings.write(changes)} check={{rulesFile: checkRuleFile}} onBack={() => setScreen('home')} />;
 	else body = <InfoScreen title={info.title} lines={info.lines} onBack={() => setScreen('home')} />;
 
 	return (

@@ -356,6 +356,75 @@ describe.skipIf(!haveTmux())('the screens at 80x24, as a technician meets them',
 		await session.waitFor((now) => now.includes('Step 6 of 9'), 'step 6 after Enter');
 	});
 
+	it('Settings refuses a rule file with problems, shows them in place, and stores a good one as an absolute path', {timeout: 60_000}, async () => {
+		const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
+		const work = mkdtempSync(join(tmpdir(), 'prelase-e2e-work-'));
+		writeFileSync(join(work, 'site.yaml'), 'name: Site policy\nsteps: [\n');
+		writeFileSync(join(work, 'good.yaml'), readFileSync('rules/default.yaml'));
+		const session = new TmuxSession('settings-rules', `cd ${work} && env -u CI -u CONTINUOUS_INTEGRATION PRELASE_HOME=${home} node ${program}; echo "EXITED $?"; sleep 30`, 80, 24);
+		sessions.push(session);
+		await session.waitFor((screen) => screen.includes('Settings ('), 'the home screen');
+		await session.settle();
+		for (let step = 0; !session.screen().includes('❯ Settings') && step < 6; step += 1) {
+			session.press('Down');
+			await session.settle();
+		}
+		session.press('Enter');
+		await session.waitFor((screen) => /^Settings$/m.test(screen), 'the settings');
+		session.press('Down', 'Down', 'Down');
+		await session.waitFor((screen) => /^› Rule file/m.test(screen), 'the rule file field');
+		session.type('site.yaml');
+		session.press('Enter');
+		// rules validate says of this file: site.yaml:3:1: error: YAML syntax error (a flow sequence never closed).
+		let screen = await session.waitFor((now) => now.includes('YAML syntax error'), 'the problem shown in place');
+		expect(screen).toContain(`${join(work, 'site.yaml')}:3:1`);
+		expect(screen).not.toContain('Rule file saved');
+		expect(openSettings({PRELASE_HOME: home}).read().rulesFile).toBeUndefined();
+		for (let index = 0; index < 9; index += 1) session.press('BSpace');
+		session.type('good.yaml');
+		session.press('Enter');
+		screen = await session.waitFor((now) => now.includes('✓ Rule file'), 'the good file saved');
+		expect(screen).not.toContain('YAML syntax error');
+		expect(openSettings({PRELASE_HOME: home}).read().rulesFile).toBe(join(work, 'good.yaml'));
+	});
+
+	it('opens the home screen with a broken rule file in the settings, names the setting, and offers Settings and the shipped policy', {timeout: 60_000}, async () => {
+		const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
+		const broken = join(home, 'site.yaml');
+		writeFileSync(broken, 'name: Site policy\nsteps: [\n');
+		writeFileSync(join(home, 'config.json'), JSON.stringify({rulesFile: broken}));
+		const session = start('broken-rules', home, '', [80, 24]);
+		let screen = await session.waitFor((now) => now.includes('Quit') || now.includes('EXITED'), 'the home screen');
+		screen = await session.settle();
+		const flat = screen.replaceAll(/\s+/g, ' ');
+		expect(screen).not.toContain('EXITED');
+		expect(flat).toContain('Rule file');
+		expect(flat).toContain(join(home, 'config.json'));
+		expect(flat).toContain('YAML syntax error');
+		expect(screen).toContain('Settings');
+		expect(screen).toMatch(/shipped policy/);
+		expect(screen).not.toContain('Start a bench check');
+		for (let step = 0; !/❯ .*shipped policy/.test(session.screen()) && step < 6; step += 1) {
+			session.press('Down');
+			await session.settle();
+		}
+		session.press('Enter');
+		screen = await session.waitFor((now) => now.includes('Start a bench check'), 'the check offered under the shipped policy');
+		expect(screen).toContain('prelase bench policy (shipped default)');
+		session.press('Enter');
+		await session.waitFor((now) => now.includes('Step 1 of 9'), 'the first step');
+	});
+
+	it('prelase check with a broken rule file in the settings opens the home screen, not an error', {timeout: 60_000}, async () => {
+		const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
+		writeFileSync(join(home, 'config.json'), JSON.stringify({rulesFile: 'nowhere/site.yaml'}));
+		const session = start('broken-check', home, 'check', [80, 24]);
+		const screen = await session.waitFor((now) => now.includes('Quit') || now.includes('EXITED'), 'the home screen');
+		expect(screen).not.toContain('EXITED');
+		expect(screen).not.toContain('Step 1 of 9');
+		expect(screen.replaceAll(/\s+/g, ' ')).toContain('nowhere/site.yaml');
+	});
+
 	it('step 8 keeps its title line and key line on the screen', {timeout: 60_000}, async () => {
 		const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
 		seedDemoDraft(home, [], 7);
