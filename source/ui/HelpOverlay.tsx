@@ -78,7 +78,10 @@ export const screenKeys: Record<string, Array<[string, string]>> = {
 		['↑ ↓', 'move between fields'],
 		['Esc', 'back to the home screen'],
 	],
-	info: [['Enter Esc', 'back to the home screen']],
+	info: [
+		['↑ ↓ PgUp PgDn', 'scroll'],
+		['Enter Esc', 'back to the home screen'],
+	],
 	done: [
 		['s', 'save these inputs as a named setup'],
 		['Enter', 'back to the home screen'],

@@ -425,6 +425,44 @@ describe.skipIf(!haveTmux())('the screens at 80x24, as a technician meets them',
 		expect(screen.replaceAll(/\s+/g, ' ')).toContain('nowhere/site.yaml');
 	});
 
+	it('the audit on the home screen fits 80 columns and scrolls, title and key line in place', {timeout: 60_000}, async () => {
+		const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
+		const records = join(home, 'records');
+		for (let index = 0; index < 3; index += 1) {
+			const signed = spawnSync('node', [program, 'check', '--answers', 'docs/examples/bench3-808nm-clear.yaml', '--sign', 'Dana Whitlow', '--records', records], {env: {...process.env, PRELASE_HOME: home}, encoding: 'utf8'});
+			expect(signed.status, signed.stderr).toBe(0);
+		}
+		writeFileSync(join(home, 'config.json'), JSON.stringify({recordsFolder: records}));
+		const session = start('audit-fit', home, '', [80, 24]);
+		await session.waitFor((screen) => screen.includes('Audit the records folder'), 'the home screen');
+		await session.settle();
+		for (let step = 0; !session.screen().includes('❯ Audit the records folder') && step < 5; step += 1) {
+			session.press('Down');
+			await session.settle();
+		}
+		session.press('Enter');
+		let screen = await session.waitFor((now) => now.includes('↓') && now.includes('more'), 'the audit, with more below');
+		const check = (now: string) => {
+			const lines = now.split('\n');
+			expect(lines[0]).toMatch(/^prelase · bench check/);
+			expect(lines[2]).toContain(`Audit of ${records}`);
+			// No table row wrapped into the next line: a column head is never cut in two.
+			expect(now).not.toMatch(/^rded|^-on-ld/m);
+			expect(now).toContain('Enter or Esc back');
+		};
+		check(screen);
+		expect(screen).not.toContain('Result:');
+		for (let page = 0; page < 30 && !session.screen().includes('Result:'); page += 1) {
+			const before = session.screen();
+			session.press('PageDown');
+			screen = await session.waitFor((now) => now !== before, 'the next page of the audit');
+			check(screen);
+		}
+		expect(screen).toContain('Result: authentic');
+		session.press('Escape');
+		await session.waitFor((now) => now.includes('Audit the records folder'), 'the home screen again');
+	});
+
 	it('step 8 keeps its title line and key line on the screen', {timeout: 60_000}, async () => {
 		const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
 		seedDemoDraft(home, [], 7);
