@@ -352,6 +352,11 @@ describe.skipIf(!haveTmux())('the screens at 80x24, as a technician meets them',
 		expect(flat).toContain('! advise Dissipation with the output shorted within the derated rating');
 		expect(screen).toContain('Enter or PgDn: on to step 6');
 		expect(screen.split('\n')[0]).toMatch(/^prelase · bench check/);
+		// ↑ goes back to the last field, ↓ from it shows the verdicts again.
+		session.press('Up');
+		await session.waitFor((now) => now.split('\n').some((line) => line.startsWith('› ')), 'the last field');
+		session.press('Down');
+		await session.waitFor((now) => now.includes('Enter or PgDn: on to step 6'), 'the verdicts again');
 		session.press('Enter');
 		await session.waitFor((now) => now.includes('Step 6 of 9'), 'step 6 after Enter');
 	});

@@ -6,7 +6,7 @@ import {useRefState} from '../use-ref-state.js';
 import {shownDerived} from '../../rules/evaluate/shown-derived.js';
 import {stripControl} from '../../shared/text.js';
 import {wrap} from '../../shared/wrap.js';
-import {ChecksPanel} from './ChecksPanel.js';
+import {ChecksPanel, derivedLines} from './ChecksPanel.js';
 import {FieldList} from './FieldList.js';
 import {answerConfirmation, answeredByRecord, enterInput, stepFields, type Field, type Session} from './session.js';
 import {typeInto} from '../text-buffer.js';
@@ -32,7 +32,7 @@ export type StepScreenProps = {
  * `suggested`: the buffer holds a default not typed by the operator; the first key replaces it.
  * `stray`: text typed on a question answered by single keys; held, shown, and never an answer.
  */
-type Editor = {focus: number; buffer: string; choice: number; message?: string; noteMode: boolean; suggested?: boolean; stray: string};
+type Editor = {focus: number; buffer: string; choice: number; message?: string; noteMode: boolean; suggested?: boolean; stray: string; /** While the step's verdicts are reviewed: the first check shown. */ reviewFrom?: number};
 
 const confirmationKeys = {y: 'yes', n: 'no', a: 'not_applicable'} as const;
 const yesNoKeys = {y: 'yes', n: 'no'} as const;
@@ -142,8 +142,11 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 		if (key.escape) return onBack();
 		if (fields.length > 0 && state.focus >= fields.length) {
 			// Reviewing the step's verdicts: on, or back to the last field.
-			if (key.return || key.downArrow) onStep(stepIndex + 1);
-			else if (key.upArrow) focusTo(fields.length - 1);
+			const from = state.reviewFrom ?? 0;
+			const checkCount = session.evaluation.checks.filter((check) => check.step === session.rules.rules.steps[stepIndex]!.id).length;
+			if (key.return) onStep(stepIndex + 1);
+			else if (key.downArrow) update({reviewFrom: Math.min(Math.max(0, checkCount - 1), from + 1)});
+			else if (key.upArrow) return from > 0 ? update({reviewFrom: from - 1}) : focusTo(fields.length - 1);
 			else if (input === '?' && arrival.alone) onHelp();
 			return;
 		}
@@ -219,14 +222,17 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 	const steps = session.rules.rules.steps;
 	if (fields.length > 0 && state.focus >= fields.length) {
 		const next = steps[stepIndex + 1];
+		// Title, the answered line, two blank lines, the line to go on, and the "… more" line of the panel.
 		return (
 			<Box flexDirection="column">
 				<Text bold>
 					Step {stepIndex + 1} of {steps.length}: {stripControl(step.title)}
 				</Text>
-				<Text dimColor>All {fields.length} fields of this step answered · ↑ back to the last field</Text>
+				<Text dimColor wrap="truncate">
+					{(state.reviewFrom ?? 0) > 0 ? `↑ ${state.reviewFrom} more checks above` : `All ${fields.length} fields of this step answered · ↑ back to the last field`}
+				</Text>
 				<Box marginTop={1} flexDirection="column">
-					<ChecksPanel checks={checks} rows={Math.max(4, rows - derived.length * 2 - 5)} derived={derived} width={width} full />
+					<ChecksPanel checks={checks} rows={Math.max(4, rows - derived.reduce((sum, shown) => sum + derivedLines(shown, width, true).length, 0) - 7)} derived={derived} width={width} full from={state.reviewFrom ?? 0} />
 				</Box>
 				<Box marginTop={1}>
 					<Text bold wrap="truncate">
