@@ -301,7 +301,7 @@ export function App({rules: givenRules, settings, env, startCheck, startPlan, au
 		};
 		body = <PlanOpenScreen initial={plan.problems && startPlan ? startPlan : (saved.planFile ?? '')} {...(plan.problems ? {problems: plan.problems} : {})} onOpen={open} onBack={() => setScreen('home')} onHelp={() => setHelp(true)} active={!help} />;
 	} else if (screen === 'planner' && plan.editing) body = <PlannerScreen editing={plan.editing} rulesName={rules.rules.name} rows={rows - 3} width={width} recorder={testRecorder(rules, settings, env)} drafts={planDrafts} testDrafts={testDraftsIn(settings.folder)} notice={plan.notice} onLeave={() => setScreen('home')} />;
-	else if (screen === 'settings') body = <SettingsScreen initial={saved} path={settings.path} onSave={(changes) => settings.write(changes)} check={{rulesFile: checkRuleFile}} onBack={() => setScreen('home')} />;
+	else if (screen === 'settings') body = <SettingsScreen initial={saved} path={settings.path} onSave={(changes) => settings.write(changes)} check={{rulesFile: checkRuleFile}} onHelp={() => setHelp(true)} active={!help} onBack={() => setScreen('home')} />;
 	else body = <InfoScreen title={info.title} lines={info.lines} rows={rows - 4} width={width} onBack={() => setScreen('home')} />;
 
 	return (

@@ -21,6 +21,7 @@ export const screenKeys: Record<string, Array<[string, string]>> = {
 		['Backspace', 'clear text typed on a confirmation, then answer'],
 		['Tab', 'write a note to an answered confirmation'],
 		['PgDn PgUp', 'next / previous step'],
+		['last answer', "the step's verdicts stay: ↓ ↑ scroll, Enter goes on"],
 		['Esc', 'back'],
 		['?', 'this help'],
 		['Ctrl-C', 'quit (your answers are kept as a draft)'],

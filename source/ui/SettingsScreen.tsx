@@ -1,5 +1,5 @@
 import {Box, Text, type Key} from 'ink';
-import {useKeystrokes} from './use-keystrokes.js';
+import {useKeystrokes, type Arrival} from './use-keystrokes.js';
 import {useRefState} from './use-ref-state.js';
 import type {Settings} from '../services/settings.js';
 import {typeInto} from './text-buffer.js';
@@ -17,19 +17,20 @@ const fields: Array<{key: keyof Settings; label: string}> = [
 export type SettingCheck = (typed: string) => {ok: true; value: string} | {ok: false; problems: string[]};
 
 /** Edits the settings; each field is checked (where it has a check) and saved when Enter is pressed on it. */
-export function SettingsScreen({initial, path, onSave, onBack, check = {}}: {initial: Settings; path: string; onSave(settings: Settings): void; onBack(): void; /** Checks by field: a value that fails is not saved, and its problems are shown under the fields. */ check?: Partial<Record<keyof Settings, SettingCheck>>}) {
+export function SettingsScreen({initial, path, onSave, onBack, onHelp, active = true, check = {}}: {initial: Settings; path: string; onSave(settings: Settings): void; onBack(): void; /** `?` alone on an empty field: the keys, then the caution in full. */ onHelp?(): void; /** False while the help covers the screen. @default true */ active?: boolean; /** Checks by field: a value that fails is not saved, and its problems are shown under the fields. */ check?: Partial<Record<keyof Settings, SettingCheck>>}) {
 	// Kept in a ref: a burst of keys is handled before React draws the next frame.
 	const state = useRefState(() => ({values: initial, focus: 0, saved: undefined as string | undefined, problems: [] as string[]}));
 	const set = state.patch;
 	const setFocus = (focus: number) => set({focus});
-	useKeystrokes(handleKey);
-	function handleKey(input: string, key: Key) {
+	useKeystrokes(handleKey, {isActive: active});
+	function handleKey(input: string, key: Key, arrival: Arrival) {
 		const {values, focus} = state.current;
 		if (key.ctrl) return;
 		if (key.escape) return onBack();
 		if (key.upArrow) return set({focus: Math.max(0, focus - 1), problems: []});
 		if (key.downArrow) return set({focus: Math.min(fields.length - 1, focus + 1), problems: []});
 		const field = fields[focus]!;
+		if (input === '?' && arrival.alone && onHelp && (values[field.key] ?? '') === '') return onHelp();
 		const change = typeInto(values[field.key] ?? '', input, key);
 		const next = {...values, [field.key]: change.text};
 		if (!change.submit) return set({values: next});
