@@ -141,7 +141,11 @@ export function recordText(audit: RecordAudit, paint: Paint, width = 100): strin
 	return out;
 }
 
-function tableText(report: AuditReport): string[] {
+/**
+ * The records side by side: a table when it fits the width, else a block per record (its file
+ * on its own lines, then the same columns as words), so nothing wraps into "Outcome (reco / rded)".
+ */
+function tableText(report: AuditReport, width: number): string[] {
 	const cells = report.records.map((audit, index) => [
 		String(index + 1),
 		inline(displayPath(audit.file), 300),
@@ -155,7 +159,14 @@ function tableText(report: AuditReport): string[] {
 	const header = ['#', 'File', 'Created', 'Outcome (recorded)', 'Integrity', 'Consistent', 'Current rules', 'Findings'];
 	const widths = header.map((title, column) => Math.max(title.length, ...cells.map((cell) => cell[column]!.length)));
 	const line = (cell: string[]) => cell.map((text, column) => (column === 0 || column === 7 ? text.padStart(widths[column]!) : text.padEnd(widths[column]!))).join('  ').trimEnd();
-	return [line(header), line(widths.map((size) => '-'.repeat(size))), ...cells.map(line)];
+	const table = [line(header), line(widths.map((size) => '-'.repeat(size))), ...cells.map(line)];
+	if (table.every((text) => [...text].length <= width)) return table;
+	return cells.flatMap(([number, file, created, outcome, integrity, consistent, current, findings]) => {
+		const head = `${number}. `;
+		const fileLines = [...file!].length + head.length <= width ? [`${head}${file}`] : [head.trimEnd(), ...foldText(file!, width - 3).map((piece) => `   ${piece}`)];
+		const facts = [created, outcome, integrity, `consistent ${consistent}`, `current rules ${current}`, count(Number(findings), 'finding')].filter(Boolean).join(' · ');
+		return [...fileLines, ...wrap(facts, width, '   ')];
+	});
 }
 
 /** The audit for a person: each record's summary, a table with totals for several records, and the result. */
@@ -164,7 +175,7 @@ export function auditText(report: AuditReport, paint: Paint, width = 100): strin
 	for (const audit of report.records) out.push(...recordText(audit, paint, width), '');
 	for (const repository of report.repositories ?? []) out.push(...repositoryLines(repository, paint, width), '');
 	const {totals} = report;
-	if (totals.records > 1) out.push(...tableText(report), '');
+	if (totals.records > 1) out.push(...tableText(report, width), '');
 	out.push(totalsLine(report), ...resultLines(report, paint, width));
 	return out.join('\n');
 }
@@ -186,4 +197,12 @@ export function resultLines(report: AuditReport, paint: Paint, width: number): s
 		authentic_and_consistent: paint.pass('Result: every record is authentic and its conclusions follow from its numbers.'),
 	}[report.status];
 	return [result, ...wrap(`The audit says whether records are authentic and whether their conclusions follow from their numbers. ${deferral}`, width, '  ')];
+}
+
+/** Cuts text with no spaces to break at (a path) into pieces of at most `width` characters. */
+function foldText(text: string, width: number): string[] {
+	const characters = [...text];
+	const pieces: string[] = [];
+	for (let start = 0; start < characters.length; start += Math.max(10, width)) pieces.push(characters.slice(start, start + Math.max(10, width)).join(''));
+	return pieces;
 }

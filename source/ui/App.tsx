@@ -7,6 +7,7 @@ import {recordsFolder, trustedFingerprints} from '../services/records-folder.js'
 import {loadDraft, removeDraft, saveDraft, type Draft} from '../services/drafts/draft-store.js';
 import {listSetups, loadSetup, saveSetup} from '../services/drafts/setup-store.js';
 import {displayPath} from '../shared/display-path.js';
+import {checkRuleFileSetting} from '../services/rule-file-setting.js';
 import {openPlanForEditing, planEditingFromText, planEditingText, type PlanEditing} from '../interlock/plan/plan-edit.js';
 import {loadPlanDraft, removePlanDraft, savePlanDraft} from '../services/drafts/plan-draft-store.js';
 import {restoreDraft, type DraftNotice} from './draft-restore.js';
@@ -14,6 +15,8 @@ import {describeProblem, formatProblem} from '../shared/problems.js';
 import type {CompiledRules} from '../rules/compile/compiled-rules.js';
 import type {SettingsStore} from '../services/settings.js';
 import {stripControl} from '../shared/text.js';
+import {CautionContext} from './caution-context.js';
+import {CautionLine} from './CautionLine.js';
 import {DoneScreen} from './DoneScreen.js';
 import {HelpOverlay} from './HelpOverlay.js';
 import {HomeScreen, type HomeChoice} from './HomeScreen.js';
@@ -44,17 +47,21 @@ export type AppProps = {
 	/** Audits the records folder and returns lines to show (kept outside so the core stays out of the screens). */
 	audit?: (folder: string) => Promise<string[]>;
 	onExit(code: number): void;
+	/** The rule file named in the settings does not load: the home screen says so and no check starts until it is fixed or the shipped policy is chosen. */
+	brokenRules?: {file: string; settingsPath: string; problems: string[]};
 };
 
 /** The bench-check interface: home, steps, summary, sign-off, and the pages around them. */
-export function App({rules, settings, env, startCheck, startPlan, audit, onExit}: AppProps) {
+export function App({rules: givenRules, settings, env, startCheck, startPlan, audit, onExit, brokenRules}: AppProps) {
 	const {exit} = useApp();
+	const [rules, setRules] = useState(givenRules);
+	const [broken, setBroken] = useState(brokenRules);
 	const {stdout} = useStdout();
 	const rows = stdout.rows ?? 24;
 	const width = stdout.columns ?? 80;
 	// The plan is opened before the first frame, so `plan FILE --edit` starts on it (or on its problems).
 	const [plan, setPlan] = useState<{editing?: PlanEditing; problems?: string[]; notice?: {text: string; error?: boolean}}>(() => (startPlan === undefined ? {} : openPlan(startPlan)));
-	const [screen, setScreen] = useState<Screen>(startPlan !== undefined ? (plan.editing ? 'planner' : 'plan-open') : startCheck ? 'step' : 'home');
+	const [screen, setScreen] = useState<Screen>(startPlan !== undefined ? (plan.editing ? 'planner' : 'plan-open') : startCheck && !broken ? 'step' : 'home');
 	const [stepIndex, setStepIndex] = useState(0);
 	// Confirmations answered by the interlock test come from the records folder; plan paths are read from the working folder.
 	const linker = useMemo(() => cachedLinker(rules, () => ({base: process.cwd(), folder: recordsFolder(env), trusted: trustedFingerprints(env), now: new Date()})), [rules, env]);
@@ -110,6 +117,8 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 	};
 	useInput((input, key) => {
 		if (key.ctrl && input === 'c') quit(130);
+		// Screens without a field to type in take `?` here: the keys, then the caution in full.
+		else if (input === '?' && !help && (screen === 'done' || screen === 'info')) setHelp(true);
 	});
 
 	// Never lose an answer: the draft is saved after every change while a check is open.
@@ -119,7 +128,21 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 		setWriteProblem(refusedWrite(() => saveDraft(settings.folder, {rulesFile: rules.file, rulesSha256: rules.sha256, setup: session.setup, entries: {...session.entries}, confirmations, step: stepIndex, savedAt: new Date().toISOString()})));
 	}, [session, stepIndex, screen]);
 
+	/** Rules that loaded, from Settings or the shipped policy: they are in force from now on, and a check may start. */
+	const useRules = (loaded: CompiledRules) => {
+		setRules(loaded);
+		setBroken(undefined);
+	};
+	const checkRuleFile = (typed: string) => {
+		const checked = checkRuleFileSetting(typed, process.cwd());
+		if (!checked.ok) return {ok: false as const, problems: checked.errors.map(formatProblem)};
+		useRules(checked.value.rules);
+		return {ok: true as const, value: checked.value.file};
+	};
+
 	const choose = (choice: HomeChoice) => {
+		// No check starts on a rule file that does not load (the menu does not offer one; this holds for any other way in).
+		if (broken && (choice.action === 'start' || choice.action === 'resume' || choice.action === 'setup')) return;
 		switch (choice.action) {
 			case 'start':
 				setSession(startSession(rules, {}, linker));
@@ -157,6 +180,11 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 				return setScreen('plan-open');
 			case 'settings':
 				return setScreen('settings');
+			case 'shipped': {
+				const shipped = checkRuleFileSetting('', process.cwd());
+				if (shipped.ok) useRules(shipped.value.rules);
+				return;
+			}
 			case 'quit':
 				return quit(0);
 		}
@@ -201,8 +229,15 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 
 	const header = (
 		<Box borderStyle="single" borderLeft={false} borderRight={false} borderTop={false} justifyContent="space-between">
-			<Text bold>prelase · {screen === 'planner' || screen === 'plan-open' ? 'interlock planner' : 'bench check'}</Text>
-			<Text dimColor>{stripControl(session.setup || rules.rules.name)}</Text>
+			<Box flexShrink={0}>
+				<Text bold>prelase · {screen === 'planner' || screen === 'plan-open' ? 'interlock planner' : 'bench check'}</Text>
+			</Box>
+			{/* A long setup name is cut, never drawn over the title. */}
+			<Box flexShrink={1} marginLeft={2} justifyContent="flex-end">
+				<Text dimColor wrap="truncate">
+					{broken ? 'no rules in force: the rule file does not load' : stripControl(session.setup || rules.rules.name)}
+				</Text>
+			</Box>
 		</Box>
 	);
 	const footer: Record<Screen, string> = {
@@ -212,14 +247,14 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 		signoff: 'Enter next · ↑ ↓ field · Esc back',
 		done: 's save setup · Enter home',
 		settings: 'Enter save · Esc back',
-		info: 'Enter or Esc back',
+		info: 'Enter or Esc back · ↑ ↓ PgUp PgDn scroll',
 		'plan-open': 'Enter open · Esc back · ? help',
 		// The planner draws its own key line: its keys change with what it shows.
 		planner: '',
 	};
 
 	let body;
-	if (screen === 'home') body = <HomeScreen rulesName={rules.rules.name} rulesFile={displayPath(rules.file)} rulesSha256={rules.sha256} caution={rules.rules.caution} {...(draft ? {draft: {setup: draft.setup, savedAt: draft.savedAt}} : {})} setups={setups} onChoose={choose} />;
+	if (screen === 'home') body = <HomeScreen {...(broken ? {broken} : {})} rulesName={rules.rules.name} rulesFile={displayPath(rules.file)} rulesSha256={rules.sha256} caution={rules.rules.caution} {...(draft ? {draft: {setup: draft.setup, savedAt: draft.savedAt}} : {})} setups={setups} onChoose={choose} />;
 	else if (screen === 'step')
 		body = (
 			<StepScreen
@@ -227,7 +262,7 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 				session={session}
 				getSession={() => sessionRef.current}
 				stepIndex={stepIndex}
-				rows={rows - 3}
+				rows={rows - 4}
 				width={width}
 				onSession={setSession}
 				onStep={(index) => (index >= rules.rules.steps.length ? setScreen('summary') : setStepIndex(Math.max(0, index)))}
@@ -236,9 +271,9 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 				active={!help}
 			/>
 		);
-	else if (screen === 'summary') body = <SummaryScreen session={session} rows={rows - 3} width={width} onSign={() => setScreen('signoff')} onBack={() => setScreen('step')} onHelp={() => setHelp(true)} active={!help} />;
+	else if (screen === 'summary') body = <SummaryScreen session={session} rows={rows - 4} width={width} onSign={() => setScreen('signoff')} onBack={() => setScreen('step')} onHelp={() => setHelp(true)} active={!help} />;
 	else if (screen === 'signoff') {
-		body = <SignOffScreen session={session} initial={{setup: session.setup, name: saved.operator ?? '', role: saved.role ?? '', cosignName: '', cosignRole: '', cosignKey: ''}} {...(signError ? {error: signError} : {})} onSign={sign} onBack={() => setScreen('summary')} />;
+		body = <SignOffScreen session={session} initial={{setup: session.setup, name: saved.operator ?? '', role: saved.role ?? '', cosignName: '', cosignRole: '', cosignKey: ''}} {...(signError ? {error: signError} : {})} onSign={sign} onBack={() => setScreen('summary')} onHelp={() => setHelp(true)} active={!help} />;
 	} else if (screen === 'done' && written)
 		body = (
 			<DoneScreen
@@ -265,11 +300,12 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 			return undefined;
 		};
 		body = <PlanOpenScreen initial={plan.problems && startPlan ? startPlan : (saved.planFile ?? '')} {...(plan.problems ? {problems: plan.problems} : {})} onOpen={open} onBack={() => setScreen('home')} onHelp={() => setHelp(true)} active={!help} />;
-	} else if (screen === 'planner' && plan.editing) body = <PlannerScreen editing={plan.editing} rulesName={rules.rules.name} rows={rows - 2} width={width} recorder={testRecorder(rules, settings, env)} drafts={planDrafts} testDrafts={testDraftsIn(settings.folder)} notice={plan.notice} onLeave={() => setScreen('home')} />;
-	else if (screen === 'settings') body = <SettingsScreen initial={saved} path={settings.path} onSave={(changes) => settings.write(changes)} onBack={() => setScreen('home')} />;
-	else body = <InfoScreen title={info.title} lines={info.lines} onBack={() => setScreen('home')} />;
+	} else if (screen === 'planner' && plan.editing) body = <PlannerScreen editing={plan.editing} rulesName={rules.rules.name} rows={rows - 3} width={width} recorder={testRecorder(rules, settings, env)} drafts={planDrafts} testDrafts={testDraftsIn(settings.folder)} notice={plan.notice} onLeave={() => setScreen('home')} />;
+	else if (screen === 'settings') body = <SettingsScreen initial={saved} path={settings.path} onSave={(changes) => settings.write(changes)} check={{rulesFile: checkRuleFile}} onHelp={() => setHelp(true)} active={!help} onBack={() => setScreen('home')} />;
+	else body = <InfoScreen title={info.title} lines={info.lines} rows={rows - 4} width={width} onBack={() => setScreen('home')} />;
 
 	return (
+		<CautionContext.Provider value={rules.rules.caution}>
 		<Box flexDirection="column" width={width}>
 			{header}
 			{writeProblem === undefined ? null : <Text color="red">{writeProblem}</Text>}
@@ -278,11 +314,14 @@ export function App({rules, settings, env, startCheck, startPlan, audit, onExit}
 			<Box display={help ? 'none' : 'flex'} flexDirection="column">
 				{body}
 			</Box>
+			{/* The full caution is on the home screen; every other screen says it in one line, with the key that shows it. */}
+			{screen === 'home' || help ? null : <CautionLine />}
 			{footer[screen] ? (
 				<Text dimColor wrap="truncate">
 					{footer[screen]}
 				</Text>
 			) : null}
 		</Box>
+		</CautionContext.Provider>
 	);
 }

@@ -1,7 +1,6 @@
 import {Box, Text} from 'ink';
 import {useKeystrokes} from './use-keystrokes.js';
 import {useState} from 'react';
-import {deferral} from '../shared/deferral.js';
 import {stripControl} from '../shared/text.js';
 import {outcomeStyle} from './verdict-style.js';
 import {commitNote} from '../render/record-commit-text.js';
@@ -33,11 +32,6 @@ export function DoneScreen(props: {path: string; fingerprint: string; outcome: k
 			<Box marginTop={1} flexDirection="column">
 				{saved ? <Text color="green">✓ Setup saved: {saved}</Text> : <Text>s: save these inputs as the setup “{stripControl(props.setup || 'unnamed')}” for the next check</Text>}
 				<Text>Enter: home</Text>
-			</Box>
-			<Box marginTop={1}>
-				<Text dimColor wrap="wrap">
-					{deferral}
-				</Text>
 			</Box>
 		</Box>
 	);

@@ -1,4 +1,8 @@
 import {Box, Text, useInput} from 'ink';
+import {useContext, useState} from 'react';
+import {deferral} from '../shared/deferral.js';
+import {stripControl} from '../shared/text.js';
+import {CautionContext} from './caution-context.js';
 
 /** Keys of each screen, as the help overlay lists them. */
 export const screenKeys: Record<string, Array<[string, string]>> = {
@@ -17,6 +21,7 @@ export const screenKeys: Record<string, Array<[string, string]>> = {
 		['Backspace', 'clear text typed on a confirmation, then answer'],
 		['Tab', 'write a note to an answered confirmation'],
 		['PgDn PgUp', 'next / previous step'],
+		['last answer', "the step's verdicts stay: ↓ ↑ scroll, Enter goes on"],
 		['Esc', 'back'],
 		['?', 'this help'],
 		['Ctrl-C', 'quit (your answers are kept as a draft)'],
@@ -68,15 +73,36 @@ export const screenKeys: Record<string, Array<[string, string]>> = {
 		['PgDn', 'to the tester, the witness and the date'],
 		['Esc', 'leave (asks before the entries are dropped)'],
 	],
+	settings: [
+		['type', 'fill a field'],
+		['Enter', 'check and save the field'],
+		['↑ ↓', 'move between fields'],
+		['Esc', 'back to the home screen'],
+	],
+	info: [
+		['↑ ↓ PgUp PgDn', 'scroll'],
+		['Enter Esc', 'back to the home screen'],
+	],
 	done: [
 		['s', 'save these inputs as a named setup'],
 		['Enter', 'back to the home screen'],
 	],
 };
 
-/** Lists the keys of the current screen; any key closes it. */
+/** Lists the keys of the current screen; `?` again shows the caution in full, any other key closes it. */
 export function HelpOverlay({screen, onClose}: {screen: string; onClose(): void}) {
-	useInput(() => onClose());
+	const caution = useContext(CautionContext);
+	const [page, setPage] = useState<'keys' | 'caution'>('keys');
+	useInput((input) => (input === '?' && page === 'keys' ? setPage('caution') : onClose()));
+	if (page === 'caution')
+		return (
+			<Box flexDirection="column" borderStyle="single" paddingX={1}>
+				<Text bold>Caution</Text>
+				{caution ? <Text wrap="wrap">{stripControl(caution)}</Text> : null}
+				<Text wrap="wrap">{deferral}</Text>
+				<Text dimColor>Any key closes this page.</Text>
+			</Box>
+		);
 	return (
 		<Box flexDirection="column" borderStyle="single" paddingX={1}>
 			<Text bold>Keys</Text>
@@ -85,7 +111,7 @@ export function HelpOverlay({screen, onClose}: {screen: string; onClose(): void}
 					{keys.padEnd(14)} {meaning}
 				</Text>
 			))}
-			<Text dimColor>Any key closes this help.</Text>
+			<Text dimColor>? again: the caution in full. Any key closes this help.</Text>
 		</Box>
 	);
 }

@@ -1,7 +1,7 @@
 import {render} from 'ink';
-import {loadRules, shippedRulesPath} from '../rules/load.js';
 import {formatProblem} from '../shared/problems.js';
 import {openSettings} from '../services/settings.js';
+import {rulesForScreens} from '../services/rule-file-setting.js';
 import {App} from './App.js';
 import {auditInWorker} from './audit-worker.js';
 
@@ -12,8 +12,8 @@ export type ScreenOptions = {env: NodeJS.ProcessEnv; rules?: string; startCheck?
 /** Runs the interactive screens until the operator leaves; returns the exit status. */
 export async function runScreens(options: ScreenOptions): Promise<number> {
 	const settings = openSettings(options.env);
-	const rulesPath = options.rules ?? settings.read().rulesFile ?? shippedRulesPath();
-	const rules = loadRules(rulesPath);
+	// A broken rule file named in the settings still opens the home screen, which says so; one asked for on the command line does not.
+	const rules = rulesForScreens(options.rules, settings);
 	if (!rules.ok) {
 		for (const found of rules.errors) options.stderr.write(`${formatProblem(found)}\n`);
 		options.stderr.write('prelase: the rule file has problems; fix them before starting a check\n');
@@ -22,9 +22,9 @@ export async function runScreens(options: ScreenOptions): Promise<number> {
 	const audit =
 		options.audit ??
 		// The audit runs in a worker thread of this same program (this module's file is the bundle), so a signal is honoured at once while it works.
-		((folder: string) => auditInWorker({folder, rulesFile: rulesPath, settingsFolder: settings.folder, columns: process.stdout.columns ?? 80}, new URL(import.meta.url)));
+		((folder: string) => auditInWorker({folder, rulesFile: rules.value.file, settingsFolder: settings.folder, columns: process.stdout.columns ?? 80}, new URL(import.meta.url)));
 	let code = 0;
-	const instance = render(<App rules={rules.value} settings={settings} env={options.env} {...(options.startCheck ? {startCheck: options.startCheck} : {})} {...(options.startPlan === undefined ? {} : {startPlan: options.startPlan})} audit={audit} onExit={(value) => (code = value)} />, {exitOnCtrlC: false});
+	const instance = render(<App rules={rules.value.rules} {...(rules.value.broken ? {brokenRules: {file: rules.value.broken.file, settingsPath: rules.value.broken.settingsPath, problems: rules.value.broken.problems.map(formatProblem)}} : {})} settings={settings} env={options.env} {...(options.startCheck ? {startCheck: options.startCheck} : {})} {...(options.startPlan === undefined ? {} : {startPlan: options.startPlan})} audit={audit} onExit={(value) => (code = value)} />, {exitOnCtrlC: false});
 	await instance.waitUntilExit();
 	return code;
 }

@@ -4,7 +4,7 @@ import {tmpdir} from 'node:os';
 import {join, resolve} from 'node:path';
 import {afterEach, describe, expect, it, vi} from 'vitest';
 import {parse} from 'yaml';
-import {loadDraft} from '../../source/services/drafts/draft-store.js';
+import {loadDraft, saveDraft} from '../../source/services/drafts/draft-store.js';
 import {openSettings} from '../../source/services/settings.js';
 import {haveTmux, TmuxSession} from './tmux-driver.js';
 
@@ -267,5 +267,216 @@ describe.skipIf(!haveTmux())('the screens in a real terminal', () => {
 		process.kill(Number(node), 'SIGTERM');
 		await session.waitFor((screen) => screen.includes('EXITED 143'), 'the program to leave with 143', 1500);
 		expect(Date.now() - sent).toBeLessThan(1500);
+	});
+});
+
+/** A draft of the demo check as if typed on screen, less some confirmations, resumed at a step (0-based). */
+function seedDemoDraft(home: string, leaveOut: string[], step = 0): void {
+	const confirmations: Record<string, {answer: 'yes' | 'no' | 'not_applicable'; note?: string}> = {};
+	for (const [id, raw] of Object.entries(demo.confirmations)) {
+		if (leaveOut.includes(id)) continue;
+		if (typeof raw === 'object' && raw !== null) {
+			const {answer, note} = raw as {answer: string; note: string};
+			confirmations[id] = {answer: answer.replace(' ', '_') as 'not_applicable', note};
+		} else confirmations[id] = {answer: raw === true || raw === 'yes' ? 'yes' : 'no'};
+	}
+	const entries = Object.fromEntries(Object.entries(demo.inputs).map(([id, value]) => [id, String(value)]));
+	saveDraft(openSettings({PRELASE_HOME: home}).folder, {rulesFile: resolve('rules/default.yaml'), rulesSha256: '', setup: demo.setup, entries, confirmations, step, savedAt: '2026-12-05T09:00:00.000Z'});
+}
+
+/** Resumes the seeded draft from the home screen and pages on until the wanted screen shows. */
+async function resumeAndPage(session: TmuxSession, until: (screen: string) => boolean, what: string): Promise<string> {
+	await session.waitFor((screen) => screen.includes('Resume the draft'), 'the offer to resume');
+	await session.settle();
+	session.press('Enter');
+	await session.waitFor((screen) => /Step \d of 9/.test(screen), 'the resumed step');
+	for (let guard = 0; guard < 12; guard += 1) {
+		const screen = await session.settle();
+		if (until(screen)) return screen;
+		session.press('PageDown');
+		await session.waitFor((now) => now !== screen, 'the next page');
+	}
+	return session.waitFor(until, what, 100);
+}
+
+const cautionStart = 'prelase checks arithmetic and records answers';
+const deferralStart = 'prelase says which checks held';
+
+describe.skipIf(!haveTmux())('the screens at 80x24, as a technician meets them', () => {
+	it('the summary puts what blocks energizing first and keeps its reason, title and one caution line in view', {timeout: 60_000}, async () => {
+		const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
+		seedDemoDraft(home, ['use_authorised', 'sop_present', 'operator_trained']);
+		const session = start('summary-order', home, '', [80, 24]);
+		const screen = await resumeAndPage(session, (now) => now.includes('Summary:'), 'the summary');
+		const lines = screen.split('\n');
+		expect(lines[0]).toMatch(/^prelase · bench check/);
+		expect(screen).toContain('Outcome: INCOMPLETE');
+		// The reason for the outcome, in view without scrolling: the first confirmation left unanswered.
+		expect(screen).toContain('? unanswered');
+		expect(screen).toContain('Use of this laser on this bench is authorised');
+		const first = (pattern: RegExp) => lines.findIndex((line) => pattern.test(line));
+		expect(first(/^\? unanswered/)).toBeGreaterThan(0);
+		// Unanswered before advice, advice before passes.
+		expect(first(/^\? unanswered/)).toBeLessThan(first(/^! advise/));
+		if (first(/^✓ pass/) >= 0) expect(first(/^! advise/)).toBeLessThan(first(/^✓ pass/));
+		// The caution is said once, on the home screen; here one line with the key that opens it.
+		expect(screen).not.toContain(cautionStart);
+		expect(screen).not.toContain(deferralStart);
+		const cautionLines = lines.filter((line) => line.includes('local codes'));
+		expect(cautionLines).toHaveLength(1);
+		expect(cautionLines[0]).toMatch(/\? /);
+		expect(lines.filter((line) => line.trim() !== '').at(-1)).toContain('Enter sign-off');
+		session.type('?');
+		await session.waitFor((now) => now.includes('? again: the caution in full'), 'the keys of the summary');
+		session.type('?');
+		const opened = await session.waitFor((now) => now.replaceAll(/\s+/g, ' ').includes(cautionStart), 'the full caution');
+		expect(opened.replaceAll(/\s+/g, ' ')).toContain(deferralStart);
+		expect(opened.split('\n')[0]).toMatch(/^prelase · bench check/);
+	});
+
+	it("shows a step's verdicts after its last answer until the user moves on, each title whole", {timeout: 60_000}, async () => {
+		const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
+		seedDemoDraft(home, [], 4);
+		const session = start('step-verdicts', home, '', [80, 24]);
+		let screen = await resumeAndPage(session, (now) => now.includes('Step 5 of 9: Driver dissipation'), 'step 5');
+		// Enter on each field accepts the value the draft holds; after the last one the step stays.
+		for (let guard = 0; guard < 8 && screen.split('\n').some((line) => line.startsWith('› ')); guard += 1) {
+			session.press('Enter');
+			screen = await session.waitFor((now) => now !== screen, 'the next field');
+			screen = await session.settle();
+		}
+		expect(screen).toContain('Step 5 of 9: Driver dissipation');
+		const flat = screen.replaceAll(/\s+/g, ' ');
+		// The step's two checks (rules/default.yaml, step thermal), whole, with their verdicts.
+		expect(flat).toContain('✓ pass Worst-case driver dissipation within its derated rating');
+		expect(flat).toContain('! advise Dissipation with the output shorted within the derated rating');
+		expect(screen).toContain('Enter or PgDn: on to step 6');
+		expect(screen.split('\n')[0]).toMatch(/^prelase · bench check/);
+		// ↑ goes back to the last field, ↓ from it shows the verdicts again.
+		session.press('Up');
+		await session.waitFor((now) => now.split('\n').some((line) => line.startsWith('› ')), 'the last field');
+		session.press('Down');
+		await session.waitFor((now) => now.includes('Enter or PgDn: on to step 6'), 'the verdicts again');
+		session.press('Enter');
+		await session.waitFor((now) => now.includes('Step 6 of 9'), 'step 6 after Enter');
+	});
+
+	it('Settings refuses a rule file with problems, shows them in place, and stores a good one as an absolute path', {timeout: 60_000}, async () => {
+		const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
+		const work = mkdtempSync(join(tmpdir(), 'prelase-e2e-work-'));
+		writeFileSync(join(work, 'site.yaml'), 'name: Site policy\nsteps: [\n');
+		writeFileSync(join(work, 'good.yaml'), readFileSync('rules/default.yaml'));
+		const session = new TmuxSession('settings-rules', `cd ${work} && env -u CI -u CONTINUOUS_INTEGRATION PRELASE_HOME=${home} node ${program}; echo "EXITED $?"; sleep 30`, 80, 24);
+		sessions.push(session);
+		await session.waitFor((screen) => screen.includes('Settings ('), 'the home screen');
+		await session.settle();
+		for (let step = 0; !session.screen().includes('❯ Settings') && step < 6; step += 1) {
+			session.press('Down');
+			await session.settle();
+		}
+		session.press('Enter');
+		await session.waitFor((screen) => /^Settings$/m.test(screen), 'the settings');
+		session.press('Down', 'Down', 'Down');
+		await session.waitFor((screen) => /^› Rule file/m.test(screen), 'the rule file field');
+		session.type('site.yaml');
+		session.press('Enter');
+		// rules validate says of this file: site.yaml:3:1: error: YAML syntax error (a flow sequence never closed).
+		let screen = await session.waitFor((now) => now.includes('YAML syntax error'), 'the problem shown in place');
+		expect(screen).toContain(`${join(work, 'site.yaml')}:3:1`);
+		expect(screen).not.toContain('Rule file saved');
+		expect(openSettings({PRELASE_HOME: home}).read().rulesFile).toBeUndefined();
+		for (let index = 0; index < 9; index += 1) session.press('BSpace');
+		session.type('good.yaml');
+		session.press('Enter');
+		screen = await session.waitFor((now) => now.includes('✓ Rule file'), 'the good file saved');
+		expect(screen).not.toContain('YAML syntax error');
+		expect(openSettings({PRELASE_HOME: home}).read().rulesFile).toBe(join(work, 'good.yaml'));
+	});
+
+	it('opens the home screen with a broken rule file in the settings, names the setting, and offers Settings and the shipped policy', {timeout: 60_000}, async () => {
+		const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
+		const broken = join(home, 'site.yaml');
+		writeFileSync(broken, 'name: Site policy\nsteps: [\n');
+		writeFileSync(join(home, 'config.json'), JSON.stringify({rulesFile: broken}));
+		const session = start('broken-rules', home, '', [80, 24]);
+		let screen = await session.waitFor((now) => now.includes('Quit') || now.includes('EXITED'), 'the home screen');
+		screen = await session.settle();
+		const flat = screen.replaceAll(/\s+/g, ' ');
+		expect(screen).not.toContain('EXITED');
+		expect(flat).toContain('Rule file');
+		expect(flat).toContain(join(home, 'config.json'));
+		expect(flat).toContain('YAML syntax error');
+		expect(screen).toContain('Settings');
+		expect(screen).toMatch(/shipped policy/);
+		expect(screen).not.toContain('Start a bench check');
+		for (let step = 0; !/❯ .*shipped policy/.test(session.screen()) && step < 6; step += 1) {
+			session.press('Down');
+			await session.settle();
+		}
+		session.press('Enter');
+		screen = await session.waitFor((now) => now.includes('Start a bench check'), 'the check offered under the shipped policy');
+		expect(screen).toContain('prelase bench policy (shipped default)');
+		session.press('Enter');
+		await session.waitFor((now) => now.includes('Step 1 of 9'), 'the first step');
+	});
+
+	it('prelase check with a broken rule file in the settings opens the home screen, not an error', {timeout: 60_000}, async () => {
+		const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
+		writeFileSync(join(home, 'config.json'), JSON.stringify({rulesFile: 'nowhere/site.yaml'}));
+		const session = start('broken-check', home, 'check', [80, 24]);
+		const screen = await session.waitFor((now) => now.includes('Quit') || now.includes('EXITED'), 'the home screen');
+		expect(screen).not.toContain('EXITED');
+		expect(screen).not.toContain('Step 1 of 9');
+		expect(screen.replaceAll(/\s+/g, ' ')).toContain('nowhere/site.yaml');
+	});
+
+	it('the audit on the home screen fits 80 columns and scrolls, title and key line in place', {timeout: 60_000}, async () => {
+		const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
+		const records = join(home, 'records');
+		for (let index = 0; index < 3; index += 1) {
+			const signed = spawnSync('node', [program, 'check', '--answers', 'docs/examples/bench3-808nm-clear.yaml', '--sign', 'Dana Whitlow', '--records', records], {env: {...process.env, PRELASE_HOME: home}, encoding: 'utf8'});
+			expect(signed.status, signed.stderr).toBe(0);
+		}
+		writeFileSync(join(home, 'config.json'), JSON.stringify({recordsFolder: records}));
+		const session = start('audit-fit', home, '', [80, 24]);
+		await session.waitFor((screen) => screen.includes('Audit the records folder'), 'the home screen');
+		await session.settle();
+		for (let step = 0; !session.screen().includes('❯ Audit the records folder') && step < 5; step += 1) {
+			session.press('Down');
+			await session.settle();
+		}
+		session.press('Enter');
+		let screen = await session.waitFor((now) => now.includes('↓') && now.includes('more'), 'the audit, with more below');
+		const check = (now: string) => {
+			const lines = now.split('\n');
+			expect(lines[0]).toMatch(/^prelase · bench check/);
+			expect(lines[2]).toContain(`Audit of ${records}`);
+			// No table row wrapped into the next line: a column head is never cut in two.
+			expect(now).not.toMatch(/^rded|^-on-ld/m);
+			expect(now).toContain('Enter or Esc back');
+		};
+		check(screen);
+		expect(screen).not.toContain('Result:');
+		for (let page = 0; page < 30 && !session.screen().includes('Result:'); page += 1) {
+			const before = session.screen();
+			session.press('PageDown');
+			screen = await session.waitFor((now) => now !== before, 'the next page of the audit');
+			check(screen);
+		}
+		expect(screen).toContain('Result: authentic');
+		session.press('Escape');
+		await session.waitFor((now) => now.includes('Audit the records folder'), 'the home screen again');
+	});
+
+	it('step 8 keeps its title line and key line on the screen', {timeout: 60_000}, async () => {
+		const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
+		seedDemoDraft(home, [], 7);
+		const session = start('step-eight', home, '', [80, 24]);
+		const screen = await resumeAndPage(session, (now) => now.includes('Step 8 of 9'), 'step 8');
+		const lines = screen.split('\n');
+		expect(lines[0]).toMatch(/^prelase · bench check +\S/);
+		expect(lines[2]).toBe('Step 8 of 9: People around the bench');
+		expect(screen).toContain('Enter accept · ↑ ↓ field · PgDn PgUp step · Esc back · ? help');
+		expect(lines.filter((line) => line.includes('local codes') && line.includes('?'))).toHaveLength(1);
 	});
 });

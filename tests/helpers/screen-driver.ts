@@ -205,4 +205,6 @@ export async function fillStep(screen: Screen, rules: CompiledRules, stepIndex: 
 			await screen.paste(`${answer.note ?? ''}\r`);
 		} else await screen.press(answer.answer === 'yes' ? 'y' : 'n');
 	}
+	// After its last answer a step with checks stays to show their verdicts; Enter moves on.
+	if (screen.frame().includes('Enter or PgDn: on to')) await screen.press(keys.enter);
 }

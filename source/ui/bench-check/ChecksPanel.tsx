@@ -14,16 +14,25 @@ export function checkDetailLines(check: CheckResult, width: number): string[] {
 	return detail ? wrap(stripControl(detail), width, indent) : [];
 }
 
+/** The line of a derived value: its figure and label, cut to one line or wrapped whole under the label. */
+export function derivedLines({entry, text}: ShownDerived, width: number, full: boolean): string[] {
+	const figure = `= ${stripControl(text)}`.padEnd(10);
+	if (!full) return [`${figure} ${stripControl(entry.label)}`];
+	const pieces = wrap(stripControl(entry.label), width, ' '.repeat(11));
+	pieces[0] = `${figure} ${pieces[0]!.trimStart()}`;
+	return pieces;
+}
+
 /**
  * The checks of the current step, as the core evaluated them: verdict, figures, what is missing;
  * above them, one line for each derived value the step shows (a converted or worst-case figure).
  * As many checks as fit in `rows` are shown whole; the rest are counted and left to the summary.
  */
-export function ChecksPanel({checks, rows, width = 80, derived = []}: {checks: CheckResult[]; rows: number; width?: number; derived?: ShownDerived[]}) {
+export function ChecksPanel({checks, rows, width = 80, derived = [], full = false, from = 0}: {checks: CheckResult[]; rows: number; width?: number; derived?: ShownDerived[]; /** Derived values' labels wrapped whole rather than cut, and the checks not shown reached with ↓ rather than left to the summary. @default false */ full?: boolean; /** The first check shown (the ones before it scrolled away). @default 0 */ from?: number}) {
 	if (checks.length === 0 && derived.length === 0) return <Text dimColor>No checks in this step; its confirmations are listed above.</Text>;
 	const shown: Array<{check: CheckResult; title: string[]; detail: string[]}> = [];
 	let used = 0;
-	for (const check of checks) {
+	for (const check of checks.slice(from)) {
 		const title = wrap(stripControl(check.title), width, indent).map((line, index) => (index === 0 ? line.trimStart() : line));
 		const detail = checkDetailLines(check, width);
 		if (shown.length > 0 && used + title.length + detail.length > rows) break;
@@ -34,7 +43,7 @@ export function ChecksPanel({checks, rows, width = 80, derived = []}: {checks: C
 		<Box flexDirection="column">
 			{derived.map(({entry, text}) => (
 				<Text key={entry.id} dimColor wrap="truncate">
-					{`= ${stripControl(text)}`.padEnd(10)} {stripControl(entry.label)}
+					{derivedLines({entry, text}, width, full).join('\n')}
 				</Text>
 			))}
 			{shown.map(({check, title, detail}) => {
@@ -56,7 +65,7 @@ export function ChecksPanel({checks, rows, width = 80, derived = []}: {checks: C
 					</Box>
 				);
 			})}
-			{checks.length > shown.length ? <Text dimColor>{indent}… {checks.length - shown.length} more in the summary</Text> : null}
+			{checks.length - from > shown.length ? <Text dimColor>{indent}… {checks.length - from - shown.length} more {full ? '(↓ shows them)' : 'in the summary'}</Text> : null}
 		</Box>
 	);
 }

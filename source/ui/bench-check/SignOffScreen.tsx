@@ -20,13 +20,13 @@ const fields: Array<{key: keyof SignOffForm; label: string}> = [
 ];
 
 /** The sign-off: who signs, what they are signing, then the signed record is written. */
-export function SignOffScreen({session, initial, error, onSign, onBack}: {session: Session; initial: SignOffForm; error?: string; onSign(form: SignOffForm): void; onBack(): void}) {
+export function SignOffScreen({session, initial, error, onSign, onBack, onHelp, active = true}: {session: Session; initial: SignOffForm; error?: string; onSign(form: SignOffForm): void; onBack(): void; /** `?` alone on an empty field or the button: the keys, then the caution in full. */ onHelp?(): void; active?: boolean}) {
 	// Kept in a ref: a burst of keys is handled before React draws the next frame.
 	const state = useRefState(() => ({form: initial, focus: 0, message: undefined as string | undefined}));
 	const set = state.patch;
 	const setFocus = (focus: number) => set({focus});
 	const setMessage = (message: string | undefined) => set({message});
-	useKeystrokes(handleKey);
+	useKeystrokes(handleKey, {isActive: active});
 	function handleKey(input: string, key: Key, arrival: Arrival) {
 		const {form, focus} = state.current;
 		const onButton = focus === fields.length;
@@ -34,6 +34,7 @@ export function SignOffScreen({session, initial, error, onSign, onBack}: {sessio
 		if (key.escape) return onBack();
 		if (key.upArrow) return setFocus(Math.max(0, focus - 1));
 		if (key.downArrow) return setFocus(Math.min(fields.length, focus + 1));
+		if (input === '?' && arrival.alone && onHelp && (onButton || form[fields[focus]!.key] === '')) return onHelp();
 		if (onButton) {
 			if (!key.return) return;
 			// Signing is a deliberate act: an Enter of a paste or of keys typed ahead does not sign.

@@ -6,7 +6,7 @@ import {useRefState} from '../use-ref-state.js';
 import {shownDerived} from '../../rules/evaluate/shown-derived.js';
 import {stripControl} from '../../shared/text.js';
 import {wrap} from '../../shared/wrap.js';
-import {ChecksPanel} from './ChecksPanel.js';
+import {ChecksPanel, derivedLines} from './ChecksPanel.js';
 import {FieldList} from './FieldList.js';
 import {answerConfirmation, answeredByRecord, enterInput, stepFields, type Field, type Session} from './session.js';
 import {typeInto} from '../text-buffer.js';
@@ -32,7 +32,7 @@ export type StepScreenProps = {
  * `suggested`: the buffer holds a default not typed by the operator; the first key replaces it.
  * `stray`: text typed on a question answered by single keys; held, shown, and never an answer.
  */
-type Editor = {focus: number; buffer: string; choice: number; message?: string; noteMode: boolean; suggested?: boolean; stray: string};
+type Editor = {focus: number; buffer: string; choice: number; message?: string; noteMode: boolean; suggested?: boolean; stray: string; /** While the step's verdicts are reviewed: the first check shown. */ reviewFrom?: number};
 
 const confirmationKeys = {y: 'yes', n: 'no', a: 'not_applicable'} as const;
 const yesNoKeys = {y: 'yes', n: 'no'} as const;
@@ -82,10 +82,13 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 		const current = getSession();
 		editor.set(editorFor(current, stepFields(current, stepIndex)[index], index));
 	};
+	/** After the last answer the step stays, showing its verdicts, until the user moves on. */
+	const hasVerdicts = () => session.evaluation.checks.some((check) => check.step === session.rules.rules.steps[stepIndex]!.id);
 	const move = (delta: number) => {
 		const next = editor.current.focus + delta;
 		const count = fieldsNow().length;
-		if (next >= count) onStep(stepIndex + 1);
+		if (next === count && count > 0 && hasVerdicts()) editor.set({...editorFor(getSession(), undefined, count)});
+		else if (next >= count) onStep(stepIndex + 1);
 		else if (next < 0) {
 			if (stepIndex > 0) onStep(stepIndex - 1);
 		} else focusTo(next);
@@ -137,6 +140,16 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 		if (key.pageDown) return onStep(stepIndex + 1);
 		if (key.pageUp) return stepIndex > 0 ? onStep(stepIndex - 1) : undefined;
 		if (key.escape) return onBack();
+		if (fields.length > 0 && state.focus >= fields.length) {
+			// Reviewing the step's verdicts: on, or back to the last field.
+			const from = state.reviewFrom ?? 0;
+			const checkCount = session.evaluation.checks.filter((check) => check.step === session.rules.rules.steps[stepIndex]!.id).length;
+			if (key.return) onStep(stepIndex + 1);
+			else if (key.downArrow) update({reviewFrom: Math.min(Math.max(0, checkCount - 1), from + 1)});
+			else if (key.upArrow) return from > 0 ? update({reviewFrom: from - 1}) : focusTo(fields.length - 1);
+			else if (input === '?' && arrival.alone) onHelp();
+			return;
+		}
 		if (!field) {
 			if (key.return) onStep(stepIndex + 1);
 			return;
@@ -205,14 +218,36 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 	// On a short terminal the checks panel gives way so that more fields stay in view.
 	const panelRows = Math.min(rows < 30 ? 6 : 8, Math.max(2, checks.length * 2));
 	const derived = shownDerived(session.evaluation, step.id);
+	const summary = step.summary ? wrap(stripControl(step.summary), width) : [];
+	const steps = session.rules.rules.steps;
+	if (fields.length > 0 && state.focus >= fields.length) {
+		const next = steps[stepIndex + 1];
+		// Title, the answered line, two blank lines, the line to go on, and the "… more" line of the panel.
+		return (
+			<Box flexDirection="column">
+				<Text bold>
+					Step {stepIndex + 1} of {steps.length}: {stripControl(step.title)}
+				</Text>
+				<Text dimColor wrap="truncate">
+					{(state.reviewFrom ?? 0) > 0 ? `↑ ${state.reviewFrom} more checks above` : `All ${fields.length} fields of this step answered · ↑ back to the last field`}
+				</Text>
+				<Box marginTop={1} flexDirection="column">
+					<ChecksPanel checks={checks} rows={Math.max(4, rows - derived.reduce((sum, shown) => sum + derivedLines(shown, width, true).length, 0) - 7)} derived={derived} width={width} full from={state.reviewFrom ?? 0} />
+				</Box>
+				<Box marginTop={1}>
+					<Text bold wrap="truncate">
+						{next ? `Enter or PgDn: on to step ${stepIndex + 2}: ${stripControl(next.title)}` : 'Enter or PgDn: on to the summary'}
+					</Text>
+				</Box>
+			</Box>
+		);
+	}
 	return (
 		<Box flexDirection="column">
 			<Text bold>
 				Step {stepIndex + 1} of {session.rules.rules.steps.length}: {stripControl(step.title)}
 			</Text>
-			{step.summary ? (
-				<Text dimColor>{wrap(stripControl(step.summary), width).join('\n')}</Text>
-			) : null}
+			{summary.length > 0 ? <Text dimColor>{summary.join('\n')}</Text> : null}
 			<Box marginTop={1} flexDirection="column">
 				{fields.length === 0 ? <Text dimColor>Nothing to answer in this step for this setup. Enter or PgDn to go on.</Text> : null}
 				<FieldList
@@ -224,7 +259,7 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 					{...(state.message ? {message: state.message} : {})}
 					noteMode={state.noteMode}
 					stray={state.stray}
-					rows={Math.max(5, rows - panelRows - derived.length - (step.summary ? 7 : 5))}
+					rows={Math.max(5, rows - panelRows - derived.length - 6 - summary.length)}
 					width={width}
 				/>
 			</Box>

@@ -1,5 +1,4 @@
 import {Box, Text} from 'ink';
-import {deferral} from '../../shared/deferral.js';
 import {planVerdict} from '../../interlock/analysis/analyse.js';
 import {subjectText} from '../../interlock/analysis/finding.js';
 import {describeProblem} from '../../shared/problems.js';
@@ -35,9 +34,6 @@ export function PlanFindings({editing, offset, rows, width}: {editing: PlanEditi
 			<Box marginTop={1}>
 				<Text wrap="wrap">{planVerdict(editing.analysis)}</Text>
 			</Box>
-			<Text dimColor wrap="wrap">
-				{deferral}
-			</Text>
 		</Box>
 	);
 }

@@ -1,6 +1,5 @@
 import {Box, Text} from 'ink';
 import type {ReactNode} from 'react';
-import {deferral} from '../../shared/deferral.js';
 import {kindText} from '../../interlock/analysis/fail-safe.js';
 import {subjectText, type Finding} from '../../interlock/analysis/finding.js';
 import {describeProblem} from '../../shared/problems.js';
@@ -69,8 +68,8 @@ export function PlanList({editing, rulesName, selected, rows, width, prompt}: {e
 		const severity = worstFinding(analysis.findings, ref.list, item.id);
 		list.push({key: `${ref.list}-${ref.index}`, text: `${item.id.padEnd(18)} ${stripControl(facts)}`, ref, ...(severity ? {severity} : {})});
 	}
-	const deferralRows = Math.ceil(deferral.length / Math.max(20, width - 1));
-	const room = Math.max(3, rows - 9 - deferralRows - shownFindings.length - (moreFindings > 0 ? 1 : 0));
+	// The caution is one line under the list, drawn by the App (in full on the home screen).
+	const room = Math.max(3, rows - 9 - shownFindings.length - (moreFindings > 0 ? 1 : 0));
 	const at = list.findIndex((row) => row.ref && refs[selected] && row.ref.list === refs[selected]!.list && row.ref.index === refs[selected]!.index);
 	const start = Math.max(0, Math.min(at - Math.floor(room / 2), list.length - room));
 	return (
@@ -105,9 +104,6 @@ export function PlanList({editing, rulesName, selected, rows, width, prompt}: {e
 				})}
 			</Box>
 			{prompt}
-			<Text dimColor wrap="wrap">
-				{deferral}
-			</Text>
 		</Box>
 	);
 }

@@ -45,14 +45,15 @@ async function summaryChecks(screen: AppScreen): Promise<Array<{verdict: string;
 	return [...seen].map(([title, verdict]) => ({verdict, title}));
 }
 
-const rank: Record<string, number> = {'✗ FAIL': 0, '! advise': 1, '? open': 2, '✓ pass': 3};
+// What blocks energizing first: failures, then what is open, then advice, then passes.
+const rank: Record<string, number> = {'✗ FAIL': 0, '? open': 1, '! advise': 2, '✓ pass': 3};
 
 describe('the summary', () => {
 	const cases = [
 		{
 			name: 'the clear demo',
 			prefill: demo,
-			counts: 'Summary: 0 fail · 2 advise · 0 open · 22 pass · 5 skip',
+			counts: 'Summary: 0 fail · 0 unanswered · 0 open · 2 advise · 22 pass · 5 skip',
 			outcome: 'CLEAR TO ENERGIZE',
 			verdicts: ['! advise', '✓ pass'],
 			failing: [],
@@ -60,22 +61,22 @@ describe('the summary', () => {
 		{
 			name: 'the demo with the limit too high and the ambient missing',
 			prefill: demoWith({current_limit: '2.4 A', ambient_max: undefined}),
-			counts: 'Summary: 2 fail · 2 advise · 2 open · 18 pass · 5 skip',
+			counts: 'Summary: 2 fail · 0 unanswered · 2 open · 2 advise · 18 pass · 5 skip',
 			outcome: 'DO NOT ENERGIZE',
-			verdicts: ['✗ FAIL', '! advise', '? open', '✓ pass'],
+			verdicts: ['✗ FAIL', '? open', '! advise', '✓ pass'],
 			failing: ["Current limit below the diode's absolute maximum less the margin", "Optical power at the limit current, coldest case, within the diode's maximum power"],
 		},
 		{
 			name: 'the demo with the ambient missing',
 			prefill: demoWith({ambient_max: undefined}),
-			counts: 'Summary: 0 fail · 1 advise · 2 open · 21 pass · 5 skip',
+			counts: 'Summary: 0 fail · 0 unanswered · 2 open · 1 advise · 21 pass · 5 skip',
 			outcome: 'INCOMPLETE',
-			verdicts: ['! advise', '? open', '✓ pass'],
+			verdicts: ['? open', '! advise', '✓ pass'],
 			failing: [],
 		},
 	];
 
-	it.each(cases)('orders $name: fails, advice, open, passes; and says $outcome', async ({prefill, counts, outcome, verdicts, failing}) => {
+	it.each(cases)('orders $name: fails, open, advice, passes; and says $outcome', async ({prefill, counts, outcome, verdicts, failing}) => {
 		const screen = await summaryOf(prefill);
 		const first = screen.frame();
 		expect(first).toContain(counts);
@@ -89,22 +90,26 @@ describe('the summary', () => {
 		expect(checks).toHaveLength(total);
 	});
 
-	it('shows the failing check first, with its figures and message, and the caution', async () => {
+	it('shows the failing check first, with its figures and message, and the reason under the outcome; the caution in one line', async () => {
 		const screen = await summaryOf(demoWith({current_limit: '2.4 A'}));
 		const lines = screen.frame().split('\n');
-		const top = lines.findIndex((line) => line.startsWith('Summary: ')) + 2;
+		const outcome = lines.findIndex((line) => line.startsWith('Outcome: '));
+		// 2.4 A is above 2.5 A less the 10 % margin (2.25 A), and the power at 2.4 A exceeds 2 W: two stop checks fail.
+		expect(lines[outcome + 1]).toMatch(/^ {2}2 stop checks fail: Current limit below the diode's absolute maximum/);
+		const top = lines.findIndex((line, index) => index > outcome && line === '') + 1;
 		expect(lines[top]).toMatch(/^✗ FAIL {4}Current limit below the diode's absolute maximum less the margin/);
 		expect(lines[top + 1]!.trim()).toBe('2.4 A, limit ≤ 2.25 A · over the limit by 150 mA (6.67 %)');
 		expect(lines[top + 2]!.trim()).toMatch(/^The limit 2\.4 A is above 2\.25 A/);
-		expect(flat(screen.frame())).toContain(flat(screen.rules.rules.caution));
+		expect(flat(screen.frame())).not.toContain(flat(screen.rules.rules.caution));
+		expect(screen.frame()).toContain('? keys, caution in full · the laser safety officer and local codes decide');
 	});
 
-	it('lists answers that are not yes and inputs not given after the checks', async () => {
+	it('lists inputs not given with what is open, and answers of n/a after the checks', async () => {
 		const screen = await summaryOf(demoWith({ambient_max: undefined}));
+		expect(screen.frame()).toContain('Inputs not given: ambient_max');
 		await summaryChecks(screen);
 		const frame = screen.frame();
 		expect(frame).toContain('- n/a        Any interlock bypass');
-		expect(frame).toContain('Inputs not given: ambient_max');
 		const lines = frame.split('\n');
 		expect(lines.findIndex((line) => line.startsWith('- n/a'))).toBeGreaterThan(lines.findLastIndex((line) => verdictLine.test(line.trimEnd())));
 	});
