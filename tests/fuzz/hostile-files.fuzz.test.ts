@@ -107,6 +107,16 @@ describe(`the fuzz run (seed ${fuzzSeed}, ${fuzzRuns} cases; PRELASE_FUZZ_SEED a
 		for (const target of targets) expect([target.name, target.run(target.valid, target.file).filter((found) => 'severity' in found && found.severity === 'error')]).toEqual([target.name, []]);
 	});
 
+	it.each([
+		{name: 'a problem with neither line nor field', found: {code: 'schema', data: {detail: 'x'}, severity: 'error', file: 'a.yaml'}, says: /neither a line nor a field/},
+		{name: 'a problem in another file', found: {code: 'schema', data: {detail: 'x'}, severity: 'error', file: 'b.yaml', line: 1}, says: /names the file b.yaml/},
+		{name: 'a placeholder left unfilled', found: {code: 'schema', data: {}, severity: 'error', file: 'a.yaml', line: 1}, says: /leaves \{\{detail\}\} unfilled/},
+		{name: 'a finding of an unknown code', found: {code: 'audit-made-up', data: {}}, says: /unknown message code/},
+	] as Array<{name: string; found: Problem; says: RegExp}>)('the check of each case has teeth: $name is a defect', ({found, says}) => {
+		expect(defect(found, 'a.yaml')).toMatch(says);
+		expect(defect({...found, code: 'file-empty', data: {expected: 'x'}, ...('severity' in found ? {file: 'a.yaml'} : {})}, 'a.yaml')).toBeUndefined();
+	});
+
 	it.each(targets)('$name: every mutated file gives a located message or loads; nothing throws', {timeout: 120_000}, (target) => {
 		const random = new Random(fuzzSeed ^ [...target.name].reduce((sum, char) => (sum * 31 + char.charCodeAt(0)) >>> 0, 0));
 		const runs = Math.max(1, Math.round(fuzzRuns * target.share));
