@@ -9,6 +9,7 @@ import {listRecordFiles} from '../../source/audit/audit-files.js';
 import {findTestRecords} from '../../source/interlock/functional-test/test-link.js';
 import {buildRecordBody} from '../../source/records/build-body.js';
 import {scanHead} from '../../source/records/chain.js';
+import {readRuleText, ruleTextPath} from '../../source/records/rule-texts.js';
 import {ownFingerprint} from '../../source/records/key-files.js';
 import {readRecord} from '../../source/records/read-record.js';
 import {evaluate} from '../../source/rules/evaluate/evaluate.js';
@@ -104,5 +105,17 @@ describe('other readers of a records folder pass such files over without reading
 
 	it('a link named on its own to a real record is followed', () => {
 		expect(readRecord(join(folder, 'out.json')).ok).toBe(true);
+	});
+
+	it.each([
+		{name: 'a link to /dev/zero', make: (path: string) => symlinkSync('/dev/zero', path), reason: 'not a rule text file: a symbolic link'},
+		{name: 'a named pipe', make: (path: string) => execFileSync('mkfifo', [path]), reason: 'not a rule text file: a named pipe (FIFO)'},
+		{name: 'a 2 MiB file', make: (path: string) => writeFileSync(path, 'x'.repeat(2 * 1024 * 1024)), reason: 'not a rule text file: 2097152 bytes'},
+	])('a stored rule text that is $name is unreadable, with why', {timeout: 20_000}, ({make, reason}) => {
+		const sha = 'a'.repeat(64);
+		const path = ruleTextPath(join(top, `rule-texts-${reason.length}-${Math.random().toString(16).slice(2)}`), sha);
+		mkdirSync(join(path, '..'), {recursive: true});
+		make(path);
+		expect(readRuleText(path, sha)).toEqual({status: 'unreadable', path, reason: expect.stringContaining(reason)});
 	});
 });
