@@ -1,10 +1,13 @@
 import {closeSync, constants, fstatSync, lstatSync, openSync, readSync, type Stats} from 'node:fs';
 
 /**
- * The largest record file prelase reads: 1 MiB. A record is about 9 kB; records made before
- * the lean body were up to about 80 kB. A larger file in a records folder is not a record.
+ * The largest record file prelase reads: 8 MiB. A record is about 9 kB; records made before
+ * the lean body were up to about 80 kB. But a record may embed one rule or plan text, and such
+ * a file may be up to 1 MiB, which JSON escaping can make up to six times longer: 8 MiB is above
+ * anything prelase itself can write, so no genuine record is ever refused, while a device or a
+ * file that grows is still read no further than that.
  */
-export const maxRecordFileBytes = 1024 * 1024;
+export const maxRecordFileBytes = 8 * 1024 * 1024;
 
 /** Why a path is not read as a record file: a few words for a person, naming what it is. */
 export type NotRecordFile = {ok: false; notRecordFile: string} | {ok: false; unreadable: string};

@@ -42,8 +42,8 @@ beforeAll(async () => {
 	symlinkSync(outside, join(folder, 'out.json'));
 	symlinkSync(good, join(folder, 'twice.json'));
 	symlinkSync('.', join(folder, 'loop'));
-	// 2 MiB: above the 1 MiB cap (1 MiB = 1,048,576 bytes), JSON-looking so only the size refuses it.
-	writeFileSync(join(folder, 'big.json'), `{"pad":"${'x'.repeat(2 * 1024 * 1024)}"}`);
+	// 9 MiB: above the 8 MiB cap (8 MiB = 8,388,608 bytes), JSON-looking so only the size refuses it.
+	writeFileSync(join(folder, 'big.json'), `{"pad":"${'x'.repeat(9 * 1024 * 1024)}"}`);
 	socket = createServer();
 	await new Promise<void>((done) => socket.listen(join(folder, 'sock.json'), done));
 });
@@ -60,7 +60,7 @@ describe('the audit of a folder with things that are not record files', () => {
 		{name: 'out.json', why: 'a symbolic link'},
 		{name: 'twice.json', why: 'a symbolic link'},
 		{name: 'loop', why: 'a symbolic link'},
-		{name: 'big.json', why: '2097162 bytes, above the 1048576 bytes'}, // 2*1024*1024 + the 10 bytes of {"pad":""} around it
+		{name: 'big.json', why: '9437194 bytes, above the 8388608 bytes'}, // 9*1024*1024 + the 10 bytes of {"pad":""} around it
 		{name: 'sock.json', why: 'a socket'},
 	];
 
@@ -81,8 +81,8 @@ describe('the audit of a folder with things that are not record files', () => {
 		expect(listRecordFiles([folder]).files.filter((file) => file.includes('/loop/'))).toEqual([]);
 	});
 
-	it('caps record files at 1 MiB (1,048,576 bytes)', () => {
-		expect(maxRecordFileBytes).toBe(1_048_576);
+	it('caps record files at 8 MiB (8,388,608 bytes)', () => {
+		expect(maxRecordFileBytes).toBe(8_388_608);
 	});
 });
 
@@ -98,7 +98,7 @@ describe('other readers of a records folder pass such files over without reading
 	it.each([
 		{name: 'pipe.json', says: 'not a record file: a named pipe (FIFO)'},
 		{name: 'zero.json', says: 'not a record file: a character device'},
-		{name: 'big.json', says: 'not a record file: 2097162 bytes'},
+		{name: 'big.json', says: 'not a record file: 9437194 bytes'},
 	])('a record named on its own ($name) is refused with a reason', {timeout: 20_000}, ({name, says}) => {
 		expect(readRecord(join(folder, name))).toEqual({ok: false, reason: expect.stringContaining(says)});
 	});
@@ -110,7 +110,7 @@ describe('other readers of a records folder pass such files over without reading
 	it.each([
 		{name: 'a link to /dev/zero', make: (path: string) => symlinkSync('/dev/zero', path), reason: 'not a rule text file: a symbolic link'},
 		{name: 'a named pipe', make: (path: string) => execFileSync('mkfifo', [path]), reason: 'not a rule text file: a named pipe (FIFO)'},
-		{name: 'a 2 MiB file', make: (path: string) => writeFileSync(path, 'x'.repeat(2 * 1024 * 1024)), reason: 'not a rule text file: 2097152 bytes'},
+		{name: 'a 9 MiB file', make: (path: string) => writeFileSync(path, 'x'.repeat(9 * 1024 * 1024)), reason: 'not a rule text file: 9437184 bytes'},
 	])('a stored rule text that is $name is unreadable, with why', {timeout: 20_000}, ({make, reason}) => {
 		const sha = 'a'.repeat(64);
 		const path = ruleTextPath(join(top, `rule-texts-${reason.length}-${Math.random().toString(16).slice(2)}`), sha);
