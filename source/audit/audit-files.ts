@@ -17,6 +17,8 @@ function recordName(name: string): boolean {
  * Expands record files and folders into the files to audit: folders recursively, in name
  * order, taking `.json` files and leaving out dotfiles, dot-folders and `*.tmp` (a write in
  * progress). A file named on its own is always audited. Each file is listed once, however it was reached.
+ * Inside a folder, symbolic links are not followed: a link named as a record, or to a folder, is
+ * listed so that the audit reports it as not a record file (a folder named on its own may be a link).
  */
 export function listRecordFiles(paths: readonly string[]): RecordFiles {
 	const files: string[] = [];
@@ -35,11 +37,16 @@ export function listRecordFiles(paths: readonly string[]): RecordFiles {
 		if (names === 'unreadable') return add(folder);
 		for (const name of names) {
 			const path = join(folder, name);
-			const stat = statOrDenied(path);
+			const stat = statOrDenied(path, lstatSync);
 			if (stat === 'denied') add(path);
 			else if (stat?.isDirectory()) walk(path);
-			// A dangling link is audited too, so that it is reported as unreadable rather than passed over.
-			else if (recordName(name) && (stat || lstatSync(path, {throwIfNoEntry: false}))) add(path);
+			// A link inside a folder is not followed (it could leave the folder, loop, or show a record twice):
+			// one named as a record, or one to a folder (whose records would otherwise be passed over), is
+			// audited so that it is reported as not a record file. So are pipes, devices and sockets named as records.
+			else if (stat?.isSymbolicLink()) {
+				const target = statOrDenied(path);
+				if (recordName(name) || target === 'denied' || target?.isDirectory()) add(path);
+			} else if (stat && recordName(name)) add(path);
 		}
 	};
 	for (const path of paths) {
@@ -65,9 +72,9 @@ function listFolder(folder: string, seenFolders: Set<string>): string[] | 'unrea
 }
 
 /** A path's stat (undefined when nothing is there), or 'denied' when even its stat is refused (a folder without search permission). */
-function statOrDenied(path: string): Stats | undefined | 'denied' {
+function statOrDenied(path: string, stat: typeof statSync = statSync): Stats | undefined | 'denied' {
 	try {
-		return statSync(path, {throwIfNoEntry: false});
+		return stat(path, {throwIfNoEntry: false});
 	} catch {
 		return 'denied';
 	}

@@ -3,6 +3,7 @@ import {basename, join} from 'node:path';
 import {literal, object, string} from 'zod';
 import {replaceFileAtomically} from '../shared/atomic-file.js';
 import {sha256Hex} from '../shared/sha256.js';
+import {readRecordFile} from '../shared/record-file-read.js';
 import {chainLinkSchema, type ChainLink} from './record-schema.js';
 
 /** The dot-folder beside the records that remembers each key's latest record (the audit's folder walk leaves dot-folders out). */
@@ -18,7 +19,10 @@ export function headFile(folder: string, key: string): string {
 /** The latest record of a key as its head file remembers it; undefined when there is no such file or it cannot be read. */
 export function readHead(folder: string, key: string): NonNullable<ChainLink> | undefined {
 	try {
-		const parsed = headSchema.safeParse(JSON.parse(readFileSync(headFile(folder, key), 'utf8')));
+		// Read as a record file is: a regular file of bounded size, never a link, pipe or device.
+		const read = readRecordFile(headFile(folder, key), 64 * 1024);
+		if (!read.ok) return undefined;
+		const parsed = headSchema.safeParse(JSON.parse(read.bytes.toString('utf8')));
 		return parsed.success && parsed.data.key === key ? parsed.data.head : undefined;
 	} catch {
 		return undefined;
@@ -43,12 +47,10 @@ export function scanHead(folder: string, key: string): ChainLink {
 	}
 	const found: Scanned[] = [];
 	for (const file of names) {
-		let bytes: Buffer;
-		try {
-			bytes = readFileSync(join(folder, file));
-		} catch {
-			continue;
-		}
+		// Only regular files of a record's size: a link, pipe or device named *.json is not a record of the key.
+		const read = readRecordFile(join(folder, file));
+		if (!read.ok) continue;
+		const bytes = read.bytes;
 		const text = bytes.toString('utf8');
 		// Most files of a folder shared by several keys are not this key's: skip them unparsed.
 		if (!text.includes(key)) continue;

@@ -1,6 +1,6 @@
 import {sha256Hex} from '../shared/sha256.js';
 import type {KeyObject} from 'node:crypto';
-import {readFileSync} from 'node:fs';
+import {readRecordFile} from '../shared/record-file-read.js';
 import canonicalize from 'canonicalize';
 import {finding, type Finding} from './findings.js';
 import {unsafeJsonKey} from './unsafe-json-names.js';
@@ -43,12 +43,9 @@ export class KeyCache {
 
 /** Reads a record file and checks its integrity (see checkIntegrity). */
 export function readIntegrity(path: string, keys: KeyCache): IntegrityCheck {
-	let bytes: Buffer;
-	try {
-		bytes = readFileSync(path);
-	} catch (error) {
-		return {ok: false, finding: finding('integrity', 'audit-unreadable', {reason: (error as NodeJS.ErrnoException).code ?? (error as Error).message})};
-	}
+	const read = readRecordFile(path);
+	if (!read.ok) return {ok: false, finding: 'unreadable' in read ? finding('integrity', 'audit-unreadable', {reason: read.unreadable}) : finding('integrity', 'audit-not-record-file', {why: read.notRecordFile})};
+	const bytes = read.bytes;
 	return {...checkIntegrity(bytes.toString('utf8'), keys), fileSha256: sha256Hex(bytes)};
 }
 

@@ -1,4 +1,4 @@
-import {chmodSync, existsSync, mkdirSync, readFileSync, statSync} from 'node:fs';
+import {chmodSync, existsSync, mkdirSync, statSync} from 'node:fs';
 import {createPrivateKey, createPublicKey, type KeyObject} from 'node:crypto';
 import {join} from 'node:path';
 // Named imports (not the z namespace) let the bundler leave out the parts of zod not used.
@@ -10,6 +10,7 @@ import {fingerprint, generateKeyPair, rawPublicKey} from './key-material.js';
 import {createFileAtomically, replaceFileAtomically} from '../shared/atomic-file.js';
 import {asWriteError} from '../shared/file-write-error.js';
 import {cleanKeyName, nameInPem, pemWithName} from './key-name.js';
+import {FileShapeError, readCappedText} from '../shared/capped-read.js';
 
 /**
  * A colleague's public key that this operator trusts: under a name, with the roles granted to
@@ -58,7 +59,7 @@ export function operatorKey(settingsFolder: string, create: boolean, name?: stri
 	const open = notPrivate(path);
 	if (open) return failure([open]);
 	try {
-		const text = readFileSync(path, 'utf8');
+		const text = readCappedText(path);
 		if (text.trim() === '') return failure([problem('key-file-empty', {path})]);
 		return success({privateKey: createPrivateKey(text), created: false, path, name: nameInPem(text)});
 	} catch (error) {
@@ -77,7 +78,7 @@ export function nameOperatorKey(settingsFolder: string, name: string): Result<Op
 	if (!holder) return failure([problem('key-no-name')]);
 	if (own.value.name !== undefined) return own.value.name === holder ? own : failure([problem('key-name-set', {name: own.value.name})]);
 	const {privateKey, path} = own.value;
-	replaceFileAtomically(path, pemWithName(readFileSync(path, 'utf8'), holder), 0o600);
+	replaceFileAtomically(path, pemWithName(readCappedText(path), holder), 0o600);
 	replaceFileAtomically(join(keyFolder(settingsFolder), 'operator.pub'), publicKeyPem(privateKey, holder), 0o644);
 	return success({...own.value, name: holder});
 }
@@ -94,7 +95,7 @@ export function namedKeyFromFile(path: string): Result<{key: KeyObject; name: st
 	const open = notPrivate(path);
 	if (open) return failure([open]);
 	try {
-		const text = readFileSync(path, 'utf8');
+		const text = readCappedText(path);
 		return success({key: createPrivateKey(text), name: nameInPem(text)});
 	} catch (error) {
 		return failure([problem('key-file-not-private', {path, detail: (error as Error).message})]);
@@ -117,11 +118,11 @@ export function readTrusted(settingsFolder: string): TrustedKey[] {
 	if (!existsSync(path)) return [];
 	let data: unknown;
 	try {
-		data = JSON.parse(readFileSync(path, 'utf8'));
+		data = JSON.parse(readCappedText(path));
 	} catch (error) {
 		// Words of our own, not the parser's message, which quotes the file's text.
 		const code = (error as NodeJS.ErrnoException).code;
-		const detail = code ?? (/end of (JSON )?input|unterminated/i.test((error as Error).message) ? 'it ends part-way, as a write cut short leaves it' : 'it is not JSON');
+		const detail = error instanceof FileShapeError ? error.message : code ?? (/end of (JSON )?input|unterminated/i.test((error as Error).message) ? 'it ends part-way, as a write cut short leaves it' : 'it is not JSON');
 		throw new ProblemError(problem('key-trusted-damaged', {path, detail}));
 	}
 	const parsed = trustedSchema.safeParse(data);
@@ -153,7 +154,7 @@ function makeKeyFolder(folder: string): void {
 export function ownFingerprint(settingsFolder: string): string | undefined {
 	for (const [file, read] of [['operator.key', createPrivateKey], ['operator.pub', createPublicKey]] as const) {
 		try {
-			return fingerprint(rawPublicKey(read(readFileSync(join(keyFolder(settingsFolder), file)))));
+			return fingerprint(rawPublicKey(read(readCappedText(join(keyFolder(settingsFolder), file)))));
 		} catch {
 			// Missing or unreadable: try the next file.
 		}

@@ -1,4 +1,5 @@
-import {readFileSync} from 'node:fs';
+import {realpathSync} from 'node:fs';
+import {readRecordFile} from '../shared/record-file-read.js';
 import {checkIntegrity, KeyCache, type SignatureCheck} from './integrity.js';
 import type {AnyRecord} from './record-schema.js';
 import {describeProblem} from '../shared/problems.js';
@@ -13,13 +14,18 @@ export type IntegrityResult =
  * and every signature verifies over the canonical form of the body with the key it names.
  */
 export function readRecord(path: string, keys?: KeyCache): IntegrityResult {
-	let text: string;
+	let read: ReturnType<typeof readRecordFile>;
 	try {
-		text = readFileSync(path, 'utf8');
+		// A file named on its own may be a link (the person chose it); what it leads to must be a regular file of a record's size.
+		read = readRecordFile(realpathSync(path));
 	} catch (error) {
-		return {ok: false, reason: `cannot read the file (${(error as NodeJS.ErrnoException).code ?? (error as Error).message})`};
+		read = {ok: false, unreadable: (error as NodeJS.ErrnoException).code ?? (error as Error).message};
 	}
-	return checkRecordText(text, keys);
+	if (!read.ok) {
+		const reason = 'unreadable' in read ? describeProblem({code: 'audit-unreadable', data: {reason: read.unreadable}}) : describeProblem({code: 'audit-not-record-file', data: {why: read.notRecordFile}});
+		return {ok: false, reason};
+	}
+	return checkRecordText(read.bytes.toString('utf8'), keys);
 }
 
 /** The same checks for text already in hand: the audit's integrity check, with its findings in words. */

@@ -1,4 +1,5 @@
-import {linkSync, mkdirSync, readFileSync, unlinkSync} from 'node:fs';
+import {linkSync, mkdirSync, unlinkSync} from 'node:fs';
+import {readRecordFile} from '../shared/record-file-read.js';
 import {dirname, join} from 'node:path';
 import {fsyncFolder, replaceFileAtomically, writeSyncedTemporary} from '../shared/atomic-file.js';
 import {sha256Hex} from '../shared/sha256.js';
@@ -22,14 +23,11 @@ export type StoredRuleText = {status: 'ok'; path: string; text: string} | {statu
 
 /** Reads a stored rule text and checks it against the hash in its name. */
 export function readRuleText(path: string, sha256: string): StoredRuleText {
-	let text: string;
-	try {
-		text = readFileSync(path, 'utf8');
-	} catch (error) {
-		const code = (error as NodeJS.ErrnoException).code;
-		if (code === 'ENOENT' || code === 'ENOTDIR') return {status: 'missing'};
-		return {status: 'unreadable', path, reason: code ?? (error as Error).message};
-	}
+	// Read as a record file is: a regular file of at most 1 MiB, never a link, pipe or device in the records folder.
+	const read = readRecordFile(path);
+	if (!read.ok && 'unreadable' in read) return read.unreadable === 'ENOENT' || read.unreadable === 'ENOTDIR' ? {status: 'missing'} : {status: 'unreadable', path, reason: read.unreadable};
+	if (!read.ok) return {status: 'unreadable', path, reason: `not a rule text file: ${read.notRecordFile}`};
+	const text = read.bytes.toString('utf8');
 	const actual = sha256Hex(text);
 	return actual === sha256 ? {status: 'ok', path, text} : {status: 'mismatch', path, actual};
 }

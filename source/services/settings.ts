@@ -1,5 +1,6 @@
 import envPaths from 'env-paths';
-import {existsSync, mkdirSync, readFileSync} from 'node:fs';
+import {existsSync, mkdirSync} from 'node:fs';
+import {readCappedText} from '../shared/capped-read.js';
 import {dirname, join} from 'node:path';
 // Named imports (not the z namespace) let the bundler leave out the parts of zod not used.
 import {object, string} from 'zod';
@@ -48,7 +49,7 @@ export function loadSettings(env: NodeJS.ProcessEnv = process.env): Result<Setti
 	if (!existsSync(path)) return success({});
 	let data: unknown;
 	try {
-		data = JSON.parse(readFileSync(path, 'utf8'));
+		data = JSON.parse(readCappedText(path));
 	} catch (error) {
 		return failure([problem('settings-unreadable', {path, detail: (error as Error).message})]);
 	}

@@ -166,6 +166,7 @@ export const messages = {
 	'audit-countersign-required': 'incomplete until countersigned: the policy requires a countersignature by a granted {{roles}} for {{why}}; have them countersign an amendment (check --sign NAME --amends THIS-RECORD --reason ... --cosign NAME --cosign-key FILE --cosign-meaning approval)',
 	'audit-purpose-required': 'the policy requires a signature for the purpose {{purposes}} on a {{kind}} record, and this record has none',
 	'audit-witness-signature-required': 'the policy requires a signed witness for an interlock functional test, and this record has no witness signature by a trusted key',
+	'audit-not-record-file': 'not a record file: {{why}}; it was not read (records are regular files of at most 8 MiB), and the rest of the folder is audited',
 	'interlock-duplicate-id': 'the id "{{id}}" is already used by {{first}}; device and access point ids must be unique',
 	'interlock-loop-resistance': 'the loop resistance {{resistance}} is above {{allowed}} (the input reads up to {{threshold}} as closed, less the {{margin}} margin of the policy)',
 	'interlock-contact-current': 'the loop current {{current}} is above the contact rating {{rating}}',

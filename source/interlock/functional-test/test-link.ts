@@ -1,5 +1,6 @@
 import {sha256Hex} from '../../shared/sha256.js';
-import {closeSync, openSync, readdirSync, readFileSync, readSync} from 'node:fs';
+import {readdirSync} from 'node:fs';
+import {readRecordFile} from '../../shared/record-file-read.js';
 import {isAbsolute, join, resolve} from 'node:path';
 import {displayPath} from '../../shared/display-path.js';
 import {formatProblem} from '../../shared/problems.js';
@@ -63,17 +64,6 @@ export function addDays(day: string, days: number): string {
  */
 const benchCheckStart = /^\{\s*"format":\s*"prelase-record",\s*"version":\s*\d+,\s*"body":\s*\{\s*"kind":\s*"bench-check"/;
 
-/** The first bytes of a file, as text. */
-function fileStart(file: string): string {
-	const handle = openSync(file, 'r');
-	try {
-		const buffer = Buffer.alloc(256);
-		return buffer.toString('utf8', 0, readSync(handle, buffer, 0, buffer.length, 0));
-	} finally {
-		closeSync(handle);
-	}
-}
-
 /**
  * The interlock test records in a folder (its own `.json` files, whatever their names): those whose
  * content states the interlock-test kind, authentic, and first signed with a trusted key. Returns
@@ -92,13 +82,11 @@ export function findTestRecords(folder: string, trusted: ReadonlySet<string>): {
 	let damaged = 0;
 	for (const name of names) {
 		const file = join(folder, name);
-		let text: string;
-		try {
-			if (benchCheckStart.test(fileStart(file))) continue;
-			text = readFileSync(file, 'utf8');
-		} catch {
-			continue;
-		}
+		// Only regular files of a record's size are read: a link, pipe or device named *.json is no test record.
+		const bytesRead = readRecordFile(file);
+		if (!bytesRead.ok) continue;
+		if (benchCheckStart.test(bytesRead.bytes.toString('utf8', 0, 256))) continue;
+		const text = bytesRead.bytes.toString('utf8');
 		// A file that does not spell out the kind (nor could hide it in a \u escape) is a bench check or something else: not read further.
 		if (!text.includes('"interlock-test"') && !text.includes('\\u')) continue;
 		const read = checkRecordText(text, keys);

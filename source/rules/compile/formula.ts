@@ -39,7 +39,8 @@ export function compileFormula(text: string, names: NameTable, functions: Readon
 	}
 	const problems: FormulaProblem[] = [];
 	const used = new Set<string>();
-	const known = [...names.keys()];
+	// The names are listed only for a suggestion, when a name is unknown: a copy for every formula made compiling n formulas n².
+	let known: string[] | undefined;
 
 	const visit = (node: ExpressionNode, choiceAllowed = false): void => {
 		switch (node.kind) {
@@ -60,7 +61,7 @@ export function compileFormula(text: string, names: NameTable, functions: Readon
 					return;
 				}
 				if (mathConstants.has(node.name) || isUnitName(node.name)) return;
-				problems.push({code: 'unknown-name', data: {name: node.name, hint: didYouMean(node.name, known)}, name: node.name});
+				problems.push({code: 'unknown-name', data: {name: node.name, hint: didYouMean(node.name, (known ??= [...names.keys()]))}, name: node.name});
 				return;
 			}
 			case 'group':
