@@ -140,7 +140,10 @@ export function App({rules: givenRules, settings, env, startCheck, startPlan, au
 		return {ok: true as const, value: checked.value.file};
 	};
 
-	const choose = (choice: HomeChoice) => {
+	// The home menu opens where it was left: Esc back from a screen finds the cursor on what led there.
+	const lastHomeChoice = useRef<string | undefined>(undefined);
+	const choose = (choice: HomeChoice, key?: string) => {
+		if (key !== undefined) lastHomeChoice.current = key;
 		// No check starts on a rule file that does not load (the menu does not offer one; this holds for any other way in).
 		if (broken && (choice.action === 'start' || choice.action === 'resume' || choice.action === 'setup')) return;
 		switch (choice.action) {
@@ -254,7 +257,7 @@ export function App({rules: givenRules, settings, env, startCheck, startPlan, au
 	};
 
 	let body;
-	if (screen === 'home') body = <HomeScreen {...(broken ? {broken} : {})} rulesName={rules.rules.name} rulesFile={displayPath(rules.file)} rulesSha256={rules.sha256} caution={rules.rules.caution} {...(draft ? {draft: {setup: draft.setup, savedAt: draft.savedAt}} : {})} setups={setups} onChoose={choose} />;
+	if (screen === 'home') body = <HomeScreen {...(broken ? {broken} : {})} rulesName={rules.rules.name} rulesFile={displayPath(rules.file)} rulesSha256={rules.sha256} caution={rules.rules.caution} {...(draft ? {draft: {setup: draft.setup, savedAt: draft.savedAt}} : {})} setups={setups} {...(lastHomeChoice.current ? {last: lastHomeChoice.current} : {})} onChoose={choose} />;
 	else if (screen === 'step')
 		body = (
 			<StepScreen

@@ -1,5 +1,5 @@
 import {Box, Text} from 'ink';
-import SelectInput from 'ink-select-input';
+import {Menu} from './Menu.js';
 import {deferral} from '../shared/deferral.js';
 import {stripControl} from '../shared/text.js';
 
@@ -7,7 +7,7 @@ import {stripControl} from '../shared/text.js';
 export type HomeChoice = {action: 'shipped'} | {action: 'start'} | {action: 'resume'} | {action: 'setup'; name: string} | {action: 'audit'} | {action: 'planner'} | {action: 'rules'} | {action: 'settings'} | {action: 'quit'};
 
 /** The home screen: start, resume or audit, the rules in force and settings; the caution always shown. */
-export function HomeScreen(props: {/** The rule file named in the settings does not load: no check is offered until it is fixed or the shipped policy is chosen. */ broken?: {file: string; settingsPath: string; problems: string[]}; rulesName: string; rulesFile: string; rulesSha256: string; caution: string; draft?: {setup: string; savedAt: string}; setups: string[]; onChoose(choice: HomeChoice): void}) {
+export function HomeScreen(props: {/** The rule file named in the settings does not load: no check is offered until it is fixed or the shipped policy is chosen. */ broken?: {file: string; settingsPath: string; problems: string[]}; rulesName: string; rulesFile: string; rulesSha256: string; caution: string; draft?: {setup: string; savedAt: string}; setups: string[]; /** The item chosen last time: the menu opens on it. */ last?: string; onChoose(choice: HomeChoice, key: string): void}) {
 	const items: Array<{key: string; label: string; value: HomeChoice}> = [{key: 'start', label: props.draft ? 'Start a new bench check (replaces the draft)' : 'Start a bench check', value: {action: 'start'}}];
 	if (props.draft) items.unshift({key: 'resume', label: `Resume the draft: ${stripControl(props.draft.setup || 'unnamed setup')} (saved ${props.draft.savedAt.slice(0, 16).replace('T', ' ')})`, value: {action: 'resume'}});
 	for (const name of props.setups) items.push({key: `setup-${name}`, label: `Start from the saved setup ${stripControl(name)}`, value: {action: 'setup', name}});
@@ -38,7 +38,7 @@ export function HomeScreen(props: {/** The rule file named in the settings does 
 			)}
 			<Box marginY={1} flexDirection="column">
 				{/* A new menu (the rule file fixed or the shipped policy chosen) starts at its first item. */}
-				<SelectInput key={props.broken ? 'broken' : 'rules'} items={items} onSelect={(item) => props.onChoose(item.value)} />
+				<Menu key={props.broken ? 'broken' : 'rules'} items={items} {...(props.last ? {initial: props.last} : {})} onSelect={(item) => props.onChoose(item.value, item.key)} />
 			</Box>
 			<Text bold>Caution</Text>
 			<Text wrap="wrap">{stripControl(props.caution)}</Text>

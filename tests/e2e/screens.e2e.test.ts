@@ -141,6 +141,20 @@ describe.skipIf(!haveTmux())('the screens in a real terminal', () => {
 		expect(existsSync(records) ? readdirSync(records, {recursive: true}) : []).toEqual([]);
 	});
 
+	it('takes Down Down Down sent at once on the home menu as three moves, and keeps its place after Esc, at 80x24', {timeout: 60_000}, async () => {
+		const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
+		const session = start('home-burst', home, '', [80, 24]);
+		await session.waitFor((screen) => screen.includes('❯ Start a bench check'), 'the home menu');
+		// One send-keys: the three keys reach the program together.
+		session.press('Down', 'Down', 'Down');
+		await session.waitFor((screen) => screen.includes('❯ Settings'), 'the cursor on Settings (three items down)');
+		session.press('Enter');
+		await session.waitFor((screen) => screen.includes('Operator name'), 'the settings');
+		session.press('Escape');
+		const back = await session.waitFor((screen) => screen.includes('Start a bench check'), 'the home menu again');
+		expect(back).toContain('❯ Settings (operator, role, records folder, rule file)');
+	});
+
 	it('resumes a check after the program is killed', {timeout: 60_000}, async () => {
 		const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
 		const first = start('killed', home, 'check');

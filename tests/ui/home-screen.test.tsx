@@ -66,7 +66,15 @@ describe('the home screen', () => {
 		expect(frame).toMatch(/SHA-256 [0-9a-f]{64}/);
 		expect(frame).toContain(`9 steps, ${screen.rules.inputs.size} inputs`);
 		frame = await screen.press(keys.escape);
-		expect(frame).toContain('❯ Start a bench check');
+		// The menu keeps its place: the cursor is on the item that led here.
+		expect(frame).toContain('❯ Rules in force');
+	});
+
+	it('takes every key of a burst: Down Down Down sent at once moves three items', async () => {
+		const screen = await renderApp();
+		// One chunk, as a fast typist or a paste delivers it.
+		const frame = await screen.press(`${keys.down}${keys.down}${keys.down}`);
+		expect(frame).toContain('❯ Settings (operator, role, records folder, rule file)');
 	});
 
 	it('quits with status 0 from Quit and 130 from Ctrl-C', async () => {

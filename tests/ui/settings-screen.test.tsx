@@ -45,7 +45,8 @@ describe('the settings screen', () => {
 		const screen = await settingsScreen();
 		await screen.type('Nobody');
 		const frame = await screen.press(keys.escape);
-		expect(frame).toContain('❯ Start a bench check');
+		// Back on the home menu, on the item that led to the settings.
+		expect(frame).toContain('❯ Settings (operator, role, records folder, rule file)');
 		expect(openSettings(screen.env).read().operator).toBeUndefined();
 	});
 });
