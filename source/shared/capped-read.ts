@@ -1,4 +1,5 @@
-import {closeSync, constants, fstatSync, openSync, readSync} from 'node:fs';
+import {closeSync, constants, fstatSync, openSync} from 'node:fs';
+import {readToCap} from './read-to-cap.js';
 import {fileKind} from './record-file-read.js';
 
 /** The largest settings, key or trust-list file prelase reads: 1 MiB (they are well under 100 kB; a trust list entry is ~190 bytes). */
@@ -20,17 +21,9 @@ export function readCappedText(path: string, maxBytes = maxSmallFileBytes): stri
 		const stat = fstatSync(descriptor);
 		if (!stat.isFile()) throw new FileShapeError(`it is ${fileKind(stat)}, not a regular file`);
 		if (stat.size > maxBytes) throw new FileShapeError(`it is ${stat.size} bytes, above the ${maxBytes} bytes such a file may have`);
-		const chunks: Buffer[] = [];
-		let length = 0;
-		for (;;) {
-			const chunk = Buffer.allocUnsafe(Math.min(64 * 1024, maxBytes + 1 - length));
-			const read = readSync(descriptor, chunk, 0, chunk.length, null);
-			if (read === 0) break;
-			chunks.push(chunk.subarray(0, read));
-			length += read;
-			if (length > maxBytes) throw new FileShapeError(`it is more than ${maxBytes} bytes, the most such a file may have`);
-		}
-		return Buffer.concat(chunks, length).toString('utf8');
+		const read = readToCap(descriptor, maxBytes);
+		if (!read.ok) throw new FileShapeError(`it is more than ${maxBytes} bytes, the most such a file may have`);
+		return read.bytes.toString('utf8');
 	} finally {
 		closeSync(descriptor);
 	}

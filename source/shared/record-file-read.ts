@@ -1,4 +1,5 @@
-import {closeSync, constants, fstatSync, lstatSync, openSync, readSync, type Stats} from 'node:fs';
+import {closeSync, constants, fstatSync, lstatSync, openSync, type Stats} from 'node:fs';
+import {readToCap} from './read-to-cap.js';
 
 /**
  * The largest record file prelase reads: 8 MiB. A record is about 9 kB; records made before
@@ -46,17 +47,8 @@ export function readRecordFile(path: string, maxBytes = maxRecordFileBytes): Rec
 		const stat = fstatSync(descriptor);
 		if (!stat.isFile()) return {ok: false, notRecordFile: fileKind(stat)};
 		if (stat.size > maxBytes) return {ok: false, notRecordFile: tooLarge(stat.size, maxBytes)};
-		const chunks: Buffer[] = [];
-		let length = 0;
-		for (;;) {
-			const chunk = Buffer.allocUnsafe(Math.min(64 * 1024, maxBytes + 1 - length));
-			const read = readSync(descriptor, chunk, 0, chunk.length, null);
-			if (read === 0) break;
-			chunks.push(chunk.subarray(0, read));
-			length += read;
-			if (length > maxBytes) return {ok: false, notRecordFile: tooLarge(length, maxBytes)};
-		}
-		return {ok: true, bytes: Buffer.concat(chunks, length)};
+		const read = readToCap(descriptor, maxBytes);
+		return read.ok ? {ok: true, bytes: read.bytes} : {ok: false, notRecordFile: tooLarge(read.length, maxBytes)};
 	} catch (error) {
 		const code = (error as NodeJS.ErrnoException).code;
 		if (code === 'ELOOP') return {ok: false, notRecordFile: 'a symbolic link (a record is a regular file; the audit does not follow links)'};

@@ -1,4 +1,5 @@
-import {closeSync, fstatSync, openSync, readSync} from 'node:fs';
+import {closeSync, fstatSync, openSync} from 'node:fs';
+import {readToCap} from './read-to-cap.js';
 import {isAlias, isMap, isPair, isScalar, isSeq, LineCounter, parseDocument, visit, type Document} from 'yaml';
 import {problem, warning, type Problem} from './problems.js';
 import {failure, success, type Result} from './result.js';
@@ -39,17 +40,9 @@ export function readTextFile(file: string, expected: string, maxBytes = maxYamlF
 		if (!stat.isFile()) return failure([problem('file-not-regular', {expected}, {file})]);
 		if (stat.size > maxBytes) return failure([problem('file-too-large', {size: stat.size, max: maxBytes, expected}, {file})]);
 		// Read to the end in chunks, stopping past the limit: a file that grows while it is read is still bounded.
-		const chunks: Buffer[] = [];
-		let length = 0;
-		for (;;) {
-			const chunk = Buffer.allocUnsafe(Math.min(64 * 1024, maxBytes + 1 - length));
-			const read = readSync(descriptor, chunk, 0, chunk.length, null);
-			if (read === 0) break;
-			chunks.push(chunk.subarray(0, read));
-			length += read;
-			if (length > maxBytes) return failure([problem('file-too-large', {size: length, max: maxBytes, expected}, {file})]);
-		}
-		bytes = Buffer.concat(chunks, length);
+		const read = readToCap(descriptor, maxBytes);
+		if (!read.ok) return failure([problem('file-too-large', {size: read.length, max: maxBytes, expected}, {file})]);
+		bytes = read.bytes;
 	} catch (error) {
 		const reason = (error as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : String((error as Error).message);
 		return failure([problem('file-unreadable', {reason}, {file})]);

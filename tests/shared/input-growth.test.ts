@@ -6,6 +6,7 @@ import {parseQuantity} from '../../source/quantities/parse-quantity.js';
 import {loadAnswersFromText} from '../../source/rules/evaluate/load-answers.js';
 import {loadRules, shippedRulesPath} from '../../source/rules/load.js';
 import {parseYamlSource} from '../../source/shared/yaml-source.js';
+import {growthOverLinear} from '../helpers/growth.js';
 
 /**
  * Growth, not speed: the time for an input of about 100 kB against one of about 1 kB, as a
@@ -13,19 +14,7 @@ import {parseYamlSource} from '../../source/shared/yaml-source.js';
  * Linear work gives a ratio near 100; quadratic work near 10,000. The bound, 1,000, sits between.
  */
 function growth(make: (bytes: number) => string, run: (input: string) => unknown): number {
-	const small = make(1_000);
-	const large = make(100_000);
-	const fastest = (input: string, rounds: number) => {
-		let best = Number.POSITIVE_INFINITY;
-		for (let round = 0; round < rounds; round += 1) {
-			const start = performance.now();
-			run(input);
-			best = Math.min(best, performance.now() - start);
-		}
-		return best;
-	};
-	fastest(small, 5);
-	return fastest(large, 3) / Math.max(fastest(small, 30), 0.05);
+	return growthOverLinear(make, run).timeRatio;
 }
 
 const rules = loadRules(shippedRulesPath());
