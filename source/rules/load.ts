@@ -8,7 +8,7 @@ import {parseRuleText, ruleFileExpected} from './file/rule-source.js';
 import {ruleFileSchema} from './file/schema.js';
 import {schemaProblems} from './file/schema-problems.js';
 
-export {shippedRulesPath} from './file/rule-source.js';
+export {ruleFileNamed, shippedRulesPath} from './file/rule-source.js';
 export {schemaProblems} from './file/schema-problems.js';
 
 /** Reads, validates, compiles and lints a rule file; every problem names file:line:column. */

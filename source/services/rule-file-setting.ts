@@ -1,6 +1,6 @@
 import {resolve} from 'node:path';
 import type {CompiledRules} from '../rules/compile/compiled-rules.js';
-import {loadRules, shippedRulesPath} from '../rules/load.js';
+import {loadRules, ruleFileNamed, shippedRulesPath} from '../rules/load.js';
 import type {Problem} from '../shared/problems.js';
 import {failure, success, type Result} from '../shared/result.js';
 import type {SettingsStore} from './settings.js';
@@ -27,7 +27,7 @@ export function checkRuleFileSetting(typed: string, base: string): Result<{file:
  */
 export function rulesForScreens(asked: string | undefined, settings: SettingsStore): Result<{rules: CompiledRules; file: string; broken?: BrokenRuleSetting}, Problem> {
 	const named = asked === undefined ? settings.read().rulesFile : undefined;
-	const file = asked ?? named ?? shippedRulesPath();
+	const file = (asked === undefined ? undefined : ruleFileNamed(asked)) ?? named ?? shippedRulesPath();
 	const loaded = loadRules(file);
 	if (loaded.ok) return success({rules: loaded.value, file});
 	if (named === undefined) return failure(loaded.errors);

@@ -7,7 +7,7 @@ import {auditText, inline} from '../../render/audit-text.js';
 import {auditJsonLines} from '../../render/audit-json.js';
 import {auditSummaryLines} from '../../render/audit-summary-text.js';
 import {ownFingerprint, readTrusted} from '../../records/key-files.js';
-import {loadRules, shippedRulesPath} from '../../rules/load.js';
+import {loadRules, ruleFileNamed, shippedRulesPath} from '../../rules/load.js';
 import {openSettings} from '../../services/settings.js';
 import {isRecordsRepository} from '../../services/records-repository.js';
 import {readRepositoryHistory} from '../../services/records-history.js';
@@ -52,7 +52,7 @@ function progress(io: Io): {update(done: number, total: number): void; end(): vo
 }
 
 const options = {
-	rules: {type: 'string', value: 'FILE', summary: 'The current rules (default: the rulesFile setting, else the shipped rules/default.yaml)'},
+	rules: {type: 'string', value: 'FILE', summary: 'The current rules; `shipped` for the shipped policy (default: the rulesFile setting, else the shipped rules/default.yaml)'},
 	json: {type: 'boolean', summary: 'Print everything the audit found as JSON'},
 	all: {type: 'boolean', summary: `List every record in full (by default, more than ${listAllUpTo} records are summarised: totals, findings, then the records with findings)`},
 	remote: {type: 'boolean', summary: 'For a records repository: also compare its history with its remote (a rewritten history is a finding)'},
@@ -74,7 +74,7 @@ export function runAudit(args: string[], io: Io): number {
 	const folders = positionals.filter((path) => isRecordsRepository(path));
 	if (values.remote && folders.length === 0) throw new UsageError('--remote compares a records repository with its remote, and none of the folders given is one (prelase records init)');
 	const settings = openSettings(io.env);
-	const rulesFile = values.rules ?? settings.read().rulesFile ?? shippedRulesPath();
+	const rulesFile = (values.rules === undefined ? undefined : ruleFileNamed(values.rules)) ?? settings.read().rulesFile ?? shippedRulesPath();
 	const current = loadRules(rulesFile);
 	if (!current.ok) throw new UsageError(`the current rule file ${rulesFile} has problems`, current.errors);
 	for (const found of current.warnings) io.stderr.write(`${formatProblem(found)}\n`);

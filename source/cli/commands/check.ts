@@ -23,7 +23,7 @@ export type {Io} from '../command.js';
 
 const options = {
 	answers: {type: 'string', value: 'FILE', summary: 'Answers file: setup, inputs (id: value with unit), confirmations (id: yes/no/not applicable, or {answer, note}); see docs/examples/'},
-	rules: {type: 'string', value: 'FILE', summary: 'Rule file to use (default: the settings\' rule file, else the shipped rules/default.yaml)'},
+	rules: {type: 'string', value: 'FILE', summary: 'Rule file to use; `shipped` for the shipped policy (default: the settings\' rule file, else the shipped rules/default.yaml)'},
 	json: {type: 'boolean', summary: 'Print the evaluation as JSON instead of text'},
 	sign: {type: 'string', value: 'NAME', summary: 'Write a signed record of this check (in every outcome) as NAME; the operator\'s key is created on first use (see prelase keys)'},
 	role: {type: 'string', value: 'ROLE', summary: 'The signer\'s role (default: the role in settings)'},

@@ -28,7 +28,7 @@ const schemas = {
 };
 
 const options = {
-	rules: {type: 'string', value: 'FILE', summary: 'The rule file whose interlock policy applies (default: the settings\' rule file, else the shipped policy)'},
+	rules: {type: 'string', value: 'FILE', summary: 'The rule file whose interlock policy applies; `shipped` for the shipped policy (default: the settings\' rule file, else the shipped policy)'},
 	json: {type: 'boolean', summary: 'Print the figures, findings and verdict as JSON'},
 	'test-sheet': {type: 'string', value: 'md|html', summary: 'Print the functional test sheet (Markdown, or a page to print) with blanks for the result, initials and date of every step'},
 	'record-test': {type: 'string', value: 'RESULTS', summary: 'Hold a filled-in test (YAML: tested_on, tested_by, witness, one result per step) against the plan\'s sheet, then write a signed interlock test record with the plan\'s text and hash. A bench check whose setup names the plan (input interlock_plan) answers its loop-test confirmations from the latest such record within the policy\'s test interval'},

@@ -5,7 +5,7 @@ import {formatProblem} from '../../shared/problems.js';
 import type {CompiledRules} from '../../rules/compile/compiled-rules.js';
 import {diffRules} from '../../rules/inspect/diff.js';
 import {siteFileTemplate} from '../../rules/inspect/init-template.js';
-import {loadRules, shippedRulesPath} from '../../rules/load.js';
+import {loadRules, ruleFileNamed, shippedRulesPath} from '../../rules/load.js';
 import {ruleFileJsonSchema, siteFileJsonSchema} from '../../rules/file/rule-json-schema.js';
 import {showRules} from '../../rules/inspect/outline.js';
 import {openSettings} from '../../services/settings.js';
@@ -15,10 +15,6 @@ import {commandHelp, helpOption, parseOptions, type Command, type Io} from '../c
 import {diffText} from '../../render/rules-diff-text.js';
 import {showText} from '../../render/rules-show-text.js';
 
-/** A rule file named on the command line: `shipped` is the shipped policy. */
-function ruleFileArgument(name: string): string {
-	return name === 'shipped' ? shippedRulesPath() : name;
-}
 
 /** Loads rules for show or diff; problems are the user's to fix (exit 2). */
 function loadOrRefuse(file: string): CompiledRules {
@@ -52,7 +48,7 @@ export function runRules(args: string[], io: Io): number {
 			if (files.length === 0) throw new UsageError('name at least one rule file: prelase rules validate FILE...');
 			let problems = 0;
 			for (const file of files) {
-				const loaded = loadRules(ruleFileArgument(file));
+				const loaded = loadRules(ruleFileNamed(file));
 				const found = loaded.ok ? loaded.warnings : loaded.errors;
 				for (const entry of found) io.stdout.write(`${formatProblem(entry)}\n`);
 				if (!loaded.ok) problems += loaded.errors.length;
@@ -83,14 +79,14 @@ export function runRules(args: string[], io: Io): number {
 		}
 		case 'show': {
 			if (files.length > 1) throw new UsageError('show takes at most one rule file: prelase rules show [FILE]');
-			const file = files[0] === undefined ? (openSettings(io.env).read().rulesFile ?? shippedRulesPath()) : ruleFileArgument(files[0]);
+			const file = files[0] === undefined ? (openSettings(io.env).read().rulesFile ?? shippedRulesPath()) : ruleFileNamed(files[0]);
 			const shown = showRules(loadOrRefuse(file));
 			io.stdout.write(`${values.json ? terminalSafeJson(shown) : showText(shown)}\n`);
 			return 0;
 		}
 		case 'diff': {
 			if (files.length !== 2) throw new UsageError('diff compares two rule files: prelase rules diff A B ("shipped" names the shipped policy)');
-			const diff = diffRules(loadOrRefuse(ruleFileArgument(files[0]!)), loadOrRefuse(ruleFileArgument(files[1]!)));
+			const diff = diffRules(loadOrRefuse(ruleFileNamed(files[0]!)), loadOrRefuse(ruleFileNamed(files[1]!)));
 			io.stdout.write(`${values.json ? terminalSafeJson(diff) : diffText(diff)}\n`);
 			return diff.equal ? 0 : 1;
 		}

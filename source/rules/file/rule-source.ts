@@ -21,6 +21,14 @@ export function shippedRulesPath(): string {
 	return resolve('rules', 'default.yaml');
 }
 
+/**
+ * A rule file named on the command line: the word `shipped` is the shipped policy (a file of
+ * that name is `./shipped`); anything else is a path.
+ */
+export function ruleFileNamed(name: string): string {
+	return name === 'shipped' ? shippedRulesPath() : name;
+}
+
 /** Rule text parsed as YAML with positions, and its SHA-256. The shipped policy is not parsed again. */
 export function parseRuleText(text: string, file: string): Result<{source: YamlSource; sha256: string}, Problem> {
 	const sha256 = sha256Hex(text);
