@@ -18,6 +18,8 @@ import {signAndWrite} from '../../services/sign-check.js';
 import {terminalSafeJson} from '../../shared/text.js';
 import {isInteractive, startScreens} from '../screens.js';
 import {commitNote} from '../../render/record-commit-text.js';
+import {openSettings} from '../../services/settings.js';
+import {listSetups, loadSetup} from '../../services/drafts/setup-store.js';
 
 export type {Io} from '../command.js';
 
@@ -46,6 +48,14 @@ export function runCheck(args: string[], io: Io): number | Promise<number> {
 		return 0;
 	}
 	if (!values.answers) {
+		if (values.setup !== undefined) {
+			// A name that is not a saved setup would start an empty check under that name.
+			const folder = openSettings(io.env).folder;
+			if (!loadSetup(folder, values.setup)) {
+				const known = listSetups(folder);
+				throw new UsageError(`there is no saved setup named "${values.setup}" (saved setups: ${known.length > 0 ? known.join(', ') : 'none yet'}); save one from the on-screen check, or start without --setup`);
+			}
+		}
 		if (isInteractive(io)) return startScreens(io, {...(values.rules ? {rules: values.rules} : {}), startCheck: values.setup ? {setup: values.setup} : {}});
 		throw new UsageError('the on-screen check needs a terminal (stdin and stdout), so prelase does not prompt here. Give the setup as a file: prelase check --answers FILE (see docs/examples/).');
 	}
