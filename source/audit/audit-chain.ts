@@ -194,7 +194,7 @@ export class ChainAudit {
 		// The chain is cut where a named record is missing. When no record of the key here starts the
 		// chain (names none), the earliest cut is its start: the records before it are gone, or were not
 		// given to the audit. Every other cut has records of the key on both sides: a deleted record.
-		const start = byPrevious.has(null) ? undefined : [...missing].sort((a, b) => instant(a.entry.chained!.createdAt) - instant(b.entry.chained!.createdAt) || a.entry.file.localeCompare(b.entry.file))[0];
+		const start = byPrevious.has(null) ? undefined : [...missing].sort((a, b) => instant(a.entry.createdAt) - instant(b.entry.createdAt) || a.entry.file.localeCompare(b.entry.file))[0];
 		for (const cut of missing) {
 			add(cut.entry, finding('history', cut === start ? 'audit-chain-gap-at-start' : 'audit-chain-missing', {file: cut.previous.file, sha256: cut.previous.sha256}));
 		}
@@ -216,7 +216,7 @@ export class ChainAudit {
 	 */
 	#headFindings(folder: FolderFiles, members: readonly ChainEntry[], add: (entry: ChainEntry, found: Finding) => void): void {
 		const path = dirname(members[0]!.file);
-		const head = readHead(path, members[0]!.chained!.key);
+		const head = readHead(path, members[0]!.key!);
 		if (!head || folder.bySha.has(head.sha256) || this.#bySha.has(head.sha256)) return;
 		const sameName = folder.byPath.get(join(path, head.file));
 		if (sameName) {
@@ -225,9 +225,9 @@ export class ChainAudit {
 		}
 		if (existsSync(join(path, head.file))) return;
 		// The record the deleted one followed: of the records no other names, the latest.
-		const named = new Set(members.map((entry) => entry.chained!.previous?.sha256));
+		const named = new Set(members.map((entry) => entry.previousSha));
 		const tips = members.filter((entry) => entry.fileSha256 === null || !named.has(entry.fileSha256));
-		const latest = [...(tips.length > 0 ? tips : members)].sort((a, b) => instant(a.chained!.createdAt) - instant(b.chained!.createdAt) || a.file.localeCompare(b.file)).at(-1)!;
+		const latest = [...(tips.length > 0 ? tips : members)].sort((a, b) => instant(a.createdAt) - instant(b.createdAt) || a.file.localeCompare(b.file)).at(-1)!;
 		add(latest, finding('history', 'audit-chain-head-missing', {file: head.file, sha256: head.sha256}));
 	}
 

@@ -54,12 +54,11 @@ export function runReport(args: string[], io: Io): number {
 	let {body} = integrity.record;
 	// A record names its rule text by hash; the page's titles, statements and labels come from the stored text.
 	if (body.kind === 'bench-check') {
-		const text = body.rules.text ?? (({sha256}) => {
-			const stored = findRuleText(path, sha256);
-			return stored.status === 'ok' ? stored.text : undefined;
-		})(body.rules);
-		const compiled = text === undefined ? undefined : loadRulesFromText(text, body.rules.file);
-		body = withValuesShown(withRuleWords({...body, rules: {...body.rules, ...(text === undefined ? {} : {text})}}, compiled?.ok ? compiled.value : null), compiled?.ok ? compiled.value : null);
+		const stored = body.rules.text === undefined ? findRuleText(path, body.rules.sha256) : undefined;
+		const text = body.rules.text ?? (stored?.status === 'ok' ? stored.text : undefined);
+		const loaded = text === undefined ? undefined : loadRulesFromText(text, body.rules.file);
+		const rules = loaded?.ok ? loaded.value : null;
+		body = withValuesShown(withRuleWords({...body, rules: {...body.rules, ...(text === undefined ? {} : {text})}}, rules), rules);
 	}
 	const page =
 		body.kind === 'interlock-test'
