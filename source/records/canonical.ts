@@ -1,21 +1,20 @@
-import canonicalize from 'canonicalize';
+import {canonicalJson, NotCanonicalError} from './canonical-json.js';
 
-/** A value that is not plain JSON data (a function, NaN, Infinity…): it cannot be canonicalised. */
-export class NotCanonicalError extends Error {}
+export {NotCanonicalError} from './canonical-json.js';
 
 /**
  * The RFC 8785 (JSON Canonicalization Scheme) form of plain data, as UTF-8 bytes. Refuses
  * NaN, Infinity and anything that JSON.stringify would silently turn into null or drop.
  */
 export function canonicalBytes(value: unknown): Buffer {
-	assertPlain(value, '$');
-	let text: string | undefined;
+	let text: string;
 	try {
-		text = canonicalize(value);
+		text = canonicalJson(value);
 	} catch (error) {
-		throw new NotCanonicalError((error as Error).message);
+		// Where the value is not plain is found only now: the fast path does not track it.
+		assertPlain(value, '$');
+		throw error instanceof NotCanonicalError ? error : new NotCanonicalError((error as Error).message);
 	}
-	if (text === undefined) throw new NotCanonicalError('the value has no JSON form');
 	return Buffer.from(text, 'utf8');
 }
 

@@ -1,7 +1,7 @@
 import {sha256Hex} from '../shared/sha256.js';
 import type {KeyObject} from 'node:crypto';
 import {readRecordFile} from '../shared/record-file-read.js';
-import canonicalize from 'canonicalize';
+import {canonicalJson, canonicalJsonOfParsed} from './canonical-json.js';
 import {finding, type Finding} from './findings.js';
 import {unsafeJsonKey} from './unsafe-json-names.js';
 import {fingerprint, publicKeyFromRaw} from './key-material.js';
@@ -58,7 +58,7 @@ export function readIntegrity(path: string, keys: KeyCache): IntegrityCheck {
  * The same bytes as signedBytes() in sign.ts, built so that the body is put in canonical
  * form once for every signature and for its SHA-256: RFC 8785 sorts the keys "body" before
  * "signature", so `{"body":B,"signature":S}` is the canonical form of {body, signature}.
- * Data from JSON.parse is plain by construction, so canonicalize needs no plainness check.
+ * Data from JSON.parse is plain by construction, so its canonical form needs no plainness check.
  */
 export function checkIntegrity(text: string, keys: KeyCache): IntegrityCheck {
 	let data: unknown;
@@ -81,7 +81,8 @@ export function checkIntegrity(text: string, keys: KeyCache): IntegrityCheck {
 	if (shape) return {ok: false, record, finding: shape};
 	let body: string;
 	try {
-		body = canonicalize(record.body) ?? '';
+		// The body as read from the file, not as the schema returns it (a copy with its names in the schema's order).
+		body = canonicalJsonOfParsed((data as {body: unknown}).body);
 	} catch (error) {
 		return {ok: false, record, finding: finding('integrity', 'audit-not-record', {field: 'body', detail: `it has no canonical form (${(error as Error).message})`})};
 	}
@@ -101,7 +102,7 @@ export function checkIntegrity(text: string, keys: KeyCache): IntegrityCheck {
  * signedBytes() in sign.ts, because RFC 8785 orders "body" before "signature".
  */
 export function bytesToVerify(canonicalBody: string, statement: Omit<Signature, 'value' | 'fingerprint'>): Buffer {
-	return Buffer.from(`{"body":${canonicalBody},"signature":${canonicalize(statement)}}`, 'utf8');
+	return Buffer.from(`{"body":${canonicalBody},"signature":${canonicalJson(statement)}}`, 'utf8');
 }
 
 function verifyOne(body: string, signature: Signature, keys: KeyCache): {valid: boolean; code?: Finding['code']; what?: string} {
