@@ -165,7 +165,9 @@ export class ChainAudit {
 				continue;
 			}
 			const group = `${dirname(entry.file)}\n${chained.key}`;
-			groups.set(group, [...(groups.get(group) ?? []), entry]);
+			const members = groups.get(group);
+			if (members) members.push(entry);
+			else groups.set(group, [entry]);
 		}
 		for (const members of groups.values()) this.#chainFindings(members, add);
 		return out.sort((a, b) => a.index - b.index);
@@ -179,7 +181,9 @@ export class ChainAudit {
 		for (const entry of members) {
 			const {previous, createdAt} = entry.chained!;
 			const named = previous?.sha256 ?? null;
-			byPrevious.set(named, [...(byPrevious.get(named) ?? []), entry]);
+			const same = byPrevious.get(named);
+			if (same) same.push(entry);
+			else byPrevious.set(named, [entry]);
 			if (!previous) continue;
 			// Found by its bytes anywhere in the audit: a record moved into an archive subfolder is not gone.
 			const found = folder.bySha.get(previous.sha256) ?? this.#bySha.get(previous.sha256);

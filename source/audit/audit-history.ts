@@ -46,8 +46,10 @@ function changedInputs(before: HistoryEntry, after: HistoryEntry): string[] {
  * for the same setup fingerprint (the earlier is superseded), and a setup name whose
  * fingerprint changed since its previous record. Returns, per entry, its history and findings.
  */
-export function relateRecords(entries: readonly HistoryEntry[]): Array<{history: History; findings: Finding[]}> {
-	const results = entries.map(() => ({history: {amendedBy: []} as History, findings: [] as Finding[]}));
+export function relateRecords(entries: readonly HistoryEntry[], sparse = false): Array<{history: History; findings: Finding[]}> {
+	// A sparse result (for a summary of many records) has an entry only where a record relates to another: forEach skips the rest.
+	const results: Array<{history: History; findings: Finding[]}> = sparse ? new Array(entries.length) : entries.map(() => ({history: {amendedBy: []}, findings: []}));
+	const resultOf = (index: number) => (results[index] ??= {history: {amendedBy: []}, findings: []});
 	const ref = (index: number): RecordRef => ({file: entries[index]!.file, createdAt: entries[index]!.createdAt});
 	const bySha = new Map<string, number>();
 	entries.forEach((entry, index) => {
@@ -64,20 +66,22 @@ export function relateRecords(entries: readonly HistoryEntry[]): Array<{history:
 		depths.set(index, value);
 		return value;
 	};
+	// Each record's time read once (not at every comparison of the sort).
+	const times = Float64Array.from(entries, time);
 	const order = entries
 		.map((_, index) => index)
-		.sort((a, b) => time(entries[a]!) - time(entries[b]!) || depth(a) - depth(b) || entries[a]!.createdAt.localeCompare(entries[b]!.createdAt) || entries[a]!.file.localeCompare(entries[b]!.file));
+		.sort((a, b) => times[a]! - times[b]! || depth(a) - depth(b) || entries[a]!.createdAt.localeCompare(entries[b]!.createdAt) || entries[a]!.file.localeCompare(entries[b]!.file));
 	entries.forEach((entry, index) => {
 		if (!entry.amends) return;
 		const original = bySha.get(entry.amends.bodySha256);
-		results[index]!.history.amends = {...entry.amends, file: original === undefined ? null : entries[original]!.file};
+		resultOf(index).history.amends = {...entry.amends, file: original === undefined ? null : entries[original]!.file};
 		if (original === undefined) {
-			results[index]!.findings.push(finding('history', 'audit-amended-missing', {record: entry.amends.record, bodySha256: entry.amends.bodySha256}));
+			resultOf(index).findings.push(finding('history', 'audit-amended-missing', {record: entry.amends.record, bodySha256: entry.amends.bodySha256}));
 			return;
 		}
-		results[original]!.history.amendedBy.push({...ref(index), reason: entry.amends.reason});
-		if (entry.countersigned && !results[original]!.history.countersignedBy) results[original]!.history.countersignedBy = ref(index);
-		results[original]!.findings.push(finding('history', 'audit-amended-by', {...ref(index), reason: entry.amends.reason}));
+		resultOf(original).history.amendedBy.push({...ref(index), reason: entry.amends.reason});
+		if (entry.countersigned && !resultOf(original).history.countersignedBy) resultOf(original).history.countersignedBy = ref(index);
+		resultOf(original).findings.push(finding('history', 'audit-amended-by', {...ref(index), reason: entry.amends.reason}));
 	});
 
 	const groups = (key: (entry: HistoryEntry) => string | null) => {
@@ -94,9 +98,10 @@ export function relateRecords(entries: readonly HistoryEntry[]): Array<{history:
 	for (const group of groups((entry) => entry.fingerprint)) {
 		for (let at = 0; at + 1 < group.length; at += 1) {
 			const [earlier, later] = [group[at]!, group[at + 1]!];
-			results[earlier]!.history.supersededBy = ref(later);
+			const superseding = ref(later);
+			resultOf(earlier).history.supersededBy = superseding;
 			// An amendment of this very record already says more than "superseded".
-			if (entries[later]!.amends?.bodySha256 !== entries[earlier]!.bodySha256) results[earlier]!.findings.push(finding('history', 'audit-superseded', ref(later)));
+			if (entries[later]!.amends?.bodySha256 !== entries[earlier]!.bodySha256) resultOf(earlier).findings.push(finding('history', 'audit-superseded', superseding));
 		}
 	}
 	for (const group of groups((entry) => entry.setupName)) {
@@ -104,9 +109,9 @@ export function relateRecords(entries: readonly HistoryEntry[]): Array<{history:
 			const [previous, current] = [entries[group[at - 1]!]!, entries[group[at]!]!];
 			if (previous.fingerprint === current.fingerprint) continue;
 			const changed = changedInputs(previous, current);
-			results[group[at]!]!.history.setupChangedFrom = {...ref(group[at - 1]!), changed};
+			resultOf(group[at]!).history.setupChangedFrom = {...ref(group[at - 1]!), changed};
 			const words = changed.length > 0 ? changed.join(', ') : 'none of the same inputs (the rules identify the setup by other inputs)';
-			results[group[at]!]!.findings.push(finding('history', 'audit-setup-changed', {setup: current.setupName!, ...ref(group[at - 1]!), changed: words}));
+			resultOf(group[at]!).findings.push(finding('history', 'audit-setup-changed', {setup: current.setupName!, ...ref(group[at - 1]!), changed: words}));
 		}
 	}
 	return results;

@@ -2,10 +2,11 @@ import {compareTests, instantOf, normaliseLocation} from '../interlock/functiona
 import {finding, type Finding} from '../records/findings.js';
 import {describeProblem} from '../shared/problems.js';
 import type {InterlockTestSummary} from './audit-interlock.js';
-import type {RecordSummary} from './record-summary.js';
+import type {ShortRecord} from './summary-audit.js';
+import {addFindings} from './summary-audit.js';
 
 /** What linkInterlockTests reads and adds to of each record's audit. */
-type Audited = {file: string; authentic: boolean; bodySha256: string | null; record: RecordSummary | null; interlockTest: InterlockTestSummary | null; notChecked: Array<{item: string; text: string}>; findings: Finding[]};
+type Audited = {file: string; authentic: boolean; bodySha256: string | null; record: ShortRecord | null; interlockTest: InterlockTestSummary | null; notChecked: Array<{item: string; text: string}>; findings: Finding[]};
 
 const testWords = (testedOn: string, outcome: string) => `tested ${testedOn}, ${outcome}`;
 const sameLocation = (a: string | null | undefined, b: string | null | undefined) => (a ?? undefined) === undefined ? (b ?? undefined) === undefined : (b ?? undefined) !== undefined && normaliseLocation(a!) === normaliseLocation(b!);
@@ -36,13 +37,13 @@ export function linkInterlockTests(audits: Audited[], benchLocations: ReadonlyMa
 		const data = {file: used.file, bodySha256: used.bodySha256, recorded: testWords(used.testedOn, used.outcome)};
 		const found = tests.get(used.bodySha256);
 		if (!found) {
-			audit.findings.push(finding('history', 'audit-interlock-record-missing', data));
+			addFindings(audit, finding('history', 'audit-interlock-record-missing', data));
 			return;
 		}
 		const test = found.interlockTest!;
-		if (test.testedOn !== used.testedOn || test.outcome !== used.outcome) audit.findings.push(finding('consistency', 'audit-interlock-record-mismatch', {...data, actual: testWords(test.testedOn, test.outcome)}));
+		if (test.testedOn !== used.testedOn || test.outcome !== used.outcome) addFindings(audit, finding('consistency', 'audit-interlock-record-mismatch', {...data, actual: testWords(test.testedOn, test.outcome)}));
 		const bench = benchLocations.get(index);
-		if (test.location !== null && !sameLocation(bench, test.location)) audit.findings.push(finding('consistency', 'audit-interlock-bench-location', {bench: bench ?? '(none)', file: used.file, test: test.location ?? '(none)'}));
+		if (test.location !== null && !sameLocation(bench, test.location)) addFindings(audit, finding('consistency', 'audit-interlock-bench-location', {bench: bench ?? '(none)', file: used.file, test: test.location ?? '(none)'}));
 		const checkedAt = instantOf(audit.record.createdAt);
 		const later = authenticTests
 			.map((entry) => entry.interlockTest!)
@@ -51,7 +52,7 @@ export function linkInterlockTests(audits: Audited[], benchLocations: ReadonlyMa
 			.at(-1);
 		if (later) {
 			const file = authenticTests.find((entry) => entry.interlockTest === later)!.file;
-			audit.findings.push(finding('consistency', 'audit-interlock-not-latest', {file: used.file, used: testWords(test.testedOn, test.outcome), later: file, laterWords: `${testWords(later.testedOn, later.outcome)}, recorded ${later.createdAt}`}));
+			addFindings(audit, finding('consistency', 'audit-interlock-not-latest', {file: used.file, used: testWords(test.testedOn, test.outcome), later: file, laterWords: `${testWords(later.testedOn, later.outcome)}, recorded ${later.createdAt}`}));
 		}
 	});
 }

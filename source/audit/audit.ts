@@ -31,6 +31,7 @@ import {ruleWords, type RuleWords} from '../records/record-words.js';
 import {reviewRepository, type RepositoryHistory} from './audit-repository.js';
 import {isCountersigned, signingFindings} from './audit-signing.js';
 import {signingPolicy} from './signing-policy.js';
+import {addFindingList, addFindings, SummaryAudit} from './summary-audit.js';
 
 /** A finding with its message in words. */
 export type ReportedFinding = Finding & {text: string};
@@ -150,6 +151,9 @@ const emptyFindings = (): Record<FindingKind, number> => ({integrity: 0, trust: 
 /** One record as the audit keeps it until the end of the run. */
 type Judged = Omit<RecordAudit, 'findings'> & {findings: Finding[]};
 
+/** A record's audit as kept: all of it, or (in a summary) its short form. */
+type Kept = Judged | SummaryAudit;
+
 /** What the per-record step needs besides the file. */
 type RunContext = {evaluations: Evaluations; keys: KeyCache; rules: RuleTexts; options: AuditOptions; now: Date; notChecked: ReadonlyArray<{item: string; text: string}>; signing: ReturnType<typeof signingPolicy>};
 
@@ -210,15 +214,15 @@ function judgeRecord(file: string, index: number, chain: ChainAudit, context: Ru
  * the interlock tests the checks used, amendments, superseded records, changed setups. A new
  * finding that needs more than one record is added here, from small per-record summaries.
  */
-function endOfRun(audits: Judged[], entries: readonly HistoryEntry[], entryOf: readonly number[], benchLocations: ReadonlyMap<number, string | undefined>, listing: 'all' | 'summary'): void {
+function endOfRun(audits: Kept[], entries: readonly HistoryEntry[], entryOf: readonly number[], benchLocations: ReadonlyMap<number, string | undefined>, listing: 'all' | 'summary'): void {
 	linkInterlockTests(audits, benchLocations);
-	relateRecords(entries).forEach(({history, findings}, index) => {
+	relateRecords(entries, listing === 'summary').forEach(({history, findings}, index) => {
 		const audit = audits[entryOf[index]!]!;
 		// A summary shows each record's findings, not its history: it is not kept for every record.
-		if (listing === 'all') audit.history = history;
+		if (listing === 'all') (audit as Judged).history = history;
 		// A countersigned amendment completes a record that lacked its countersignature (the amendment is reported).
 		if (history.countersignedBy) audit.findings = audit.findings.filter((found) => found.code !== 'audit-countersign-required');
-		audit.findings.push(...findings);
+		addFindingList(audit, findings);
 	});
 }
 
@@ -250,23 +254,10 @@ class Interned {
 	readonly #objects = new Map<string, object>();
 }
 
-/** The empty list every summarised record shares (frozen: nothing may add to it). */
-const none: never[] = Object.freeze([]) as unknown as never[];
-
-/**
- * A record's audit with only what the summary shows and the end of the run needs, its texts
- * shared with the other records': it keeps memory small over many records.
- */
-function slim(audit: Judged, keep: Interned): Judged {
-	const record = audit.record && {
-		...audit.record,
-		tool: keep.object(audit.record.tool),
-		operator: keep.object(audit.record.operator),
-		setup: keep.object({name: audit.record.setup.name, fingerprint: audit.record.setup.fingerprint}),
-		rules: keep.object({name: audit.record.rules.name, file: audit.record.rules.file, sha256: audit.record.rules.sha256}),
-		exceptions: none,
-	};
-	return {...audit, record, signatures: none, currentPolicy: null, notChecked: none, consistency: audit.consistency && keep.object(audit.consistency)};
+/** What a summarised audit keeps of a record: its short form, its texts shared with the other records'. */
+function slim(audit: Judged): SummaryAudit {
+	const bench = audit.record && {createdAt: audit.record.createdAt, outcome: audit.record.outcome, interlockTest: audit.record.interlockTest};
+	return new SummaryAudit(audit.file, audit.authentic, audit.interlockTest ? audit.bodySha256 : null, audit.consistency?.consistent ?? null, bench, audit.interlockTest, audit.findings);
 }
 
 /** What relates a record to the others, its texts shared with the other records'. */
@@ -287,7 +278,7 @@ const reported = (found: Finding): ReportedFinding => ({...found, text: describe
 export function auditRecords(files: readonly string[], options: AuditOptions): AuditReport {
 	const listing = options.listing ?? 'all';
 	const context: RunContext = {evaluations: new Evaluations(), keys: new KeyCache(), rules: new RuleTexts(options.current), options, now: options.now ?? new Date(), notChecked: notChecked.map(({item, code}) => ({item, text: describeProblem({code, data: {}})})), signing: signingPolicy(options.current)};
-	const audits: Judged[] = [];
+	const audits: Kept[] = [];
 	const keep = new Interned();
 	const entries: HistoryEntry[] = [];
 	const entryOf: number[] = [];
@@ -304,11 +295,11 @@ export function auditRecords(files: readonly string[], options: AuditOptions): A
 				entries.push(listing === 'all' ? bench.entry : slimEntry(bench.entry, keep));
 			}
 		}
-		audits.push(listing === 'all' ? audit : slim(audit, keep));
+		audits.push(listing === 'all' ? audit : slim(audit));
 		options.onProgress?.(index + 1, files.length);
 	});
 	endOfRun(audits, entries, entryOf, benchLocations, listing);
-	for (const {index, finding: found} of chain.findings()) audits[index]!.findings.push(found);
+	for (const {index, finding: found} of chain.findings()) addFindings(audits[index]!, found);
 
 	const totals: AuditTotals = {records: audits.length, authentic: 0, integrityFailures: 0, consistent: 0, withFindings: 0, findings: emptyFindings(), beforeChain: chain.beforeChain()};
 	const codes = new Map<string, FindingCount>();
@@ -324,7 +315,7 @@ export function auditRecords(files: readonly string[], options: AuditOptions): A
 			else codes.set(found.code, {kind: found.kind, code: found.code, count: 1, example: describeProblem(found)});
 		}
 	}
-	const records = listing === 'all' ? audits.map((audit): RecordAudit => ({...audit, findings: audit.findings.map(reported)})) : [];
+	const records = listing === 'all' ? (audits as Judged[]).map((audit): RecordAudit => ({...audit, findings: audit.findings.map(reported)})) : [];
 	const withFindings = listing === 'all' ? [] : audits.filter((audit) => audit.findings.length > 0).map(listedWithFindings);
 	const repositories = (options.repositories ?? []).map((history) => ({folder: history.folder, remote: history.remote?.remote ?? null, ...reviewRepository(history)})).map((found) => ({...found, findings: found.findings.map(reported)}));
 	const repositoryFindings = repositories.flatMap((found) => found.findings);
@@ -345,7 +336,7 @@ export function auditRecords(files: readonly string[], options: AuditOptions): A
 	};
 }
 
-function listedWithFindings(audit: Judged): RecordWithFindings {
+function listedWithFindings(audit: Kept): RecordWithFindings {
 	const what = audit.record ? {kind: 'bench-check' as const, createdAt: audit.record.createdAt, outcome: audit.record.outcome} : audit.interlockTest ? {kind: 'interlock-test' as const, createdAt: audit.interlockTest.createdAt, outcome: audit.interlockTest.outcome} : {kind: null, createdAt: null, outcome: null};
 	return {file: audit.file, authentic: audit.authentic, ...what, findings: audit.findings};
 }

@@ -47,7 +47,7 @@ export function readRecordFile(path: string, maxBytes = maxRecordFileBytes): Rec
 		const stat = fstatSync(descriptor);
 		if (!stat.isFile()) return {ok: false, notRecordFile: fileKind(stat)};
 		if (stat.size > maxBytes) return {ok: false, notRecordFile: tooLarge(stat.size, maxBytes)};
-		const read = readToCap(descriptor, maxBytes);
+		const read = readToCap(descriptor, maxBytes, stat.size);
 		return read.ok ? {ok: true, bytes: read.bytes} : {ok: false, notRecordFile: tooLarge(read.length, maxBytes)};
 	} catch (error) {
 		const code = (error as NodeJS.ErrnoException).code;

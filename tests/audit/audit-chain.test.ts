@@ -1,9 +1,10 @@
+import {auditBothWays} from '../helpers/audit-both-ways.js';
 import {copyFileSync, mkdirSync, mkdtempSync, readFileSync, renameSync, rmSync, unlinkSync, writeFileSync} from 'node:fs';
 import {createHash} from 'node:crypto';
 import {tmpdir} from 'node:os';
 import {basename, join} from 'node:path';
 import {afterAll, describe, expect, it} from 'vitest';
-import {auditRecords, type AuditReport} from '../../source/audit/audit.js';
+import {type AuditReport} from '../../source/audit/audit.js';
 import {ChainAudit, ChainEntry} from '../../source/audit/audit-chain.js';
 import {listRecordFiles} from '../../source/audit/audit-files.js';
 import {buildRecordBody} from '../../source/records/build-body.js';
@@ -48,7 +49,7 @@ function write(home: string, folder: string, when: Date, change?: (made: RecordB
 const sha256Of = (path: string) => createHash('sha256').update(readFileSync(path)).digest('hex'); // node:crypto, independent of the code under test
 
 function audit(folder: string, home: string): AuditReport {
-	return auditRecords(listRecordFiles([folder]).files, {current: rules, trust: {own: ownFingerprint(home), trusted: []}, now: auditNow});
+	return auditBothWays(listRecordFiles([folder]).files, {current: rules, trust: {own: ownFingerprint(home), trusted: []}, now: auditNow});
 }
 
 /** The chain, duplicate and clock findings of each record, by file name (other findings, such as a superseded record, are left out). */
@@ -156,7 +157,7 @@ describe('the latest record of a key, which no later record names', () => {
 	it('not among the files audited but still in the folder: no finding (an audit of some of the records)', () => {
 		const [alex, folder] = [fresh('alex'), fresh('records')];
 		const [first] = [write(alex, folder, at(0)), write(alex, folder, at(1))];
-		const report = auditRecords([first], {current: rules, trust: {own: ownFingerprint(alex), trusted: []}, now: auditNow});
+		const report = auditBothWays([first], {current: rules, trust: {own: ownFingerprint(alex), trusted: []}, now: auditNow});
 		expect(chainFindings(report)).toEqual({[basename(first)]: []});
 	});
 });
@@ -171,7 +172,7 @@ describe('a copy in another folder', () => {
 		const head = `${ownFingerprint(alex)!.slice('sha256:'.length)}.json`;
 		copyFileSync(join(one, '.prelase-chain', head), join(two, '.prelase-chain', head));
 		const next = write(alex, two, at(1));
-		const report = auditRecords(listRecordFiles([one, two]).files, {current: rules, trust: {own: ownFingerprint(alex), trusted: []}, now: auditNow});
+		const report = auditBothWays(listRecordFiles([one, two]).files, {current: rules, trust: {own: ownFingerprint(alex), trusted: []}, now: auditNow});
 		expect(report.records.map((record) => [record.file, record.findings.filter((found) => /^audit-(chain|duplicate)/.test(found.code)).map((found) => found.code)])).toEqual([
 			[first, []],
 			[join(two, basename(first)), ['audit-duplicate']],

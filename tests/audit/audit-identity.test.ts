@@ -1,9 +1,10 @@
+import {auditBothWays} from '../helpers/audit-both-ways.js';
 import {mkdtempSync, readFileSync, rmSync, writeFileSync} from 'node:fs';
 import type {KeyObject} from 'node:crypto';
 import {tmpdir} from 'node:os';
 import {basename, join} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
-import {auditRecords} from '../../source/audit/audit.js';
+
 import type {Trust} from '../../source/audit/audit-trust.js';
 import {canonicalBytes} from '../../source/records/canonical.js';
 import {fingerprint, generateKeyPair, rawPublicKey} from '../../source/records/key-material.js';
@@ -41,7 +42,7 @@ const entry = (name: string, key: KeyObject, extra: {roles?: string[]; revokedFr
 const withSigning = (signing: RuleFile['signing']): CompiledRules => ({...rules, rules: {...rules.rules, signing}});
 /** The findings of one record, code and words. */
 function findings(record: unknown, trust: Trust, current = rules): string[][] {
-	const report = auditRecords([write(record)], {current, trust});
+	const report = auditBothWays([write(record)], {current, trust});
 	return report.records[0]!.findings.map((found) => [found.code, found.text]);
 }
 
@@ -74,7 +75,7 @@ describe('the name on a signature and the name in the trust list', () => {
 	});
 
 	it('a signature by an unknown key is intact, signer unknown: not called authentic', () => {
-		const report = auditRecords([write(cosigned())], {current: rules, trust: {trusted: [entry('Ada Operator', operator)]}});
+		const report = auditBothWays([write(cosigned())], {current: rules, trust: {trusted: [entry('Ada Operator', operator)]}});
 		expect(report.records[0]!.signatures.map((signature) => [signature.valid, signature.authentic])).toEqual([
 			[true, true],
 			[true, false],
@@ -121,14 +122,14 @@ describe('the signing policy of the rule file', () => {
 		};
 		const amendment = signRecord(body, [signerWith('Ada Operator', 'performed', operator), signerWith('Lin Officer', 'approved', officer, 'laser safety officer')], new Date('2026-06-10T10:00:00Z'));
 		const amendmentPath = write(amendment);
-		const report = auditRecords([originalPath, amendmentPath], {current, trust: trust(['laser safety officer'])});
+		const report = auditBothWays([originalPath, amendmentPath], {current, trust: trust(['laser safety officer'])});
 		const [first, second] = report.records;
 		expect(first!.findings.map((found) => found.code)).toEqual(['audit-amended-by']);
 		expect(first!.history?.countersignedBy?.file).toBe(amendmentPath);
 		expect(second!.findings).toEqual([]);
 		// Without the countersignature the amendment completes nothing: both lack it.
 		const unsigned = signRecord({...body, amends: {...body.amends, reason: 'ambient re-measured'}}, [signerWith('Ada Operator', 'performed', operator)], new Date('2026-06-10T10:00:00Z'));
-		const plain = auditRecords([originalPath, write(unsigned)], {current, trust: trust(['laser safety officer'])});
+		const plain = auditBothWays([originalPath, write(unsigned)], {current, trust: trust(['laser safety officer'])});
 		expect(plain.records.map((audit) => audit.findings.map((found) => found.code).sort())).toEqual([
 			['audit-amended-by', 'audit-countersign-required'],
 			['audit-countersign-required'],
@@ -149,7 +150,7 @@ describe('version 1 records', () => {
 		const statement = {signer: v2.signatures[0]!.signer, meaning: 'performed' as const, signedAt: v2.signatures[0]!.signedAt, algorithm: 'Ed25519' as const, publicKey: v2.signatures[0]!.publicKey};
 		const value = signBytes(canonicalBytes({body: v2.body, signature: statement}), operator).toString('base64');
 		const v1 = {format: 'prelase-record', version: 1, body: v2.body, signatures: [{...statement, fingerprint: v2.signatures[0]!.fingerprint, value}]};
-		const report = auditRecords([write(v1)], {current: rules, trust: {trusted: [entry('Ada Operator', operator)]}});
+		const report = auditBothWays([write(v1)], {current: rules, trust: {trusted: [entry('Ada Operator', operator)]}});
 		const [audit] = report.records;
 		expect(audit!.authentic).toBe(true);
 		expect(audit!.findings).toEqual([]);

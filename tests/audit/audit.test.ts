@@ -1,9 +1,10 @@
+import {auditBothWays} from '../helpers/audit-both-ways.js';
 import {mkdirSync, mkdtempSync, readFileSync, rmSync, writeFileSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {join, resolve} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
 import {main} from '../../source/cli/dispatch.js';
-import {auditRecords, type AuditReport, type RecordAudit} from '../../source/audit/audit.js';
+import {type AuditReport, type RecordAudit} from '../../source/audit/audit.js';
 import {listRecordFiles} from '../../source/audit/audit-files.js';
 import {relateRecords} from '../../source/audit/audit-history.js';
 import {KeyCache, bytesToVerify, checkIntegrity} from '../../source/records/integrity.js';
@@ -60,7 +61,7 @@ function resigned(change: (body: RecordBody) => void): BenchRecord {
 
 function audit(paths: string[], options: {current?: CompiledRules; own?: string | undefined; trusted?: Array<{name: string; publicKey: string; fingerprint: string; addedAt: string}>} = {}): AuditReport {
 	const own = 'own' in options ? options.own : ownFingerprint(home);
-	return auditRecords(paths, {current: options.current ?? shipped, trust: {own, trusted: options.trusted ?? []}});
+	return auditBothWays(paths, {current: options.current ?? shipped, trust: {own, trusted: options.trusted ?? []}});
 }
 
 function codes(record: RecordAudit): string[] {

@@ -1,9 +1,10 @@
+import {auditBothWays} from '../helpers/audit-both-ways.js';
 import {createHash} from 'node:crypto';
 import {mkdtempSync, readFileSync, rmSync, writeFileSync} from 'node:fs';
 import {tmpdir} from 'node:os';
 import {join} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
-import {auditRecords, type AuditReport} from '../../source/audit/audit.js';
+import {type AuditReport} from '../../source/audit/audit.js';
 import {ownFingerprint} from '../../source/records/key-files.js';
 import {sampleRules} from '../helpers/sample-record.js';
 import {operatorPrivateKey} from '../helpers/operator-key.js';
@@ -290,7 +291,7 @@ describe('a policy that requires a signed witness for interlock functional tests
 		const rules = sampleRules();
 		const trust = {own: ownFingerprint(home), trusted: []};
 		const strict = {...rules, rules: {...rules.rules, signing: {signed_witness_for_interlock_tests: true}}};
-		const found = (current: typeof rules) => auditRecords([freshPath], {current, trust}).records[0]!.findings.map((entry) => [entry.code, entry.text]);
+		const found = (current: typeof rules) => auditBothWays([freshPath], {current, trust}).records[0]!.findings.map((entry) => [entry.code, entry.text]);
 		expect(found(strict)).toEqual([['audit-witness-signature-required', 'the policy requires a signed witness for an interlock functional test, and this record has no witness signature by a trusted key']]);
 		expect(found(rules)).toEqual([]);
 	});

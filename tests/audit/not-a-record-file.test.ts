@@ -1,10 +1,11 @@
+import {auditBothWays} from '../helpers/audit-both-ways.js';
 import {execFileSync} from 'node:child_process';
 import {mkdirSync, mkdtempSync, readFileSync, rmSync, symlinkSync, writeFileSync} from 'node:fs';
 import {createServer, type Server} from 'node:net';
 import {tmpdir} from 'node:os';
 import {basename, join} from 'node:path';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
-import {auditRecords} from '../../source/audit/audit.js';
+
 import {listRecordFiles} from '../../source/audit/audit-files.js';
 import {findTestRecords} from '../../source/interlock/functional-test/test-link.js';
 import {buildRecordBody} from '../../source/records/build-body.js';
@@ -65,14 +66,14 @@ describe('the audit of a folder with things that are not record files', () => {
 	];
 
 	it.each(expected)('$name is a finding "not a record file" ($why)', {timeout: 20_000}, ({name, why}) => {
-		const report = auditRecords(listRecordFiles([folder]).files, {current: rules, trust: {own: ownFingerprint(home), trusted: []}});
+		const report = auditBothWays(listRecordFiles([folder]).files, {current: rules, trust: {own: ownFingerprint(home), trusted: []}});
 		const entry = report.records.find((record) => basename(record.file) === name);
 		expect(entry?.authentic).toBe(false);
 		expect(entry?.findings).toMatchObject([{kind: 'integrity', code: 'audit-not-record-file', data: {why: expect.stringContaining(why)}}]);
 	});
 
 	it('audits the rest of the folder: the real record is authentic, and nothing else is listed', {timeout: 20_000}, () => {
-		const report = auditRecords(listRecordFiles([folder]).files, {current: rules, trust: {own: ownFingerprint(home), trusted: []}});
+		const report = auditBothWays(listRecordFiles([folder]).files, {current: rules, trust: {own: ownFingerprint(home), trusted: []}});
 		expect(report.records.find((record) => record.file === good)?.authentic).toBe(true);
 		expect(report.records.map((record) => basename(record.file)).sort()).toEqual([basename(good), ...expected.map((entry) => entry.name)].sort());
 	});

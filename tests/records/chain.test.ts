@@ -1,3 +1,4 @@
+import {auditBothWays} from '../helpers/audit-both-ways.js';
 import {createHash} from 'node:crypto';
 import {existsSync, mkdirSync, mkdtempSync, readFileSync, readdirSync, renameSync, rmSync, unlinkSync, writeFileSync} from 'node:fs';
 import {tmpdir} from 'node:os';
@@ -6,7 +7,7 @@ import {spawn} from 'node:child_process';
 import {resolve} from 'node:path';
 import {build} from 'esbuild';
 import {afterAll, beforeAll, describe, expect, it} from 'vitest';
-import {auditRecords} from '../../source/audit/audit.js';
+
 import {listRecordFiles} from '../../source/audit/audit-files.js';
 import {buildRecordBody} from '../../source/records/build-body.js';
 import {ownFingerprint} from '../../source/records/key-files.js';
@@ -164,7 +165,7 @@ describe('8 processes of one key writing at the same moment', () => {
 		expect(existsSync(join(folder, index.head.file))).toBe(true);
 
 		// The audit reports every record that shares its predecessor with another as a fork, and no other chain finding.
-		const report = auditRecords(listRecordFiles([folder]).files, {current: rules, trust: {own: ownFingerprint(alex), trusted: []}});
+		const report = auditBothWays(listRecordFiles([folder]).files, {current: rules, trust: {own: ownFingerprint(alex), trusted: []}});
 		const sharing = written.filter((path) => written.some((other) => other !== path && JSON.stringify(previousOf(other)) === JSON.stringify(previousOf(path))));
 		const chainCodes = (path: string) => report.records.find((record) => record.file === path)!.findings.filter((found) => found.code.startsWith('audit-chain')).map((found) => found.code);
 		for (const path of [first, ...written]) expect(chainCodes(path)).toEqual(sharing.includes(path) ? ['audit-chain-fork'] : []);
