@@ -23,6 +23,9 @@ type Chained = {
  * every record, so no nested objects): `chained` reads them back, and is there only for an
  * authentic record.
  */
+/** A chain entry as plain data: what a worker thread posts back (see ChainEntry.from). */
+export type ChainData = {index: number; file: string; fileSha256: string | null; key: string | null; previousFile: string | undefined; previousSha: string | null | undefined; createdAt: string; kind: Chained['kind']; version: number};
+
 export class ChainEntry {
 	/** The fingerprint of the first signature's key; null when the record is not authentic. */
 	key: string | null = null;
@@ -42,6 +45,22 @@ export class ChainEntry {
 		readonly file: string,
 		readonly fileSha256: string | null,
 	) {}
+
+	static from(data: ChainData): ChainEntry {
+		const entry = new ChainEntry(data.index, data.file, data.fileSha256);
+		entry.key = data.key;
+		entry.previousFile = data.previousFile;
+		entry.previousSha = data.previousSha;
+		entry.createdAt = data.createdAt;
+		entry.kind = data.kind;
+		entry.version = data.version;
+		return entry;
+	}
+
+	/** The entry as plain data, which ChainEntry.from reads back. */
+	data(): ChainData {
+		return {index: this.index, file: this.file, fileSha256: this.fileSha256, key: this.key, previousFile: this.previousFile, previousSha: this.previousSha, createdAt: this.createdAt, kind: this.kind, version: this.version};
+	}
 
 	get chained(): Chained | undefined {
 		if (this.key === null) return undefined;

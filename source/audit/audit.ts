@@ -17,7 +17,7 @@ import type {Finding, FindingKind} from '../records/findings.js';
 import {describeProblem} from '../shared/problems.js';
 import {notChecked} from './audit-findings.js';
 import {relateRecords, type History, type HistoryEntry} from './audit-history.js';
-import {ChainAudit, chainEntry} from './audit-chain.js';
+import {ChainAudit, ChainEntry, chainEntry, type ChainData} from './audit-chain.js';
 import {KeyCache, readIntegrity} from '../records/integrity.js';
 import {interlockTestConsistency, interlockTestToday, summariseInterlockTest, type InterlockTestSummary} from './audit-interlock.js';
 import {linkInterlockTests} from './audit-interlock-link.js';
@@ -31,7 +31,7 @@ import {ruleWords, type RuleWords} from '../records/record-words.js';
 import {reviewRepository, type RepositoryHistory} from './audit-repository.js';
 import {isCountersigned, signingFindings} from './audit-signing.js';
 import {signingPolicy} from './signing-policy.js';
-import {addFindingList, addFindings, SummaryAudit} from './summary-audit.js';
+import {addFindingList, addFindings, SummaryAudit, type SummaryData} from './summary-audit.js';
 
 /** A finding with its message in words. */
 export type ReportedFinding = Finding & {text: string};
@@ -158,7 +158,10 @@ type Kept = Judged | SummaryAudit;
 type RunContext = {evaluations: Evaluations; keys: KeyCache; rules: RuleTexts; options: AuditOptions; now: Date; notChecked: ReadonlyArray<{item: string; text: string}>; signing: ReturnType<typeof signingPolicy>};
 
 /** What one record leaves for the end of the run: its audit, and for a bench check what relates it to the others. */
-type Judgement = {audit: Judged; bench?: {entry: HistoryEntry; location: string | undefined}; /** The earlier file this one is a byte-identical copy of. */ copyOf?: string};
+type Judgement = {audit: Judged; bench?: {entry: HistoryEntry; location: string | undefined}; /** What the chain audit keeps of the file. */ chained: ChainEntry};
+
+/** A record judged in a summarised audit, in its short form: what a worker thread sends back (plain data, see judgeForSummary). */
+export type JudgedShort = {audit: SummaryData; bench?: {entry: HistoryEntry; location: string | undefined}; chained: ChainData};
 
 /**
  * PER-RECORD HOOK. Reads one file, checks its integrity and judges it: trust, consistency
@@ -166,10 +169,10 @@ type Judgement = {audit: Judged; bench?: {entry: HistoryEntry; location: string 
  * on its own is added here. Only this record's data is in hand; the file's text and parsed
  * body are dropped when it returns.
  */
-function judgeRecord(file: string, index: number, chain: ChainAudit, context: RunContext): Judgement {
+function judgeRecord(file: string, index: number, context: RunContext): Judgement {
 	const {keys, rules, options} = context;
 	const checked = readIntegrity(file, keys);
-	const copyOf = chain.add(chainEntry(index, file, checked));
+	const chained = chainEntry(index, file, checked);
 	// A bench check's words (statements, the identifying inputs) are its rule text's, read from the text it names.
 	const body = checked.record?.body;
 	const own = checked.ok && body?.kind === 'bench-check' ? rules.forRecord(body, file) : undefined;
@@ -179,14 +182,14 @@ function judgeRecord(file: string, index: number, chain: ChainAudit, context: Ru
 	const trust = checked.record ? signatureReports(checked.record, checked.signatures, options.trust, context.signing.authorityRoles) : {signatures: [], findings: []};
 	const versionNote = checked.record?.version === 1 ? [{item: 'signature-order', text: describeProblem({code: 'audit-not-checked-signature-order', data: {}})}] : [];
 	if (!checked.ok) {
-		return {audit: {file, authentic: false, bodySha256: null, record, interlockTest, signatures: trust.signatures, consistency: null, currentPolicy: null, history: null, notChecked: [], findings: [checked.finding]}};
+		return {chained, audit: {file, authentic: false, bodySha256: null, record, interlockTest, signatures: trust.signatures, consistency: null, currentPolicy: null, history: null, notChecked: [], findings: [checked.finding]}};
 	}
 	if (checked.record.body.kind === 'interlock-test') {
 		const contents = interlockTestConsistency(checked.record.body);
 		const consistency = {reevaluated: contents.reevaluated, consistent: contents.findings.length === 0, rulesSha256: checked.record.body.policy.rules.sha256};
 		const today = interlockTestToday(checked.record.body, options.current, context.now, contents.findings.length === 0);
 		const signed = signingFindings(checked.record.body, trust.signatures, context.signing);
-		return {audit: {file, authentic: true, bodySha256: checked.bodySha256, record, interlockTest, signatures: trust.signatures, consistency, currentPolicy: null, history: null, notChecked: versionNote, findings: [...trust.findings, ...signed, ...contents.findings, ...today]}};
+		return {chained, audit: {file, authentic: true, bodySha256: checked.bodySha256, record, interlockTest, signatures: trust.signatures, consistency, currentPolicy: null, history: null, notChecked: versionNote, findings: [...trust.findings, ...signed, ...contents.findings, ...today]}};
 	}
 	const bench = body as RecordBody;
 	const contents = auditContents(bench, own!, options.current, context.evaluations);
@@ -205,8 +208,19 @@ function judgeRecord(file: string, index: number, chain: ChainAudit, context: Ru
 			findings: [...trust.findings, ...signingFindings(bench, trust.signatures, context.signing, {switchedOff: contents.switchedOff}), ...contents.findings],
 		},
 		bench: {entry: {...historyEntry(file, checked.bodySha256, bench, words), ...(isCountersigned(trust.signatures, context.signing) ? {countersigned: true} : {})}, location: inputEntry(bench.inputs[locationInput])?.entered},
-		...(copyOf === undefined ? {} : {copyOf}),
+		chained,
 	};
+}
+
+/** The context of the per-record step, for the audit in this thread or in a worker thread. */
+export function runContext(options: AuditOptions): RunContext {
+	return {evaluations: new Evaluations(), keys: new KeyCache(), rules: new RuleTexts(options.current), options, now: options.now ?? new Date(), notChecked: notChecked.map(({item, code}) => ({item, text: describeProblem({code, data: {}})})), signing: signingPolicy(options.current)};
+}
+
+/** Judges one record for a summarised audit and gives its short form as plain data (a worker thread posts it to the audit's thread). */
+export function judgeForSummary(file: string, index: number, context: RunContext): JudgedShort {
+	const {audit, bench, chained} = judgeRecord(file, index, context);
+	return {audit: slim(audit).data(), ...(bench ? {bench} : {}), chained: chained.data()};
 }
 
 /**
@@ -276,28 +290,62 @@ const reported = (found: Finding): ReportedFinding => ({...found, text: describe
  * kept (all of its audit with `listing: 'all'`, the default).
  */
 export function auditRecords(files: readonly string[], options: AuditOptions): AuditReport {
-	const listing = options.listing ?? 'all';
-	const context: RunContext = {evaluations: new Evaluations(), keys: new KeyCache(), rules: new RuleTexts(options.current), options, now: options.now ?? new Date(), notChecked: notChecked.map(({item, code}) => ({item, text: describeProblem({code, data: {}})})), signing: signingPolicy(options.current)};
-	const audits: Kept[] = [];
-	const keep = new Interned();
-	const entries: HistoryEntry[] = [];
-	const entryOf: number[] = [];
-	const benchLocations = new Map<number, string | undefined>();
-	const chain = new ChainAudit(context.now);
-	files.forEach((file, index) => {
-		const {audit, bench, copyOf} = judgeRecord(file, audits.length, chain, context);
+	const run = new AuditRun(files, options);
+	files.forEach((file, index) => run.accept(judgeRecord(file, index, run.context)));
+	return run.finish();
+}
+
+/**
+ * An audit whose records are judged one by one (in this thread, or in worker threads that
+ * post back each record's short form) and accepted in the order of the files; `finish` relates
+ * them and gives the report.
+ */
+export class AuditRun {
+	readonly context: RunContext;
+	readonly #listing: 'all' | 'summary';
+	readonly #audits: Kept[] = [];
+	readonly #keep = new Interned();
+	readonly #entries: HistoryEntry[] = [];
+	readonly #entryOf: number[] = [];
+	readonly #benchLocations = new Map<number, string | undefined>();
+	readonly #chain: ChainAudit;
+
+	constructor(
+		readonly files: readonly string[],
+		readonly options: AuditOptions,
+	) {
+		this.#listing = options.listing ?? 'all';
+		this.context = runContext(options);
+		this.#chain = new ChainAudit(this.context.now);
+	}
+
+	/** Takes the next record's judgement (the records in the order of the files). */
+	accept(judged: Judgement | JudgedShort): void {
+		const listing = this.#listing;
+		const kept: Kept = 'signatures' in judged.audit ? (listing === 'all' ? judged.audit : slim(judged.audit)) : SummaryAudit.from(judged.audit);
+		const chained = judged.chained instanceof ChainEntry ? judged.chained : ChainEntry.from(judged.chained);
+		const copyOf = this.#chain.add(chained);
+		const {bench} = judged;
+		const at = this.#audits.length;
 		if (bench) {
 			// The location matters only to a check that used an interlock test (linkInterlockTests).
-			if (listing === 'all' || audit.record?.interlockTest?.record) benchLocations.set(audits.length, listing === 'all' ? bench.location : (keep.nullable(bench.location) ?? undefined));
+			if (listing === 'all' || kept.record?.interlockTest?.record) this.#benchLocations.set(at, listing === 'all' ? bench.location : (this.#keep.nullable(bench.location) ?? undefined));
 			// A byte-identical copy is the same record: it neither supersedes nor amends the original.
 			if (copyOf === undefined) {
-				entryOf[entries.length] = audits.length;
-				entries.push(listing === 'all' ? bench.entry : slimEntry(bench.entry, keep));
+				this.#entryOf[this.#entries.length] = at;
+				this.#entries.push(listing === 'all' ? bench.entry : slimEntry(bench.entry, this.#keep));
 			}
 		}
-		audits.push(listing === 'all' ? audit : slim(audit));
-		options.onProgress?.(index + 1, files.length);
-	});
+		this.#audits.push(kept);
+		this.options.onProgress?.(at + 1, this.files.length);
+	}
+
+	finish(): AuditReport {
+		return finishAudit(this.#audits, this.#entries, this.#entryOf, this.#benchLocations, this.#chain, this.#listing, this.options);
+	}
+}
+
+function finishAudit(audits: Kept[], entries: HistoryEntry[], entryOf: number[], benchLocations: Map<number, string | undefined>, chain: ChainAudit, listing: 'all' | 'summary', options: AuditOptions): AuditReport {
 	endOfRun(audits, entries, entryOf, benchLocations, listing);
 	for (const {index, finding: found} of chain.findings()) addFindings(audits[index]!, found);
 

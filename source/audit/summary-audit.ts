@@ -15,8 +15,20 @@ export type ShortRecord = Pick<RecordSummary, 'createdAt' | 'outcome' | 'interlo
  * (`record`) is built when read, which is rare: for the records with findings, and the checks
  * that used an interlock test.
  */
+/** A summarised record's audit as plain data: what a worker thread posts back (see SummaryAudit.from). */
+export type SummaryData = {file: string; authentic: boolean; bodySha256: string | null; consistent: boolean | null; bench: ShortRecord | null; interlockTest: InterlockTestSummary | null; findings: Finding[]};
+
 export class SummaryAudit {
 	findings: Finding[];
+
+	static from(data: SummaryData): SummaryAudit {
+		return new SummaryAudit(data.file, data.authentic, data.bodySha256, data.consistent, data.bench, data.interlockTest, data.findings);
+	}
+
+	/** The audit as plain data, which SummaryAudit.from reads back. */
+	data(): SummaryData {
+		return {file: this.file, authentic: this.authentic, bodySha256: this.bodySha256, consistent: this.consistent, bench: this.record, interlockTest: this.interlockTest, findings: this.findings};
+	}
 
 	/**
 	 * @param bodySha256 Kept for an interlock test record only (a bench check names it by it); null otherwise.

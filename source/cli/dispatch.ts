@@ -31,7 +31,7 @@ export function main(argv: string[], given: Io): number | Promise<number> {
 		if (!command) throw new UsageError(`unknown command "${first}"${didYouMean(first, [...byName.keys()])}; commands are ${[...byName.keys()].join(', ')} (prelase --help)`);
 		try {
 			const result = command.run(rest, io);
-			return typeof result === 'number' ? result : result.catch((error: unknown) => report(error, io));
+			return typeof result === 'number' ? result : result.catch((error: unknown) => report(isArgumentError(error) ? new UsageError(argumentMessage(error, command)) : error, io));
 		} catch (error) {
 			if (isArgumentError(error)) throw new UsageError(argumentMessage(error, command));
 			throw error;

@@ -12,6 +12,8 @@ import {openSettings} from '../../services/settings.js';
 import {isRecordsRepository} from '../../services/records-repository.js';
 import {readRepositoryHistory} from '../../services/records-history.js';
 import {ownControl} from '../../shared/terminal-text.js';
+import {isBundled} from '../../shared/version.js';
+import {auditInParallel, defaultJobs, parallelAbove} from '../../services/audit-parallel.js';
 import {UsageError} from '../usage-error.js';
 import {commandHelp, helpOption, parseOptions, type Command, type Io} from '../command.js';
 
@@ -56,17 +58,27 @@ const options = {
 	json: {type: 'boolean', summary: 'Print everything the audit found as JSON'},
 	all: {type: 'boolean', summary: `List every record in full (by default, more than ${listAllUpTo} records are summarised: totals, findings, then the records with findings)`},
 	remote: {type: 'boolean', summary: 'For a records repository: also compare its history with its remote (a rewritten history is a finding)'},
+	jobs: {type: 'string', value: 'N', summary: `Judge the records of a summarised audit in N worker threads, 1 to 64 (default: one a core, at most 4, for more than ${parallelAbove} records); 1 judges them in one thread`},
 	help: helpOption,
 } as const;
 
+/** The number of worker threads --jobs asks for: a whole number from 1 to 64. */
+function jobsOption(text: string | undefined): number {
+	if (text === undefined) return defaultJobs();
+	const jobs = Number(text);
+	if (!/^\d+$/.test(text.trim()) || !Number.isInteger(jobs) || jobs < 1 || jobs > 64) throw new UsageError(`--jobs must be a whole number of worker threads from 1 to 64, not "${inline(text, 40)}"`);
+	return jobs;
+}
+
 /** `prelase audit PATH... [--rules FILE] [--json]`: returns the exit status (0, 1 or 3; 2 by UsageError). */
-export function runAudit(args: string[], io: Io): number {
+export async function runAudit(args: string[], io: Io): Promise<number> {
 	const {values, positionals} = parseArgs({args, options: parseOptions(options), allowPositionals: true, strict: true});
 	if (values.help) {
 		io.stdout.write(`${commandHelp(auditCommand)}\n`);
 		return 0;
 	}
 	if (positionals.length === 0) throw new UsageError('name the records to audit: prelase audit PATH... (record files or folders of them)');
+	const jobs = jobsOption(values.jobs);
 	const {files, missing} = listRecordFiles(positionals);
 	if (missing.length > 0) throw new UsageError(`no such file or folder: ${missing.map((path) => inline(path, 200)).join(', ')}`);
 	if (files.length === 0) throw new UsageError(`no record files in ${positionals.map((path) => inline(path, 200)).join(', ')} (dotfiles and *.tmp are left out)`);
@@ -80,13 +92,16 @@ export function runAudit(args: string[], io: Io): number {
 	for (const found of current.warnings) io.stderr.write(`${formatProblem(found)}\n`);
 
 	const bar = io.stderr.isTTY && files.length > progressAbove ? progress(io) : undefined;
-	const report = auditRecords(files, {
+	const listing = values.all || files.length <= listAllUpTo ? 'all' : 'summary';
+	const given = {
 		current: current.value,
 		trust: {own: ownFingerprint(settings.folder), trusted: readTrusted(settings.folder)},
-		listing: values.all || files.length <= listAllUpTo ? 'all' : 'summary',
 		...(bar ? {onProgress: bar.update} : {}),
 		repositories: folders.map((folder) => readRepositoryHistory(folder, values.remote ?? false, io.env)),
-	});
+	};
+	// A large summarised audit is judged in worker threads of this program (the bundle's own file); from source, in this thread.
+	const parallel = listing === 'summary' && jobs > 1 && (values.jobs !== undefined || files.length > parallelAbove) && isBundled;
+	const report = parallel ? await auditInParallel(files, given, rulesFile, jobs, new URL(import.meta.url)) : auditRecords(files, {...given, listing});
 	bar?.end();
 	const paint = paintFor(io.stdout, io.env);
 	const width = io.stdout.columns ?? 100;
@@ -99,13 +114,13 @@ export function runAudit(args: string[], io: Io): number {
 export const auditCommand: Command = {
 	name: 'audit',
 	summary: 'Check signed records: authentic, consistent, and what the current rules change',
-	usage: 'prelase audit PATH... [--rules FILE] [--json] [--all] [--remote]',
+	usage: 'prelase audit PATH... [--rules FILE] [--json] [--all] [--remote] [--jobs N]',
 	options,
 	help: {
 		intro: `prelase audit — check signed records
 
 Usage:
-  prelase audit PATH... [--rules FILE] [--json] [--all] [--remote]
+  prelase audit PATH... [--rules FILE] [--json] [--all] [--remote] [--jobs N]
 
 PATH is a record file or a folder of records (searched recursively; dotfiles and *.tmp are
 left out). For each record the audit checks:

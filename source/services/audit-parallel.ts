@@ -1,0 +1,96 @@
+import {availableParallelism} from 'node:os';
+import type {MessagePort} from 'node:worker_threads';
+import {Worker} from 'node:worker_threads';
+import {AuditRun, judgeForSummary, runContext, type AuditOptions, type AuditReport, type JudgedShort} from '../audit/audit.js';
+import {loadRules} from '../rules/load.js';
+import {formatProblem} from '../shared/problems.js';
+import type {JudgeTask} from './audit-judge-task.js';
+
+/** Records below which a summarised audit is judged in its own thread: starting a worker (loading the program) costs about as much as judging a few hundred records. */
+export const parallelAbove = 2000;
+
+/** The worker threads an audit uses by default: one a core, at most four (each loads the program, about 25 MB). */
+export function defaultJobs(): number {
+	return Math.max(1, Math.min(4, availableParallelism()));
+}
+
+type Ask = {start: number; files: string[]} | {stop: true};
+type Answer = {start: number; results: JudgedShort[]} | {error: string};
+
+/** In a worker thread: judges the files the audit's thread sends, in order, and posts each batch's short forms back. */
+export function runJudgeWorker(task: JudgeTask, port: MessagePort): void {
+	const rules = loadRules(task.rulesFile);
+	if (!rules.ok) {
+		port.postMessage({error: `the current rule file ${task.rulesFile} has problems: ${rules.errors.map(formatProblem).join('; ')}`} satisfies Answer);
+		return;
+	}
+	const context = runContext({current: rules.value, trust: task.trust, now: new Date(task.now), listing: 'summary'});
+	port.on('message', (ask: Ask) => {
+		if ('stop' in ask) {
+			port.close();
+			return;
+		}
+		try {
+			port.postMessage({start: ask.start, results: ask.files.map((file, offset) => judgeForSummary(file, ask.start + offset, context))} satisfies Answer);
+		} catch (error) {
+			port.postMessage({error: error instanceof Error ? (error.stack ?? error.message) : String(error)} satisfies Answer);
+		}
+	});
+}
+
+/** Batches kept in flight for each worker (so it never waits for the next). */
+const inFlight = 2;
+
+/**
+ * A summarised audit with the records judged in `jobs` worker threads of the program's own
+ * file (`entry`, the bundle): the same report as auditRecords with `listing: 'summary'`. Each
+ * worker reads, verifies and judges a batch of files and posts back each record's short form;
+ * this thread takes them in the order of the files (the chain and the history are built in
+ * that order), then relates them. Memory stays bounded: a batch is sent only when one comes
+ * back, so at most `jobs × inFlight` batches wait here.
+ */
+export function auditInParallel(files: readonly string[], options: Omit<AuditOptions, 'listing'>, rulesFile: string, jobs: number, entry: URL): Promise<AuditReport> {
+	const run = new AuditRun(files, {...options, listing: 'summary'});
+	// Files sent to a worker at a time: at most 250, and small enough that every worker gets several batches.
+	const batch = Math.max(1, Math.min(250, Math.ceil(files.length / (jobs * 8))));
+	const task: JudgeTask = {task: 'prelase-audit-judge', rulesFile, trust: {...options.trust, trusted: [...options.trust.trusted]}, now: run.context.now.toISOString()};
+	return new Promise((resolve, reject) => {
+		const workers: Worker[] = [];
+		const waiting = new Map<number, JudgedShort[]>();
+		let sent = 0;
+		let accepted = 0;
+		let settled = false;
+		const end = (error?: Error) => {
+			if (settled) return;
+			settled = true;
+			for (const worker of workers) void worker.terminate();
+			if (error) reject(error);
+			else resolve(run.finish());
+		};
+		const send = (worker: Worker) => {
+			if (sent >= files.length) return;
+			worker.postMessage({start: sent, files: files.slice(sent, sent + batch)} satisfies Ask);
+			sent += batch;
+		};
+		for (let count = 0; count < Math.min(jobs, Math.ceil(files.length / batch)); count += 1) {
+			const worker = new Worker(entry, {workerData: task, resourceLimits: {maxYoungGenerationSizeMb: 4}});
+			workers.push(worker);
+			worker.on('message', (answer: Answer) => {
+				if ('error' in answer) return end(new Error(answer.error));
+				waiting.set(answer.start, answer.results);
+				send(worker);
+				for (let next = waiting.get(accepted); next !== undefined; next = waiting.get(accepted)) {
+					waiting.delete(accepted);
+					for (const judged of next) run.accept(judged);
+					accepted += next.length;
+				}
+				if (accepted >= files.length) end();
+			});
+			worker.on('error', (error) => end(error));
+			worker.on('exit', (code) => {
+				if (!settled) end(new Error(`an audit worker ended before its records were judged (status ${code})`));
+			});
+			for (let queued = 0; queued < inFlight; queued += 1) send(worker);
+		}
+	});
+}
