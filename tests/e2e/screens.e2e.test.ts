@@ -494,3 +494,92 @@ describe.skipIf(!haveTmux())('the screens at 80x24, as a technician meets them',
 		expect(lines.filter((line) => line.includes('local codes') && line.includes('?'))).toHaveLength(1);
 	});
 });
+
+/** The demo plan copied to a fresh folder, with a home for the settings and drafts. */
+function planCopy(): {home: string; file: string} {
+	const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
+	const file = join(home, 'plan.yaml');
+	writeFileSync(file, readFileSync('docs/examples/interlock/bench3-interlock-plan.yaml'));
+	return {home, file};
+}
+
+/** Opens the planner's form of the last device of the demo (alignment_bypass, which has no wire run) and focuses a field by its label. */
+async function lastDeviceField(session: TmuxSession, label: string): Promise<string> {
+	await session.waitFor((screen) => screen.includes('Devices in wiring order'), 'the planner');
+	// 5 access points and 7 devices: the last device is 11 places down.
+	for (let step = 0; step < 11; step += 1) session.press('Down');
+	await session.waitFor((screen) => /^› .*alignment_bypass/m.test(screen), 'alignment_bypass selected');
+	session.press('Enter');
+	await session.waitFor((screen) => screen.includes('Device 7 of 7 in wiring order: alignment_bypass'), 'the form of alignment_bypass');
+	for (let step = 0; step < 20 && !session.screen().includes(`› ${label}`); step += 1) {
+		const before = session.screen();
+		session.press('Down');
+		await session.waitFor((now) => now !== before, 'the next field');
+	}
+	return session.waitFor((screen) => screen.includes(`› ${label}`), `the field ${label}`);
+}
+
+/** No internal path of the plan file (devices.6.…) nor a schema library's wording reaches the screen. */
+function expectPlainWords(screen: string): void {
+	expect(screen).not.toMatch(/(devices|access_points)\.\d/);
+	expect(screen).not.toMatch(/expected (number|string), got/);
+	expect(screen).not.toMatch(/\bawg or cross_section\b/);
+}
+
+describe.skipIf(!haveTmux())('the planner and the exits at 80x24', () => {
+	it('adds a wire run to a device that has none as one small form: size and length together, in plain words', {timeout: 60_000}, async () => {
+		const {home, file} = planCopy();
+		const session = start('wire-run', home, `plan ${file} --edit`, [80, 24]);
+		let screen = await lastDeviceField(session, 'Wire run to next device');
+		expect(screen).toMatch(/› Wire run to next device +\(none\)/);
+		session.press('Enter');
+		screen = await session.waitFor((now) => now.includes('Wire size (AWG or mm²)'), 'the wire run form');
+		expect(screen).toContain('Length to the next device');
+		// A length typed where the size goes is refused in words, and the cursor stays to correct it.
+		session.type('262 m');
+		session.press('Enter');
+		screen = await session.waitFor((now) => now.includes('✗'), 'the refusal of a length as a size');
+		expect(screen.replaceAll(/\s+/g, ' ')).toContain('wire size: give the gauge as AWG 26, or the cross-section as 0.5 mm²');
+		expectPlainWords(screen);
+		for (let index = 0; index < 6; index += 1) session.press('BSpace');
+		// The size alone is not refused for want of a length: it waits in the form for the length.
+		session.type('AWG 26');
+		session.press('Enter');
+		screen = await session.waitFor((now) => /› Length to the next device/.test(now), 'the length field');
+		expect(screen).not.toContain('✗');
+		session.type('262 m');
+		session.press('Enter');
+		await session.waitFor((now) => /› Conductors/.test(now), 'the conductors field');
+		session.press('Enter');
+		await session.waitFor((now) => /› \[ Apply the wire run \]/.test(now), 'the apply line');
+		session.press('Enter');
+		screen = await session.waitFor((now) => now.includes('Device 7 of 7') && now.includes('wire run to the next device set'), 'the run applied');
+		expect(screen).toMatch(/› Wire run to next device +AWG 26 · 262 m/);
+		expectPlainWords(screen);
+		session.press('Escape');
+		await session.waitFor((now) => now.includes('Devices in wiring order'), 'the list');
+		session.type('s');
+		await session.waitFor((now) => now.includes('Saved'), 'the plan saved');
+		expect(readFileSync(file, 'utf8')).toMatch(/time_limit: 4 h\n {4}wire_to_next: \{awg: 26, length: 262 m\}\n/);
+	});
+
+	it('names a wire run that the plan refuses by device and field, never by its path in the file', {timeout: 60_000}, async () => {
+		const {home, file} = planCopy();
+		const session = start('wire-words', home, `plan ${file} --edit`, [80, 24]);
+		await lastDeviceField(session, 'Wire run to next device');
+		session.press('Enter');
+		await session.waitFor((now) => now.includes('Wire size (AWG or mm²)'), 'the wire run form');
+		session.type('0.5 mm²');
+		session.press('Enter');
+		await session.waitFor((now) => /› Length to the next device/.test(now), 'the length field');
+		// A length with no unit: the plan's schema refuses it; the words name the device and the field.
+		session.type('262');
+		session.press('Enter', 'Enter');
+		await session.waitFor((now) => /› \[ Apply the wire run \]/.test(now), 'the apply line');
+		session.press('Enter');
+		const screen = await session.waitFor((now) => now.includes('✗'), 'the refusal');
+		expect(screen.replaceAll(/\s+/g, ' ')).toContain('device 7 (alignment_bypass): length to the next device: "262" has no unit');
+		expect(screen).toMatch(/› Length to the next device/);
+		expectPlainWords(screen);
+	});
+});

@@ -3,7 +3,9 @@ import type {PlanEditing} from '../../interlock/plan/plan-edit.js';
 import {stripControl} from '../../shared/text.js';
 import {choicesOf, planFieldHint, shownValue, type PlanField} from './plan-fields.js';
 import {FindingLine} from './PlanList.js';
-import {formFields, formList, formValue, itemId, type Form} from './planner-state.js';
+import {formFields, formList, formValue, itemId, runValue, type Form} from './planner-state.js';
+import {runSummary} from './wire-run-entry.js';
+import {WireRunForm} from './WireRunForm.js';
 
 function title(editing: PlanEditing, form: Form): string {
 	const list = formList(form.target);
@@ -14,6 +16,7 @@ function title(editing: PlanEditing, form: Form): string {
 }
 
 function EditedValue({field, form, value}: {field: PlanField; form: Form; value: unknown}) {
+	if (field.kind === 'run') return <Text>{stripControl(shownValue(field, value))}</Text>;
 	if (field.kind !== 'choice') return <Text>{stripControl(form.buffer)}▌</Text>;
 	const options = choicesOf(field, value);
 	if (form.choice < 0) return <Text>‹ choose with ← → ›</Text>;
@@ -35,6 +38,7 @@ export function PlanForm({editing, form, rows}: {editing: PlanEditing; form: For
 	const room = Math.max(3, rows - 9 - shownFindings.length - (form.message ? 2 : 0) - (adding ? 1 : 0));
 	const start = Math.max(0, Math.min(form.focus - Math.floor(room / 2), fields.length - room));
 	const focused = fields[form.focus];
+	if (form.run) return <WireRunForm device={id ?? 'the new device'} run={form.run} />;
 	return (
 		<Box flexDirection="column">
 			<Text bold wrap="truncate">
@@ -44,7 +48,7 @@ export function PlanForm({editing, form, rows}: {editing: PlanEditing; form: For
 				{start > 0 ? <Text dimColor>  ↑ {start} more</Text> : null}
 				{fields.slice(start, start + room).map((field, offset) => {
 					const index = start + offset;
-					const value = formValue(editing, form.target, field);
+					const value = field.kind === 'run' ? runSummary(runValue(editing, form.target)) : formValue(editing, form.target, field);
 					const chosen = index === form.focus;
 					return (
 						<Box key={field.path.join('.')} flexDirection="column">

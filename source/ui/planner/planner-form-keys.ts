@@ -3,6 +3,8 @@ import {addItem, draftFieldProblem, setItemField} from '../../interlock/plan/pla
 import {choicesOf, shownValue, typedValue, type PlanField} from './plan-fields.js';
 import {focusField, formFields, formList, formValue, itemId, selectionOf, withValue, type Form, type PlannerState} from './planner-state.js';
 import {typeInto} from '../text-buffer.js';
+import {planProblemWords} from './plan-problem-words.js';
+import {openRunForm, runKey} from './planner-run-keys.js';
 
 const withForm = (state: PlannerState, form: Form): PlannerState => ({...state, view: {name: 'form', form}});
 
@@ -20,7 +22,7 @@ function entered(field: PlanField, form: Form, value: unknown): string | undefin
 function commit(state: PlannerState, form: Form): {state: PlannerState; applied: boolean} {
 	const {editing} = state;
 	const field = formFields(editing, form.target)[form.focus];
-	if (!field) return {state, applied: true};
+	if (!field || field.kind === 'run') return {state, applied: true};
 	const current = formValue(editing, form.target, field);
 	const entry = entered(field, form, current);
 	if (entry === undefined || entry.trim() === shownValue(field, current)) return {state: withForm(state, {...form, message: undefined}), applied: true};
@@ -29,12 +31,12 @@ function commit(state: PlannerState, form: Form): {state: PlannerState; applied:
 	if (form.target.kind === 'add') {
 		const values = withValue(form.target.values, path, value);
 		const problem = draftFieldProblem(editing, form.target.list, values, field.path);
-		if (problem) return {state: withForm(state, {...form, message: problem}), applied: false};
+		if (problem) return {state: withForm(state, {...form, message: planProblemWords(problem, editing.plan)}), applied: false};
 		return {state: withForm(state, {...form, target: {...form.target, values}, message: undefined}), applied: true};
 	}
 	const {list, index} = form.target.ref;
 	const result = setItemField(editing, list, index, path, value);
-	if (!result.ok) return {state: withForm(state, {...form, message: result.message}), applied: false};
+	if (!result.ok) return {state: withForm(state, {...form, message: planProblemWords(result.message, editing.plan)}), applied: false};
 	const notice = {text: `${itemId(result.editing, form.target.ref)}: ${field.label.toLowerCase()} ${value === undefined ? 'left out' : `set to ${shownValue(field, value)}`}`};
 	return {state: {...state, editing: result.editing, notice, view: {name: 'form', form: {...form, message: undefined}}}, applied: true};
 }
@@ -52,8 +54,8 @@ function add(state: PlannerState, form: Form): PlannerState {
 	if (!result.ok) {
 		const fields = formFields(state.editing, form.target);
 		const prefix = `${list}.${list === 'devices' ? state.editing.plan.devices.length : state.editing.plan.access_points.length}.`;
-		const focus = fields.findIndex((field) => result.field === `${prefix}${field.path.join('.')}`);
-		const message = focus >= 0 ? result.message.replace(`${result.field}: `, '') : result.message;
+		const focus = fields.findIndex((field) => result.field === `${prefix}${field.path.join('.')}` || result.field?.startsWith(`${prefix}${field.path.join('.')}.`));
+		const message = planProblemWords(focus >= 0 ? result.message.replace(`${result.field}: `, '') : result.message, state.editing.plan);
 		return withForm(state, {...focusField(state.editing, form.target, focus >= 0 ? focus : form.focus), message});
 	}
 	const ref = {list, index: (list === 'devices' ? result.editing.plan.devices.length : result.editing.plan.access_points.length) - 1};
@@ -65,6 +67,7 @@ function add(state: PlannerState, form: Form): PlannerState {
 export function formKey(state: PlannerState, form: Form, input: string, key: Key): PlannerState {
 	const fields = formFields(state.editing, form.target);
 	const field = fields[form.focus];
+	if (form.run) return runKey(state, form, form.run, input, key);
 	if (key.escape) return {...state, view: {name: 'list'}};
 	if (!field) {
 		if (key.return) return add(state, form);
@@ -72,7 +75,8 @@ export function formKey(state: PlannerState, form: Form, input: string, key: Key
 		if (input === '?') return {...state, help: true};
 		return state;
 	}
-	const typing = field.kind !== 'choice';
+	if (field.kind === 'run' && key.return) return openRunForm(state, form);
+	const typing = field.kind !== 'choice' && field.kind !== 'run';
 	if (input === '?' && (!typing || form.buffer === '')) return {...state, help: true};
 	if (key.upArrow || key.downArrow || key.tab) {
 		const committed = commit(state, form);
@@ -90,6 +94,7 @@ export function formKey(state: PlannerState, form: Form, input: string, key: Key
 		if (yes >= 0) return withForm(state, {...form, choice: yes, message: undefined});
 		if (!key.return) return state;
 	}
+	if (field.kind === 'run') return state;
 	const change = field.kind === 'choice' ? {text: form.buffer, submit: true} : typeInto(form.buffer, input, key);
 	const typed = {...form, buffer: change.text};
 	if (!change.submit) return withForm(state, typed);

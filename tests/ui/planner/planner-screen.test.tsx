@@ -167,7 +167,7 @@ describe('the interlock planner', () => {
 		await screen.press(keys.down, keys.down, keys.down, keys.down);
 		expect(screen.frame()).toContain('› [ Add to the plan ]');
 		const frame = await screen.press(keys.enter);
-		expect(frame).toMatch(/› Description +▌\n {2}✗ required field missing: expected string/);
+		expect(frame).toMatch(/› Description +▌\n {2}✗ needed: this field cannot be left empty/);
 		await screen.press(keys.escape);
 		expect(itemLine(screen.frame(), 'rear_hatch')).toBeUndefined();
 	});
