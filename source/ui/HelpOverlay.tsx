@@ -22,7 +22,7 @@ export const screenKeys: Record<string, Array<[string, string]>> = {
 		['Tab', 'write a note to an answered confirmation'],
 		['PgDn PgUp', 'next / previous step'],
 		['last answer', "the step's verdicts stay: ↓ ↑ scroll, Enter goes on"],
-		['Esc', 'back'],
+		['Esc', 'back (asks first when a value typed or chosen is not entered)'],
 		['?', 'this help'],
 		['Ctrl-C', 'quit (your answers are kept as a draft)'],
 	],
@@ -61,7 +61,7 @@ export const screenKeys: Record<string, Array<[string, string]>> = {
 		['↑ ↓ Tab', 'previous / next field (applies what you typed)'],
 		['← → space', 'choose an option; y n for yes / no'],
 		['empty', 'leaves an optional field out of the file'],
-		['Esc', 'back to the list (a new item not yet added is dropped)'],
+		['Esc', 'back to the list (asks first when a change or a new item is not applied)'],
 	],
 	'plan-test': [
 		['p f a', 'mark the step pass / fail / n/a (each key alone)'],

@@ -582,4 +582,54 @@ describe.skipIf(!haveTmux())('the planner and the exits at 80x24', () => {
 		expect(screen).toMatch(/› Length to the next device/);
 		expectPlainWords(screen);
 	});
+
+	it('Esc on a change not yet applied asks before discarding it, in the planner and in the check alike', {timeout: 60_000}, async () => {
+		const {home, file} = planCopy();
+		const planner = start('discard-plan', home, `plan ${file} --edit`, [80, 24]);
+		await planner.waitFor((screen) => screen.includes('Devices in wiring order'), 'the planner');
+		for (let step = 0; step < 5; step += 1) planner.press('Down');
+		await planner.waitFor((screen) => /^› .*lid_switch/m.test(screen), 'lid_switch selected');
+		planner.press('Enter');
+		await planner.waitFor((screen) => screen.includes('Device 1 of 7 in wiring order: lid_switch'), 'the form of lid_switch');
+		planner.press('Down', 'Down', 'Down');
+		await planner.waitFor((screen) => /› Contact/.test(screen), 'the contact field');
+		planner.press('Right');
+		await planner.waitFor((screen) => screen.includes('‹ normally_open ›'), 'a choice moved, not applied');
+		planner.press('Escape');
+		let screen = await planner.waitFor((now) => now.includes('Discard the change to contact?'), 'the question');
+		expect(screen.replaceAll(/\s+/g, ' ')).toContain('y discard it and go back · any other key keeps editing');
+		// Any other key keeps the change in the field, still to be applied.
+		planner.type('n');
+		screen = await planner.waitFor((now) => !now.includes('Discard the change'), 'the question gone');
+		expect(screen).toContain('‹ normally_open ›');
+		planner.press('Escape');
+		await planner.waitFor((now) => now.includes('Discard the change to contact?'), 'the question again');
+		planner.type('y');
+		screen = await planner.waitFor((now) => now.includes('Devices in wiring order'), 'the list after discarding');
+		expect(screen).not.toContain('(not saved)');
+		// The wire run's form asks too, naming the run.
+		await lastDeviceField(planner, 'Wire run to next device');
+		planner.press('Enter');
+		await planner.waitFor((now) => now.includes('Wire size (AWG or mm²)'), 'the wire run form');
+		planner.type('AWG 26');
+		planner.press('Escape');
+		await planner.waitFor((now) => now.includes('Discard the change to the wire run?'), 'the question on the run');
+
+		const checkHome = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
+		const check = start('discard-check', checkHome, 'check', [80, 24]);
+		await check.waitFor((now) => now.includes('Step 1 of 9'), 'the first step');
+		await check.settle();
+		check.type('FH-9');
+		await check.waitFor((now) => now.includes('FH-9'), 'the text typed');
+		check.press('Escape');
+		screen = await check.waitFor((now) => now.includes('Discard the change to'), 'the question in the check');
+		expect(screen).toContain('Step 1 of 9');
+		expect(screen.split('\n')[0]).toMatch(/^prelase · bench check/);
+		check.type('x');
+		await check.waitFor((now) => !now.includes('Discard the change'), 'the question gone');
+		check.press('Escape');
+		await check.waitFor((now) => now.includes('Discard the change to'), 'the question again');
+		check.type('y');
+		await check.waitFor((now) => now.includes('Start a bench check') || now.includes('Resume the draft'), 'the home screen after discarding');
+	});
 });

@@ -6,6 +6,7 @@ import {FindingLine} from './PlanList.js';
 import {formFields, formList, formValue, itemId, runValue, type Form} from './planner-state.js';
 import {runSummary} from './wire-run-entry.js';
 import {WireRunForm} from './WireRunForm.js';
+import {discardQuestion} from '../discard-question.js';
 
 function title(editing: PlanEditing, form: Form): string {
 	const list = formList(form.target);
@@ -73,9 +74,15 @@ export function PlanForm({editing, form, rows}: {editing: PlanEditing; form: For
 				) : null}
 				{adding && form.focus === fields.length && form.message ? <Text color="red" wrap="wrap">  ✗ {stripControl(form.message)}</Text> : null}
 			</Box>
-			<Text dimColor wrap="truncate">
-				{focused ? planFieldHint(focused) : 'Enter adds it; the plan is checked as a whole first'}
-			</Text>
+			{form.asking ? (
+				<Text bold wrap="wrap">
+					{discardQuestion(adding ? `the new ${formList(form.target) === 'devices' ? 'device' : 'access point'}` : (focused?.label.toLowerCase() ?? 'this item'))}
+				</Text>
+			) : (
+				<Text dimColor wrap="truncate">
+					{focused ? planFieldHint(focused) : 'Enter adds it; the plan is checked as a whole first'}
+				</Text>
+			)}
 			<Box marginTop={1} flexDirection="column">
 				{adding ? (
 					<Text bold>

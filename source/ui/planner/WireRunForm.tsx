@@ -1,6 +1,7 @@
 import {Box, Text} from 'ink';
 import {stripControl} from '../../shared/text.js';
 import {runFields, type RunForm} from './wire-run-entry.js';
+import {discardQuestion} from '../discard-question.js';
 
 /** The small form of a device's wire run to the next device: size and length (and conductors), applied together. */
 export function WireRunForm({device, run}: {device: string; run: RunForm}) {
@@ -29,9 +30,15 @@ export function WireRunForm({device, run}: {device: string; run: RunForm}) {
 				<Text bold={run.focus === runFields.length}>{run.focus === runFields.length ? '› ' : '  '}[ Apply the wire run ]</Text>
 				{run.focus === runFields.length && run.message ? <Text color="red" wrap="wrap">  ✗ {stripControl(run.message)}</Text> : null}
 			</Box>
-			<Text dimColor wrap="truncate">
-				{focused ? focused.hint : 'Enter applies size and length together; all empty removes the run'}
-			</Text>
+			{run.asking ? (
+				<Text bold wrap="wrap">
+					{discardQuestion('the wire run')}
+				</Text>
+			) : (
+				<Text dimColor wrap="truncate">
+					{focused ? focused.hint : 'Enter applies size and length together; all empty removes the run'}
+				</Text>
+			)}
 		</Box>
 	);
 }

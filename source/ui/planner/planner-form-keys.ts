@@ -2,7 +2,8 @@ import type {Key} from 'ink';
 import {addItem, draftFieldProblem, setItemField} from '../../interlock/plan/plan-edit.js';
 import {choicesOf, shownValue, typedValue, type PlanField} from './plan-fields.js';
 import {focusField, formFields, formList, formValue, itemId, selectionOf, withValue, type Form, type PlannerState} from './planner-state.js';
-import {typeInto} from '../text-buffer.js';
+import {typeInto, type Arrival} from '../text-buffer.js';
+import {discardAnswer} from '../discard-question.js';
 import {planProblemWords} from './plan-problem-words.js';
 import {openRunForm, runKey} from './planner-run-keys.js';
 
@@ -63,12 +64,24 @@ function add(state: PlannerState, form: Form): PlannerState {
 	return {...state, editing: result.editing, selected: selectionOf(result.editing, ref), view: {name: 'list'}, notice: {text: `Added ${itemId(result.editing, ref)}, a new ${what}`}};
 }
 
+/** True when the form holds something not yet in the plan: a field typed or chosen and not applied, or a new item's values. */
+export function formPending(state: PlannerState, form: Form): boolean {
+	if (form.target.kind === 'add' && Object.keys(form.target.values).length > 0) return true;
+	const field = formFields(state.editing, form.target)[form.focus];
+	if (!field || field.kind === 'run') return false;
+	const current = formValue(state.editing, form.target, field);
+	const entry = entered(field, form, current);
+	return entry !== undefined && entry.trim() !== shownValue(field, current);
+}
+
 /** One key in the form. */
-export function formKey(state: PlannerState, form: Form, input: string, key: Key): PlannerState {
+export function formKey(state: PlannerState, form: Form, input: string, key: Key, arrival: Arrival): PlannerState {
 	const fields = formFields(state.editing, form.target);
 	const field = fields[form.focus];
-	if (form.run) return runKey(state, form, form.run, input, key);
-	if (key.escape) return {...state, view: {name: 'list'}};
+	if (form.run) return runKey(state, form, form.run, input, key, arrival);
+	if (form.asking) return discardAnswer(input, arrival) === 'discard' ? {...state, view: {name: 'list'}} : withForm(state, {...form, asking: false});
+	// Esc never drops a change silently: it asks first.
+	if (key.escape) return formPending(state, form) ? withForm(state, {...form, asking: true}) : {...state, view: {name: 'list'}};
 	if (!field) {
 		if (key.return) return add(state, form);
 		if (key.upArrow) return moveTo(state, form, form.focus - 1);

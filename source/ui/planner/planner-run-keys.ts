@@ -1,4 +1,6 @@
 import type {Key} from 'ink';
+import {discardAnswer} from '../discard-question.js';
+import type {Arrival} from '../text-buffer.js';
 import {draftFieldProblem, setWireRun} from '../../interlock/plan/plan-edit.js';
 import {typeInto} from '../text-buffer.js';
 import {planProblemWords} from './plan-problem-words.js';
@@ -40,8 +42,12 @@ function apply(state: PlannerState, form: Form, run: RunForm): PlannerState {
 }
 
 /** One key in the wire run's form: type the size, length and conductors; Enter on the Apply line applies the three together. */
-export function runKey(state: PlannerState, form: Form, run: RunForm, input: string, key: Key): PlannerState {
-	if (key.escape) return withRun(state, form, undefined);
+export function runKey(state: PlannerState, form: Form, run: RunForm, input: string, key: Key, arrival: Arrival): PlannerState {
+	if (run.asking) return discardAnswer(input, arrival) === 'discard' ? withRun(state, form, undefined) : withRun(state, form, {...run, asking: false});
+	if (key.escape) {
+		const changed = runFields.some(({key: entry}) => run.entries[entry].trim() !== run.opened[entry].trim());
+		return withRun(state, form, changed ? {...run, asking: true} : undefined);
+	}
 	if (key.upArrow || key.downArrow || key.tab) return withRun(state, form, {...run, focus: Math.max(0, Math.min(applyLine, run.focus + (key.upArrow ? -1 : 1)))});
 	const entry = runFields[run.focus];
 	if (!entry) {

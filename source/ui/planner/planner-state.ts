@@ -10,7 +10,7 @@ export type ItemRef = {list: PlanList; index: number};
 export type FormTarget = {kind: 'edit'; ref: ItemRef} | {kind: 'add'; list: PlanList; values: Record<string, unknown>};
 
 /** The form: the field in focus, what is typed or chosen in it, and why it was refused. `focus` equal to the field count is the Add line. */
-export type Form = {target: FormTarget; focus: number; buffer: string; choice: number; message?: string; /** The wire run's own small form, while it is open. */ run?: RunForm};
+export type Form = {target: FormTarget; focus: number; buffer: string; choice: number; message?: string; /** The wire run's own small form, while it is open. */ run?: RunForm; /** Esc was pressed with a change not applied: the form asks whether to discard it. */ asking?: boolean};
 
 /** What the planner shows. */
 export type View = {name: 'list'} | {name: 'form'; form: Form} | {name: 'remove'; ref: ItemRef} | {name: 'leave'} | {name: 'findings'; offset: number} | {name: 'record'; entry: TestEntry};

@@ -2,7 +2,7 @@
 export type RunEntries = {size: string; length: string; conductors: string};
 
 /** The entries of the wire run form, the one in focus (3 is the Apply line), and what was refused, at which entry. */
-export type RunForm = {entries: RunEntries; /** The entries as the form opened: a change is what differs from them. */ opened: RunEntries; focus: number; message?: string};
+export type RunForm = {entries: RunEntries; /** The entries as the form opened: a change is what differs from them. */ opened: RunEntries; focus: number; message?: string; /** Esc was pressed with the entries changed: the form asks whether to discard them. */ asking?: boolean};
 
 /** The entries in the order of the form, with their labels and hints. */
 export const runFields: ReadonlyArray<{key: keyof RunEntries; label: string; hint: string}> = [
