@@ -32,6 +32,8 @@ import {StepScreen} from './bench-check/StepScreen.js';
 import {SummaryScreen} from './bench-check/SummaryScreen.js';
 import {refusedWrite} from './refused-write.js';
 import {machineFailure} from '../shared/machine-failure.js';
+import {exitLine} from './exit-line.js';
+import {useCtrlC} from './use-ctrl-c.js';
 
 type Screen = 'home' | 'step' | 'summary' | 'signoff' | 'done' | 'settings' | 'info' | 'plan-open' | 'planner';
 
@@ -46,7 +48,8 @@ export type AppProps = {
 	startPlan?: string;
 	/** Audits the records folder and returns lines to show (kept outside so the core stays out of the screens). */
 	audit?: (folder: string) => Promise<string[]>;
-	onExit(code: number): void;
+	/** Called once when the screens close, with the exit status and the one line to print after them (where the drafts are). */
+	onExit(code: number, farewell?: string): void;
 	/** The rule file named in the settings does not load: the home screen says so and no check starts until it is fixed or the shipped policy is chosen. */
 	brokenRules?: {file: string; settingsPath: string; problems: string[]};
 };
@@ -111,14 +114,22 @@ export function App({rules: givenRules, settings, env, startCheck, startPlan, au
 		clear: (file: string) => removePlanDraft(settings.folder, file),
 	};
 
+	// Leaving draws an empty frame first, so the terminal is left clear for the line printed after it.
+	const [leaving, setLeaving] = useState(false);
+	const left = useRef(false);
 	const quit = (code: number) => {
-		onExit(code);
-		exit();
+		if (left.current) return;
+		left.current = true;
+		onExit(code, exitLine(settings.folder, code === 130 ? 'Ctrl-C' : 'Quit', screen === 'planner' ? plan.editing?.file : undefined));
+		setLeaving(true);
 	};
-	useInput((input, key) => {
-		if (key.ctrl && input === 'c') quit(130);
+	useEffect(() => {
+		if (leaving) exit();
+	}, [leaving]);
+	useCtrlC(() => quit(130));
+	useInput((input) => {
 		// Screens without a field to type in take `?` here: the keys, then the caution in full.
-		else if (input === '?' && !help && (screen === 'done' || screen === 'info')) setHelp(true);
+		if (input === '?' && !help && (screen === 'done' || screen === 'info')) setHelp(true);
 	});
 
 	// Never lose an answer: the draft is saved after every change while a check is open.
@@ -307,6 +318,7 @@ export function App({rules: givenRules, settings, env, startCheck, startPlan, au
 	else if (screen === 'settings') body = <SettingsScreen initial={saved} path={settings.path} onSave={(changes) => settings.write(changes)} check={{rulesFile: checkRuleFile}} onHelp={() => setHelp(true)} active={!help} onBack={() => setScreen('home')} />;
 	else body = <InfoScreen title={info.title} lines={info.lines} rows={rows - 4} width={width} onBack={() => setScreen('home')} />;
 
+	if (leaving) return null;
 	return (
 		<CautionContext.Provider value={rules.rules.caution}>
 		<Box flexDirection="column" width={width}>

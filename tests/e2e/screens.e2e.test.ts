@@ -4,7 +4,8 @@ import {tmpdir} from 'node:os';
 import {join, resolve} from 'node:path';
 import {afterEach, describe, expect, it, vi} from 'vitest';
 import {parse} from 'yaml';
-import {loadDraft, saveDraft} from '../../source/services/drafts/draft-store.js';
+import {draftPath, loadDraft, saveDraft} from '../../source/services/drafts/draft-store.js';
+import {planDraftPath} from '../../source/services/drafts/plan-draft-store.js';
 import {openSettings} from '../../source/services/settings.js';
 import {haveTmux, TmuxSession} from './tmux-driver.js';
 
@@ -631,5 +632,47 @@ describe.skipIf(!haveTmux())('the planner and the exits at 80x24', () => {
 		await check.waitFor((now) => now.includes('Discard the change to'), 'the question again');
 		check.type('y');
 		await check.waitFor((now) => now.includes('Start a bench check') || now.includes('Resume the draft'), 'the home screen after discarding');
+	});
+
+	// The line printed on leaving, whole: it may wrap at 80 columns, so it is read with its line breaks removed.
+	const leftLine = (screen: string) => screen.slice(0, screen.indexOf('EXITED')).replaceAll('\n', '');
+
+	it('Ctrl-C clears the screen, says where the drafts are (or that nothing was pending), and leaves the prompt on a line of its own', {timeout: 60_000}, async () => {
+		const checkHome = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
+		const check = start('ctrl-c-check', checkHome, 'check', [80, 24]);
+		await check.waitFor((now) => now.includes('Step 1 of 9'), 'the first step');
+		await check.settle();
+		check.type('FH-9');
+		check.press('Enter');
+		await check.waitFor(() => loadDraft(openSettings({PRELASE_HOME: checkHome}).folder) !== undefined, 'the draft saved');
+		// At once, as a person would: a Ctrl-C right after a key is never lost.
+		check.press('C-c');
+		let screen = await check.waitFor((now) => now.includes('EXITED 130'), 'the program to leave with 130');
+		// The prompt (here the line the shell prints next) starts a line of its own.
+		expect(screen).toMatch(/^EXITED 130$/m);
+		// The screen is cleared: no line of the step is left above the farewell.
+		expect(screen).not.toContain('Step 1 of 9');
+		expect(leftLine(screen)).toContain(`prelase: left with Ctrl-C; the check draft is saved in ${draftPath(openSettings({PRELASE_HOME: checkHome}).folder)} (the next start offers to resume it)`);
+
+		const {home, file} = planCopy();
+		const planner = start('ctrl-c-plan', home, `plan ${file} --edit`, [80, 24]);
+		await planner.waitFor((now) => now.includes('Devices in wiring order'), 'the planner');
+		for (let step = 0; step < 5; step += 1) planner.press('Down');
+		await planner.waitFor((now) => /^› .*lid_switch/m.test(now), 'lid_switch selected');
+		planner.type(']');
+		await planner.waitFor((now) => now.includes('(not saved)'), 'an unsaved change');
+		planner.press('C-c');
+		screen = await planner.waitFor((now) => now.includes('EXITED 130'), 'the planner to leave with 130');
+		expect(screen).toMatch(/^EXITED 130$/m);
+		expect(leftLine(screen)).toContain(`the plan edits not saved to ${file} are kept in ${planDraftPath(openSettings({PRELASE_HOME: home}).folder, file)} (opening the plan again restores them)`);
+
+		const idle = start('ctrl-c-idle', mkdtempSync(join(tmpdir(), 'prelase-e2e-')), '', [80, 24]);
+		await idle.waitFor((now) => now.includes('Start a bench check'), 'the home screen');
+		await idle.settle();
+		idle.press('C-c');
+		screen = await idle.waitFor((now) => now.includes('EXITED 130'), 'the home screen to leave with 130');
+		expect(screen).toMatch(/^EXITED 130$/m);
+		expect(screen).not.toContain('Start a bench check');
+		expect(leftLine(screen)).toContain('prelase: left with Ctrl-C; nothing was pending');
 	});
 });
