@@ -249,7 +249,8 @@ export function App({rules: givenRules, settings, env, startCheck, startPlan, au
 			{/* A long setup name is cut, never drawn over the title. */}
 			<Box flexShrink={1} marginLeft={2} justifyContent="flex-end">
 				<Text dimColor wrap="truncate">
-					{broken ? 'no rules in force: the rule file does not load' : stripControl(session.setup || rules.rules.name)}
+					{/* The setup while a check is open; everywhere else the rules in force. */}
+					{broken ? 'no rules in force: the rule file does not load' : stripControl((['step', 'summary', 'signoff', 'done'].includes(screen) && session.setup) || rules.rules.name)}
 				</Text>
 			</Box>
 		</Box>
@@ -260,7 +261,7 @@ export function App({rules: givenRules, settings, env, startCheck, startPlan, au
 		summary: 'Enter sign-off · ↑ ↓ scroll · Esc back · ? help',
 		signoff: 'Enter next · ↑ ↓ field · Esc back',
 		done: 's save setup · Enter home',
-		settings: 'Enter save · Esc back',
+		settings: 'Enter saves the field · ↑ ↓ move · Esc back',
 		info: 'Enter or Esc back · ↑ ↓ PgUp PgDn scroll',
 		'plan-open': 'Enter open · Esc back · ? help',
 		// The planner draws its own key line: its keys change with what it shows.
@@ -287,7 +288,11 @@ export function App({rules: givenRules, settings, env, startCheck, startPlan, au
 		);
 	else if (screen === 'summary') body = <SummaryScreen session={session} rows={rows - 4} width={width} onSign={() => setScreen('signoff')} onBack={() => setScreen('step')} onHelp={() => setHelp(true)} active={!help} />;
 	else if (screen === 'signoff') {
-		body = <SignOffScreen session={session} initial={{setup: session.setup, name: saved.operator ?? '', role: saved.role ?? '', cosignName: '', cosignRole: '', cosignKey: ''}} {...(signError ? {error: signError} : {})} onSign={sign} onBack={() => setScreen('summary')} onHelp={() => setHelp(true)} active={!help} />;
+		body = <SignOffScreen session={session} initial={{setup: session.setup, name: saved.operator ?? '', role: saved.role ?? '', cosignName: '', cosignRole: '', cosignKey: ''}} {...(signError ? {error: signError} : {})} onSign={sign} onBack={() => {
+			// A refusal belongs to the sign-off it was made on: leaving it clears it.
+			setSignError(undefined);
+			setScreen('summary');
+		}} onHelp={() => setHelp(true)} active={!help} />;
 	} else if (screen === 'done' && written)
 		body = (
 			<DoneScreen

@@ -3,6 +3,7 @@ import {useContext, useState} from 'react';
 import {deferral} from '../shared/deferral.js';
 import {stripControl} from '../shared/text.js';
 import {CautionContext} from './caution-context.js';
+import {Prose} from './Prose.js';
 
 /** Keys of each screen, as the help overlay lists them. */
 export const screenKeys: Record<string, Array<[string, string]>> = {
@@ -98,8 +99,9 @@ export function HelpOverlay({screen, onClose}: {screen: string; onClose(): void}
 		return (
 			<Box flexDirection="column" borderStyle="single" paddingX={1}>
 				<Text bold>Caution</Text>
-				{caution ? <Text wrap="wrap">{stripControl(caution)}</Text> : null}
-				<Text wrap="wrap">{deferral}</Text>
+				{/* Inside the border and padding: four columns fewer. */}
+				{caution ? <Prose text={stripControl(caution)} margin={4} /> : null}
+				<Prose text={deferral} margin={4} />
 				<Text dimColor>Any key closes this page.</Text>
 			</Box>
 		);

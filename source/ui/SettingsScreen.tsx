@@ -67,7 +67,6 @@ export function SettingsScreen({initial, path, onSave, onBack, onHelp, active = 
 					{wrap(stripControl(problem), 78, '  ').join('\n')}
 				</Text>
 			))}
-			<Text dimColor>Enter saves the field · ↑ ↓ move · Esc back</Text>
 		</Box>
 	);
 }

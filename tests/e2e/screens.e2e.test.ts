@@ -314,6 +314,17 @@ async function resumeAndPage(session: TmuxSession, until: (screen: string) => bo
 	return session.waitFor(until, what, 100);
 }
 
+/** Pages from the step shown on to the summary. */
+async function resumeAndPageFromStep(session: TmuxSession): Promise<string> {
+	for (let guard = 0; guard < 12; guard += 1) {
+		const screen = await session.settle();
+		if (screen.includes('Outcome:')) return screen;
+		session.press('PageDown');
+		await session.waitFor((now) => now !== screen, 'the next page');
+	}
+	return session.waitFor((now) => now.includes('Outcome:'), 'the summary', 100);
+}
+
 const cautionStart = 'prelase checks arithmetic and records answers';
 const deferralStart = 'prelase says which checks held';
 
@@ -674,5 +685,60 @@ describe.skipIf(!haveTmux())('the planner and the exits at 80x24', () => {
 		expect(screen).toMatch(/^EXITED 130$/m);
 		expect(screen).not.toContain('Start a bench check');
 		expect(leftLine(screen)).toContain('prelase: left with Ctrl-C; nothing was pending');
+	});
+
+	it('one key line per screen, no wrapped line starting with a stray space, the rules in the home header, and no error left after Esc', {timeout: 90_000}, async () => {
+		const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
+		execFileSync('node', [program, 'keys', '--name', 'Dana Whitlow'], {env: {...process.env, PRELASE_HOME: home}});
+		seedDemoDraft(home, [], 0);
+		const session = start('words', home, '', [80, 24]);
+		let screen = await session.waitFor((now) => now.includes('Resume the draft'), 'the home screen');
+		// A line Ink wrapped at a space never starts with that space (the caution on the home screen wraps at 80).
+		expect(screen).not.toMatch(/^ \S/m);
+		session.press('Enter');
+		await session.waitFor((now) => now.includes('Step 1 of 9'), 'the resumed check');
+		// In the check the header names the setup; back home it names the rules in force, not the last setup.
+		expect(session.screen().split('\n')[0]).toContain('Fenwick Hollow bench 3');
+		session.press('Escape');
+		screen = await session.waitFor((now) => now.includes('Resume the draft'), 'the home screen again');
+		expect(screen.split('\n')[0]).toMatch(/^prelase · bench check +prelase bench policy \(shipped default\)$/);
+		expect(screen).not.toMatch(/^ \S/m);
+
+		// Settings: one key line (its own), not its own plus the App's.
+		for (let step = 0; !session.screen().includes('❯ Settings') && step < 8; step += 1) {
+			session.press('Down');
+			await session.settle();
+		}
+		session.press('Enter');
+		screen = await session.waitFor((now) => /^Settings$/m.test(now), 'the settings');
+		expect(screen.split('\n').filter((line) => line.includes('Esc back'))).toHaveLength(1);
+		session.press('Escape');
+		await session.waitFor((now) => now.includes('Resume the draft'), 'the home screen from the settings');
+
+		// A refusal on the sign-off is gone once Esc has left it: neither on the summary nor on the sign-off again.
+		for (let step = 0; !session.screen().includes('❯ Resume the draft') && step < 8; step += 1) {
+			session.press('Up');
+			await session.settle();
+		}
+		session.press('Enter');
+		await session.waitFor((now) => now.includes('Step 1 of 9'), 'the resumed check');
+		await resumeAndPageFromStep(session);
+		session.press('Enter');
+		await session.waitFor((now) => now.includes('Sign-off'), 'the sign-off');
+		session.press('Enter');
+		session.type('Sam Colleague');
+		session.press('Enter');
+		session.type('test engineer');
+		session.press('Enter', 'Down', 'Down', 'Down');
+		await session.settle();
+		session.press('Enter');
+		await session.waitFor((now) => now.includes('your key is the key of'), 'the refusal');
+		session.press('Escape');
+		screen = await session.waitFor((now) => now.includes('Outcome:'), 'the summary');
+		expect(screen).not.toContain('your key is the key of');
+		session.press('Enter');
+		screen = await session.waitFor((now) => now.includes('Sign-off'), 'the sign-off again');
+		expect(screen).not.toContain('your key is the key of');
+		expect(screen).not.toContain('✗');
 	});
 });

@@ -7,6 +7,7 @@ import {formFields, formList, formValue, itemId, runValue, type Form} from './pl
 import {runSummary} from './wire-run-entry.js';
 import {WireRunForm} from './WireRunForm.js';
 import {discardQuestion} from '../discard-question.js';
+import {Prose} from '../Prose.js';
 
 function title(editing: PlanEditing, form: Form): string {
 	const list = formList(form.target);
@@ -58,11 +59,7 @@ export function PlanForm({editing, form, rows}: {editing: PlanEditing; form: For
 								{field.label.padEnd(26)}
 								{chosen ? <EditedValue field={field} form={form} value={value} /> : stripControl(shownValue(field, value))}
 							</Text>
-							{chosen && form.message ? (
-								<Text color="red" wrap="wrap">
-									{'  '}✗ {stripControl(form.message)}
-								</Text>
-							) : null}
+							{chosen && form.message ? <Prose color="red" text={stripControl(form.message)} lead="  ✗ " hang="    " /> : null}
 						</Box>
 					);
 				})}
@@ -72,7 +69,7 @@ export function PlanForm({editing, form, rows}: {editing: PlanEditing; form: For
 						{form.focus === fields.length ? '› ' : '  '}[ Add to the plan ]
 					</Text>
 				) : null}
-				{adding && form.focus === fields.length && form.message ? <Text color="red" wrap="wrap">  ✗ {stripControl(form.message)}</Text> : null}
+				{adding && form.focus === fields.length && form.message ? <Prose color="red" text={stripControl(form.message)} lead="  ✗ " hang="    " /> : null}
 			</Box>
 			{form.asking ? (
 				<Text bold wrap="wrap">

@@ -2,6 +2,7 @@ import {Box, Text} from 'ink';
 import {stripControl} from '../../shared/text.js';
 import {runFields, type RunForm} from './wire-run-entry.js';
 import {discardQuestion} from '../discard-question.js';
+import {Prose} from '../Prose.js';
 
 /** The small form of a device's wire run to the next device: size and length (and conductors), applied together. */
 export function WireRunForm({device, run}: {device: string; run: RunForm}) {
@@ -20,15 +21,11 @@ export function WireRunForm({device, run}: {device: string; run: RunForm}) {
 							{stripControl(run.entries[field.key])}
 							{index === run.focus ? '▌' : ''}
 						</Text>
-						{index === run.focus && run.message ? (
-							<Text color="red" wrap="wrap">
-								{'  '}✗ {stripControl(run.message)}
-							</Text>
-						) : null}
+						{index === run.focus && run.message ? <Prose color="red" text={stripControl(run.message)} lead="  ✗ " hang="    " /> : null}
 					</Box>
 				))}
 				<Text bold={run.focus === runFields.length}>{run.focus === runFields.length ? '› ' : '  '}[ Apply the wire run ]</Text>
-				{run.focus === runFields.length && run.message ? <Text color="red" wrap="wrap">  ✗ {stripControl(run.message)}</Text> : null}
+				{run.focus === runFields.length && run.message ? <Prose color="red" text={stripControl(run.message)} lead="  ✗ " hang="    " /> : null}
 			</Box>
 			{run.asking ? (
 				<Text bold wrap="wrap">
