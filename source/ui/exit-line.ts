@@ -12,5 +12,5 @@ export function exitLine(settingsFolder: string, how: 'Ctrl-C' | 'Quit', planFil
 	if (existsSync(check)) kept.push(`the check draft is saved in ${check} (the next start offers to resume it)`);
 	const plan = planFile === undefined ? undefined : planDraftPath(settingsFolder, planFile);
 	if (plan !== undefined && existsSync(plan)) kept.push(`the plan edits not saved to ${planFile} are kept in ${plan} (opening the plan again restores them)`);
-	return `prelase: left with ${how}; ${kept.length > 0 ? kept.join('; ') : 'nothing was pending'}`;
+	return `prelase: ${how === 'Ctrl-C' ? 'left with Ctrl-C' : 'closed'}; ${kept.length > 0 ? kept.join('; ') : 'nothing was pending'}`;
 }
