@@ -23,6 +23,7 @@ import {HomeScreen, type HomeChoice} from './HomeScreen.js';
 import {InfoScreen} from './InfoScreen.js';
 import {PlannerScreen} from './planner/PlannerScreen.js';
 import {PlanOpenScreen} from './planner/PlanOpenScreen.js';
+import {planProblemWords} from './planner/plan-problem-words.js';
 import {testDraftsIn} from './functional-test/test-drafts.js';
 import {testRecorder} from './functional-test/test-recorder.js';
 import {nameSetup, startSession, type Session} from './bench-check/session.js';
@@ -92,7 +93,7 @@ export function App({rules: givenRules, settings, env, startCheck, startPlan, au
 	function openPlan(path: string): {editing?: PlanEditing; problems?: string[]; notice?: {text: string; error?: boolean}} {
 		const file = resolve(path);
 		const opened = openPlanForEditing(file, rules);
-		if (!opened.ok) return {problems: opened.errors.map(formatProblem)};
+		if (!opened.ok) return {problems: opened.errors.map((found) => planProblemWords(formatProblem(found)))};
 		// Remembering the plan is a convenience: a refused write is not a reason to refuse opening it.
 		refusedWrite(() => settings.write({planFile: file}));
 		return restorePlanDraft(opened.value);

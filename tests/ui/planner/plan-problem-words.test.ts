@@ -13,8 +13,15 @@ describe('plan problems in the words of the planner', () => {
 		{message: 'the id "lid_switch" is already used by devices.0; ids must be unique', words: 'the id "lid_switch" is already used by device 1 (lid_switch); ids must be unique'},
 		{message: 'access_points.1.secured_by: expected one of', words: 'access point 2 (side_panel): secured by: expected one of'},
 		{message: 'devices.7.contact: required field missing: expected string', words: 'the new device: contact: needed: this field cannot be left empty'},
-		{message: 'input.wire_to_first.length: "3" has no unit', words: 'the run from the input to the first device: length to the next device: "3" has no unit'},
+		{message: 'input.wire_to_first.length: "3" has no unit', words: 'the run from the input to the first device: length: "3" has no unit'},
 	])('$message', ({message, words}) => {
 		expect(planProblemWords(message, plan)).toBe(words);
+	});
+
+	it.each([
+		{message: 'plan.yaml:61:32: error: devices.3.wire_to_next.length: "12" has no unit', words: 'plan.yaml:61:32: error: device 4: length to the next device: "12" has no unit'},
+		{message: 'plan.yaml:20:5: error: access_points.0.beam_reachable: expected boolean', words: 'plan.yaml:20:5: error: access point 1: beam reachable: expected boolean'},
+	])('names items by their place alone for a plan that does not load: $message', ({message, words}) => {
+		expect(planProblemWords(message)).toBe(words);
 	});
 });
