@@ -6,7 +6,7 @@ import type {CompiledRules} from './compile/compiled-rules.js';
 import {extendsBase, mergedSource, resolveRules} from './file/extends.js';
 import {parseRuleText, ruleFileExpected} from './file/rule-source.js';
 import {ruleFileSchema} from './file/schema.js';
-import {schemaProblems} from './file/schema-problems.js';
+import {problemsOfGoodParts} from './compile/good-parts.js';
 
 export {ruleFileNamed, shippedRulesPath} from './file/rule-source.js';
 export {schemaProblems} from './file/schema-problems.js';
@@ -27,11 +27,16 @@ export function loadRulesFromText(text: string, file: string): Result<CompiledRu
 	const parsed = parseRuleText(text, file);
 	if (!parsed.ok) return parsed;
 	const {source, sha256} = parsed.value;
-	if (extendsBase(source.data) !== undefined) return loadExtending(source, sha256, parsed.warnings);
+	// Every problem that can be found is reported in one run: keys written twice, the schema, then what the parts the schema accepts still hold.
+	const twice = source.duplicateKeys ?? [];
+	if (extendsBase(source.data) !== undefined) {
+		const loaded = loadExtending(source, sha256, parsed.warnings);
+		return twice.length === 0 ? loaded : failure([...twice, ...(loaded.ok ? [] : loaded.errors)]);
+	}
 	const validated = ruleFileSchema.safeParse(source.data);
-	if (!validated.success) return failure(schemaProblems(validated.error.issues, source));
+	if (!validated.success) return failure([...twice, ...problemsOfGoodParts(source, validated.error.issues, sha256)]);
 	const compiled = compileRules(validated.data, source, sha256);
-	if (!compiled.ok) return compiled;
+	if (!compiled.ok || twice.length > 0) return failure([...twice, ...(compiled.ok ? [] : compiled.errors)]);
 	return {ok: true, value: compiled.value, warnings: [...parsed.warnings, ...compiled.warnings]};
 }
 

@@ -16,6 +16,8 @@ export type YamlSource = {
 	trailingComment(path: ReadonlyArray<string | number>): string | undefined;
 	/** True for the shipped policy embedded at build time: its sample-value lint passed in the tests. */
 	prelinted?: boolean;
+	/** Keys written twice, when the caller asked to go on past them (the later value is the one read). */
+	duplicateKeys?: Problem[];
 };
 
 /**
@@ -56,7 +58,7 @@ export function readTextFile(file: string, expected: string, maxBytes = maxYamlF
 }
 
 /** Parses YAML text, reporting syntax errors and duplicate keys with file:line:column. */
-export function parseYamlSource(text: string, file: string, expected: string): Result<YamlSource, Problem> {
+export function parseYamlSource(text: string, file: string, expected: string, options: {/** Go on past keys written twice, listing them in `duplicateKeys`, so that later checks can still run. */ readDuplicates?: boolean} = {}): Result<YamlSource, Problem> {
 	if (text.trim() === '') return failure([problem('file-empty', {expected}, {file})]);
 	const lineCounter = new LineCounter();
 	const document = parseDocument(text, {lineCounter, prettyErrors: false, uniqueKeys: false, strict: true, logLevel: 'error'});
@@ -69,8 +71,8 @@ export function parseYamlSource(text: string, file: string, expected: string): R
 			document.errors.map((error) => problem('yaml-syntax', {detail: error.message.split('\n')[0] ?? error.code}, {file, ...at(error.pos[0])})),
 		);
 	}
-	const duplicates = duplicateKeys(document);
-	if (duplicates.length > 0) return failure(duplicates.map(({key, path, offset}) => problem('yaml-duplicate-key', {key}, {file, ...at(offset), field: path.join('.')})));
+	const duplicates = duplicateKeys(document).map(({key, path, offset}) => problem('yaml-duplicate-key', {key}, {file, ...at(offset), field: path.join('.')}));
+	if (duplicates.length > 0 && !options.readDuplicates) return failure(duplicates);
 	if (!isMap(document.contents)) {
 		const received = document.contents === null ? 'nothing' : isScalar(document.contents) ? `the single value ${JSON.stringify(document.contents.toJSON())}` : 'a list';
 		return failure([problem('yaml-not-mapping', {received}, {file, line: 1, column: 1})]);
@@ -105,6 +107,7 @@ export function parseYamlSource(text: string, file: string, expected: string): R
 				const node = document.getIn(path, true);
 				return isScalar(node) && node.comment ? node.comment : undefined;
 			},
+			...(duplicates.length > 0 ? {duplicateKeys: duplicates} : {}),
 		},
 		warnings,
 	);

@@ -23,6 +23,7 @@ import {HomeScreen, type HomeChoice} from './HomeScreen.js';
 import {InfoScreen} from './InfoScreen.js';
 import {PlannerScreen} from './planner/PlannerScreen.js';
 import {PlanOpenScreen} from './planner/PlanOpenScreen.js';
+import {planProblemWords} from './planner/plan-problem-words.js';
 import {testDraftsIn} from './functional-test/test-drafts.js';
 import {testRecorder} from './functional-test/test-recorder.js';
 import {nameSetup, startSession, type Session} from './bench-check/session.js';
@@ -32,6 +33,8 @@ import {StepScreen} from './bench-check/StepScreen.js';
 import {SummaryScreen} from './bench-check/SummaryScreen.js';
 import {refusedWrite} from './refused-write.js';
 import {machineFailure} from '../shared/machine-failure.js';
+import {exitLine} from './exit-line.js';
+import {useCtrlC} from './use-ctrl-c.js';
 
 type Screen = 'home' | 'step' | 'summary' | 'signoff' | 'done' | 'settings' | 'info' | 'plan-open' | 'planner';
 
@@ -46,7 +49,8 @@ export type AppProps = {
 	startPlan?: string;
 	/** Audits the records folder and returns lines to show (kept outside so the core stays out of the screens). */
 	audit?: (folder: string) => Promise<string[]>;
-	onExit(code: number): void;
+	/** Called once when the screens close, with the exit status and the one line to print after them (where the drafts are). */
+	onExit(code: number, farewell?: string): void;
 	/** The rule file named in the settings does not load: the home screen says so and no check starts until it is fixed or the shipped policy is chosen. */
 	brokenRules?: {file: string; settingsPath: string; problems: string[]};
 };
@@ -89,7 +93,7 @@ export function App({rules: givenRules, settings, env, startCheck, startPlan, au
 	function openPlan(path: string): {editing?: PlanEditing; problems?: string[]; notice?: {text: string; error?: boolean}} {
 		const file = resolve(path);
 		const opened = openPlanForEditing(file, rules);
-		if (!opened.ok) return {problems: opened.errors.map(formatProblem)};
+		if (!opened.ok) return {problems: opened.errors.map((found) => planProblemWords(formatProblem(found)))};
 		// Remembering the plan is a convenience: a refused write is not a reason to refuse opening it.
 		refusedWrite(() => settings.write({planFile: file}));
 		return restorePlanDraft(opened.value);
@@ -111,14 +115,22 @@ export function App({rules: givenRules, settings, env, startCheck, startPlan, au
 		clear: (file: string) => removePlanDraft(settings.folder, file),
 	};
 
+	// Leaving draws an empty frame first, so the terminal is left clear for the line printed after it.
+	const [leaving, setLeaving] = useState(false);
+	const left = useRef(false);
 	const quit = (code: number) => {
-		onExit(code);
-		exit();
+		if (left.current) return;
+		left.current = true;
+		onExit(code, exitLine(settings.folder, code === 130 ? 'Ctrl-C' : 'Quit', screen === 'planner' ? plan.editing?.file : undefined));
+		setLeaving(true);
 	};
-	useInput((input, key) => {
-		if (key.ctrl && input === 'c') quit(130);
+	useEffect(() => {
+		if (leaving) exit();
+	}, [leaving]);
+	useCtrlC(() => quit(130));
+	useInput((input) => {
 		// Screens without a field to type in take `?` here: the keys, then the caution in full.
-		else if (input === '?' && !help && (screen === 'done' || screen === 'info')) setHelp(true);
+		if (input === '?' && !help && (screen === 'done' || screen === 'info')) setHelp(true);
 	});
 
 	// Never lose an answer: the draft is saved after every change while a check is open.
@@ -238,7 +250,8 @@ export function App({rules: givenRules, settings, env, startCheck, startPlan, au
 			{/* A long setup name is cut, never drawn over the title. */}
 			<Box flexShrink={1} marginLeft={2} justifyContent="flex-end">
 				<Text dimColor wrap="truncate">
-					{broken ? 'no rules in force: the rule file does not load' : stripControl(session.setup || rules.rules.name)}
+					{/* The setup while a check is open; everywhere else the rules in force. */}
+					{broken ? 'no rules in force: the rule file does not load' : stripControl((['step', 'summary', 'signoff', 'done'].includes(screen) && session.setup) || rules.rules.name)}
 				</Text>
 			</Box>
 		</Box>
@@ -249,7 +262,7 @@ export function App({rules: givenRules, settings, env, startCheck, startPlan, au
 		summary: 'Enter sign-off · ↑ ↓ scroll · Esc back · ? help',
 		signoff: 'Enter next · ↑ ↓ field · Esc back',
 		done: 's save setup · Enter home',
-		settings: 'Enter save · Esc back',
+		settings: 'Enter saves the field · ↑ ↓ move · Esc back',
 		info: 'Enter or Esc back · ↑ ↓ PgUp PgDn scroll',
 		'plan-open': 'Enter open · Esc back · ? help',
 		// The planner draws its own key line: its keys change with what it shows.
@@ -276,7 +289,11 @@ export function App({rules: givenRules, settings, env, startCheck, startPlan, au
 		);
 	else if (screen === 'summary') body = <SummaryScreen session={session} rows={rows - 4} width={width} onSign={() => setScreen('signoff')} onBack={() => setScreen('step')} onHelp={() => setHelp(true)} active={!help} />;
 	else if (screen === 'signoff') {
-		body = <SignOffScreen session={session} initial={{setup: session.setup, name: saved.operator ?? '', role: saved.role ?? '', cosignName: '', cosignRole: '', cosignKey: ''}} {...(signError ? {error: signError} : {})} onSign={sign} onBack={() => setScreen('summary')} onHelp={() => setHelp(true)} active={!help} />;
+		body = <SignOffScreen session={session} initial={{setup: session.setup, name: saved.operator ?? '', role: saved.role ?? '', cosignName: '', cosignRole: '', cosignKey: ''}} {...(signError ? {error: signError} : {})} onSign={sign} onBack={() => {
+			// A refusal belongs to the sign-off it was made on: leaving it clears it.
+			setSignError(undefined);
+			setScreen('summary');
+		}} onHelp={() => setHelp(true)} active={!help} />;
 	} else if (screen === 'done' && written)
 		body = (
 			<DoneScreen
@@ -307,6 +324,7 @@ export function App({rules: givenRules, settings, env, startCheck, startPlan, au
 	else if (screen === 'settings') body = <SettingsScreen initial={saved} path={settings.path} onSave={(changes) => settings.write(changes)} check={{rulesFile: checkRuleFile}} onHelp={() => setHelp(true)} active={!help} onBack={() => setScreen('home')} />;
 	else body = <InfoScreen title={info.title} lines={info.lines} rows={rows - 4} width={width} onBack={() => setScreen('home')} />;
 
+	if (leaving) return null;
 	return (
 		<CautionContext.Provider value={rules.rules.caution}>
 		<Box flexDirection="column" width={width}>

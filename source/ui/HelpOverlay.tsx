@@ -3,6 +3,7 @@ import {useContext, useState} from 'react';
 import {deferral} from '../shared/deferral.js';
 import {stripControl} from '../shared/text.js';
 import {CautionContext} from './caution-context.js';
+import {Prose} from './Prose.js';
 
 /** Keys of each screen, as the help overlay lists them. */
 export const screenKeys: Record<string, Array<[string, string]>> = {
@@ -22,7 +23,7 @@ export const screenKeys: Record<string, Array<[string, string]>> = {
 		['Tab', 'write a note to an answered confirmation'],
 		['PgDn PgUp', 'next / previous step'],
 		['last answer', "the step's verdicts stay: ↓ ↑ scroll, Enter goes on"],
-		['Esc', 'back'],
+		['Esc', 'back (asks first when a value typed or chosen is not entered)'],
 		['?', 'this help'],
 		['Ctrl-C', 'quit (your answers are kept as a draft)'],
 	],
@@ -61,7 +62,7 @@ export const screenKeys: Record<string, Array<[string, string]>> = {
 		['↑ ↓ Tab', 'previous / next field (applies what you typed)'],
 		['← → space', 'choose an option; y n for yes / no'],
 		['empty', 'leaves an optional field out of the file'],
-		['Esc', 'back to the list (a new item not yet added is dropped)'],
+		['Esc', 'back to the list (asks first when a change or a new item is not applied)'],
 	],
 	'plan-test': [
 		['p f a', 'mark the step pass / fail / n/a (each key alone)'],
@@ -98,8 +99,9 @@ export function HelpOverlay({screen, onClose}: {screen: string; onClose(): void}
 		return (
 			<Box flexDirection="column" borderStyle="single" paddingX={1}>
 				<Text bold>Caution</Text>
-				{caution ? <Text wrap="wrap">{stripControl(caution)}</Text> : null}
-				<Text wrap="wrap">{deferral}</Text>
+				{/* Inside the border and padding: four columns fewer. */}
+				{caution ? <Prose text={stripControl(caution)} margin={4} /> : null}
+				<Prose text={deferral} margin={4} />
 				<Text dimColor>Any key closes this page.</Text>
 			</Box>
 		);

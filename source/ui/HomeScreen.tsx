@@ -1,5 +1,6 @@
 import {Box, Text} from 'ink';
 import {Menu} from './Menu.js';
+import {Prose} from './Prose.js';
 import {deferral} from '../shared/deferral.js';
 import {stripControl} from '../shared/text.js';
 
@@ -41,10 +42,8 @@ export function HomeScreen(props: {/** The rule file named in the settings does 
 				<Menu key={props.broken ? 'broken' : 'rules'} items={items} {...(props.last ? {initial: props.last} : {})} onSelect={(item) => props.onChoose(item.value, item.key)} />
 			</Box>
 			<Text bold>Caution</Text>
-			<Text wrap="wrap">{stripControl(props.caution)}</Text>
-			<Text dimColor wrap="wrap">
-				{deferral}
-			</Text>
+			<Prose text={stripControl(props.caution)} />
+			<Prose dimColor text={deferral} />
 		</Box>
 	);
 }

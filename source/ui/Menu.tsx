@@ -1,6 +1,7 @@
-import {Box, Text} from 'ink';
+import {Box} from 'ink';
 import {useKeystrokes} from './use-keystrokes.js';
 import {useRefState} from './use-ref-state.js';
+import {Prose} from './Prose.js';
 
 /** One choice of a menu: `key` names it (the menu keeps its place by it). */
 export type MenuItem<T> = {key: string; label: string; value: T};
@@ -25,10 +26,8 @@ export function Menu<T>({items, initial, onSelect}: {items: ReadonlyArray<MenuIt
 	return (
 		<Box flexDirection="column">
 			{items.map((item, index) => (
-				<Text key={item.key} {...(index === at ? {color: 'blue'} : {})}>
-					{index === at ? '❯ ' : '  '}
-					{item.label}
-				</Text>
+				// A long label (a draft's setup name) wraps under itself, never from a stray space.
+				<Prose key={item.key} text={item.label} lead={index === at ? '❯ ' : '  '} hang="  " {...(index === at ? {color: 'blue'} : {})} />
 			))}
 		</Box>
 	);

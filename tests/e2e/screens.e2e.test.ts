@@ -4,7 +4,8 @@ import {tmpdir} from 'node:os';
 import {join, resolve} from 'node:path';
 import {afterEach, describe, expect, it, vi} from 'vitest';
 import {parse} from 'yaml';
-import {loadDraft, saveDraft} from '../../source/services/drafts/draft-store.js';
+import {draftPath, loadDraft, saveDraft} from '../../source/services/drafts/draft-store.js';
+import {planDraftPath} from '../../source/services/drafts/plan-draft-store.js';
 import {openSettings} from '../../source/services/settings.js';
 import {haveTmux, TmuxSession} from './tmux-driver.js';
 
@@ -313,6 +314,17 @@ async function resumeAndPage(session: TmuxSession, until: (screen: string) => bo
 	return session.waitFor(until, what, 100);
 }
 
+/** Pages from the step shown on to the summary. */
+async function resumeAndPageFromStep(session: TmuxSession): Promise<string> {
+	for (let guard = 0; guard < 12; guard += 1) {
+		const screen = await session.settle();
+		if (screen.includes('Outcome:')) return screen;
+		session.press('PageDown');
+		await session.waitFor((now) => now !== screen, 'the next page');
+	}
+	return session.waitFor((now) => now.includes('Outcome:'), 'the summary', 100);
+}
+
 const cautionStart = 'prelase checks arithmetic and records answers';
 const deferralStart = 'prelase says which checks held';
 
@@ -492,5 +504,241 @@ describe.skipIf(!haveTmux())('the screens at 80x24, as a technician meets them',
 		expect(lines[2]).toBe('Step 8 of 9: People around the bench');
 		expect(screen).toContain('Enter accept · ↑ ↓ field · PgDn PgUp step · Esc back · ? help');
 		expect(lines.filter((line) => line.includes('local codes') && line.includes('?'))).toHaveLength(1);
+	});
+});
+
+/** The demo plan copied to a fresh folder, with a home for the settings and drafts. */
+function planCopy(): {home: string; file: string} {
+	const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
+	const file = join(home, 'plan.yaml');
+	writeFileSync(file, readFileSync('docs/examples/interlock/bench3-interlock-plan.yaml'));
+	return {home, file};
+}
+
+/** Opens the planner's form of the last device of the demo (alignment_bypass, which has no wire run) and focuses a field by its label. */
+async function lastDeviceField(session: TmuxSession, label: string): Promise<string> {
+	await session.waitFor((screen) => screen.includes('Devices in wiring order'), 'the planner');
+	// 5 access points and 7 devices: the last device is 11 places down.
+	for (let step = 0; step < 11; step += 1) session.press('Down');
+	await session.waitFor((screen) => /^› .*alignment_bypass/m.test(screen), 'alignment_bypass selected');
+	session.press('Enter');
+	await session.waitFor((screen) => screen.includes('Device 7 of 7 in wiring order: alignment_bypass'), 'the form of alignment_bypass');
+	for (let step = 0; step < 20 && !session.screen().includes(`› ${label}`); step += 1) {
+		const before = session.screen();
+		session.press('Down');
+		await session.waitFor((now) => now !== before, 'the next field');
+	}
+	return session.waitFor((screen) => screen.includes(`› ${label}`), `the field ${label}`);
+}
+
+/** No internal path of the plan file (devices.6.…) nor a schema library's wording reaches the screen. */
+function expectPlainWords(screen: string): void {
+	expect(screen).not.toMatch(/(devices|access_points)\.\d/);
+	expect(screen).not.toMatch(/expected (number|string), got/);
+	expect(screen).not.toMatch(/\bawg or cross_section\b/);
+}
+
+describe.skipIf(!haveTmux())('the planner and the exits at 80x24', () => {
+	it('adds a wire run to a device that has none as one small form: size and length together, in plain words', {timeout: 60_000}, async () => {
+		const {home, file} = planCopy();
+		const session = start('wire-run', home, `plan ${file} --edit`, [80, 24]);
+		let screen = await lastDeviceField(session, 'Wire run to next device');
+		expect(screen).toMatch(/› Wire run to next device +\(none\)/);
+		session.press('Enter');
+		screen = await session.waitFor((now) => now.includes('Wire size (AWG or mm²)'), 'the wire run form');
+		expect(screen).toContain('Length to the next device');
+		// A length typed where the size goes is refused in words, and the cursor stays to correct it.
+		session.type('262 m');
+		session.press('Enter');
+		screen = await session.waitFor((now) => now.includes('✗'), 'the refusal of a length as a size');
+		expect(screen.replaceAll(/\s+/g, ' ')).toContain('wire size: give the gauge as AWG 26, or the cross-section as 0.5 mm²');
+		expectPlainWords(screen);
+		for (let index = 0; index < 6; index += 1) session.press('BSpace');
+		// The size alone is not refused for want of a length: it waits in the form for the length.
+		session.type('AWG 26');
+		session.press('Enter');
+		screen = await session.waitFor((now) => /› Length to the next device/.test(now), 'the length field');
+		expect(screen).not.toContain('✗');
+		session.type('262 m');
+		session.press('Enter');
+		await session.waitFor((now) => /› Conductors/.test(now), 'the conductors field');
+		session.press('Enter');
+		await session.waitFor((now) => /› \[ Apply the wire run \]/.test(now), 'the apply line');
+		session.press('Enter');
+		screen = await session.waitFor((now) => now.includes('Device 7 of 7') && now.includes('wire run to the next device set'), 'the run applied');
+		expect(screen).toMatch(/› Wire run to next device +AWG 26 · 262 m/);
+		expectPlainWords(screen);
+		session.press('Escape');
+		await session.waitFor((now) => now.includes('Devices in wiring order'), 'the list');
+		session.type('s');
+		await session.waitFor((now) => now.includes('Saved'), 'the plan saved');
+		expect(readFileSync(file, 'utf8')).toMatch(/time_limit: 4 h\n {4}wire_to_next: \{awg: 26, length: 262 m\}\n/);
+	});
+
+	it('names a wire run that the plan refuses by device and field, never by its path in the file', {timeout: 60_000}, async () => {
+		const {home, file} = planCopy();
+		const session = start('wire-words', home, `plan ${file} --edit`, [80, 24]);
+		await lastDeviceField(session, 'Wire run to next device');
+		session.press('Enter');
+		await session.waitFor((now) => now.includes('Wire size (AWG or mm²)'), 'the wire run form');
+		session.type('0.5 mm²');
+		session.press('Enter');
+		await session.waitFor((now) => /› Length to the next device/.test(now), 'the length field');
+		// A length with no unit: the plan's schema refuses it; the words name the device and the field.
+		session.type('262');
+		session.press('Enter', 'Enter');
+		await session.waitFor((now) => /› \[ Apply the wire run \]/.test(now), 'the apply line');
+		session.press('Enter');
+		const screen = await session.waitFor((now) => now.includes('✗'), 'the refusal');
+		expect(screen.replaceAll(/\s+/g, ' ')).toContain('device 7 (alignment_bypass): length to the next device: "262" has no unit');
+		expect(screen).toMatch(/› Length to the next device/);
+		expectPlainWords(screen);
+	});
+
+	it('Esc on a change not yet applied asks before discarding it, in the planner and in the check alike', {timeout: 60_000}, async () => {
+		const {home, file} = planCopy();
+		const planner = start('discard-plan', home, `plan ${file} --edit`, [80, 24]);
+		await planner.waitFor((screen) => screen.includes('Devices in wiring order'), 'the planner');
+		for (let step = 0; step < 5; step += 1) planner.press('Down');
+		await planner.waitFor((screen) => /^› .*lid_switch/m.test(screen), 'lid_switch selected');
+		planner.press('Enter');
+		await planner.waitFor((screen) => screen.includes('Device 1 of 7 in wiring order: lid_switch'), 'the form of lid_switch');
+		planner.press('Down', 'Down', 'Down');
+		await planner.waitFor((screen) => /› Contact/.test(screen), 'the contact field');
+		planner.press('Right');
+		await planner.waitFor((screen) => screen.includes('‹ normally_open ›'), 'a choice moved, not applied');
+		planner.press('Escape');
+		let screen = await planner.waitFor((now) => now.includes('Discard the change to contact?'), 'the question');
+		expect(screen.replaceAll(/\s+/g, ' ')).toContain('y discard it and go back · any other key keeps editing');
+		// Any other key keeps the change in the field, still to be applied.
+		planner.type('n');
+		screen = await planner.waitFor((now) => !now.includes('Discard the change'), 'the question gone');
+		expect(screen).toContain('‹ normally_open ›');
+		planner.press('Escape');
+		await planner.waitFor((now) => now.includes('Discard the change to contact?'), 'the question again');
+		planner.type('y');
+		screen = await planner.waitFor((now) => now.includes('Devices in wiring order'), 'the list after discarding');
+		expect(screen).not.toContain('(not saved)');
+		// The wire run's form asks too, naming the run.
+		await lastDeviceField(planner, 'Wire run to next device');
+		planner.press('Enter');
+		await planner.waitFor((now) => now.includes('Wire size (AWG or mm²)'), 'the wire run form');
+		planner.type('AWG 26');
+		planner.press('Escape');
+		await planner.waitFor((now) => now.includes('Discard the change to the wire run?'), 'the question on the run');
+
+		const checkHome = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
+		const check = start('discard-check', checkHome, 'check', [80, 24]);
+		await check.waitFor((now) => now.includes('Step 1 of 9'), 'the first step');
+		await check.settle();
+		check.type('FH-9');
+		await check.waitFor((now) => now.includes('FH-9'), 'the text typed');
+		check.press('Escape');
+		screen = await check.waitFor((now) => now.includes('Discard the change to'), 'the question in the check');
+		expect(screen).toContain('Step 1 of 9');
+		expect(screen.split('\n')[0]).toMatch(/^prelase · bench check/);
+		check.type('x');
+		await check.waitFor((now) => !now.includes('Discard the change'), 'the question gone');
+		check.press('Escape');
+		await check.waitFor((now) => now.includes('Discard the change to'), 'the question again');
+		check.type('y');
+		await check.waitFor((now) => now.includes('Start a bench check') || now.includes('Resume the draft'), 'the home screen after discarding');
+	});
+
+	// The line printed on leaving, whole: it may wrap at 80 columns, so it is read with its line breaks removed.
+	const leftLine = (screen: string) => screen.slice(0, screen.indexOf('EXITED')).replaceAll('\n', '');
+
+	it('Ctrl-C clears the screen, says where the drafts are (or that nothing was pending), and leaves the prompt on a line of its own', {timeout: 60_000}, async () => {
+		const checkHome = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
+		const check = start('ctrl-c-check', checkHome, 'check', [80, 24]);
+		await check.waitFor((now) => now.includes('Step 1 of 9'), 'the first step');
+		await check.settle();
+		check.type('FH-9');
+		check.press('Enter');
+		await check.waitFor(() => loadDraft(openSettings({PRELASE_HOME: checkHome}).folder) !== undefined, 'the draft saved');
+		// At once, as a person would: a Ctrl-C right after a key is never lost.
+		check.press('C-c');
+		let screen = await check.waitFor((now) => now.includes('EXITED 130'), 'the program to leave with 130');
+		// The prompt (here the line the shell prints next) starts a line of its own.
+		expect(screen).toMatch(/^EXITED 130$/m);
+		// The screen is cleared: no line of the step is left above the farewell.
+		expect(screen).not.toContain('Step 1 of 9');
+		expect(leftLine(screen)).toContain(`prelase: left with Ctrl-C; the check draft is saved in ${draftPath(openSettings({PRELASE_HOME: checkHome}).folder)} (the next start offers to resume it)`);
+
+		const {home, file} = planCopy();
+		const planner = start('ctrl-c-plan', home, `plan ${file} --edit`, [80, 24]);
+		await planner.waitFor((now) => now.includes('Devices in wiring order'), 'the planner');
+		for (let step = 0; step < 5; step += 1) planner.press('Down');
+		await planner.waitFor((now) => /^› .*lid_switch/m.test(now), 'lid_switch selected');
+		planner.type(']');
+		await planner.waitFor((now) => now.includes('(not saved)'), 'an unsaved change');
+		planner.press('C-c');
+		screen = await planner.waitFor((now) => now.includes('EXITED 130'), 'the planner to leave with 130');
+		expect(screen).toMatch(/^EXITED 130$/m);
+		expect(leftLine(screen)).toContain(`the plan edits not saved to ${file} are kept in ${planDraftPath(openSettings({PRELASE_HOME: home}).folder, file)} (opening the plan again restores them)`);
+
+		const idle = start('ctrl-c-idle', mkdtempSync(join(tmpdir(), 'prelase-e2e-')), '', [80, 24]);
+		await idle.waitFor((now) => now.includes('Start a bench check'), 'the home screen');
+		await idle.settle();
+		idle.press('C-c');
+		screen = await idle.waitFor((now) => now.includes('EXITED 130'), 'the home screen to leave with 130');
+		expect(screen).toMatch(/^EXITED 130$/m);
+		expect(screen).not.toContain('Start a bench check');
+		expect(leftLine(screen)).toContain('prelase: left with Ctrl-C; nothing was pending');
+	});
+
+	it('one key line per screen, no wrapped line starting with a stray space, the rules in the home header, and no error left after Esc', {timeout: 90_000}, async () => {
+		const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
+		execFileSync('node', [program, 'keys', '--name', 'Dana Whitlow'], {env: {...process.env, PRELASE_HOME: home}});
+		seedDemoDraft(home, [], 0);
+		const session = start('words', home, '', [80, 24]);
+		let screen = await session.waitFor((now) => now.includes('Resume the draft'), 'the home screen');
+		// A line Ink wrapped at a space never starts with that space (the caution on the home screen wraps at 80).
+		expect(screen).not.toMatch(/^ \S/m);
+		session.press('Enter');
+		await session.waitFor((now) => now.includes('Step 1 of 9'), 'the resumed check');
+		// In the check the header names the setup; back home it names the rules in force, not the last setup.
+		expect(session.screen().split('\n')[0]).toContain('Fenwick Hollow bench 3');
+		session.press('Escape');
+		screen = await session.waitFor((now) => now.includes('Resume the draft'), 'the home screen again');
+		expect(screen.split('\n')[0]).toMatch(/^prelase · bench check +prelase bench policy \(shipped default\)$/);
+		expect(screen).not.toMatch(/^ \S/m);
+
+		// Settings: one key line (its own), not its own plus the App's.
+		for (let step = 0; !session.screen().includes('❯ Settings') && step < 8; step += 1) {
+			session.press('Down');
+			await session.settle();
+		}
+		session.press('Enter');
+		screen = await session.waitFor((now) => /^Settings$/m.test(now), 'the settings');
+		expect(screen.split('\n').filter((line) => line.includes('Esc back'))).toHaveLength(1);
+		session.press('Escape');
+		await session.waitFor((now) => now.includes('Resume the draft'), 'the home screen from the settings');
+
+		// A refusal on the sign-off is gone once Esc has left it: neither on the summary nor on the sign-off again.
+		for (let step = 0; !session.screen().includes('❯ Resume the draft') && step < 8; step += 1) {
+			session.press('Up');
+			await session.settle();
+		}
+		session.press('Enter');
+		await session.waitFor((now) => now.includes('Step 1 of 9'), 'the resumed check');
+		await resumeAndPageFromStep(session);
+		session.press('Enter');
+		await session.waitFor((now) => now.includes('Sign-off'), 'the sign-off');
+		session.press('Enter');
+		session.type('Sam Colleague');
+		session.press('Enter');
+		session.type('test engineer');
+		session.press('Enter', 'Down', 'Down', 'Down');
+		await session.settle();
+		session.press('Enter');
+		await session.waitFor((now) => now.includes('your key is the key of'), 'the refusal');
+		session.press('Escape');
+		screen = await session.waitFor((now) => now.includes('Outcome:'), 'the summary');
+		expect(screen).not.toContain('your key is the key of');
+		session.press('Enter');
+		screen = await session.waitFor((now) => now.includes('Sign-off'), 'the sign-off again');
+		expect(screen).not.toContain('your key is the key of');
+		expect(screen).not.toContain('✗');
 	});
 });

@@ -44,7 +44,9 @@ describe('the settings screen', () => {
 	it('does not save a field left with Esc', async () => {
 		const screen = await settingsScreen();
 		await screen.type('Nobody');
-		const frame = await screen.press(keys.escape);
+		// Esc asks first: a value typed and not saved is never dropped without a word.
+		expect(await screen.press(keys.escape)).toContain('Discard the change to operator name? y discard it and go back');
+		const frame = await screen.press('y');
 		// Back on the home menu, on the item that led to the settings.
 		expect(frame).toContain('❯ Settings (operator, role, records folder, rule file)');
 		expect(openSettings(screen.env).read().operator).toBeUndefined();

@@ -94,6 +94,21 @@ export function setItemField(editing: PlanEditing, list: PlanList, index: number
 	);
 }
 
+/** Sets (or, with undefined, removes) a device's wire run to the next device as a whole, written as a flow map like the demo's. */
+export function setWireRun(editing: PlanEditing, index: number, run: Record<string, unknown> | undefined): EditResult {
+	const at = ['devices', index, 'wire_to_next'];
+	return attempt(
+		editing,
+		(document) => {
+			if (run === undefined) return document.deleteIn(at);
+			const node = document.createNode(run);
+			node.flow = true;
+			document.setIn(at, node);
+		},
+		at.join('.'),
+	);
+}
+
 /** Adds an item at the end of its list (a device: at the end of the wiring order). Wire runs are written as flow maps. */
 export function addItem(editing: PlanEditing, list: PlanList, values: Record<string, unknown>): EditResult {
 	const index = list === 'devices' ? editing.plan.devices.length : editing.plan.access_points.length;

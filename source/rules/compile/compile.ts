@@ -130,7 +130,9 @@ export function compileRules(
 		const compiled = formula(derived.formula, ['derived', index, 'formula']);
 		if (compiled) derivedList.push({derived, formula: compiled});
 	});
+	const inCycle = new Set<string>();
 	const ordered = orderDerived(derivedList, (cycle) => {
+		for (const id of cycle) inCycle.add(id);
 		const index = rules.derived.findIndex((derived) => derived.id === cycle[0]);
 		problems.push(problem('derived-cycle', {path: cycle.join(' → ')}, where(['derived', index, 'formula'])));
 	});
@@ -156,7 +158,6 @@ export function compileRules(
 		(check.switched_off === undefined ? checks : switchedOff).push(compiled);
 	});
 
-	if (problems.length > 0) return failure(problems);
 	const compiled: CompiledRules = {
 		file: source.file,
 		text: source.text,
@@ -173,10 +174,38 @@ export function compileRules(
 		switchedOff,
 		provenance,
 	};
+	const lintWhere = (path: Path, name?: string, text?: string) => where(path, name, text);
+	// With problems found, the sample-value lint still runs on the formulas that compiled and use no value that failed, so one run reports them all.
+	if (problems.length > 0) {
+		// Names whose value is not known: a derived value that did not compile or is in a circle, a policy value or an input range that did not parse.
+		const failed = new Set([...inCycle, ...rules.derived.map((entry) => entry.id).filter((id) => !derivedList.some((kept) => kept.derived.id === id))]);
+		for (const id of Object.keys(rules.policy)) if (!policy.has(id) && !optionLists.has(id)) failed.add(id);
+		for (const [id, entry] of inputs) if (entry.input.kind === 'quantity' && entry.range === undefined) failed.add(id);
+		return failure([...problems, ...lintGoodParts(compiled, failed, lintWhere)]);
+	}
 	// The shipped policy embedded at build time is the exact text the tests lint; skip the repeat.
-	const lint = source.prelinted ? [] : lintWithSamples(compiled, (path, name, text) => where(path, name, text));
+	const lint = source.prelinted ? [] : lintWithSamples(compiled, lintWhere);
 	if (lint.length > 0) return failure(lint);
 	return success(compiled, warnings);
+}
+
+/** The lint, on the checks and derived values whose formulas all compiled and name no derived value that failed. */
+function lintGoodParts(compiled: CompiledRules, unknown: ReadonlySet<string>, where: Parameters<typeof lintWithSamples>[1]): Problem[] {
+	const failed = new Set(unknown);
+	const usable = (formulas: Array<CompiledFormula | undefined>, texts: Array<string | undefined>) => formulas.every((formula, index) => (texts[index] === undefined) === (formula === undefined)) && formulas.every((formula) => !formula || ![...formula.names].some((name) => failed.has(name)));
+	const good = (entry: CompiledCheck) => usable([entry.when, entry.holds, entry.value, entry.limit], [entry.check.when, entry.check.holds, entry.check.value, entry.check.at_most ?? entry.check.at_least]);
+	// In their order of dependence, so that a value built on one left out is left out too.
+	const derived = compiled.derived.filter((entry) => {
+		const kept = !failed.has(entry.derived.id) && usable([entry.formula], [entry.derived.formula]);
+		if (!kept) failed.add(entry.derived.id);
+		return kept;
+	});
+	try {
+		return lintWithSamples({...compiled, derived, checks: compiled.checks.filter(good), switchedOff: compiled.switchedOff.filter(good)}, where);
+	} catch {
+		// Parts left unchecked here are still refused: the rules do not load until every problem reported is fixed.
+		return [];
+	}
 }
 
 function placeholdersOf(message: string): string[] {

@@ -112,8 +112,10 @@ export function lintWithSamples(rules: CompiledRules, where: Where): Problem[] {
 		const index = step.confirmations.indexOf(confirmation);
 		mustBeBoolean(when, ['steps', stepIndex.get(step.id)!, 'confirmations', index, 'when'], 'condition (when)');
 	}
-	rules.checks.forEach((compiled, index) => {
+	rules.checks.forEach((compiled) => {
 		const {check} = compiled;
+		// Its place in the file, not in the list linted (a switched-off check, or one left out, is not in that list).
+		const index = rules.rules.checks.indexOf(check);
 		mustBeBoolean(compiled.when, ['checks', index, 'when'], 'condition (when)');
 		mustBeBoolean(compiled.holds, ['checks', index, 'holds'], 'condition (holds)');
 		if (!compiled.value || !compiled.limit || !compiled.relation) return;

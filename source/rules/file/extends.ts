@@ -58,8 +58,9 @@ export function resolveRules(source: YamlSource, sha256 = '', visiting: readonly
 		return {problems: [...read.errors, at(['extends'], 'extends-base-invalid', {base: named, count: read.errors.length})], warnings: []};
 	}
 	const base = resolveRules(read.value.source, read.value.sha256, trail);
-	if (!base.value || base.problems.length > 0) {
-		return {problems: [...base.problems, at(['extends'], 'extends-base-invalid', {base: named, count: base.problems.length})], warnings: base.warnings};
+	const twice = read.value.source.duplicateKeys ?? [];
+	if (!base.value || base.problems.length > 0 || twice.length > 0) {
+		return {problems: [...twice, ...base.problems, at(['extends'], 'extends-base-invalid', {base: named, count: twice.length + base.problems.length})], warnings: base.warnings};
 	}
 	const merged = mergeSite(base.value, site.data, source, sha256, at);
 	return {value: merged.value, problems: merged.problems, warnings: [...read.warnings, ...base.warnings]};

@@ -34,7 +34,8 @@ export function parseRuleText(text: string, file: string): Result<{source: YamlS
 	const sha256 = sha256Hex(text);
 	const shipped = shippedRulesData(sha256);
 	if (shipped !== undefined) return success({source: preparsedYamlSource(text, file, shipped), sha256});
-	const parsed = parseYamlSource(text, file, ruleFileExpected);
+	// Keys written twice are reported with everything else the later checks find (the later value is read meanwhile).
+	const parsed = parseYamlSource(text, file, ruleFileExpected, {readDuplicates: true});
 	if (!parsed.ok) return parsed;
 	return success({source: parsed.value, sha256}, parsed.warnings);
 }

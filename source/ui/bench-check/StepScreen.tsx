@@ -10,6 +10,7 @@ import {ChecksPanel, derivedLines} from './ChecksPanel.js';
 import {FieldList} from './FieldList.js';
 import {answerConfirmation, answeredByRecord, enterInput, stepFields, type Field, type Session} from './session.js';
 import {typeInto} from '../text-buffer.js';
+import {discardAnswer, discardQuestion} from '../discard-question.js';
 
 /** Props of one step of the bench check. */
 export type StepScreenProps = {
@@ -32,7 +33,7 @@ export type StepScreenProps = {
  * `suggested`: the buffer holds a default not typed by the operator; the first key replaces it.
  * `stray`: text typed on a question answered by single keys; held, shown, and never an answer.
  */
-type Editor = {focus: number; buffer: string; choice: number; message?: string; noteMode: boolean; suggested?: boolean; stray: string; /** While the step's verdicts are reviewed: the first check shown. */ reviewFrom?: number};
+type Editor = {focus: number; buffer: string; choice: number; message?: string; noteMode: boolean; suggested?: boolean; stray: string; /** While the step's verdicts are reviewed: the first check shown. */ reviewFrom?: number; /** Esc was pressed with a change not entered: the step asks whether to discard it. */ asking?: boolean};
 
 const confirmationKeys = {y: 'yes', n: 'no', a: 'not_applicable'} as const;
 const yesNoKeys = {y: 'yes', n: 'no'} as const;
@@ -53,6 +54,20 @@ function initialChoice(session: Session, field: Field | undefined): number {
 	const options = Object.keys(field.input.options);
 	const current = session.entries[field.id] ?? field.input.default;
 	return Math.max(0, current === undefined ? 0 : options.indexOf(current));
+}
+
+/** True when the field in focus holds a value typed or chosen and not yet entered (a suggested default is not a change). */
+function pendingChange(session: Session, field: Field | undefined, editor: Editor): boolean {
+	if (!field || field.kind !== 'input' || editor.suggested) return false;
+	if (field.input.kind === 'choice') return editor.choice !== initialChoice(session, field);
+	if (field.input.kind === 'yes_no') return false;
+	return editor.buffer.trim() !== (session.entries[field.id] ?? initialBuffer(session, field)).trim();
+}
+
+/** A field's label, short enough for the question to fit its line. */
+function shortLabel(field: Field): string {
+	const label = stripControl(field.kind === 'input' ? field.input.label : field.confirmation.statement);
+	return label.length > 40 ? `${label.slice(0, 39)}…` : label;
 }
 
 function editorFor(session: Session, field: Field | undefined, focus: number): Editor {
@@ -137,9 +152,11 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 			if (confirm(field, answered ?? 'not_applicable', change.text)) move(1);
 			return;
 		}
+		if (state.asking) return discardAnswer(input, arrival) === 'discard' ? onBack() : update({asking: false});
 		if (key.pageDown) return onStep(stepIndex + 1);
 		if (key.pageUp) return stepIndex > 0 ? onStep(stepIndex - 1) : undefined;
-		if (key.escape) return onBack();
+		// Esc never drops a change silently: it asks first.
+		if (key.escape) return pendingChange(getSession(), field, state) ? update({asking: true}) : onBack();
 		if (fields.length > 0 && state.focus >= fields.length) {
 			// Reviewing the step's verdicts: on, or back to the last field.
 			const from = state.reviewFrom ?? 0;
@@ -248,6 +265,11 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 				Step {stepIndex + 1} of {session.rules.rules.steps.length}: {stripControl(step.title)}
 			</Text>
 			{summary.length > 0 ? <Text dimColor>{summary.join('\n')}</Text> : null}
+			{state.asking && fields[state.focus] ? (
+				<Text bold wrap="wrap">
+					{discardQuestion(`"${shortLabel(fields[state.focus]!)}"`)}
+				</Text>
+			) : null}
 			<Box marginTop={1} flexDirection="column">
 				{fields.length === 0 ? <Text dimColor>Nothing to answer in this step for this setup. Enter or PgDn to go on.</Text> : null}
 				<FieldList
@@ -259,7 +281,7 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 					{...(state.message ? {message: state.message} : {})}
 					noteMode={state.noteMode}
 					stray={state.stray}
-					rows={Math.max(5, rows - panelRows - derived.length - 6 - summary.length)}
+					rows={Math.max(5, rows - panelRows - derived.length - 6 - summary.length - (state.asking ? 2 : 0))}
 					width={width}
 				/>
 			</Box>

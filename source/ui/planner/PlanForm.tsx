@@ -3,7 +3,11 @@ import type {PlanEditing} from '../../interlock/plan/plan-edit.js';
 import {stripControl} from '../../shared/text.js';
 import {choicesOf, planFieldHint, shownValue, type PlanField} from './plan-fields.js';
 import {FindingLine} from './PlanList.js';
-import {formFields, formList, formValue, itemId, type Form} from './planner-state.js';
+import {formFields, formList, formValue, itemId, runValue, type Form} from './planner-state.js';
+import {runSummary} from './wire-run-entry.js';
+import {WireRunForm} from './WireRunForm.js';
+import {discardQuestion} from '../discard-question.js';
+import {Prose} from '../Prose.js';
 
 function title(editing: PlanEditing, form: Form): string {
 	const list = formList(form.target);
@@ -14,6 +18,7 @@ function title(editing: PlanEditing, form: Form): string {
 }
 
 function EditedValue({field, form, value}: {field: PlanField; form: Form; value: unknown}) {
+	if (field.kind === 'run') return <Text>{stripControl(shownValue(field, value))}</Text>;
 	if (field.kind !== 'choice') return <Text>{stripControl(form.buffer)}▌</Text>;
 	const options = choicesOf(field, value);
 	if (form.choice < 0) return <Text>‹ choose with ← → ›</Text>;
@@ -35,6 +40,7 @@ export function PlanForm({editing, form, rows}: {editing: PlanEditing; form: For
 	const room = Math.max(3, rows - 9 - shownFindings.length - (form.message ? 2 : 0) - (adding ? 1 : 0));
 	const start = Math.max(0, Math.min(form.focus - Math.floor(room / 2), fields.length - room));
 	const focused = fields[form.focus];
+	if (form.run) return <WireRunForm device={id ?? 'the new device'} run={form.run} />;
 	return (
 		<Box flexDirection="column">
 			<Text bold wrap="truncate">
@@ -44,7 +50,7 @@ export function PlanForm({editing, form, rows}: {editing: PlanEditing; form: For
 				{start > 0 ? <Text dimColor>  ↑ {start} more</Text> : null}
 				{fields.slice(start, start + room).map((field, offset) => {
 					const index = start + offset;
-					const value = formValue(editing, form.target, field);
+					const value = field.kind === 'run' ? runSummary(runValue(editing, form.target)) : formValue(editing, form.target, field);
 					const chosen = index === form.focus;
 					return (
 						<Box key={field.path.join('.')} flexDirection="column">
@@ -53,11 +59,7 @@ export function PlanForm({editing, form, rows}: {editing: PlanEditing; form: For
 								{field.label.padEnd(26)}
 								{chosen ? <EditedValue field={field} form={form} value={value} /> : stripControl(shownValue(field, value))}
 							</Text>
-							{chosen && form.message ? (
-								<Text color="red" wrap="wrap">
-									{'  '}✗ {stripControl(form.message)}
-								</Text>
-							) : null}
+							{chosen && form.message ? <Prose color="red" text={stripControl(form.message)} lead="  ✗ " hang="    " /> : null}
 						</Box>
 					);
 				})}
@@ -67,11 +69,17 @@ export function PlanForm({editing, form, rows}: {editing: PlanEditing; form: For
 						{form.focus === fields.length ? '› ' : '  '}[ Add to the plan ]
 					</Text>
 				) : null}
-				{adding && form.focus === fields.length && form.message ? <Text color="red" wrap="wrap">  ✗ {stripControl(form.message)}</Text> : null}
+				{adding && form.focus === fields.length && form.message ? <Prose color="red" text={stripControl(form.message)} lead="  ✗ " hang="    " /> : null}
 			</Box>
-			<Text dimColor wrap="truncate">
-				{focused ? planFieldHint(focused) : 'Enter adds it; the plan is checked as a whole first'}
-			</Text>
+			{form.asking ? (
+				<Text bold wrap="wrap">
+					{discardQuestion(adding ? `the new ${formList(form.target) === 'devices' ? 'device' : 'access point'}` : (focused?.label.toLowerCase() ?? 'this item'))}
+				</Text>
+			) : (
+				<Text dimColor wrap="truncate">
+					{focused ? planFieldHint(focused) : 'Enter adds it; the plan is checked as a whole first'}
+				</Text>
+			)}
 			<Box marginTop={1} flexDirection="column">
 				{adding ? (
 					<Text bold>

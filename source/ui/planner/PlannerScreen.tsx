@@ -93,7 +93,7 @@ export function PlannerScreen({editing, rulesName, rows, width, recorder, drafts
 		const {view} = current;
 		let next = current;
 		if (view.name === 'list') next = listKey(current, input, key, actions);
-		else if (view.name === 'form') next = formKey(current, view.form, input, key);
+		else if (view.name === 'form') next = formKey(current, view.form, input, key, arrival);
 		else if (view.name === 'remove') next = removeKey(current, view.ref, input, arrival);
 		else if (view.name === 'leave') next = leaveKey(current, input, key, arrival, actions);
 		else if (view.name === 'record') {

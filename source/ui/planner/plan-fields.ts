@@ -6,7 +6,7 @@ import {dimensions, type Dimension} from '../../quantities/dimensions.js';
 export type PlanField = {
 	path: readonly string[];
 	label: string;
-	kind: 'text' | 'quantity' | 'number' | 'choice';
+	kind: 'text' | 'quantity' | 'number' | 'choice' | 'run';
 	/** For a choice: the values written to the file, in order. */
 	options?: readonly string[];
 	/** The field may be left out of the file (an empty entry, or "(none)", removes it). */
@@ -43,10 +43,8 @@ export function deviceFields(plan: Plan, current?: string): PlanField[] {
 		{path: ['bypass', 'owner'], label: 'Bypass owner', kind: 'text', optional: true},
 		{path: ['bypass', 'reason'], label: 'Bypass reason', kind: 'text', optional: true},
 		quantity(['bypass', 'time_limit'], 'Bypass time limit', 'time', true),
-		{path: ['wire_to_next', 'awg'], label: 'Run to next: AWG', kind: 'number', optional: true},
-		quantity(['wire_to_next', 'cross_section'], 'Run to next: section', 'area', true),
-		{...quantity(['wire_to_next', 'length'], 'Run to next: length', 'length', true), removes: ['wire_to_next']},
-		{path: ['wire_to_next', 'conductors'], label: 'Run to next: conductors', kind: 'number', optional: true, fallback: '2'},
+		// The run is entered as a whole in its own small form: a size alone or a length alone is not a run.
+		{path: ['wire_to_next'], label: 'Wire run to next device', kind: 'run', optional: true},
 	];
 }
 
@@ -95,5 +93,6 @@ export function planFieldHint(field: PlanField): string {
 	if (field.kind === 'quantity' && field.dimension) return `${dimensions[field.dimension].noun} with its unit, e.g. ${dimensions[field.dimension].example}${optional}`;
 	if (field.kind === 'choice') return `← → choose · Enter apply${field.options?.[0] === 'yes' ? ' · y n' : ''}`;
 	if (field.kind === 'number') return `a whole number${optional}`;
+	if (field.kind === 'run') return 'Enter opens the wire run: its size and length together';
 	return field.path[0] === 'id' ? 'lower case letters, digits and _, starting with a letter' : `text${optional}`;
 }

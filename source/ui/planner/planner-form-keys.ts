@@ -2,7 +2,10 @@ import type {Key} from 'ink';
 import {addItem, draftFieldProblem, setItemField} from '../../interlock/plan/plan-edit.js';
 import {choicesOf, shownValue, typedValue, type PlanField} from './plan-fields.js';
 import {focusField, formFields, formList, formValue, itemId, selectionOf, withValue, type Form, type PlannerState} from './planner-state.js';
-import {typeInto} from '../text-buffer.js';
+import {typeInto, type Arrival} from '../text-buffer.js';
+import {discardAnswer} from '../discard-question.js';
+import {planProblemWords} from './plan-problem-words.js';
+import {openRunForm, runKey} from './planner-run-keys.js';
 
 const withForm = (state: PlannerState, form: Form): PlannerState => ({...state, view: {name: 'form', form}});
 
@@ -20,7 +23,7 @@ function entered(field: PlanField, form: Form, value: unknown): string | undefin
 function commit(state: PlannerState, form: Form): {state: PlannerState; applied: boolean} {
 	const {editing} = state;
 	const field = formFields(editing, form.target)[form.focus];
-	if (!field) return {state, applied: true};
+	if (!field || field.kind === 'run') return {state, applied: true};
 	const current = formValue(editing, form.target, field);
 	const entry = entered(field, form, current);
 	if (entry === undefined || entry.trim() === shownValue(field, current)) return {state: withForm(state, {...form, message: undefined}), applied: true};
@@ -29,12 +32,12 @@ function commit(state: PlannerState, form: Form): {state: PlannerState; applied:
 	if (form.target.kind === 'add') {
 		const values = withValue(form.target.values, path, value);
 		const problem = draftFieldProblem(editing, form.target.list, values, field.path);
-		if (problem) return {state: withForm(state, {...form, message: problem}), applied: false};
+		if (problem) return {state: withForm(state, {...form, message: planProblemWords(problem, editing.plan)}), applied: false};
 		return {state: withForm(state, {...form, target: {...form.target, values}, message: undefined}), applied: true};
 	}
 	const {list, index} = form.target.ref;
 	const result = setItemField(editing, list, index, path, value);
-	if (!result.ok) return {state: withForm(state, {...form, message: result.message}), applied: false};
+	if (!result.ok) return {state: withForm(state, {...form, message: planProblemWords(result.message, editing.plan)}), applied: false};
 	const notice = {text: `${itemId(result.editing, form.target.ref)}: ${field.label.toLowerCase()} ${value === undefined ? 'left out' : `set to ${shownValue(field, value)}`}`};
 	return {state: {...state, editing: result.editing, notice, view: {name: 'form', form: {...form, message: undefined}}}, applied: true};
 }
@@ -52,8 +55,8 @@ function add(state: PlannerState, form: Form): PlannerState {
 	if (!result.ok) {
 		const fields = formFields(state.editing, form.target);
 		const prefix = `${list}.${list === 'devices' ? state.editing.plan.devices.length : state.editing.plan.access_points.length}.`;
-		const focus = fields.findIndex((field) => result.field === `${prefix}${field.path.join('.')}`);
-		const message = focus >= 0 ? result.message.replace(`${result.field}: `, '') : result.message;
+		const focus = fields.findIndex((field) => result.field === `${prefix}${field.path.join('.')}` || result.field?.startsWith(`${prefix}${field.path.join('.')}.`));
+		const message = planProblemWords(focus >= 0 ? result.message.replace(`${result.field}: `, '') : result.message, state.editing.plan);
 		return withForm(state, {...focusField(state.editing, form.target, focus >= 0 ? focus : form.focus), message});
 	}
 	const ref = {list, index: (list === 'devices' ? result.editing.plan.devices.length : result.editing.plan.access_points.length) - 1};
@@ -61,18 +64,32 @@ function add(state: PlannerState, form: Form): PlannerState {
 	return {...state, editing: result.editing, selected: selectionOf(result.editing, ref), view: {name: 'list'}, notice: {text: `Added ${itemId(result.editing, ref)}, a new ${what}`}};
 }
 
+/** True when the form holds something not yet in the plan: a field typed or chosen and not applied, or a new item's values. */
+export function formPending(state: PlannerState, form: Form): boolean {
+	if (form.target.kind === 'add' && Object.keys(form.target.values).length > 0) return true;
+	const field = formFields(state.editing, form.target)[form.focus];
+	if (!field || field.kind === 'run') return false;
+	const current = formValue(state.editing, form.target, field);
+	const entry = entered(field, form, current);
+	return entry !== undefined && entry.trim() !== shownValue(field, current);
+}
+
 /** One key in the form. */
-export function formKey(state: PlannerState, form: Form, input: string, key: Key): PlannerState {
+export function formKey(state: PlannerState, form: Form, input: string, key: Key, arrival: Arrival): PlannerState {
 	const fields = formFields(state.editing, form.target);
 	const field = fields[form.focus];
-	if (key.escape) return {...state, view: {name: 'list'}};
+	if (form.run) return runKey(state, form, form.run, input, key, arrival);
+	if (form.asking) return discardAnswer(input, arrival) === 'discard' ? {...state, view: {name: 'list'}} : withForm(state, {...form, asking: false});
+	// Esc never drops a change silently: it asks first.
+	if (key.escape) return formPending(state, form) ? withForm(state, {...form, asking: true}) : {...state, view: {name: 'list'}};
 	if (!field) {
 		if (key.return) return add(state, form);
 		if (key.upArrow) return moveTo(state, form, form.focus - 1);
 		if (input === '?') return {...state, help: true};
 		return state;
 	}
-	const typing = field.kind !== 'choice';
+	if (field.kind === 'run' && key.return) return openRunForm(state, form);
+	const typing = field.kind !== 'choice' && field.kind !== 'run';
 	if (input === '?' && (!typing || form.buffer === '')) return {...state, help: true};
 	if (key.upArrow || key.downArrow || key.tab) {
 		const committed = commit(state, form);
@@ -90,6 +107,7 @@ export function formKey(state: PlannerState, form: Form, input: string, key: Key
 		if (yes >= 0) return withForm(state, {...form, choice: yes, message: undefined});
 		if (!key.return) return state;
 	}
+	if (field.kind === 'run') return state;
 	const change = field.kind === 'choice' ? {text: form.buffer, submit: true} : typeInto(form.buffer, input, key);
 	const typed = {...form, buffer: change.text};
 	if (!change.submit) return withForm(state, typed);

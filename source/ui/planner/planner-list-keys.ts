@@ -1,6 +1,7 @@
 import type {Key} from 'ink';
 import {moveDevice, removeItem} from '../../interlock/plan/plan-edit.js';
 import type {Arrival} from '../text-buffer.js';
+import {planProblemWords} from './plan-problem-words.js';
 import {focusField, itemId, itemRefs, selectionOf, type ItemRef, type PlannerState} from './planner-state.js';
 
 /** What the list's keys need from outside: saving writes a file, leaving changes screen, a test starts from the file on disk. */
@@ -50,7 +51,7 @@ export function removeKey(state: PlannerState, ref: ItemRef, input: string, arri
 	if (input.toLowerCase() !== 'y' || !arrival.alone) return {...state, view: {name: 'list'}, notice: {text: 'Nothing removed'}};
 	const id = itemId(state.editing, ref);
 	const removed = removeItem(state.editing, ref.list, ref.index);
-	if (!removed.ok) return {...state, view: {name: 'list'}, notice: {text: `${id} not removed: ${removed.message}`, error: true}};
+	if (!removed.ok) return {...state, view: {name: 'list'}, notice: {text: `${id} not removed: ${planProblemWords(removed.message, state.editing.plan)}`, error: true}};
 	const count = itemRefs(removed.editing).length;
 	return {...state, editing: removed.editing, selected: Math.min(state.selected, count - 1), view: {name: 'list'}, notice: {text: `Removed the ${what(ref)} ${id}`}};
 }

@@ -1,6 +1,7 @@
 import {itemValue, type PlanEditing, type PlanList} from '../../interlock/plan/plan-edit.js';
 import {choicesOf, fieldsOf, shownValue, type PlanField} from './plan-fields.js';
 import type {TestEntry} from '../functional-test/test-entry.js';
+import type {RunForm} from './wire-run-entry.js';
 
 /** An access point or a device, by its list and place. */
 export type ItemRef = {list: PlanList; index: number};
@@ -9,7 +10,7 @@ export type ItemRef = {list: PlanList; index: number};
 export type FormTarget = {kind: 'edit'; ref: ItemRef} | {kind: 'add'; list: PlanList; values: Record<string, unknown>};
 
 /** The form: the field in focus, what is typed or chosen in it, and why it was refused. `focus` equal to the field count is the Add line. */
-export type Form = {target: FormTarget; focus: number; buffer: string; choice: number; message?: string};
+export type Form = {target: FormTarget; focus: number; buffer: string; choice: number; message?: string; /** The wire run's own small form, while it is open. */ run?: RunForm; /** Esc was pressed with a change not applied: the form asks whether to discard it. */ asking?: boolean};
 
 /** What the planner shows. */
 export type View = {name: 'list'} | {name: 'form'; form: Form} | {name: 'remove'; ref: ItemRef} | {name: 'leave'} | {name: 'findings'; offset: number} | {name: 'record'; entry: TestEntry};
@@ -74,9 +75,16 @@ export function formValue(editing: PlanEditing, target: FormTarget, field: PlanF
 export function focusField(editing: PlanEditing, target: FormTarget, focus: number, message?: string): Form {
 	const field = formFields(editing, target)[focus];
 	const form: Form = {target, focus, buffer: '', choice: -1, ...(message ? {message} : {})};
-	if (!field) return form;
+	if (!field || field.kind === 'run') return form;
 	const value = formValue(editing, target, field);
 	if (field.kind !== 'choice') return {...form, buffer: value === undefined ? '' : String(value)};
 	const unset = value === undefined && !field.optional;
 	return {...form, choice: unset ? -1 : choicesOf(field, value).indexOf(shownValue(field, value))};
+}
+
+/** The device's wire run to the next device as plain values (as written in the file, or in the new item), or undefined. */
+export function runValue(editing: PlanEditing, target: FormTarget): Record<string, unknown> | undefined {
+	const value = target.kind === 'edit' ? itemValue(editing, target.ref.list, target.ref.index, ['wire_to_next']) : valueAt(target.values, ['wire_to_next']);
+	const plain = value && typeof value === 'object' && 'toJSON' in value ? (value as {toJSON(): unknown}).toJSON() : value;
+	return plain && typeof plain === 'object' ? (plain as Record<string, unknown>) : undefined;
 }
