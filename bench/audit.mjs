@@ -1,8 +1,10 @@
 // Audit benchmark. Generates signed bench-check records once (through prelase's own record
 // code, bundled here), then:
 //  - the size of a record (target: at most 10 kB; the rule text is stored once beside them);
-//  - `prelase audit FOLDER` (the default summary, stdout to a file) against a bare loop that
-//    only reads, parses, canonicalises and verifies the same records (target: at most 1.5x);
+//  - `prelase audit FOLDER` (the default summary, stdout to a file; above 2,000 records it judges
+//    in worker threads, one a core) against a bare loop in one thread that only reads, parses,
+//    canonicalises and verifies the same records (target: at most 1.5x wall time); beside it the
+//    audit in one thread (--jobs 1) and the CPU time of each, which show the work it does;
 //  - growth: the audit of 1k and 10k records (100k with --with-100k), wall and CPU time, peak
 //    memory of the child (maxRSS, through bench/rss-hook.mjs) and the size of its output.
 // Expects dist/prelase.js to be built already; `npm run bench` does that first.
@@ -10,7 +12,7 @@ import canonicalize from 'canonicalize';
 import {spawnSync} from 'node:child_process';
 import {createPublicKey, verify} from 'node:crypto';
 import {closeSync, existsSync, linkSync, mkdirSync, mkdtempSync, openSync, readdirSync, readFileSync, rmSync, statSync} from 'node:fs';
-import {tmpdir} from 'node:os';
+import {availableParallelism, tmpdir} from 'node:os';
 import {join} from 'node:path';
 import {fileURLToPath} from 'node:url';
 import {parseArgs} from 'node:util';
@@ -112,6 +114,7 @@ function timed(subject, work, home) {
 
 const rssHook = new URL('./rss-hook.mjs', import.meta.url).href;
 const auditSubject = (folder) => ({label: 'node dist/prelase.js audit FOLDER', args: ['dist/prelase.js', 'audit', folder], ok: [0, 1]});
+const oneThreadSubject = (folder) => ({label: 'node dist/prelase.js audit FOLDER --jobs 1', args: ['dist/prelase.js', 'audit', folder, '--jobs', '1'], ok: [0, 1]});
 const bareSubject = (folder) => ({label: 'bare loop: read, parse, canonicalise, verify', args: [fileURLToPath(import.meta.url), '--bare', folder], ok: [0]});
 
 /** A folder holding the first `count` generated records (hard links) and the stored rule texts. */
@@ -179,6 +182,7 @@ async function main() {
 	const subjects = [
 		{key: 'bare', ...bareSubject(folder)},
 		{key: 'audit', ...auditSubject(folder)},
+		{key: 'one', ...oneThreadSubject(folder)},
 	];
 	const runs = new Map(subjects.map((subject) => [subject.key, []]));
 	for (let round = 0; round < rounds; round += 1) {
@@ -190,18 +194,21 @@ async function main() {
 	const median = (samples) => [...samples].sort((a, b) => a - b)[Math.floor((samples.length - 1) / 2)];
 	const bare = median(runs.get('bare').map((run) => run.seconds));
 	const audit = median(runs.get('audit').map((run) => run.seconds));
+	const one = median(runs.get('one').map((run) => run.seconds));
 	const ratio = audit / bare;
 	const out = [
-		`node ${process.version} on ${process.platform}/${process.arch}; ${count} records; ${rounds} round(s), alternating; medians`,
-		`  bare loop  ${bare.toFixed(2)} s wall  (${((bare / count) * 1000).toFixed(2)} ms a record)`,
-		`  audit      ${audit.toFixed(2)} s wall  (${((audit / count) * 1000).toFixed(2)} ms a record)`,
+		`node ${process.version} on ${process.platform}/${process.arch}, ${availableParallelism()} cores; ${count} records; ${rounds} round(s), alternating; medians`,
+		`  bare loop          ${bare.toFixed(2)} s wall  (${((bare / count) * 1000).toFixed(2)} ms a record; one thread)`,
+		`  audit              ${audit.toFixed(2)} s wall  (${((audit / count) * 1000).toFixed(2)} ms a record; worker threads, the default above 2,000 records)`,
+		`  audit --jobs 1     ${one.toFixed(2)} s wall  (${((one / count) * 1000).toFixed(2)} ms a record; one thread: ${(one / bare).toFixed(2)}x the bare loop)`,
 	];
 	let cpuRatio;
 	if (runs.get('bare').every((run) => run.cpu !== undefined)) {
 		const bareCpu = median(runs.get('bare').map((run) => run.cpu));
 		const auditCpu = median(runs.get('audit').map((run) => run.cpu));
+		const oneCpu = median(runs.get('one').map((run) => run.cpu));
 		cpuRatio = auditCpu / bareCpu;
-		out.push(`  CPU time (user + system): bare loop ${bareCpu.toFixed(2)} s, audit ${auditCpu.toFixed(2)} s, ratio ${cpuRatio.toFixed(2)}x (less affected by a busy machine)`);
+		out.push(`  CPU time (user + system): bare loop ${bareCpu.toFixed(2)} s, audit ${auditCpu.toFixed(2)} s (${cpuRatio.toFixed(2)}x), --jobs 1 ${oneCpu.toFixed(2)} s (${(oneCpu / bareCpu).toFixed(2)}x): the work the audit does beyond the bare loop`);
 	}
 	const ratioHolds = ratio <= TARGET_RATIO;
 	holds.push(ratioHolds);
