@@ -1,4 +1,5 @@
-import {Box, Text, useApp, useInput, useStdout} from 'ink';
+import {Box, useApp, useInput, useStdout} from 'ink';
+import {Text} from './Text.js';
 import {resolve} from 'node:path';
 import {useEffect, useMemo, useRef, useState} from 'react';
 import {signAndWrite, type WrittenRecord} from '../services/sign-check.js';
@@ -14,7 +15,6 @@ import {restoreDraft, type DraftNotice} from './draft-restore.js';
 import {describeProblem, formatProblem} from '../shared/problems.js';
 import type {CompiledRules} from '../rules/compile/compiled-rules.js';
 import type {SettingsStore} from '../services/settings.js';
-import {stripControl} from '../shared/text.js';
 import {CautionContext} from './caution-context.js';
 import {CautionLine} from './CautionLine.js';
 import {DoneScreen} from './DoneScreen.js';
@@ -238,7 +238,7 @@ export function App({rules: givenRules, settings, env, startCheck, startPlan, au
 			{/* A long setup name is cut, never drawn over the title. */}
 			<Box flexShrink={1} marginLeft={2} justifyContent="flex-end">
 				<Text dimColor wrap="truncate">
-					{broken ? 'no rules in force: the rule file does not load' : stripControl(session.setup || rules.rules.name)}
+					{broken ? 'no rules in force: the rule file does not load' : session.setup || rules.rules.name}
 				</Text>
 			</Box>
 		</Box>

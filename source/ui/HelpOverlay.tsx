@@ -1,7 +1,7 @@
-import {Box, Text, useInput} from 'ink';
+import {Box, useInput} from 'ink';
+import {Text} from './Text.js';
 import {useContext, useState} from 'react';
 import {deferral} from '../shared/deferral.js';
-import {stripControl} from '../shared/text.js';
 import {CautionContext} from './caution-context.js';
 
 /** Keys of each screen, as the help overlay lists them. */
@@ -98,7 +98,7 @@ export function HelpOverlay({screen, onClose}: {screen: string; onClose(): void}
 		return (
 			<Box flexDirection="column" borderStyle="single" paddingX={1}>
 				<Text bold>Caution</Text>
-				{caution ? <Text wrap="wrap">{stripControl(caution)}</Text> : null}
+				{caution ? <Text wrap="wrap" lines>{caution}</Text> : null}
 				<Text wrap="wrap">{deferral}</Text>
 				<Text dimColor>Any key closes this page.</Text>
 			</Box>

@@ -1,6 +1,6 @@
-import {Box, Text} from 'ink';
+import {Box} from 'ink';
+import {Text} from '../Text.js';
 import type {PlanEditing} from '../../interlock/plan/plan-edit.js';
-import {stripControl} from '../../shared/text.js';
 import {choicesOf, planFieldHint, shownValue, type PlanField} from './plan-fields.js';
 import {FindingLine} from './PlanList.js';
 import {formFields, formList, formValue, itemId, type Form} from './planner-state.js';
@@ -14,12 +14,12 @@ function title(editing: PlanEditing, form: Form): string {
 }
 
 function EditedValue({field, form, value}: {field: PlanField; form: Form; value: unknown}) {
-	if (field.kind !== 'choice') return <Text>{stripControl(form.buffer)}▌</Text>;
+	if (field.kind !== 'choice') return <Text>{form.buffer}▌</Text>;
 	const options = choicesOf(field, value);
 	if (form.choice < 0) return <Text>‹ choose with ← → ›</Text>;
 	return (
 		<Text>
-			‹ <Text bold>{stripControl(options[form.choice] ?? '')}</Text> › <Text dimColor>{form.choice + 1} of {options.length}</Text>
+			‹ <Text bold>{options[form.choice] ?? ''}</Text> › <Text dimColor>{form.choice + 1} of {options.length}</Text>
 		</Text>
 	);
 }
@@ -38,7 +38,7 @@ export function PlanForm({editing, form, rows}: {editing: PlanEditing; form: For
 	return (
 		<Box flexDirection="column">
 			<Text bold wrap="truncate">
-				{stripControl(title(editing, form))}
+				{title(editing, form)}
 			</Text>
 			<Box marginTop={1} flexDirection="column">
 				{start > 0 ? <Text dimColor>  ↑ {start} more</Text> : null}
@@ -51,11 +51,11 @@ export function PlanForm({editing, form, rows}: {editing: PlanEditing; form: For
 							<Text wrap="truncate">
 								{chosen ? '› ' : '  '}
 								{field.label.padEnd(26)}
-								{chosen ? <EditedValue field={field} form={form} value={value} /> : stripControl(shownValue(field, value))}
+								{chosen ? <EditedValue field={field} form={form} value={value} /> : shownValue(field, value)}
 							</Text>
 							{chosen && form.message ? (
 								<Text color="red" wrap="wrap">
-									{'  '}✗ {stripControl(form.message)}
+									{'  '}✗ {form.message}
 								</Text>
 							) : null}
 						</Box>
@@ -67,7 +67,7 @@ export function PlanForm({editing, form, rows}: {editing: PlanEditing; form: For
 						{form.focus === fields.length ? '› ' : '  '}[ Add to the plan ]
 					</Text>
 				) : null}
-				{adding && form.focus === fields.length && form.message ? <Text color="red" wrap="wrap">  ✗ {stripControl(form.message)}</Text> : null}
+				{adding && form.focus === fields.length && form.message ? <Text color="red" wrap="wrap">  ✗ {form.message}</Text> : null}
 			</Box>
 			<Text dimColor wrap="truncate">
 				{focused ? planFieldHint(focused) : 'Enter adds it; the plan is checked as a whole first'}

@@ -1,4 +1,5 @@
-import {Box, Text} from 'ink';
+import {Box} from 'ink';
+import {Text} from '../Text.js';
 import type {ReactNode} from 'react';
 import {kindText} from '../../interlock/analysis/fail-safe.js';
 import {subjectText, type Finding} from '../../interlock/analysis/finding.js';
@@ -6,7 +7,6 @@ import {describeProblem} from '../../shared/problems.js';
 import type {PlanEditing} from '../../interlock/plan/plan-edit.js';
 import type {AccessPoint, Device} from '../../interlock/plan/plan-schema.js';
 import {formatQuantity} from '../../quantities/format.js';
-import {stripControl} from '../../shared/text.js';
 import {findingStyle} from './finding-style.js';
 import {itemRefs, type ItemRef} from './planner-state.js';
 
@@ -46,7 +46,7 @@ export function FindingLine({found, subject = true}: {found: Finding; subject?: 
 		<Text wrap="truncate">
 			<Text color={style.color}>{style.label.padEnd(10)}</Text>
 			{subject ? `${subjectText(found.subject)}: ` : ''}
-			{stripControl(describeProblem(found))}
+			{describeProblem(found)}
 		</Text>
 	);
 }
@@ -66,7 +66,7 @@ export function PlanList({editing, rulesName, selected, rows, width, prompt}: {e
 		const item = ref.list === 'devices' ? plan.devices[ref.index]! : plan.access_points[ref.index]!;
 		const facts = ref.list === 'devices' ? deviceFacts(item as Device) : accessPointFacts(item as AccessPoint);
 		const severity = worstFinding(analysis.findings, ref.list, item.id);
-		list.push({key: `${ref.list}-${ref.index}`, text: `${item.id.padEnd(18)} ${stripControl(facts)}`, ref, ...(severity ? {severity} : {})});
+		list.push({key: `${ref.list}-${ref.index}`, text: `${item.id.padEnd(18)} ${facts}`, ref, ...(severity ? {severity} : {})});
 	}
 	// The caution is one line under the list, drawn by the App (in full on the home screen).
 	const room = Math.max(3, rows - 9 - shownFindings.length - (moreFindings > 0 ? 1 : 0));
@@ -75,11 +75,11 @@ export function PlanList({editing, rulesName, selected, rows, width, prompt}: {e
 	return (
 		<Box flexDirection="column">
 			<Text bold wrap="truncate">
-				Plan: {stripControl(plan.name)}
+				Plan: {plan.name}
 				{editing.dirty ? ' (not saved)' : ''}
 			</Text>
 			<Text dimColor wrap="truncate">
-				{stripControl(editing.file)} · policy from {stripControl(rulesName)}
+				{editing.file} · policy from {rulesName}
 			</Text>
 			<Text wrap="truncate">{loop}</Text>
 			<Text wrap="truncate">{response}</Text>

@@ -1,9 +1,9 @@
-import {Box, Text, type Key} from 'ink';
+import {Box, type Key} from 'ink';
+import {Text} from '../Text.js';
 import {useRefState} from '../use-ref-state.js';
 import {displayPath} from '../../shared/display-path.js';
 import type {PlanEditing} from '../../interlock/plan/plan-edit.js';
 import {savePlanEditing} from '../../interlock/plan/save-plan.js';
-import {stripControl} from '../../shared/text.js';
 import {HelpOverlay} from '../HelpOverlay.js';
 import {PlanFindings} from './PlanFindings.js';
 import {PlanForm} from './PlanForm.js';
@@ -118,7 +118,7 @@ export function PlannerScreen({editing, rulesName, rows, width, recorder, drafts
 	const noticeLine = notice ? (
 		<Text wrap="truncate" {...(notice.error ? {color: 'red'} : {})}>
 			{notice.error ? '✗ ' : '✓ '}
-			{stripControl(notice.text)}
+			{notice.text}
 		</Text>
 	) : (
 		<Text> </Text>
