@@ -135,7 +135,8 @@ export function PlannerScreen({editing, rulesName, rows, width, recorder, drafts
 	function workOut(pending: PendingEdit, before: PlannerState, asked: [string, Key, Arrival]) {
 		const stop = new AbortController();
 		working.current = {queue: [], stop};
-		state.set({...before, notice: {text: 'Checking the plan…'}});
+		// Shown meanwhile: the list says so (a question already answered gives way to it); a form stays as it is.
+		state.set({...before, ...(before.view.name === 'remove' || before.view.name === 'leave' ? {view: {name: 'list'}} : {}), notice: {text: 'Checking the plan…'}});
 		runInSlices(pending.steps, stop.signal).then(
 			(result) => {
 				if (stop.signal.aborted) return;
