@@ -283,10 +283,10 @@ describe.skipIf(!haveTmux())('the screens in a real terminal', () => {
 		expect(Date.now() - sent).toBeLessThan(1500);
 	});
 
-	// The planner's edits of a plan near the 1 MiB size limit take seconds of work (parse, validate,
-	// analyse); a SIGTERM in the middle of one is honoured within about a second (exit 143, as above),
-	// and the draft of the edits applied before it is on disk, whole.
-	it('leaves within 1.5 s on SIGTERM during an edit of a 3,600-device plan, its draft intact', {timeout: 90_000}, async () => {
+	// The planner's edits and opening of a plan near the 1 MiB size limit take seconds of work (parse,
+	// validate, analyse); a SIGTERM in the middle of either is honoured within about a second (exit
+	// 143, as above), and the draft of the edits applied before it is on disk, whole.
+	it('leaves within 1.5 s on SIGTERM during an edit of a 3,600-device plan, and while it opens, its draft intact', {timeout: 90_000}, async () => {
 		const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
 		const file = join(home, 'large-plan.yaml');
 		writeFileSync(file, largePlan(3600));
@@ -315,6 +315,19 @@ describe.skipIf(!haveTmux())('the screens in a real terminal', () => {
 		expect(readFileSync(join(home, 'drafts', draftFile!), 'utf8')).toBe(kept);
 		const draft = JSON.parse(kept) as {text: string};
 		expect((parse(draft.text) as {access_points: Array<{id: string}>}).access_points.map(({id}) => id)).toEqual(['side_panel', 'fibre_port', 'room_door', 'cable_gland']);
+
+		// Opened again (the plan and its draft are read and checked after the first frame), and SIGTERM while it opens.
+		const reopened = start('plan-sigterm-open', home, `plan ${file} --edit`);
+		await reopened.waitFor((screen) => screen.includes('Opening'), 'the plan being opened', 10_000);
+		const pane2 = spawnSync('tmux', ['-L', reopened.socket, 'list-panes', '-F', '#{pane_pid}'], {encoding: 'utf8'}).stdout.trim();
+		const node2 = spawnSync('pgrep', ['-P', pane2], {encoding: 'utf8'}).stdout.trim().split('\n')[0]!;
+		const opening = cpuSeconds(node2);
+		for (const deadline = Date.now() + 10_000; cpuSeconds(node2) - opening < 0.5 && Date.now() < deadline; ) await new Promise((resolve) => setTimeout(resolve, 10));
+		const sent2 = Date.now();
+		process.kill(Number(node2), 'SIGTERM');
+		await reopened.waitFor((screen) => screen.includes('EXITED 143'), 'the program to leave with 143', 5000);
+		expect(Date.now() - sent2).toBeLessThan(1500);
+		expect(readFileSync(join(home, 'drafts', draftFile!), 'utf8')).toBe(kept);
 	});
 });
 

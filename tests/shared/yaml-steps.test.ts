@@ -41,6 +41,12 @@ describe('parseDocumentSteps', () => {
 		expect(stepped).toEqual(reference);
 	});
 
+	// The planner parses a plan for editing with the library's defaults (comments kept, no line counter).
+	it.each(cases.slice(0, 3))('with the default options too: $name', ({text}) => {
+		expect(finish(parseDocumentSteps(text, {})).toString()).toBe(parseDocument(text).toString());
+		expect(finish(parseDocumentSteps(text, {})).toJS()).toEqual(parseDocument(text).toJS());
+	});
+
 	it('yields between parts of a large file, so a caller can let other work in', () => {
 		const text = cases.at(-1)!.text;
 		const steps = parseDocumentSteps(text, options);

@@ -6,9 +6,9 @@ import {readTextFile} from '../../shared/yaml-source.js';
 import {analysePlan, type PlanAnalysis} from '../analysis/analyse.js';
 import {finish, type Steps} from '../../shared/steps.js';
 import {deferredEdit} from './edit-deferral.js';
-import {loadPlanFromText, loadPlanFromTextSteps, planFileExpected} from './load-plan.js';
+import {loadPlanFromTextSteps, planFileExpected} from './load-plan.js';
 import type {Plan} from './plan-schema.js';
-import {planDocument, planDocumentText} from './plan-yaml.js';
+import {planDocumentSteps, planDocumentText} from './plan-yaml.js';
 import {interlockPolicy, type InterlockPolicy} from './policy.js';
 
 /** The two lists of a plan that the planner edits item by item. */
@@ -38,19 +38,33 @@ export type EditResult = {ok: true; editing: PlanEditing} | {ok: false; message:
 
 /** Opens a plan file for editing under the interlock policy of the rule file in force. */
 export function openPlanForEditing(file: string, rules: CompiledRules): Result<PlanEditing, Problem> {
+	return finish(openPlanForEditingSteps(file, rules));
+}
+
+/** The same, in steps (read, parse, validate, parse for editing, analyse: long for a plan near the size limit). */
+export function* openPlanForEditingSteps(file: string, rules: CompiledRules): Steps<Result<PlanEditing, Problem>> {
 	const policy = interlockPolicy(rules);
 	if (!policy.ok) return policy;
 	const text = readTextFile(file, planFileExpected);
 	if (!text.ok) return text;
-	return planEditingFromText(text.value, file, policy.value);
+	yield;
+	return yield* planEditingFromTextSteps(text.value, file, policy.value);
 }
 
 /** The same, for text already in hand (and after a save). */
 export function planEditingFromText(text: string, file: string, policy: InterlockPolicy): Result<PlanEditing, Problem> {
-	const loaded = loadPlanFromText(text, file);
+	return finish(planEditingFromTextSteps(text, file, policy));
+}
+
+/** The same, in steps. */
+export function* planEditingFromTextSteps(text: string, file: string, policy: InterlockPolicy): Steps<Result<PlanEditing, Problem>> {
+	const loaded = yield* loadPlanFromTextSteps(text, file);
 	if (!loaded.ok) return loaded;
 	const plan = {...loaded.value, policy};
-	return success({file, original: text, document: planDocument(text), policy, plan, analysis: analysePlan(plan), dirty: false}, loaded.warnings);
+	yield;
+	const document = yield* planDocumentSteps(text);
+	yield;
+	return success({file, original: text, document, policy, plan, analysis: analysePlan(plan), dirty: false}, loaded.warnings);
 }
 
 /** The text the plan would be saved as. */

@@ -22,7 +22,11 @@ describe('the planner while an edit is worked out', () => {
 		const file = join(mkdtempSync(join(tmpdir(), 'prelase-planner-slices-')), 'plan.yaml');
 		writeFileSync(file, largePlan(800));
 		const screen = await renderApp({startPlan: file});
+		// A plan this large (over 128 kB) is opened after the first frame, which says so.
+		expect(screen.frames()[0]).toContain('Opening');
+		for (const deadline = Date.now() + 30_000; !screen.frame().includes('Access points (5)') && Date.now() < deadline; ) await sleep(50);
 		expect(screen.frame()).toContain('Access points (5)');
+		await sleep(100);
 		await screen.press('x');
 		expect(screen.frame()).toContain('Remove the access point enclosure_lid');
 		await screen.pressStill('y');
