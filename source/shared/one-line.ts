@@ -18,3 +18,8 @@ export function oneLine(text: string, max = Number.POSITIVE_INFINITY): string {
 	const line = text.replaceAll(lineBreak, ' ⏎ ').replaceAll(/\s+/g, ' ').trim();
 	return line.length > max ? `${line.slice(0, max - 1)}…` : line;
 }
+
+/** Each line break of any kind shown as ⏎ between spaces; nothing else changes (a screen's single-line field, spacing kept). */
+export function showLineBreaks(text: string): string {
+	return text.replaceAll(lineBreak, ' ⏎ ');
+}

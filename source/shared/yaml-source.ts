@@ -3,6 +3,8 @@ import {readToCap} from './read-to-cap.js';
 import {isAlias, isMap, isPair, isScalar, isSeq, LineCounter, parseDocument, visit, type Document} from 'yaml';
 import {problem, warning, type Problem} from './problems.js';
 import {failure, success, type Result} from './result.js';
+import {finish, type Steps} from './steps.js';
+import {parseDocumentSteps} from './yaml-steps.js';
 
 /** A parsed YAML file that can tell where each value came from. */
 export type YamlSource = {
@@ -58,10 +60,19 @@ export function readTextFile(file: string, expected: string, maxBytes = maxYamlF
 }
 
 /** Parses YAML text, reporting syntax errors and duplicate keys with file:line:column. */
-export function parseYamlSource(text: string, file: string, expected: string, options: {/** Go on past keys written twice, listing them in `duplicateKeys`, so that later checks can still run. */ readDuplicates?: boolean} = {}): Result<YamlSource, Problem> {
+export function parseYamlSource(text: string, file: string, expected: string, options: YamlReadOptions = {}): Result<YamlSource, Problem> {
+	return finish(parseYamlSourceSteps(text, file, expected, options));
+}
+
+/** How YAML text is read. */
+export type YamlReadOptions = {/** Go on past keys written twice, listing them in `duplicateKeys`, so that later checks can still run. */ readDuplicates?: boolean};
+
+/** The same, in steps (parseDocumentSteps), then one step for the checks and the data. */
+export function* parseYamlSourceSteps(text: string, file: string, expected: string, options: YamlReadOptions = {}): Steps<Result<YamlSource, Problem>> {
 	if (text.trim() === '') return failure([problem('file-empty', {expected}, {file})]);
 	const lineCounter = new LineCounter();
-	const document = parseDocument(text, {lineCounter, prettyErrors: false, uniqueKeys: false, strict: true, logLevel: 'error'});
+	const document = yield* parseDocumentSteps(text, {lineCounter, prettyErrors: false, uniqueKeys: false, strict: true, logLevel: 'error'});
+	yield;
 	const at = (offset: number) => {
 		const position = lineCounter.linePos(offset);
 		return {line: position.line, column: position.col};

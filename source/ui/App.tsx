@@ -1,4 +1,5 @@
-import {Box, Text, useApp, useInput, useStdout} from 'ink';
+import {Box, useApp, useInput, useStdout} from 'ink';
+import {Text} from './Text.js';
 import {resolve} from 'node:path';
 import {useEffect, useMemo, useRef, useState} from 'react';
 import {signAndWrite, type WrittenRecord} from '../services/sign-check.js';
@@ -8,13 +9,13 @@ import {loadDraft, removeDraft, saveDraft, type Draft} from '../services/drafts/
 import {listSetups, loadSetup, saveSetup} from '../services/drafts/setup-store.js';
 import {displayPath} from '../shared/display-path.js';
 import {checkRuleFileSetting} from '../services/rule-file-setting.js';
-import {openPlanForEditing, planEditingFromText, planEditingText, type PlanEditing} from '../interlock/plan/plan-edit.js';
-import {loadPlanDraft, removePlanDraft, savePlanDraft} from '../services/drafts/plan-draft-store.js';
-import {restoreDraft, type DraftNotice} from './draft-restore.js';
+import {planEditingText, type PlanEditing} from '../interlock/plan/plan-edit.js';
+import {removePlanDraft, savePlanDraft} from '../services/drafts/plan-draft-store.js';
+import {runInSlices} from '../services/run-in-slices.js';
+import {openPlan as openPlanAtOnce, openPlanSteps, opensInSteps, type OpenedPlan} from './planner/plan-opening.js';
 import {describeProblem, formatProblem} from '../shared/problems.js';
 import type {CompiledRules} from '../rules/compile/compiled-rules.js';
 import type {SettingsStore} from '../services/settings.js';
-import {stripControl} from '../shared/text.js';
 import {CautionContext} from './caution-context.js';
 import {CautionLine} from './CautionLine.js';
 import {DoneScreen} from './DoneScreen.js';
@@ -63,9 +64,26 @@ export function App({rules: givenRules, settings, env, startCheck, startPlan, au
 	const {stdout} = useStdout();
 	const rows = stdout.rows ?? 24;
 	const width = stdout.columns ?? 80;
-	// The plan is opened before the first frame, so `plan FILE --edit` starts on it (or on its problems).
-	const [plan, setPlan] = useState<{editing?: PlanEditing; problems?: string[]; notice?: {text: string; error?: boolean}}>(() => (startPlan === undefined ? {} : openPlan(startPlan)));
-	const [screen, setScreen] = useState<Screen>(startPlan !== undefined ? (plan.editing ? 'planner' : 'plan-open') : startCheck && !broken ? 'step' : 'home');
+	// The plan is opened before the first frame, so `plan FILE --edit` starts on it (or on its problems);
+	// a large one is opened in steps after it (`opening`), so a signal is honoured meanwhile.
+	const [plan, setPlan] = useState<OpenedPlan & {opening?: string}>(() => (startPlan === undefined ? {} : opensInSteps(startPlan) ? {opening: startPlan} : openPlan(startPlan)));
+	const [screen, setScreen] = useState<Screen>(startPlan !== undefined ? (plan.editing || plan.opening ? 'planner' : 'plan-open') : startCheck && !broken ? 'step' : 'home');
+	useEffect(() => {
+		if (plan.opening === undefined) return;
+		const stop = new AbortController();
+		runInSlices(openPlanSteps(plan.opening, rules, settings), stop.signal).then(
+			(opened) => {
+				if (!opened) return;
+				setPlan(opened);
+				setScreen(opened.editing ? 'planner' : 'plan-open');
+			},
+			// A bug is a bug: thrown where nothing catches it, as it would be when opened at once.
+			(error: unknown) => setImmediate(() => {
+				throw error;
+			}),
+		);
+		return () => stop.abort();
+	}, [plan.opening]);
 	const [stepIndex, setStepIndex] = useState(0);
 	// Confirmations answered by the interlock test come from the records folder; plan paths are read from the working folder.
 	const linker = useMemo(() => cachedLinker(rules, () => ({base: process.cwd(), folder: recordsFolder(env), trusted: trustedFingerprints(env), now: new Date()})), [rules, env]);
@@ -90,24 +108,9 @@ export function App({rules: givenRules, settings, env, startCheck, startPlan, au
 	const setups = useMemo(() => (screen === 'home' ? listSetups(settings.folder) : []), [screen]);
 	const saved = useMemo(() => settings.read(), [screen]);
 
-	function openPlan(path: string): {editing?: PlanEditing; problems?: string[]; notice?: {text: string; error?: boolean}} {
-		const file = resolve(path);
-		const opened = openPlanForEditing(file, rules);
-		if (!opened.ok) return {problems: opened.errors.map((found) => planProblemWords(formatProblem(found)))};
-		// Remembering the plan is a convenience: a refused write is not a reason to refuse opening it.
-		refusedWrite(() => settings.write({planFile: file}));
-		return restorePlanDraft(opened.value);
-	}
-
-	/** Edits left unsaved by an earlier session (a crash, Ctrl-C) come back, if the file has not changed since. */
-	function restorePlanDraft(editing: PlanEditing): {editing: PlanEditing; notice?: DraftNotice} {
-		const {value, notice} = restoreDraft(loadPlanDraft(settings.folder, editing.file, editing.original), editing, (found, when) => {
-			if (found.state === 'stale') return {refused: `Unsaved edits from ${when} were not restored: the file changed since. They are kept in ${found.path}`};
-			const restored = planEditingFromText(found.draft.text, editing.file, editing.policy);
-			if (!restored.ok) return {refused: `Unsaved edits from ${when} no longer load and were not restored; they are kept in ${found.path}`};
-			return {restored: {...restored.value, original: editing.original, dirty: true}, text: `Unsaved edits from ${when} restored: s saves them, Esc then d discards them`};
-		});
-		return notice ? {editing: value, notice} : {editing: value};
+	// A declaration, not a const: the state above opens the start plan with it before this line runs.
+	function openPlan(path: string): OpenedPlan {
+		return openPlanAtOnce(path, rules, settings);
 	}
 
 	const planDrafts = {
@@ -251,7 +254,7 @@ export function App({rules: givenRules, settings, env, startCheck, startPlan, au
 			<Box flexShrink={1} marginLeft={2} justifyContent="flex-end">
 				<Text dimColor wrap="truncate">
 					{/* The setup while a check is open; everywhere else the rules in force. */}
-					{broken ? 'no rules in force: the rule file does not load' : stripControl((['step', 'summary', 'signoff', 'done'].includes(screen) && session.setup) || rules.rules.name)}
+					{broken ? 'no rules in force: the rule file does not load' : (['step', 'summary', 'signoff', 'done'].includes(screen) && session.setup) || rules.rules.name}
 				</Text>
 			</Box>
 		</Box>
@@ -313,14 +316,15 @@ export function App({rules: givenRules, settings, env, startCheck, startPlan, au
 		);
 	else if (screen === 'plan-open') {
 		const open = (path: string) => {
-			const opened = openPlan(path);
-			if (!opened.editing) return opened.problems;
+			const opened: OpenedPlan & {opening?: string} = opensInSteps(path) ? {opening: path} : openPlan(path);
+			if (!opened.editing && !opened.opening) return opened.problems;
 			setPlan(opened);
 			setScreen('planner');
 			return undefined;
 		};
 		body = <PlanOpenScreen initial={plan.problems && startPlan ? startPlan : (saved.planFile ?? '')} {...(plan.problems ? {problems: plan.problems} : {})} onOpen={open} onBack={() => setScreen('home')} onHelp={() => setHelp(true)} active={!help} />;
-	} else if (screen === 'planner' && plan.editing) body = <PlannerScreen editing={plan.editing} rulesName={rules.rules.name} rows={rows - 3} width={width} recorder={testRecorder(rules, settings, env)} drafts={planDrafts} testDrafts={testDraftsIn(settings.folder)} notice={plan.notice} onLeave={() => setScreen('home')} />;
+	} else if (screen === 'planner' && plan.opening !== undefined) body = <Text>Opening {displayPath(resolve(plan.opening))}: a large plan takes a few seconds to check…</Text>;
+	else if (screen === 'planner' && plan.editing) body = <PlannerScreen editing={plan.editing} rulesName={rules.rules.name} rows={rows - 3} width={width} recorder={testRecorder(rules, settings, env)} drafts={planDrafts} testDrafts={testDraftsIn(settings.folder)} notice={plan.notice} onLeave={() => setScreen('home')} />;
 	else if (screen === 'settings') body = <SettingsScreen initial={saved} path={settings.path} onSave={(changes) => settings.write(changes)} check={{rulesFile: checkRuleFile}} onHelp={() => setHelp(true)} active={!help} onBack={() => setScreen('home')} />;
 	else body = <InfoScreen title={info.title} lines={info.lines} rows={rows - 4} width={width} onBack={() => setScreen('home')} />;
 

@@ -1,4 +1,4 @@
-import {Text} from 'ink';
+import {Text} from './Text.js';
 
 /** The caution, said in one line on every screen but home, with the key that shows it in full. */
 export const cautionLineText = '? keys, caution in full · the laser safety officer and local codes decide';

@@ -1,7 +1,7 @@
-import {Box, Text} from 'ink';
+import {Box} from 'ink';
+import {Text} from './Text.js';
 import {useKeystrokes} from './use-keystrokes.js';
 import {useState} from 'react';
-import {stripControl} from '../shared/text.js';
 import {outcomeStyle} from './verdict-style.js';
 import {commitNote} from '../render/record-commit-text.js';
 import type {Problem} from '../shared/problems.js';
@@ -30,7 +30,7 @@ export function DoneScreen(props: {path: string; fingerprint: string; outcome: k
 				Outcome: <Text color={outcome.color}>{outcome.label}</Text>
 			</Text>
 			<Box marginTop={1} flexDirection="column">
-				{saved ? <Text color="green">✓ Setup saved: {saved}</Text> : <Text>s: save these inputs as the setup “{stripControl(props.setup || 'unnamed')}” for the next check</Text>}
+				{saved ? <Text color="green">✓ Setup saved: {saved}</Text> : <Text>s: save these inputs as the setup “{props.setup || 'unnamed'}” for the next check</Text>}
 				<Text>Enter: home</Text>
 			</Box>
 		</Box>

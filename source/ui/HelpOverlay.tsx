@@ -1,7 +1,7 @@
-import {Box, Text, useInput} from 'ink';
+import {Box, useInput} from 'ink';
+import {Text} from './Text.js';
 import {useContext, useState} from 'react';
 import {deferral} from '../shared/deferral.js';
-import {stripControl} from '../shared/text.js';
 import {CautionContext} from './caution-context.js';
 import {Prose} from './Prose.js';
 
@@ -100,7 +100,7 @@ export function HelpOverlay({screen, onClose}: {screen: string; onClose(): void}
 			<Box flexDirection="column" borderStyle="single" paddingX={1}>
 				<Text bold>Caution</Text>
 				{/* Inside the border and padding: four columns fewer. */}
-				{caution ? <Prose text={stripControl(caution)} margin={4} /> : null}
+				{caution ? <Prose text={caution} margin={4} lines /> : null}
 				<Prose text={deferral} margin={4} />
 				<Text dimColor>Any key closes this page.</Text>
 			</Box>

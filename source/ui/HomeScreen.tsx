@@ -1,8 +1,8 @@
-import {Box, Text} from 'ink';
+import {Box} from 'ink';
+import {Text} from './Text.js';
 import {Menu} from './Menu.js';
 import {Prose} from './Prose.js';
 import {deferral} from '../shared/deferral.js';
-import {stripControl} from '../shared/text.js';
 
 /** What the home screen can lead to. */
 export type HomeChoice = {action: 'shipped'} | {action: 'start'} | {action: 'resume'} | {action: 'setup'; name: string} | {action: 'audit'} | {action: 'planner'} | {action: 'rules'} | {action: 'settings'} | {action: 'quit'};
@@ -10,8 +10,8 @@ export type HomeChoice = {action: 'shipped'} | {action: 'start'} | {action: 'res
 /** The home screen: start, resume or audit, the rules in force and settings; the caution always shown. */
 export function HomeScreen(props: {/** The rule file named in the settings does not load: no check is offered until it is fixed or the shipped policy is chosen. */ broken?: {file: string; settingsPath: string; problems: string[]}; rulesName: string; rulesFile: string; rulesSha256: string; caution: string; draft?: {setup: string; savedAt: string}; setups: string[]; /** The item chosen last time: the menu opens on it. */ last?: string; onChoose(choice: HomeChoice, key: string): void}) {
 	const items: Array<{key: string; label: string; value: HomeChoice}> = [{key: 'start', label: props.draft ? 'Start a new bench check (replaces the draft)' : 'Start a bench check', value: {action: 'start'}}];
-	if (props.draft) items.unshift({key: 'resume', label: `Resume the draft: ${stripControl(props.draft.setup || 'unnamed setup')} (saved ${props.draft.savedAt.slice(0, 16).replace('T', ' ')})`, value: {action: 'resume'}});
-	for (const name of props.setups) items.push({key: `setup-${name}`, label: `Start from the saved setup ${stripControl(name)}`, value: {action: 'setup', name}});
+	if (props.draft) items.unshift({key: 'resume', label: `Resume the draft: ${props.draft.setup || 'unnamed setup'} (saved ${props.draft.savedAt.slice(0, 16).replace('T', ' ')})`, value: {action: 'resume'}});
+	for (const name of props.setups) items.push({key: `setup-${name}`, label: `Start from the saved setup ${name}`, value: {action: 'setup', name}});
 	if (props.broken) {
 		items.splice(0, items.length, {key: 'fix', label: 'Settings: fix or clear the rule file', value: {action: 'settings'}}, {key: 'shipped', label: 'Use the shipped policy for this session', value: {action: 'shipped'}});
 	}
@@ -29,11 +29,11 @@ export function HomeScreen(props: {/** The rule file named in the settings does 
 			) : (
 				<>
 					<Text>
-						Rules: <Text bold>{stripControl(props.rulesName)}</Text>
+						Rules: <Text bold>{props.rulesName}</Text>
 					</Text>
 					<Text dimColor>
 						{'       '}
-						{stripControl(props.rulesFile)} · sha256 {props.rulesSha256.slice(0, 16)}
+						{props.rulesFile} · sha256 {props.rulesSha256.slice(0, 16)}
 					</Text>
 				</>
 			)}
@@ -42,7 +42,7 @@ export function HomeScreen(props: {/** The rule file named in the settings does 
 				<Menu key={props.broken ? 'broken' : 'rules'} items={items} {...(props.last ? {initial: props.last} : {})} onSelect={(item) => props.onChoose(item.value, item.key)} />
 			</Box>
 			<Text bold>Caution</Text>
-			<Prose text={stripControl(props.caution)} />
+			<Prose text={props.caution} lines />
 			<Prose dimColor text={deferral} />
 		</Box>
 	);
@@ -53,17 +53,17 @@ function BrokenRules({file, settingsPath, problems}: {file: string; settingsPath
 	return (
 		<Box flexDirection="column">
 			<Text color="red" wrap="wrap">
-				✗ No check can start: the rule file in the setting “Rule file” does not load ({stripControl(file)}).
+				✗ No check can start: the rule file in the setting “Rule file” does not load ({file}).
 			</Text>
 			{problems.slice(0, 2).map((problem, index) => (
 				<Text key={index} wrap="truncate">
 					{'  '}
-					{stripControl(problem)}
+					{problem}
 				</Text>
 			))}
 			{problems.length > 2 ? <Text dimColor>{`  … ${problems.length - 2} more (prelase rules validate shows them all)`}</Text> : null}
 			<Text dimColor wrap="truncate">
-				{'  '}Settings live in {stripControl(settingsPath)}
+				{'  '}Settings live in {settingsPath}
 			</Text>
 		</Box>
 	);

@@ -1,7 +1,7 @@
-import {Box, Text} from 'ink';
+import {Box} from 'ink';
+import {Text} from './Text.js';
 import {useState} from 'react';
 import {useKeystrokes} from './use-keystrokes.js';
-import {stripControl} from '../shared/text.js';
 
 /** Cuts a line into pieces of at most `width` columns, keeping its spaces (tables and indents stay aligned). */
 function fold(line: string, width: number): string[] {
@@ -15,7 +15,7 @@ function fold(line: string, width: number): string[] {
 /** A page of lines (rules in force, audit results, messages) that scrolls within `rows`; Esc or Enter goes back. */
 export function InfoScreen({title, lines, rows = 20, width = 80, onBack}: {title: string; lines: string[]; /** Rows the page may use, title included. @default 20 */ rows?: number; /** @default 80 */ width?: number; onBack(): void}) {
 	const [offset, setOffset] = useState(0);
-	const shown = lines.flatMap((line) => fold(stripControl(line), Math.max(20, width)));
+	const shown = lines.flatMap((line) => fold(line, Math.max(20, width)));
 	// Title, a blank line, and a line each for the scroll marks above and below.
 	const room = Math.max(3, rows - 4);
 	const maxOffset = Math.max(0, shown.length - room);
@@ -30,7 +30,7 @@ export function InfoScreen({title, lines, rows = 20, width = 80, onBack}: {title
 	return (
 		<Box flexDirection="column">
 			<Text bold wrap="truncate">
-				{stripControl(title)}
+				{title}
 			</Text>
 			<Box marginTop={1} flexDirection="column">
 				{at > 0 ? <Text dimColor>↑ {at} more</Text> : null}

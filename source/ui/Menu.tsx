@@ -1,4 +1,5 @@
 import {Box} from 'ink';
+import {Text} from './Text.js';
 import {useKeystrokes} from './use-keystrokes.js';
 import {useRefState} from './use-ref-state.js';
 import {Prose} from './Prose.js';

@@ -1,4 +1,6 @@
-import {Text, useStdout, type TextProps} from 'ink';
+import {useStdout} from 'ink';
+import {Text, type TextProps} from './Text.js';
+import {showLineBreaks} from '../shared/one-line.js';
 import {wrap} from '../shared/wrap.js';
 
 /** Props of Prose: the text, and how it sits in its line. */
@@ -16,9 +18,15 @@ export type ProseProps = Omit<TextProps, 'children' | 'wrap'> & {
  * Text wrapped by words to the terminal's width, before Ink sees it: a line that Ink wraps
  * itself at a space starts with that space. Values with their units stay on one line.
  */
-export function Prose({text, margin = 0, lead = '', hang = '', ...props}: ProseProps) {
+export function Prose({text, margin = 0, lead = '', hang = '', lines: ownLines = false, ...props}: ProseProps) {
 	const {stdout} = useStdout();
-	const lines = wrap(text, (stdout.columns ?? 80) - margin, hang);
+	// As the screens' Text does: a line break of the text's own shows as ⏎ unless it may have lines (a caution).
+	const lines = wrap(ownLines ? text : showLineBreaks(text), (stdout.columns ?? 80) - margin, hang);
 	lines[0] = lead + (lines[0] ?? '').slice(hang.length);
-	return <Text {...props}>{lines.join('\n')}</Text>;
+	// Its own line breaks (the wrapping's, and a caution's paragraphs); the screens' Text strips the rest.
+	return (
+		<Text {...props} lines>
+			{lines.join('\n')}
+		</Text>
+	);
 }

@@ -1,9 +1,9 @@
-import {Box, Text, type Key} from 'ink';
+import {Box, type Key} from 'ink';
+import {Text} from './Text.js';
 import {useKeystrokes, type Arrival} from './use-keystrokes.js';
 import {useRefState} from './use-ref-state.js';
 import type {Settings} from '../services/settings.js';
 import {typeInto} from './text-buffer.js';
-import {stripControl} from '../shared/text.js';
 import {wrap} from '../shared/wrap.js';
 import {discardAnswer, discardQuestion} from './discard-question.js';
 
@@ -63,8 +63,8 @@ export function SettingsScreen({initial, path, onSave, onBack, onHelp, active = 
 			{asking && changed ? <Text bold wrap="wrap">{discardQuestion(changed.label.replace(/ \(.*\)$/, '').toLowerCase())}</Text> : null}
 			{problems.length > 0 ? <Text color="red">✗ Not saved; fix this and press Enter again, or Esc to leave it as it was:</Text> : null}
 			{problems.slice(0, 4).map((problem, index) => (
-				<Text key={index} color="red">
-					{wrap(stripControl(problem), 78, '  ').join('\n')}
+				<Text key={index} color="red" lines>
+					{wrap(problem, 78, '  ').join('\n')}
 				</Text>
 			))}
 		</Box>

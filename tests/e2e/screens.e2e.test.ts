@@ -283,7 +283,67 @@ describe.skipIf(!haveTmux())('the screens in a real terminal', () => {
 		await session.waitFor((screen) => screen.includes('EXITED 143'), 'the program to leave with 143', 1500);
 		expect(Date.now() - sent).toBeLessThan(1500);
 	});
+
+	// The planner's edits and opening of a plan near the 1 MiB size limit take seconds of work (parse,
+	// validate, analyse); a SIGTERM in the middle of either is honoured within about a second (exit
+	// 143, as above), and the draft of the edits applied before it is on disk, whole.
+	it('leaves within 1.5 s on SIGTERM during an edit of a 3,600-device plan, and while it opens, its draft intact', {timeout: 90_000}, async () => {
+		const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
+		const file = join(home, 'large-plan.yaml');
+		writeFileSync(file, largePlan(3600));
+		const session = start('plan-sigterm', home, `plan ${file} --edit`);
+		await session.waitFor((screen) => screen.includes('Devices in wiring order (3600)'), 'the planner', 30_000);
+		// A first edit, applied and kept as a draft: the first access point removed.
+		session.press('x');
+		await session.waitFor((screen) => screen.includes('Remove the access point enclosure_lid'), 'the removal prompt');
+		session.press('y');
+		await session.waitFor((screen) => screen.includes('Access points (4)'), 'the first edit', 30_000);
+		const [draftFile] = readdirSync(join(home, 'drafts')).filter((name) => name.startsWith('plan-'));
+		const kept = readFileSync(join(home, 'drafts', draftFile!), 'utf8');
+		// A second edit, and SIGTERM once the program has spent 0.3 s of processor time on it (so the work has begun).
+		const pane = spawnSync('tmux', ['-L', session.socket, 'list-panes', '-F', '#{pane_pid}'], {encoding: 'utf8'}).stdout.trim();
+		const node = spawnSync('pgrep', ['-P', pane], {encoding: 'utf8'}).stdout.trim().split('\n')[0]!;
+		session.press('x');
+		await session.waitFor((screen) => screen.includes('Remove the access point side_panel'), 'the second removal prompt');
+		const before = cpuSeconds(node);
+		session.press('y');
+		for (const deadline = Date.now() + 10_000; cpuSeconds(node) - before < 0.3 && Date.now() < deadline; ) await new Promise((resolve) => setTimeout(resolve, 10));
+		const sent = Date.now();
+		process.kill(Number(node), 'SIGTERM');
+		await session.waitFor((screen) => screen.includes('EXITED 143'), 'the program to leave with 143', 5000);
+		expect(Date.now() - sent).toBeLessThan(1500);
+		// The draft is the first edit's, whole: the same bytes, and its plan has the four access points left.
+		expect(readFileSync(join(home, 'drafts', draftFile!), 'utf8')).toBe(kept);
+		const draft = JSON.parse(kept) as {text: string};
+		expect((parse(draft.text) as {access_points: Array<{id: string}>}).access_points.map(({id}) => id)).toEqual(['side_panel', 'fibre_port', 'room_door', 'cable_gland']);
+
+		// Opened again (the plan and its draft are read and checked after the first frame), and SIGTERM while it opens.
+		const reopened = start('plan-sigterm-open', home, `plan ${file} --edit`);
+		await reopened.waitFor((screen) => screen.includes('Opening'), 'the plan being opened', 10_000);
+		const pane2 = spawnSync('tmux', ['-L', reopened.socket, 'list-panes', '-F', '#{pane_pid}'], {encoding: 'utf8'}).stdout.trim();
+		const node2 = spawnSync('pgrep', ['-P', pane2], {encoding: 'utf8'}).stdout.trim().split('\n')[0]!;
+		const opening = cpuSeconds(node2);
+		for (const deadline = Date.now() + 10_000; cpuSeconds(node2) - opening < 0.5 && Date.now() < deadline; ) await new Promise((resolve) => setTimeout(resolve, 10));
+		const sent2 = Date.now();
+		process.kill(Number(node2), 'SIGTERM');
+		await reopened.waitFor((screen) => screen.includes('EXITED 143'), 'the program to leave with 143', 5000);
+		expect(Date.now() - sent2).toBeLessThan(1500);
+		expect(readFileSync(join(home, 'drafts', draftFile!), 'utf8')).toBe(kept);
+	});
 });
+
+/** Processor time a process has used, user and system, in seconds (Linux proc(5): fields 14 and 15 of /proc/PID/stat, in clock ticks of 1/100 s). */
+function cpuSeconds(pid: string): number {
+	const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1]!.split(' ');
+	return (Number(fields[11]) + Number(fields[12])) / 100;
+}
+
+/** The demo interlock plan with its devices replaced by `count` invented door switches in series (about 280 bytes each). */
+function largePlan(count: number): string {
+	const text = readFileSync('docs/examples/interlock/bench3-interlock-plan.yaml', 'utf8');
+	const devices = Array.from({length: count}, (_, index) => `  - id: sw_${index}\n    kind: door_switch\n    description: Invented door switch ${index}\n    contact: normally_closed\n    contact_resistance: 1 mohm\n    rated_current: 2 A\n    rated_voltage: 30 V\n    positive_opening: true\n    opening_time: 8 ms\n    wire_to_next: {awg: 22, length: 0.01 m}\n`);
+	return `${text.slice(0, text.indexOf('devices:')).replaceAll(/device: \w+/g, 'device: sw_0')}devices:\n${devices.join('')}`;
+}
 
 /** A draft of the demo check as if typed on screen, less some confirmations, resumed at a step (0-based). */
 function seedDemoDraft(home: string, leaveOut: string[], step = 0): void {

@@ -1,7 +1,8 @@
 import {problem, type Problem} from '../../shared/problems.js';
 import {failure, success, type Result} from '../../shared/result.js';
 import {schemaProblems} from '../../rules/file/schema-problems.js';
-import {parseYamlSource, readTextFile, type YamlSource} from '../../shared/yaml-source.js';
+import {parseYamlSourceSteps, readTextFile, type YamlSource} from '../../shared/yaml-source.js';
+import {finish, type Steps} from '../../shared/steps.js';
 import {planSchema, type PlanFile} from './plan-schema.js';
 
 /** What a plan file is, for messages about the wrong kind of file. */
@@ -16,8 +17,14 @@ export function loadPlan(file: string): Result<PlanFile, Problem> {
 
 /** The same as loadPlan, for text already in hand. */
 export function loadPlanFromText(text: string, file: string): Result<PlanFile, Problem> {
-	const parsed = parseYamlSource(text, file, planFileExpected);
+	return finish(loadPlanFromTextSteps(text, file));
+}
+
+/** The same, in two steps: parsing the YAML, then validating it (each is long for a plan near the size limit). */
+export function* loadPlanFromTextSteps(text: string, file: string): Steps<Result<PlanFile, Problem>> {
+	const parsed = yield* parseYamlSourceSteps(text, file, planFileExpected);
 	if (!parsed.ok) return parsed;
+	yield;
 	const source = parsed.value;
 	// A plan written before the policy moved to the rule file (a rule file given as a plan has no devices).
 	if (source.data && typeof source.data === 'object' && Object.hasOwn(source.data, 'policy') && Object.hasOwn(source.data, 'devices')) {

@@ -1,4 +1,6 @@
-import {isCollection, isScalar, parseDocument, visit, type Document} from 'yaml';
+import {isCollection, isScalar, visit, type Document} from 'yaml';
+import {finish, type Steps} from '../../shared/steps.js';
+import {parseDocumentSteps} from '../../shared/yaml-steps.js';
 
 /** How an edited plan is written: no folding of long lines, flow maps as `{awg: 22, length: 3 m}`. */
 const writeOptions = {lineWidth: 0, flowCollectionPadding: false} as const;
@@ -8,7 +10,12 @@ const writeOptions = {lineWidth: 0, flowCollectionPadding: false} as const;
  * key's own line is kept there (the parser would otherwise print it on the next line).
  */
 export function planDocument(text: string): Document.Parsed {
-	const document = parseDocument(text);
+	return finish(planDocumentSteps(text));
+}
+
+/** The same, in steps (the parse is long for a plan near the size limit). */
+export function* planDocumentSteps(text: string): Steps<Document.Parsed> {
+	const document = yield* parseDocumentSteps(text, {});
 	visit(document, {
 		Pair(_, pair) {
 			const {key, value} = pair;

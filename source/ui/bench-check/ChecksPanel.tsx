@@ -1,8 +1,8 @@
-import {Box, Text} from 'ink';
+import {Box} from 'ink';
+import {Text} from '../Text.js';
 import {checkFigures} from '../../render/check-text.js';
 import type {CheckResult} from '../../rules/evaluate/evaluation.js';
 import type {ShownDerived} from '../../rules/evaluate/shown-derived.js';
-import {stripControl} from '../../shared/text.js';
 import {wrap} from '../../shared/wrap.js';
 import {verdictStyle} from '../verdict-style.js';
 
@@ -11,14 +11,14 @@ const indent = '          ';
 /** The detail lines of a check, wrapped in full (an error or reason is never cut mid-sentence). */
 export function checkDetailLines(check: CheckResult, width: number): string[] {
 	const detail = checkFigures(check) ?? (check.needs?.length ? `needs ${check.needs.join(', ')}` : check.error ?? check.reason ?? '');
-	return detail ? wrap(stripControl(detail), width, indent) : [];
+	return detail ? wrap(detail, width, indent) : [];
 }
 
 /** The line of a derived value: its figure and label, cut to one line or wrapped whole under the label. */
 export function derivedLines({entry, text}: ShownDerived, width: number, full: boolean): string[] {
-	const figure = `= ${stripControl(text)}`.padEnd(10);
-	if (!full) return [`${figure} ${stripControl(entry.label)}`];
-	const pieces = wrap(stripControl(entry.label), width, ' '.repeat(11));
+	const figure = `= ${text}`.padEnd(10);
+	if (!full) return [`${figure} ${entry.label}`];
+	const pieces = wrap(entry.label, width, ' '.repeat(11));
 	pieces[0] = `${figure} ${pieces[0]!.trimStart()}`;
 	return pieces;
 }
@@ -33,7 +33,7 @@ export function ChecksPanel({checks, rows, width = 80, derived = [], full = fals
 	const shown: Array<{check: CheckResult; title: string[]; detail: string[]}> = [];
 	let used = 0;
 	for (const check of checks.slice(from)) {
-		const title = wrap(stripControl(check.title), width, indent).map((line, index) => (index === 0 ? line.trimStart() : line));
+		const title = wrap(check.title, width, indent).map((line, index) => (index === 0 ? line.trimStart() : line));
 		const detail = checkDetailLines(check, width);
 		if (shown.length > 0 && used + title.length + detail.length > rows) break;
 		shown.push({check, title, detail});
@@ -42,7 +42,7 @@ export function ChecksPanel({checks, rows, width = 80, derived = [], full = fals
 	return (
 		<Box flexDirection="column">
 			{derived.map(({entry, text}) => (
-				<Text key={entry.id} dimColor wrap="truncate">
+				<Text key={entry.id} dimColor wrap="truncate" lines>
 					{derivedLines({entry, text}, width, full).join('\n')}
 				</Text>
 			))}

@@ -1,9 +1,9 @@
-import {Box, Text} from 'ink';
+import {Box} from 'ink';
+import {Text} from '../Text.js';
 import {answeredByRecord, type Field, type Session} from './session.js';
 import {fieldHint} from './field-hint.js';
 import {strayShown} from '../answer-key.js';
 import {confirmationStyle} from '../verdict-style.js';
-import {stripControl} from '../../shared/text.js';
 
 /** Props of the list of a step's fields. */
 export type FieldListProps = {
@@ -30,12 +30,12 @@ function currentValue(session: Session, field: Field): string {
 		const status = session.evaluation.confirmations.find(({id}) => id === field.id)?.status ?? 'unanswered';
 		// The note in force: the operator's, or the interlock test record's when that answers it.
 		const note = session.answers.confirmations.get(field.id)?.note;
-		return `${confirmationStyle[status].label}${note ? ` (${stripControl(note)})` : ''}`;
+		return `${confirmationStyle[status].label}${note ? ` (${note})` : ''}`;
 	}
 	const entry = session.entries[field.id];
 	if (entry === undefined) return '—';
-	if (field.input.kind === 'choice') return stripControl(field.input.options[entry] ?? entry);
-	return stripControl(entry);
+	if (field.input.kind === 'choice') return field.input.options[entry] ?? entry;
+	return entry;
 }
 
 function truncate(text: string, width: number): string {
@@ -61,14 +61,14 @@ export function FieldList({session, fields, focus, buffer, choice, message, note
 					return (
 						<Text key={field.id} wrap="truncate">
 							{'  '}
-							{truncate(stripControl(label), labelWidth).padEnd(labelWidth)} {currentValue(session, field)}
+							{truncate(label, labelWidth).padEnd(labelWidth)} {currentValue(session, field)}
 						</Text>
 					);
 				}
 				return (
 					<Box key={field.id} flexDirection="column">
 						<Text bold wrap="wrap">
-							› {stripControl(label)}
+							› {label}
 						</Text>
 						<Text dimColor wrap="truncate">
 							{'  '}
@@ -98,7 +98,7 @@ function FocusedValue({session, field, buffer, choice, noteMode, stray}: {sessio
 			<Text wrap="truncate">
 				{'  '}
 				{currentValue(session, field)}
-				{stripControl(strayShown(stray))}
+				{strayShown(stray)}
 			</Text>
 		);
 	}
@@ -109,7 +109,7 @@ function FocusedValue({session, field, buffer, choice, noteMode, stray}: {sessio
 				{'  '}
 				{options.map(([id, text], index) => (
 					<Text key={id} inverse={index === choice}>
-						{index === choice ? `[${stripControl(text)}]` : ` ${stripControl(text)} `}{' '}
+						{index === choice ? `[${text}]` : ` ${text} `}{' '}
 					</Text>
 				))}
 			</Text>

@@ -1,9 +1,9 @@
-import {Box, Text, type Key} from 'ink';
+import {Box, type Key} from 'ink';
+import {Text} from '../Text.js';
 import {useKeystrokes, type Arrival} from '../use-keystrokes.js';
 import {signAloneMessage} from '../answer-key.js';
 import {useRefState} from '../use-ref-state.js';
 import {outcomeWords} from '../../rules/evaluate/evaluation.js';
-import {stripControl} from '../../shared/text.js';
 import type {Session} from './session.js';
 import {typeInto} from '../text-buffer.js';
 
@@ -50,7 +50,7 @@ export function SignOffScreen({session, initial, error, onSign, onBack, onHelp, 
 	}
 	const {form, focus, message} = state.current;
 	const onButton = focus === fields.length;
-	const rulesName = stripControl(session.rules.rules.name);
+	const rulesName = session.rules.rules.name;
 	const who = form.name.trim() || '(your name)';
 	return (
 		<Box flexDirection="column">
@@ -67,8 +67,8 @@ export function SignOffScreen({session, initial, error, onSign, onBack, onHelp, 
 			</Box>
 			<Box marginTop={1} flexDirection="column">
 				<Text wrap="wrap">
-					I, {stripControl(who)}
-					{form.role.trim() ? ` (${stripControl(form.role.trim())})` : ''}, performed this bench check of {stripControl(form.setup.trim() || 'this setup')} under {rulesName}. Its outcome is{' '}
+					I, {who}
+					{form.role.trim() ? ` (${form.role.trim()})` : ''}, performed this bench check of {form.setup.trim() || 'this setup'} under {rulesName}. Its outcome is{' '}
 					{outcomeWords[session.evaluation.outcome]}. The answers are true to the best of my knowledge. This record shows which checks held; it does not say the setup is safe.
 				</Text>
 			</Box>

@@ -1,10 +1,10 @@
-import {Box, Text, type Key} from 'ink';
+import {Box, type Key} from 'ink';
+import {Text} from '../Text.js';
 import {useKeystrokes, type Arrival} from '../use-keystrokes.js';
 import {readAnswerKey, strayMessage} from '../answer-key.js';
 import {useRef} from 'react';
 import {useRefState} from '../use-ref-state.js';
 import {shownDerived} from '../../rules/evaluate/shown-derived.js';
-import {stripControl} from '../../shared/text.js';
 import {wrap} from '../../shared/wrap.js';
 import {ChecksPanel, derivedLines} from './ChecksPanel.js';
 import {FieldList} from './FieldList.js';
@@ -66,7 +66,8 @@ function pendingChange(session: Session, field: Field | undefined, editor: Edito
 
 /** A field's label, short enough for the question to fit its line. */
 function shortLabel(field: Field): string {
-	const label = stripControl(field.kind === 'input' ? field.input.label : field.confirmation.statement);
+	// Drawn through the screens' Text, which strips what came from the rule file.
+	const label = field.kind === 'input' ? field.input.label : field.confirmation.statement;
 	return label.length > 40 ? `${label.slice(0, 39)}…` : label;
 }
 
@@ -235,7 +236,7 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 	// On a short terminal the checks panel gives way so that more fields stay in view.
 	const panelRows = Math.min(rows < 30 ? 6 : 8, Math.max(2, checks.length * 2));
 	const derived = shownDerived(session.evaluation, step.id);
-	const summary = step.summary ? wrap(stripControl(step.summary), width) : [];
+	const summary = step.summary ? wrap(step.summary, width) : [];
 	const steps = session.rules.rules.steps;
 	if (fields.length > 0 && state.focus >= fields.length) {
 		const next = steps[stepIndex + 1];
@@ -243,7 +244,7 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 		return (
 			<Box flexDirection="column">
 				<Text bold>
-					Step {stepIndex + 1} of {steps.length}: {stripControl(step.title)}
+					Step {stepIndex + 1} of {steps.length}: {step.title}
 				</Text>
 				<Text dimColor wrap="truncate">
 					{(state.reviewFrom ?? 0) > 0 ? `↑ ${state.reviewFrom} more checks above` : `All ${fields.length} fields of this step answered · ↑ back to the last field`}
@@ -253,7 +254,7 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 				</Box>
 				<Box marginTop={1}>
 					<Text bold wrap="truncate">
-						{next ? `Enter or PgDn: on to step ${stepIndex + 2}: ${stripControl(next.title)}` : 'Enter or PgDn: on to the summary'}
+						{next ? `Enter or PgDn: on to step ${stepIndex + 2}: ${next.title}` : 'Enter or PgDn: on to the summary'}
 					</Text>
 				</Box>
 			</Box>
@@ -262,9 +263,9 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 	return (
 		<Box flexDirection="column">
 			<Text bold>
-				Step {stepIndex + 1} of {session.rules.rules.steps.length}: {stripControl(step.title)}
+				Step {stepIndex + 1} of {session.rules.rules.steps.length}: {step.title}
 			</Text>
-			{summary.length > 0 ? <Text dimColor>{summary.join('\n')}</Text> : null}
+			{summary.length > 0 ? <Text dimColor lines>{summary.join('\n')}</Text> : null}
 			{state.asking && fields[state.focus] ? (
 				<Text bold wrap="wrap">
 					{discardQuestion(`"${shortLabel(fields[state.focus]!)}"`)}

@@ -1,4 +1,5 @@
-import {Box, Text} from 'ink';
+import {Box} from 'ink';
+import {Text} from '../Text.js';
 import {useKeystrokes} from '../use-keystrokes.js';
 import {useState} from 'react';
 import {wrap} from '../../shared/wrap.js';

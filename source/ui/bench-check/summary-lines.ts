@@ -1,6 +1,5 @@
 import {checkFigures} from '../../render/check-text.js';
 import type {CheckResult, Evaluation} from '../../rules/evaluate/evaluation.js';
-import {stripControl} from '../../shared/text.js';
 import {confirmationStyle, verdictStyle} from '../verdict-style.js';
 
 /** One line of the summary, before wrapping. */
@@ -11,10 +10,10 @@ export type SummaryGroup = 'fail' | 'open' | 'advise' | 'pass';
 
 function checkLines(check: CheckResult): SummaryLine[] {
 	const style = verdictStyle[check.verdict];
-	const lines: SummaryLine[] = [{key: check.id, text: `${style.label.padEnd(10)}${stripControl(check.title)}`, color: style.color}];
+	const lines: SummaryLine[] = [{key: check.id, text: `${style.label.padEnd(10)}${check.title}`, color: style.color}];
 	const figures = checkFigures(check) ?? (check.needs?.length ? `needs ${check.needs.join(', ')}` : check.error);
-	if (figures) lines.push({key: `${check.id}-figures`, text: `          ${stripControl(figures)}`, dim: true});
-	if (check.message && check.verdict !== 'pass') lines.push({key: `${check.id}-message`, text: `          ${stripControl(check.message)}`});
+	if (figures) lines.push({key: `${check.id}-figures`, text: `          ${figures}`, dim: true});
+	if (check.message && check.verdict !== 'pass') lines.push({key: `${check.id}-message`, text: `          ${check.message}`});
 	return lines;
 }
 
@@ -28,7 +27,7 @@ export function summaryGroups(evaluation: Evaluation, interlock?: {status: strin
 	for (const entry of evaluation.confirmations) {
 		if (entry.status === 'yes' || entry.status === 'skip') continue;
 		const style = confirmationStyle[entry.status];
-		const line = {key: `c-${entry.id}`, text: `${style.label.padEnd(13)}${stripControl(entry.statement)}${entry.note ? ` (${stripControl(entry.note)})` : ''}`, color: style.color};
+		const line = {key: `c-${entry.id}`, text: `${style.label.padEnd(13)}${entry.statement}${entry.note ? ` (${entry.note})` : ''}`, color: style.color};
 		if (entry.status === 'no') groups.fail.push(line);
 		else if (entry.status === 'not_applicable') groups.pass.push(line);
 		else groups.open.push(line);
@@ -39,7 +38,7 @@ export function summaryGroups(evaluation: Evaluation, interlock?: {status: strin
 	if (evaluation.missingInputs.length > 0) groups.open.push({key: 'missing', text: `Inputs not given: ${evaluation.missingInputs.join(', ')}`, color: 'cyan'});
 	groups.advise.push(...byVerdict('advise'));
 	groups.pass.unshift(...byVerdict('pass'));
-	if (interlock?.status === 'current') groups.pass.push({key: 'interlock', text: `${'Interlock'.padEnd(13)}${stripControl(interlock.text)}`, color: 'green'});
+	if (interlock?.status === 'current') groups.pass.push({key: 'interlock', text: `${'Interlock'.padEnd(13)}${interlock.text}`, color: 'green'});
 	return groups;
 }
 
@@ -59,7 +58,7 @@ export function outcomeReason(evaluation: Evaluation): string {
 	if (evaluation.outcome === 'do_not_energize') {
 		const parts = [failing.length ? plural(failing.length, 'stop check fails', 'stop checks fail') : '', refused.length ? plural(refused.length, 'confirmation answered no', 'confirmations answered no') : ''].filter(Boolean);
 		const first = failing[0]?.title ?? refused[0]?.statement ?? '';
-		return `${parts.join(', ')}: ${stripControl(first)}`;
+		return `${parts.join(', ')}: ${first}`;
 	}
 	if (evaluation.outcome === 'incomplete') {
 		const unanswered = evaluation.confirmations.filter((entry) => entry.status === 'unanswered' || entry.status === 'open');
@@ -70,7 +69,7 @@ export function outcomeReason(evaluation: Evaluation): string {
 			evaluation.missingInputs.length ? plural(evaluation.missingInputs.length, 'input not given', 'inputs not given') : '',
 		].filter(Boolean);
 		const first = unanswered[0]?.statement ?? open[0]?.title ?? evaluation.missingInputs[0] ?? '';
-		return `${parts.join(', ')}: ${stripControl(first)}`;
+		return `${parts.join(', ')}: ${first}`;
 	}
 	return 'every stop check holds and every confirmation that applies is answered';
 }

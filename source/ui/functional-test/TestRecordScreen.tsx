@@ -1,8 +1,8 @@
-import {Box, Text} from 'ink';
+import {Box} from 'ink';
+import {Text} from '../Text.js';
 import {deferral} from '../../shared/deferral.js';
 import {displayPath} from '../../shared/display-path.js';
 import {interlockTestCaution} from '../../interlock/functional-test/test-record.js';
-import {stripControl} from '../../shared/text.js';
 import {strayShown} from '../answer-key.js';
 import {entryCounts, entryOutcome, peopleFields, signRow, type StepEntry, type TestEntry} from './test-entry.js';
 import {commitNote} from '../../render/record-commit-text.js';
@@ -36,10 +36,10 @@ function Head({entry}: {entry: TestEntry}) {
 	return (
 		<Box flexDirection="column">
 			<Text bold wrap="truncate">
-				Record a test: {stripControl(tested.plan.name)}
+				Record a test: {tested.plan.name}
 			</Text>
 			<Text dimColor wrap="truncate">
-				{stripControl(displayPath(tested.file))} as saved · limit {sheet.limit} · test every {sheet.interval}
+				{displayPath(tested.file)} as saved · limit {sheet.limit} · test every {sheet.interval}
 			</Text>
 			{stops > 0 ? (
 				<Text bold color="red" wrap="wrap">
@@ -62,7 +62,7 @@ function StepLine({entry, index}: {entry: TestEntry; index: number}) {
 	return (
 		<Text wrap="truncate" inverse={chosen}>
 			{chosen ? '› ' : '  '}
-			{String(step.number).padStart(2)} {stripControl(step.subject).padEnd(34)} <Text {...(style ? {color: style.color} : {})}>{(style?.label ?? '·').padEnd(7)}</Text> {stripControl(extra)}
+			{String(step.number).padStart(2)} {step.subject.padEnd(34)} <Text {...(style ? {color: style.color} : {})}>{(style?.label ?? '·').padEnd(7)}</Text> {extra}
 		</Text>
 	);
 }
@@ -74,7 +74,7 @@ function Labelled({label, text}: {label: string; text: string}) {
 			<Box width={8} flexShrink={0}>
 				<Text>{label}</Text>
 			</Box>
-			<Text wrap="wrap">{stripControl(text)}</Text>
+			<Text wrap="wrap" lines>{text}</Text>
 		</Box>
 	);
 }
@@ -88,21 +88,21 @@ function StepDetail({entry}: {entry: TestEntry}) {
 	return (
 		<Box flexDirection="column" marginTop={1}>
 			<Text bold wrap="truncate">
-				Step {step.number} of {entry.steps.length}: {stripControl(step.subject)}
+				Step {step.number} of {entry.steps.length}: {step.subject}
 			</Text>
 			<Labelled label="Do" text={step.action} />
 			<Labelled label="Expect" text={step.expect} />
 			<Text wrap="truncate">
 				{focus('result')}Result      {given.result ? markStyle[given.result].label : '(p pass · f fail · a n/a)'}
-				{entry.part === 'result' ? stripControl(strayShown(entry.stray ?? '')) : ''}
+				{entry.part === 'result' ? strayShown(entry.stray ?? '') : ''}
 			</Text>
 			<Text wrap="truncate">
-				{focus('time')}Stopped in  {stripControl(given.stoppedIn)}
+				{focus('time')}Stopped in  {given.stoppedIn}
 				{cursor('time')}
 				{entry.part === 'time' && !given.stoppedIn ? <Text dimColor> optional, with its unit: 9 ms</Text> : null}
 			</Text>
 			<Text wrap="truncate">
-				{focus('note')}Note        {stripControl(given.note)}
+				{focus('note')}Note        {given.note}
 				{cursor('note')}
 				{entry.part === 'note' && !given.note ? <Text dimColor> {given.result === 'not_applicable' ? 'needed: why, and who accepted it' : 'optional'}</Text> : null}
 			</Text>
@@ -122,7 +122,7 @@ function SignOff({entry}: {entry: TestEntry}) {
 				return (
 					<Text key={field.key} wrap="truncate">
 						{chosen ? '› ' : '  '}
-						{field.label.padEnd(28)} {stripControl(entry.people[field.key])}
+						{field.label.padEnd(28)} {entry.people[field.key]}
 						{chosen ? '▌' : ''}
 					</Text>
 				);
@@ -152,9 +152,9 @@ function Recorded({entry}: {entry: TestEntry}) {
 	return (
 		<Box flexDirection="column">
 			<Text bold>
-				Interlock test of {stripControl(entry.tested.plan.name)}, {recorded.testedOn}, by {stripControl(recorded.tester)}: <Text color={style.color}>{style.label}</Text>
+				Interlock test of {entry.tested.plan.name}, {recorded.testedOn}, by {recorded.tester}: <Text color={style.color}>{style.label}</Text>
 			</Text>
-			<Text wrap="wrap">{stripControl(recorded.outcomeText)}</Text>
+			<Text wrap="wrap" lines>{recorded.outcomeText}</Text>
 			<Text wrap="wrap">Record written: {recorded.path}</Text>
 			<Text wrap="wrap">
 				Signed with key {recorded.fingerprint}
@@ -193,7 +193,7 @@ export function TestRecordScreen({entry, rows, width}: {entry: TestEntry; rows: 
 			{entry.notice ? (
 				<Text wrap="wrap" {...(entry.notice.error ? {color: 'red'} : {})}>
 					{entry.notice.error ? '✗ ' : '✓ '}
-					{stripControl(entry.notice.text)}
+					{entry.notice.text}
 				</Text>
 			) : null}
 			<Box marginTop={1} flexDirection="column">
@@ -210,7 +210,7 @@ export function TestRecordScreen({entry, rows, width}: {entry: TestEntry; rows: 
 			) : null}
 			{entry.message ? (
 				<Text color="red" wrap="wrap">
-					✗ {stripControl(entry.message)}
+					✗ {entry.message}
 				</Text>
 			) : null}
 		</Box>

@@ -1,9 +1,9 @@
-import {Box, Text} from 'ink';
+import {Box} from 'ink';
+import {Text} from '../Text.js';
 import {planVerdict} from '../../interlock/analysis/analyse.js';
 import {subjectText} from '../../interlock/analysis/finding.js';
 import {describeProblem} from '../../shared/problems.js';
 import type {PlanEditing} from '../../interlock/plan/plan-edit.js';
-import {stripControl} from '../../shared/text.js';
 import {wrap} from '../../shared/wrap.js';
 import {findingStyle} from './finding-style.js';
 
@@ -11,7 +11,7 @@ import {findingStyle} from './finding-style.js';
 export function PlanFindings({editing, offset, rows, width}: {editing: PlanEditing; offset: number; rows: number; width: number}) {
 	const lines = editing.analysis.findings.flatMap((found, index) => {
 		const style = findingStyle[found.severity];
-		const pieces = wrap(`${subjectText(found.subject)}: ${stripControl(describeProblem(found))}`, Math.max(20, width - 11));
+		const pieces = wrap(`${subjectText(found.subject)}: ${describeProblem(found)}`, Math.max(20, width - 11));
 		return pieces.map((text, part) => ({key: `${index}-${part}`, text, label: part === 0 ? style.label : '', color: style.color}));
 	});
 	const room = Math.max(3, rows - 9);

@@ -1,6 +1,6 @@
-import {Box, Text} from 'ink';
+import {Box} from 'ink';
+import {Text} from '../Text.js';
 import type {PlanEditing} from '../../interlock/plan/plan-edit.js';
-import {stripControl} from '../../shared/text.js';
 import {choicesOf, planFieldHint, shownValue, type PlanField} from './plan-fields.js';
 import {FindingLine} from './PlanList.js';
 import {formFields, formList, formValue, itemId, runValue, type Form} from './planner-state.js';
@@ -18,13 +18,13 @@ function title(editing: PlanEditing, form: Form): string {
 }
 
 function EditedValue({field, form, value}: {field: PlanField; form: Form; value: unknown}) {
-	if (field.kind === 'run') return <Text>{stripControl(shownValue(field, value))}</Text>;
-	if (field.kind !== 'choice') return <Text>{stripControl(form.buffer)}▌</Text>;
+	if (field.kind === 'run') return <Text>{shownValue(field, value)}</Text>;
+	if (field.kind !== 'choice') return <Text>{form.buffer}▌</Text>;
 	const options = choicesOf(field, value);
 	if (form.choice < 0) return <Text>‹ choose with ← → ›</Text>;
 	return (
 		<Text>
-			‹ <Text bold>{stripControl(options[form.choice] ?? '')}</Text> › <Text dimColor>{form.choice + 1} of {options.length}</Text>
+			‹ <Text bold>{options[form.choice] ?? ''}</Text> › <Text dimColor>{form.choice + 1} of {options.length}</Text>
 		</Text>
 	);
 }
@@ -44,7 +44,7 @@ export function PlanForm({editing, form, rows}: {editing: PlanEditing; form: For
 	return (
 		<Box flexDirection="column">
 			<Text bold wrap="truncate">
-				{stripControl(title(editing, form))}
+				{title(editing, form)}
 			</Text>
 			<Box marginTop={1} flexDirection="column">
 				{start > 0 ? <Text dimColor>  ↑ {start} more</Text> : null}
@@ -57,9 +57,9 @@ export function PlanForm({editing, form, rows}: {editing: PlanEditing; form: For
 							<Text wrap="truncate">
 								{chosen ? '› ' : '  '}
 								{field.label.padEnd(26)}
-								{chosen ? <EditedValue field={field} form={form} value={value} /> : stripControl(shownValue(field, value))}
+								{chosen ? <EditedValue field={field} form={form} value={value} /> : shownValue(field, value)}
 							</Text>
-							{chosen && form.message ? <Prose color="red" text={stripControl(form.message)} lead="  ✗ " hang="    " /> : null}
+							{chosen && form.message ? <Prose color="red" text={form.message} lead="  ✗ " hang="    " /> : null}
 						</Box>
 					);
 				})}
@@ -69,7 +69,7 @@ export function PlanForm({editing, form, rows}: {editing: PlanEditing; form: For
 						{form.focus === fields.length ? '› ' : '  '}[ Add to the plan ]
 					</Text>
 				) : null}
-				{adding && form.focus === fields.length && form.message ? <Prose color="red" text={stripControl(form.message)} lead="  ✗ " hang="    " /> : null}
+				{adding && form.focus === fields.length && form.message ? <Prose color="red" text={form.message} lead="  ✗ " hang="    " /> : null}
 			</Box>
 			{form.asking ? (
 				<Text bold wrap="wrap">

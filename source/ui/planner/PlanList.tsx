@@ -1,4 +1,5 @@
-import {Box, Text} from 'ink';
+import {Box} from 'ink';
+import {Text} from '../Text.js';
 import type {ReactNode} from 'react';
 import {kindText} from '../../interlock/analysis/fail-safe.js';
 import {subjectText, type Finding} from '../../interlock/analysis/finding.js';
@@ -6,7 +7,6 @@ import {describeProblem} from '../../shared/problems.js';
 import type {PlanEditing} from '../../interlock/plan/plan-edit.js';
 import type {AccessPoint, Device} from '../../interlock/plan/plan-schema.js';
 import {formatQuantity} from '../../quantities/format.js';
-import {stripControl} from '../../shared/text.js';
 import {findingStyle} from './finding-style.js';
 import {itemRefs, type ItemRef} from './planner-state.js';
 
@@ -46,12 +46,23 @@ export function FindingLine({found, subject = true}: {found: Finding; subject?: 
 		<Text wrap="truncate">
 			<Text color={style.color}>{style.label.padEnd(10)}</Text>
 			{subject ? `${subjectText(found.subject)}: ` : ''}
-			{stripControl(describeProblem(found))}
+			{describeProblem(found)}
 		</Text>
 	);
 }
 
-type Row = {key: string; text: string; ref?: ItemRef; severity?: Finding['severity']; heading?: boolean};
+type Row = {key: string; text?: string; ref?: ItemRef; severity?: Finding['severity']; heading?: boolean};
+
+/** The worst finding on each device and access point, by `list:id`: one pass, as worstFinding gives for each. */
+function worstFindings(findings: readonly Finding[]): Map<string, Finding['severity']> {
+	const worst = new Map<string, Finding['severity']>();
+	for (const {subject, severity} of findings) {
+		if ((subject.kind !== 'device' && subject.kind !== 'access_point') || !('id' in subject)) continue;
+		const key = `${subject.kind === 'device' ? 'devices' : 'access_points'}:${subject.id}`;
+		if (severity === 'stop' || !worst.has(key)) worst.set(key, severity);
+	}
+	return worst;
+}
 
 /** The planner's main view: the plan, its loop figures, its findings (stop first) and every item, one selected. */
 export function PlanList({editing, rulesName, selected, rows, width, prompt}: {editing: PlanEditing; rulesName: string; selected: number; rows: number; width: number; prompt: ReactNode}) {
@@ -63,11 +74,17 @@ export function PlanList({editing, rulesName, selected, rows, width, prompt}: {e
 	const refs = itemRefs(editing);
 	for (const ref of refs) {
 		if (ref.list === 'devices' && ref.index === 0) list.push({key: 'h-devices', text: `Devices in wiring order (${plan.devices.length})`, heading: true});
-		const item = ref.list === 'devices' ? plan.devices[ref.index]! : plan.access_points[ref.index]!;
-		const facts = ref.list === 'devices' ? deviceFacts(item as Device) : accessPointFacts(item as AccessPoint);
-		const severity = worstFinding(analysis.findings, ref.list, item.id);
-		list.push({key: `${ref.list}-${ref.index}`, text: `${item.id.padEnd(18)} ${stripControl(facts)}`, ref, ...(severity ? {severity} : {})});
+		list.push({key: `${ref.list}-${ref.index}`, ref});
 	}
+	// Only the rows in view are worded: a plan near the size limit has thousands of items, and this is drawn after every key.
+	const worst = worstFindings(analysis.findings);
+	const worded = (row: Row): Row => {
+		if (!row.ref) return row;
+		const item = row.ref.list === 'devices' ? plan.devices[row.ref.index]! : plan.access_points[row.ref.index]!;
+		const facts = row.ref.list === 'devices' ? deviceFacts(item as Device) : accessPointFacts(item as AccessPoint);
+		const severity = worst.get(`${row.ref.list}:${item.id}`);
+		return {...row, text: `${item.id.padEnd(18)} ${facts}`, ...(severity ? {severity} : {})};
+	};
 	// The caution is one line under the list, drawn by the App (in full on the home screen).
 	const room = Math.max(3, rows - 9 - shownFindings.length - (moreFindings > 0 ? 1 : 0));
 	const at = list.findIndex((row) => row.ref && refs[selected] && row.ref.list === refs[selected]!.list && row.ref.index === refs[selected]!.index);
@@ -75,11 +92,11 @@ export function PlanList({editing, rulesName, selected, rows, width, prompt}: {e
 	return (
 		<Box flexDirection="column">
 			<Text bold wrap="truncate">
-				Plan: {stripControl(plan.name)}
+				Plan: {plan.name}
 				{editing.dirty ? ' (not saved)' : ''}
 			</Text>
 			<Text dimColor wrap="truncate">
-				{stripControl(editing.file)} · policy from {stripControl(rulesName)}
+				{editing.file} · policy from {rulesName}
 			</Text>
 			<Text wrap="truncate">{loop}</Text>
 			<Text wrap="truncate">{response}</Text>
@@ -91,7 +108,7 @@ export function PlanList({editing, rulesName, selected, rows, width, prompt}: {e
 			))}
 			{moreFindings > 0 ? <Text dimColor>… {moreFindings} more: f lists every finding</Text> : null}
 			<Box marginTop={1} flexDirection="column">
-				{list.slice(start, start + room).map((row) => {
+				{list.slice(start, start + room).map(worded).map((row) => {
 					if (row.heading) return <Text key={row.key} bold>{row.text}</Text>;
 					const style = row.severity ? findingStyle[row.severity] : undefined;
 					const chosen = row.key === list[at]?.key;

@@ -1,6 +1,6 @@
-import {Box, Text, type Key} from 'ink';
+import {Box, type Key} from 'ink';
+import {Text} from '../Text.js';
 import {useRefState} from '../use-ref-state.js';
-import {stripControl} from '../../shared/text.js';
 import {typeInto} from '../text-buffer.js';
 import {useKeystrokes} from '../use-keystrokes.js';
 
@@ -40,12 +40,12 @@ export function PlanOpenScreen({initial, problems = [], onOpen, onBack, onHelp, 
 			<Text wrap="wrap">Lists a plan's access points and devices, edits them and shows the findings as they change.</Text>
 			<Box marginTop={1}>
 				<Text wrap="wrap">
-					› Plan file {stripControl(state.current.path)}▌
+					› Plan file {state.current.path}▌
 				</Text>
 			</Box>
 			{state.current.problems.map((line, index) => (
 				<Text key={index} color="red" wrap="wrap">
-					✗ {stripControl(line)}
+					✗ {line}
 				</Text>
 			))}
 			<Box marginTop={1}>

@@ -1,9 +1,12 @@
-import {Box, Text, type Key} from 'ink';
+import {Box, type Key} from 'ink';
+import {Text} from '../Text.js';
+import {useEffect, useRef} from 'react';
 import {useRefState} from '../use-ref-state.js';
+import {deferringEdits, type PendingEdit} from '../../interlock/plan/edit-deferral.js';
+import {runInSlices} from '../../services/run-in-slices.js';
 import {displayPath} from '../../shared/display-path.js';
 import type {PlanEditing} from '../../interlock/plan/plan-edit.js';
 import {savePlanEditing} from '../../interlock/plan/save-plan.js';
-import {stripControl} from '../../shared/text.js';
 import {HelpOverlay} from '../HelpOverlay.js';
 import {PlanFindings} from './PlanFindings.js';
 import {PlanForm} from './PlanForm.js';
@@ -86,30 +89,69 @@ export function PlannerScreen({editing, rulesName, rows, width, recorder, drafts
 		onLeave();
 	};
 	const actions: ListActions = {save, leave, recordTest: (current) => startTest(current, recorder, testDrafts)};
+	// A long edit (a plan near the size limit) is worked out a part at a time, so a signal is honoured
+	// meanwhile; keys that come in the while wait for it, in order.
+	const working = useRef<{queue: Array<[string, Key, Arrival]>; stop: AbortController} | undefined>(undefined);
+	useEffect(() => () => working.current?.stop.abort(), []);
 	useKeystrokes(handleKey, {isActive: !state.current.help});
 	function handleKey(input: string, key: Key, arrival: Arrival) {
+		if (working.current) return void working.current.queue.push([input, key, arrival]);
 		if (key.ctrl) return;
 		const current = state.current;
 		const {view} = current;
 		let next = current;
-		if (view.name === 'list') next = listKey(current, input, key, actions);
-		else if (view.name === 'form') next = formKey(current, view.form, input, key, arrival);
-		else if (view.name === 'remove') next = removeKey(current, view.ref, input, arrival);
-		else if (view.name === 'leave') next = leaveKey(current, input, key, arrival, actions);
-		else if (view.name === 'record') {
+		if (view.name !== 'record') {
+			const handled = deferringEdits(() => viewKey(current, input, key, arrival));
+			if (handled.pending) return workOut(handled.pending, current, [input, key, arrival]);
+			next = handled.value;
+		} else {
 			next = recordKey(current, view.entry, input, key, arrival, recorder);
 			const refused = followTestEntry(testDrafts, view.entry, next.view.name === 'record' ? next.view.entry : undefined);
 			// The entries could not be saved (disk full, read-only folder): the test goes on, and the screen says why.
 			if (refused !== undefined && next.view.name === 'record') next = {...next, view: {...next.view, entry: {...next.view.entry, notice: {text: `the entries could not be saved as a draft: ${refused}`, error: true}}}};
 		}
-		else if (key.escape) next = {...current, view: {name: 'list'}};
-		else if (key.upArrow || key.downArrow) next = {...current, view: {name: 'findings', offset: Math.max(0, view.offset + (key.upArrow ? -1 : 1))}};
-		else if (input === '?') next = {...current, help: true};
 		if (next.editing !== current.editing) {
 			if (next.editing.dirty) drafts.save(next.editing);
 			else drafts.clear(next.editing.file);
 		}
 		if (next !== current) state.set(next);
+	}
+
+	/** The next state for a key in any view but a test being recorded; free of side effects up to its edits (see deferringEdits). */
+	function viewKey(current: PlannerState, input: string, key: Key, arrival: Arrival): PlannerState {
+		const {view} = current;
+		if (view.name === 'list') return listKey(current, input, key, actions);
+		if (view.name === 'form') return formKey(current, view.form, input, key, arrival);
+		if (view.name === 'remove') return removeKey(current, view.ref, input, arrival);
+		if (view.name === 'leave') return leaveKey(current, input, key, arrival, actions);
+		if (view.name !== 'findings') return current;
+		if (key.escape) return {...current, view: {name: 'list'}};
+		if (key.upArrow || key.downArrow) return {...current, view: {name: 'findings', offset: Math.max(0, view.offset + (key.upArrow ? -1 : 1))}};
+		if (input === '?') return {...current, help: true};
+		return current;
+	}
+
+	/** Works out a long edit a part at a time, then handles the key that asked for it again, and the keys that came meanwhile. */
+	function workOut(pending: PendingEdit, before: PlannerState, asked: [string, Key, Arrival]) {
+		const stop = new AbortController();
+		working.current = {queue: [], stop};
+		// Shown meanwhile: the list says so (a question already answered gives way to it); a form stays as it is.
+		state.set({...before, ...(before.view.name === 'remove' || before.view.name === 'leave' ? {view: {name: 'list'}} : {}), notice: {text: 'Checking the plan…'}});
+		runInSlices(pending.steps, stop.signal).then(
+			(result) => {
+				if (stop.signal.aborted) return;
+				pending.settle(result);
+				const queued = working.current?.queue ?? [];
+				working.current = undefined;
+				state.set(before);
+				handleKey(...asked);
+				for (const key of queued) handleKey(...key);
+			},
+			// A bug in the edit is a bug: thrown where nothing catches it, as it would be without the slices.
+			(error: unknown) => setImmediate(() => {
+				throw error;
+			}),
+		);
 	}
 
 	const {view, notice} = state.current;
@@ -118,7 +160,7 @@ export function PlannerScreen({editing, rulesName, rows, width, recorder, drafts
 	const noticeLine = notice ? (
 		<Text wrap="truncate" {...(notice.error ? {color: 'red'} : {})}>
 			{notice.error ? '✗ ' : '✓ '}
-			{stripControl(notice.text)}
+			{notice.text}
 		</Text>
 	) : (
 		<Text> </Text>

@@ -1,5 +1,5 @@
-import {Box, Text} from 'ink';
-import {stripControl} from '../../shared/text.js';
+import {Box} from 'ink';
+import {Text} from '../Text.js';
 import {runFields, type RunForm} from './wire-run-entry.js';
 import {discardQuestion} from '../discard-question.js';
 import {Prose} from '../Prose.js';
@@ -10,7 +10,7 @@ export function WireRunForm({device, run}: {device: string; run: RunForm}) {
 	return (
 		<Box flexDirection="column">
 			<Text bold wrap="truncate">
-				Wire run from {stripControl(device)} to the next device
+				Wire run from {device} to the next device
 			</Text>
 			<Box marginTop={1} flexDirection="column">
 				{runFields.map((field, index) => (
@@ -18,14 +18,14 @@ export function WireRunForm({device, run}: {device: string; run: RunForm}) {
 						<Text wrap="truncate">
 							{index === run.focus ? '› ' : '  '}
 							{field.label.padEnd(30)}
-							{stripControl(run.entries[field.key])}
+							{run.entries[field.key]}
 							{index === run.focus ? '▌' : ''}
 						</Text>
-						{index === run.focus && run.message ? <Prose color="red" text={stripControl(run.message)} lead="  ✗ " hang="    " /> : null}
+						{index === run.focus && run.message ? <Prose color="red" text={run.message} lead="  ✗ " hang="    " /> : null}
 					</Box>
 				))}
 				<Text bold={run.focus === runFields.length}>{run.focus === runFields.length ? '› ' : '  '}[ Apply the wire run ]</Text>
-				{run.focus === runFields.length && run.message ? <Prose color="red" text={stripControl(run.message)} lead="  ✗ " hang="    " /> : null}
+				{run.focus === runFields.length && run.message ? <Prose color="red" text={run.message} lead="  ✗ " hang="    " /> : null}
 			</Box>
 			{run.asking ? (
 				<Text bold wrap="wrap">
