@@ -95,10 +95,6 @@ function pathKey(file: string): string {
 	return joined === file ? file : joined;
 }
 
-/** The record files of one folder: the first of each SHA-256, and the file at each path. */
-/** `byPath` is keyed by the file's path as audited (the same text as the file list's: no copy per record). */
-type FolderFiles = {bySha: Map<string, ChainEntry>; byPath: Map<string, ChainEntry>};
-
 /** The words for the others in a fork: "both" for one other record, "all" for more. */
 const forkWords = (others: readonly ChainEntry[]) => ({others: others.map((other) => basename(other.file)).join(', '), both: others.length === 1 ? 'both' : 'all'});
 
@@ -114,10 +110,11 @@ export class ChainAudit {
 	readonly #now: Date;
 	readonly #entries: ChainEntry[] = [];
 	readonly #copies: Array<{entry: ChainEntry; of: ChainEntry}> = [];
-	/** The first record file of each SHA-256, in any folder (a copy is a copy wherever it lies). */
+	/** The first record file of each SHA-256, in any folder (a copy is a copy wherever it lies, and has the same bytes and date). */
 	readonly #bySha = new Map<string, ChainEntry>();
-	/** Per folder, the first record file of each SHA-256 and the file of each name. */
-	readonly #folders = new Map<string, FolderFiles>();
+	/** Every file added, copies too, in the order added; looked up by path only where a link or head names a file not found by its bytes (rare), through an index sorted once. */
+	readonly #all: ChainEntry[] = [];
+	#byPath: {paths: string[]; order: Uint32Array} | undefined;
 
 	/** @param now The time of the audit: a record dated after it (beyond the allowance for a fast clock) is a finding. */
 	constructor(now: Date) {
@@ -130,22 +127,37 @@ export class ChainAudit {
 	/** Adds a record file; returns the file it is a byte-identical copy of, if any (the copy is then left out of the chain). */
 	add(entry: ChainEntry): string | undefined {
 		this.#share(entry);
-		const folder = this.#folder(dirname(entry.file));
-		folder.byPath.set(pathKey(entry.file), entry);
+		this.#all.push(entry);
+		this.#byPath = undefined;
 		const sha = entry.fileSha256;
 		const original = sha === null ? undefined : this.#bySha.get(sha);
 		if (original) {
-			// Within its own folder a copy still has the bytes a link there may name.
-			if (!folder.bySha.has(sha!)) folder.bySha.set(sha!, entry);
 			this.#copies.push({entry, of: original});
 			return original.file;
 		}
-		if (sha !== null) {
-			folder.bySha.set(sha, entry);
-			this.#bySha.set(sha, entry);
-		}
+		if (sha !== null) this.#bySha.set(sha, entry);
 		this.#entries.push(entry);
 		return undefined;
+	}
+
+	/** The file audited at a path (the last added there, as a map would keep it), by binary search in the files sorted by path. */
+	#atPath(path: string): ChainEntry | undefined {
+		if (!this.#byPath) {
+			const paths = this.#all.map((entry) => pathKey(entry.file));
+			const order = Uint32Array.from(paths.keys()).sort((a, b) => (paths[a]! < paths[b]! ? -1 : paths[a]! > paths[b]! ? 1 : a - b));
+			this.#byPath = {paths, order};
+		}
+		const {paths, order} = this.#byPath;
+		let low = 0;
+		let high = order.length;
+		// The first place after every path at or before the one sought: the last file at it is just before.
+		while (low < high) {
+			const middle = (low + high) >>> 1;
+			if (paths[order[middle]!]! <= path) low = middle + 1;
+			else high = middle;
+		}
+		const found = low > 0 ? order[low - 1]! : undefined;
+		return found !== undefined && paths[found] === path ? this.#all[found] : undefined;
 	}
 
 	/**
@@ -194,7 +206,6 @@ export class ChainAudit {
 
 	/** The findings of one key's chained records in one folder. */
 	#chainFindings(members: readonly ChainEntry[], add: (entry: ChainEntry, found: Finding) => void): void {
-		const folder = this.#folder(dirname(members[0]!.file));
 		const byPrevious = new Map<string | null, ChainEntry[]>();
 		const missing: Array<{entry: ChainEntry; previous: NonNullable<ChainLink>}> = [];
 		for (const entry of members) {
@@ -205,12 +216,12 @@ export class ChainAudit {
 			else byPrevious.set(named, [entry]);
 			if (!previous) continue;
 			// Found by its bytes anywhere in the audit: a record moved into an archive subfolder is not gone.
-			const found = folder.bySha.get(previous.sha256) ?? this.#bySha.get(previous.sha256);
+			const found = this.#bySha.get(previous.sha256);
 			if (found?.chained && instant(createdAt) < instant(found.chained.createdAt)) {
 				add(entry, finding('history', 'audit-chain-clock-backwards', {dated: createdAt, file: previous.file, previousDated: found.chained.createdAt}));
 			}
 			if (found) continue;
-			const sameName = folder.byPath.get(join(dirname(entry.file), previous.file));
+			const sameName = this.#atPath(join(dirname(entry.file), previous.file));
 			if (sameName) add(entry, finding('history', 'audit-chain-changed', {file: previous.file, sha256: previous.sha256, actual: sameName.fileSha256 ?? '(unreadable)'}));
 			else missing.push({entry, previous});
 		}
@@ -221,7 +232,7 @@ export class ChainAudit {
 		for (const cut of missing) {
 			add(cut.entry, finding('history', cut === start ? 'audit-chain-gap-at-start' : 'audit-chain-missing', {file: cut.previous.file, sha256: cut.previous.sha256}));
 		}
-		this.#headFindings(folder, members, add);
+		this.#headFindings(members, add);
 		for (const [named, fork] of byPrevious) {
 			if (fork.length < 2) continue;
 			for (const entry of fork) {
@@ -237,11 +248,11 @@ export class ChainAudit {
 	 * beside the records: it must be there with the bytes the head file names. A head that is not
 	 * among the files audited but is still in the folder is left alone (an audit of some records).
 	 */
-	#headFindings(folder: FolderFiles, members: readonly ChainEntry[], add: (entry: ChainEntry, found: Finding) => void): void {
+	#headFindings(members: readonly ChainEntry[], add: (entry: ChainEntry, found: Finding) => void): void {
 		const path = dirname(members[0]!.file);
 		const head = readHead(path, members[0]!.key!);
-		if (!head || folder.bySha.has(head.sha256) || this.#bySha.has(head.sha256)) return;
-		const sameName = folder.byPath.get(join(path, head.file));
+		if (!head || this.#bySha.has(head.sha256)) return;
+		const sameName = this.#atPath(join(path, head.file));
 		if (sameName) {
 			add(sameName, finding('history', 'audit-chain-head-changed', {sha256: head.sha256, actual: sameName.fileSha256 ?? '(unreadable)'}));
 			return;
@@ -252,14 +263,5 @@ export class ChainAudit {
 		const tips = members.filter((entry) => entry.fileSha256 === null || !named.has(entry.fileSha256));
 		const latest = [...(tips.length > 0 ? tips : members)].sort((a, b) => instant(a.createdAt) - instant(b.createdAt) || a.file.localeCompare(b.file)).at(-1)!;
 		add(latest, finding('history', 'audit-chain-head-missing', {file: head.file, sha256: head.sha256}));
-	}
-
-	#folder(path: string): FolderFiles {
-		let folder = this.#folders.get(path);
-		if (!folder) {
-			folder = {bySha: new Map(), byPath: new Map()};
-			this.#folders.set(path, folder);
-		}
-		return folder;
 	}
 }

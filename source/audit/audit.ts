@@ -322,6 +322,7 @@ export class AuditRun {
 	/** Takes the next record's judgement (the records in the order of the files). */
 	accept(judged: Judgement | JudgedShort): void {
 		const listing = this.#listing;
+		if (!(judged.chained instanceof ChainEntry)) shareTexts(judged as JudgedShort, this.files[this.#audits.length]!);
 		const kept: Kept = 'signatures' in judged.audit ? (listing === 'all' ? judged.audit : slim(judged.audit)) : SummaryAudit.from(judged.audit);
 		const chained = judged.chained instanceof ChainEntry ? judged.chained : ChainEntry.from(judged.chained);
 		const copyOf = this.#chain.add(chained);
@@ -342,6 +343,22 @@ export class AuditRun {
 
 	finish(): AuditReport {
 		return finishAudit(this.#audits, this.#entries, this.#entryOf, this.#benchLocations, this.#chain, this.#listing, this.options);
+	}
+}
+
+/**
+ * A record's short form posted by a worker comes with its own copy of every text: the file's
+ * path three times, its date twice. Each is pointed at one copy (the path at the file list's),
+ * as in an audit in one thread, where they are the same strings.
+ */
+function shareTexts(judged: JudgedShort, file: string): void {
+	const {audit, bench, chained} = judged;
+	if (chained.file === file) chained.file = file;
+	if (audit.file === file) audit.file = file;
+	if (audit.bench && audit.bench.createdAt === chained.createdAt) audit.bench.createdAt = chained.createdAt;
+	if (bench) {
+		if (bench.entry.file === file) bench.entry.file = file;
+		if (bench.entry.createdAt === chained.createdAt) bench.entry.createdAt = chained.createdAt;
 	}
 }
 

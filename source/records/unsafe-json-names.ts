@@ -5,7 +5,7 @@
  * are skipped with indexOf, and only names with escapes are decoded.
  */
 export function unsafeJsonKey(text: string): {kind: 'duplicate' | 'prototype'; name: string} | undefined {
-	const stack: Array<{keys: Set<string>; expectKey: boolean} | undefined> = [];
+	const stack: Array<Names | undefined> = [];
 	const length = text.length;
 	for (let index = 0; index < length; index += 1) {
 		const code = text.charCodeAt(index);
@@ -26,12 +26,11 @@ export function unsafeJsonKey(text: string): {kind: 'duplicate' | 'prototype'; n
 				const raw = text.slice(index + 1, end);
 				const name = escaped || raw.includes('\\') ? (JSON.parse(`"${raw}"`) as string) : raw;
 				if (name === '__proto__') return {kind: 'prototype', name};
-				if (top.keys.has(name)) return {kind: 'duplicate', name};
-				top.keys.add(name);
+				if (!top.add(name)) return {kind: 'duplicate', name};
 				top.expectKey = false;
 			}
 			index = end;
-		} else if (code === 123 /* { */) stack.push({keys: new Set(), expectKey: true});
+		} else if (code === 123 /* { */) stack.push(new Names());
 		else if (code === 91 /* [ */) stack.push(undefined);
 		else if (code === 125 || code === 93 /* } ] */) stack.pop();
 		else if (code === 44 /* , */) {
@@ -40,4 +39,29 @@ export function unsafeJsonKey(text: string): {kind: 'duplicate' | 'prototype'; n
 		}
 	}
 	return undefined;
+}
+
+/**
+ * The names of one object seen so far. Most objects in a record have a few names: they are kept
+ * in a list and compared in turn, which is cheaper than a set for each of a record's hundred
+ * small objects; past 16 names (the inputs, the derived values) a set takes over.
+ */
+class Names {
+	expectKey = true;
+	#list: string[] = [];
+	#set: Set<string> | undefined;
+
+	/** Adds a name; false when the object has it already. */
+	add(name: string): boolean {
+		if (this.#set) {
+			if (this.#set.has(name)) return false;
+			this.#set.add(name);
+			return true;
+		}
+		const list = this.#list;
+		for (let index = 0; index < list.length; index += 1) if (list[index] === name) return false;
+		list.push(name);
+		if (list.length > 16) this.#set = new Set(list);
+		return true;
+	}
 }

@@ -55,41 +55,69 @@ export function auditInParallel(files: readonly string[], options: Omit<AuditOpt
 	const batch = Math.max(1, Math.min(250, Math.ceil(files.length / (jobs * 8))));
 	const task: JudgeTask = {task: 'prelase-audit-judge', rulesFile, trust: {...options.trust, trusted: [...options.trust.trusted]}, now: run.context.now.toISOString()};
 	return new Promise((resolve, reject) => {
-		const workers: Worker[] = [];
+		const workers = new Map<Worker, Set<number>>();
 		const waiting = new Map<number, JudgedShort[]>();
+		let here: ReturnType<typeof runContext> | undefined;
 		let sent = 0;
 		let accepted = 0;
 		let settled = false;
 		const end = (error?: Error) => {
 			if (settled) return;
 			settled = true;
-			for (const worker of workers) void worker.terminate();
-			if (error) reject(error);
-			else resolve(run.finish());
+			// The records are related only once the workers have ended and their memory is given back: the peak of the run is then this thread's alone.
+			void Promise.allSettled([...workers.keys()].map((worker) => worker.terminate())).then(() => {
+				if (error) return reject(error);
+				try {
+					resolve(run.finish());
+				} catch (thrown) {
+					reject(thrown as Error);
+				}
+			});
+		};
+		const drain = () => {
+			for (let next = waiting.get(accepted); next !== undefined; next = waiting.get(accepted)) {
+				waiting.delete(accepted);
+				for (const judged of next) run.accept(judged);
+				accepted += next.length;
+			}
+			if (accepted >= files.length) end();
+		};
+		/** Judges a batch in this thread: the batches of a worker that ended without answering (out of memory on a huge record, say), and the rest when none is left. */
+		const judgeHere = (start: number) => {
+			here ??= runContext({...options, listing: 'summary'});
+			const context = here;
+			waiting.set(start, files.slice(start, start + batch).map((file, offset) => judgeForSummary(file, start + offset, context)));
 		};
 		const send = (worker: Worker) => {
 			if (sent >= files.length) return;
+			workers.get(worker)!.add(sent);
 			worker.postMessage({start: sent, files: files.slice(sent, sent + batch)} satisfies Ask);
 			sent += batch;
 		};
+		const lost = (worker: Worker) => {
+			const batches = workers.get(worker);
+			if (settled || !batches) return;
+			workers.delete(worker);
+			try {
+				for (const start of batches) judgeHere(start);
+				if (workers.size === 0) for (; sent < files.length; sent += batch) judgeHere(sent);
+				drain();
+			} catch (error) {
+				end(error as Error);
+			}
+		};
 		for (let count = 0; count < Math.min(jobs, Math.ceil(files.length / batch)); count += 1) {
-			const worker = new Worker(entry, {workerData: task, resourceLimits: {maxYoungGenerationSizeMb: 4}});
-			workers.push(worker);
+			const worker = new Worker(entry, {workerData: task});
+			workers.set(worker, new Set());
 			worker.on('message', (answer: Answer) => {
 				if ('error' in answer) return end(new Error(answer.error));
+				workers.get(worker)?.delete(answer.start);
 				waiting.set(answer.start, answer.results);
 				send(worker);
-				for (let next = waiting.get(accepted); next !== undefined; next = waiting.get(accepted)) {
-					waiting.delete(accepted);
-					for (const judged of next) run.accept(judged);
-					accepted += next.length;
-				}
-				if (accepted >= files.length) end();
+				drain();
 			});
-			worker.on('error', (error) => end(error));
-			worker.on('exit', (code) => {
-				if (!settled) end(new Error(`an audit worker ended before its records were judged (status ${code})`));
-			});
+			worker.on('error', () => lost(worker));
+			worker.on('exit', () => lost(worker));
 			for (let queued = 0; queued < inFlight; queued += 1) send(worker);
 		}
 	});

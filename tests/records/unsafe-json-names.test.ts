@@ -1,6 +1,9 @@
 import {describe, expect, it} from 'vitest';
 import {unsafeJsonKey} from '../../source/records/unsafe-json-names.js';
 
+/** An object of `count` names n0, n1, …, and then `again` once more when given. */
+const names = (count: number, again?: string) => `{${[...Array.from({length: count}, (_, index) => `n${index}`), ...(again ? [again] : [])].map((name, index) => `"${name}": ${index}`).join(', ')}}`;
+
 describe('unsafeJsonKey', () => {
 	it.each([
 		{name: 'plain object', text: '{"a": 1, "b": {"a": 2}}', found: undefined},
@@ -14,6 +17,11 @@ describe('unsafeJsonKey', () => {
 		{name: '__proto__ name', text: '{"inputs": {"__proto__": {}}}', found: {kind: 'prototype', name: '__proto__'}},
 		{name: 'escaped __proto__', text: '{"\\u005f_proto__": 1}', found: {kind: 'prototype', name: '__proto__'}},
 		{name: '__proto__ as a value', text: '{"a": "__proto__"}', found: undefined},
+		// Past 16 names an object's names are kept in a set: a name repeated on either side of that point.
+		{name: '40 different names', text: names(40), found: undefined},
+		{name: 'the first of 40 names repeated last', text: names(40, 'n0'), found: {kind: 'duplicate', name: 'n0'}},
+		{name: 'the 17th name repeated at once', text: `{${Array.from({length: 17}, (_, index) => `"n${index}": ${index}`).join(', ')}, "n16": 0}`, found: {kind: 'duplicate', name: 'n16'}},
+		{name: 'the 30th name repeated after 40', text: names(40, 'n29'), found: {kind: 'duplicate', name: 'n29'}},
 	])('$name', ({text, found}) => {
 		expect(() => JSON.parse(text) as unknown).not.toThrow();
 		expect(unsafeJsonKey(text)).toEqual(found);
