@@ -38,13 +38,26 @@ function referencedNames(rules: CompiledRules): ReadonlySet<string> {
  */
 export function evaluationKey(rules: CompiledRules, answers: Answers): string {
 	const referenced = referencedNames(rules);
-	const inputs: unknown[] = [];
+	const inputs: string[] = [];
 	for (const id of rules.inputs.keys()) {
 		const answer = answers.inputs.get(id);
-		if (!answer) inputs.push(0);
-		else if (!referenced.has(id)) inputs.push(1);
-		else inputs.push({...answer, entered: undefined});
+		if (!answer) inputs.push('0');
+		else if (!referenced.has(id)) inputs.push('1');
+		else inputs.push(answerText(answer));
 	}
 	const confirmations = [...answers.confirmations].sort(([a], [b]) => (a < b ? -1 : a > b ? 1 : 0));
-	return JSON.stringify([rules.sha256, inputs, confirmations]);
+	// The JSON text of [sha256, inputs, confirmations], with each answer's part written once per answer object.
+	return `[${JSON.stringify(rules.sha256)},[${inputs.join(',')}],${JSON.stringify(confirmations)}]`;
+}
+
+/** The JSON text of an answer without the text as typed; kept per answer object (an audit reads each distinct entry once and shares its answer). */
+const answerTexts = new WeakMap<object, string>();
+
+function answerText(answer: object): string {
+	let text = answerTexts.get(answer);
+	if (text === undefined) {
+		text = JSON.stringify({...answer, entered: undefined});
+		answerTexts.set(answer, text);
+	}
+	return text;
 }
