@@ -14,7 +14,7 @@ const table: Array<{command: string; options: Record<string, string | undefined>
 	{command: 'rules', options: {json: undefined, site: undefined, help: undefined}},
 	{command: 'keys', options: {name: 'NAME', role: 'ROLE', from: 'DATE', 'revoked-from': 'DATE', help: undefined}},
 	{command: 'report', options: {format: 'md|html', out: 'FILE', help: undefined}},
-	{command: 'audit', options: {rules: 'FILE', json: undefined, all: undefined, remote: undefined, help: undefined}},
+	{command: 'audit', options: {rules: 'FILE', json: undefined, all: undefined, remote: undefined, jobs: 'N', help: undefined}},
 	{command: 'plan', options: {rules: 'FILE', json: undefined, 'test-sheet': 'md|html', 'record-test': 'RESULTS', records: 'DIR', 'witness-key': 'FILE', edit: undefined, schema: 'plan|results', help: undefined}},
 	{command: 'records', options: {records: 'DIR', remote: 'URL', help: undefined}},
 ];

@@ -1,7 +1,7 @@
 import {parseArgs} from 'node:util';
 import {paintFor} from '../../shared/paint.js';
 import {formatProblem} from '../../shared/problems.js';
-import {auditRecords} from '../../audit/audit.js';
+import {auditRecords, type AuditReport} from '../../audit/audit.js';
 import {listRecordFiles} from '../../audit/audit-files.js';
 import {auditText, inline} from '../../render/audit-text.js';
 import {auditJsonLines} from '../../render/audit-json.js';
@@ -71,7 +71,7 @@ function jobsOption(text: string | undefined): number {
 }
 
 /** `prelase audit PATH... [--rules FILE] [--json]`: returns the exit status (0, 1 or 3; 2 by UsageError). */
-export async function runAudit(args: string[], io: Io): Promise<number> {
+export function runAudit(args: string[], io: Io): number | Promise<number> {
 	const {values, positionals} = parseArgs({args, options: parseOptions(options), allowPositionals: true, strict: true});
 	if (values.help) {
 		io.stdout.write(`${commandHelp(auditCommand)}\n`);
@@ -101,14 +101,17 @@ export async function runAudit(args: string[], io: Io): Promise<number> {
 	};
 	// A large summarised audit is judged in worker threads of this program (the bundle's own file); from source, in this thread.
 	const parallel = listing === 'summary' && jobs > 1 && (values.jobs !== undefined || files.length > parallelAbove) && isBundled;
-	const report = parallel ? await auditInParallel(files, given, rulesFile, jobs, new URL(import.meta.url)) : auditRecords(files, {...given, listing});
-	bar?.end();
-	const paint = paintFor(io.stdout, io.env);
-	const width = io.stdout.columns ?? 100;
-	if (values.json) writeLines(io, auditJsonLines(report));
-	else if (report.listing === 'summary') writeLines(io, auditSummaryLines(report, paint, width));
-	else io.stdout.write(`${auditText(report, paint, width)}\n`);
-	return report.exitCode;
+	// An answer at once, unless the records are judged in worker threads.
+	const written = (report: AuditReport) => {
+		bar?.end();
+		const paint = paintFor(io.stdout, io.env);
+		const width = io.stdout.columns ?? 100;
+		if (values.json) writeLines(io, auditJsonLines(report));
+		else if (report.listing === 'summary') writeLines(io, auditSummaryLines(report, paint, width));
+		else io.stdout.write(`${auditText(report, paint, width)}\n`);
+		return report.exitCode;
+	};
+	return parallel ? auditInParallel(files, given, rulesFile, jobs, new URL(import.meta.url)).then(written) : written(auditRecords(files, {...given, listing}));
 }
 
 export const auditCommand: Command = {
