@@ -143,6 +143,7 @@ severity and the device or access point it concerns:
      nothing is recorded
   74 a file could not be written (disk full, file size limit, read-only or denied folder);
      nothing was written and the file there before is unchanged
+  130 with --edit: the planner was left with Ctrl-C (the unsaved plan is kept as a draft)
 
 The planner says which findings it has; it never says a loop is safe. The laser safety
 officer and the codes in force (IEC 60825 series, ANSI Z136 series, local law) decide.`,
