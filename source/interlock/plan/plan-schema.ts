@@ -3,6 +3,7 @@ import {array, boolean, custom, literal, number, object, string, enum as oneOf, 
 import type {z} from 'zod';
 import {dimensions, type Dimension} from '../../quantities/dimensions.js';
 import {parseQuantity} from '../../quantities/parse-quantity.js';
+import {fieldExample} from '../../quantities/field-example.js';
 import {describeProblem, problem} from '../../shared/problems.js';
 import type {InterlockPolicy} from './policy.js';
 import {singleLinePattern} from '../../shared/one-line.js';
@@ -17,7 +18,7 @@ const line = words.regex(singleLinePattern, 'this is one line of text but holds 
  * dimension; a wrong unit or a value below the allowed floor is a schema issue at its line.
  */
 export function quantityOf(dimension: Dimension, floor: 'positive' | 'not negative' | 'any' = 'not negative') {
-	const info = dimensions[dimension];
+	const info = {noun: dimensions[dimension].noun, example: fieldExample({dimension, ...(floor === 'any' ? {} : {range: {min: 0, max: Infinity, aboveMin: floor === 'positive'}})})};
 	const text = custom<string | number>((value) => typeof value === 'string' || typeof value === 'number', `expected ${info.noun} with its unit, for example "${info.example}"`);
 	return text.transform((value, context) => {
 		const parsed = parseQuantity(String(value), dimension);
