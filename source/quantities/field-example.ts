@@ -54,6 +54,16 @@ function roundInside(range: NonNullable<ExampleField['range']>): number {
  * inside the range.
  */
 export function fieldExample(field: ExampleField): string {
+	const key = [field.dimension, field.default, field.range?.min, field.range?.max, field.range?.aboveMin, field.range?.whole].map(String).join('|');
+	let example = examples.get(key);
+	if (example === undefined) examples.set(key, (example = exampleOf(field)));
+	return example;
+}
+
+/** Examples already chosen, by field: the same field is asked for often (every schema field, every message). */
+const examples = new Map<string, string>();
+
+function exampleOf(field: ExampleField): string {
 	const {dimension} = field;
 	if (field.default !== undefined && Number.isFinite(field.default) && inRange(field.default, field)) return formatQuantity(field.default, dimension);
 	const fitting = (candidates[dimension] ?? [dimensions[dimension].example]).map((text) => ({text, si: siOf(text, dimension)})).filter((entry) => entry.si !== undefined && inRange(entry.si, field));
