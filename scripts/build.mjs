@@ -3,6 +3,7 @@ import {build} from 'esbuild';
 import {bundleOptions} from './bundle-options.mjs';
 import {createHash} from 'node:crypto';
 import {readFileSync} from 'node:fs';
+import {isDeepStrictEqual} from 'node:util';
 import {parseDocument} from 'yaml';
 
 const {version} = JSON.parse(readFileSync(new URL('../package.json', import.meta.url), 'utf8'));
@@ -13,6 +14,15 @@ const shippedText = readFileSync(new URL('../rules/default.yaml', import.meta.ur
 const shippedDocument = parseDocument(shippedText, {uniqueKeys: true, strict: true});
 if (shippedDocument.errors.length > 0) throw new Error(`rules/default.yaml: ${shippedDocument.errors[0].message}`);
 const shipped = {sha256: createHash('sha256').update(shippedText).digest('hex'), data: shippedDocument.toJS()};
+
+// The shipped policy as the rule-file schema reads it, checked now with the program's own schema,
+// so a start with the shipped policy need not build the schema and check it again. Kept only when
+// it survives JSON unchanged (no value JSON cannot hold); else the program checks it at start.
+const schemaModule = await build({...bundleOptions, banner: {}, entryPoints: ['source/rules/file/schema.ts'], write: false, minifyWhitespace: false});
+const {ruleFileSchema} = await import(`data:text/javascript;base64,${Buffer.from(schemaModule.outputFiles[0].text).toString('base64')}`);
+const checked = ruleFileSchema.safeParse(structuredClone(shipped.data));
+if (!checked.success) throw new Error(`rules/default.yaml does not pass the rule-file schema: ${checked.error.issues[0]?.message}`);
+if (isDeepStrictEqual(JSON.parse(JSON.stringify(checked.data)), checked.data)) shipped.validated = checked.data;
 
 await build({
 	...bundleOptions,

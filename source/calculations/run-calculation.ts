@@ -3,9 +3,9 @@ import {formatQuantity} from '../quantities/format.js';
 import {parseQuantity} from '../quantities/parse-quantity.js';
 import {describeProblem, problem, type Problem} from '../shared/problems.js';
 import {didYouMean} from '../shared/did-you-mean.js';
-import {dimensionWords} from '../quantities/dimensions.js';
+import {compactExample, fieldWords, type ExampleField} from '../quantities/field-example.js';
 import {failure, success, type Result} from '../shared/result.js';
-import {CalculationInputError, checkAllowed, type Calculation} from './calculation.js';
+import {CalculationInputError, checkAllowed, type Calculation, type CalculationInput} from './calculation.js';
 
 /** One value in a calculation's result: SI number, SI unit, formatted text. */
 export type CalculatedValue = {si: number; unit: string; text: string};
@@ -53,7 +53,7 @@ export function runCalculation(calculation: Calculation, entries: ReadonlyArray<
 		}
 		const parsed = parseQuantity(text, input.dimension);
 		if (!parsed.ok) {
-			const words = {label: key, hint: '', ...dimensionWords(input.dimension)};
+			const words = {label: key, hint: '', ...fieldWords(exampleField(input))};
 			problems.push(problem(parsed.problem.code, {...parsed.problem, ...words}, {field: key}));
 			continue;
 		}
@@ -64,7 +64,7 @@ export function runCalculation(calculation: Calculation, entries: ReadonlyArray<
 		if (Object.hasOwn(si, key)) continue;
 		if (input.default !== undefined) si[key] = input.default;
 		else if (!input.optional && !problems.some((found) => found.field === key)) {
-			problems.push(problem('calc-missing-input', {key, calc: calculation.name, noun: dimensions[input.dimension].noun, example: dimensions[input.dimension].example.replace(' ', '')}, {field: key}));
+			problems.push(problem('calc-missing-input', {key, calc: calculation.name, noun: dimensions[input.dimension].noun, example: compactExample(exampleField(input))}, {field: key}));
 		}
 	}
 	if (problems.length > 0) return failure(problems);
@@ -96,4 +96,9 @@ export function describeCalcProblem(found: Problem): string {
 	// Messages that already name the key read better without it in front again.
 	const named = found.field !== undefined && new RegExp(`\\b${found.field}\\b`).test(message);
 	return `${found.field && !named ? `${found.field}: ` : ''}${message}`;
+}
+
+/** What a calculation input's examples are made from: its dimension, range and default. */
+function exampleField(input: CalculationInput): ExampleField {
+	return {dimension: input.dimension, range: input.range, ...(input.default === undefined ? {} : {default: input.default})};
 }

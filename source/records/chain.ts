@@ -5,11 +5,12 @@ import {replaceFileAtomically} from '../shared/atomic-file.js';
 import {sha256Hex} from '../shared/sha256.js';
 import {readRecordFile} from '../shared/record-file-read.js';
 import {chainLinkSchema, type ChainLink} from './record-schema.js';
+import {lazySchema} from '../shared/lazy-schema.js';
 
 /** The dot-folder beside the records that remembers each key's latest record (the audit's folder walk leaves dot-folders out). */
 export const chainFolderName = '.prelase-chain';
 
-const headSchema = object({format: literal('prelase-chain-head'), version: literal(1), key: string(), head: chainLinkSchema.unwrap()}).strict();
+const headSchema = lazySchema(() => object({format: literal('prelase-chain-head'), version: literal(1), key: string(), head: chainLinkSchema.unwrap()}).strict());
 
 /** The file that remembers the latest record of one key in a records folder (one file per key, so keys never race each other). */
 export function headFile(folder: string, key: string): string {

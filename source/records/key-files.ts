@@ -11,6 +11,7 @@ import {createFileAtomically, replaceFileAtomically} from '../shared/atomic-file
 import {asWriteError} from '../shared/file-write-error.js';
 import {cleanKeyName, nameInPem, pemWithName} from './key-name.js';
 import {FileShapeError, readCappedText} from '../shared/capped-read.js';
+import {lazySchema} from '../shared/lazy-schema.js';
 
 /**
  * A colleague's public key that this operator trusts: under a name, with the roles granted to
@@ -18,7 +19,7 @@ import {FileShapeError, readCappedText} from '../shared/capped-read.js';
  */
 export type TrustedKey = {name: string; publicKey: string; fingerprint: string; addedAt: string; roles?: string[]; revokedFrom?: string};
 
-const trustedSchema = array(object({name: string(), publicKey: string(), fingerprint: string(), addedAt: string(), roles: array(string()).optional(), revokedFrom: string().optional()}).strict());
+const trustedSchema = lazySchema(() => array(object({name: string(), publicKey: string(), fingerprint: string(), addedAt: string(), roles: array(string()).optional(), revokedFrom: string().optional()}).strict()));
 
 /** Where the operator's keys and trusted keys live: a `keys` folder beside the settings. */
 export function keyFolder(settingsFolder: string): string {

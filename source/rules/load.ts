@@ -5,7 +5,8 @@ import {compileRules} from './compile/compile.js';
 import type {CompiledRules} from './compile/compiled-rules.js';
 import {extendsBase, mergedSource, resolveRules} from './file/extends.js';
 import {parseRuleText, ruleFileExpected} from './file/rule-source.js';
-import {ruleFileSchema} from './file/schema.js';
+import {ruleFileSchema, type RuleFile} from './file/schema.js';
+import {shippedValidatedRules} from './file/shipped-rules.js';
 import {problemsOfGoodParts} from './compile/good-parts.js';
 
 export {ruleFileNamed, shippedRulesPath} from './file/rule-source.js';
@@ -33,7 +34,8 @@ export function loadRulesFromText(text: string, file: string): Result<CompiledRu
 		const loaded = loadExtending(source, sha256, parsed.warnings);
 		return twice.length === 0 ? loaded : failure([...twice, ...(loaded.ok ? [] : loaded.errors)]);
 	}
-	const validated = ruleFileSchema.safeParse(source.data);
+	const prechecked = shippedValidatedRules(sha256) as RuleFile | undefined;
+	const validated = prechecked === undefined ? ruleFileSchema.safeParse(source.data) : {success: true as const, data: prechecked};
 	if (!validated.success) return failure([...twice, ...problemsOfGoodParts(source, validated.error.issues, sha256)]);
 	const compiled = compileRules(validated.data, source, sha256);
 	if (!compiled.ok || twice.length > 0) return failure([...twice, ...(compiled.ok ? [] : compiled.errors)]);

@@ -1,5 +1,6 @@
 // Named imports (not the z namespace) let the bundler leave out the parts of zod not used.
 import {toJSONSchema, type ZodType} from 'zod';
+import {builtSchema} from './lazy-schema.js';
 
 /**
  * The one way a file's JSON Schema is made for editors: of what a person writes (the input side
@@ -8,7 +9,8 @@ import {toJSONSchema, type ZodType} from 'zod';
  * schema in place before the title is put first.
  */
 export function editorJsonSchema(title: string, schema: ZodType, adjust?: (schema: Record<string, unknown>) => void): Record<string, unknown> {
-	const made = toJSONSchema(schema, {
+	// A lazy schema is read through a stand-in; the schema itself carries the descriptions.
+	const made = toJSONSchema(builtSchema(schema), {
 		io: 'input',
 		unrepresentable: 'any',
 		override(context) {

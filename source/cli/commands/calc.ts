@@ -1,9 +1,10 @@
 import {parseArgs} from 'node:util';
-import {formulaName, rangeShortText, type Calculation, type CalculationInput} from '../../calculations/calculation.js';
+import {formulaName, rangeShortText, type Calculation} from '../../calculations/calculation.js';
 import {calculations, findCalculation} from '../../calculations/registry.js';
 import {describeCalcProblem, runCalculation} from '../../calculations/run-calculation.js';
 import {dimensions} from '../../quantities/dimensions.js';
 import {formatQuantity} from '../../quantities/format.js';
+import {compactExample} from '../../quantities/field-example.js';
 import {problem} from '../../shared/problems.js';
 import {didYouMean} from '../../shared/did-you-mean.js';
 import {UsageError} from '../usage-error.js';
@@ -20,16 +21,6 @@ export function calculationList(): string {
 	].join('\n');
 }
 
-/**
- * A whole-number input gets a whole example inside its range (awg=5, not awg=4.5; edition=2014,
- * its default, not edition=5).
- */
-function wholeExample(input: CalculationInput): string | undefined {
-	if (!input.range.whole) return undefined;
-	const rounded = Math.round(Number(dimensions[input.dimension].example));
-	return String(rounded >= input.range.min && rounded <= input.range.max ? rounded : (input.default ?? input.range.min));
-}
-
 /** The help of one calculation: inputs with dimension, description and default; outputs; formula; basis. */
 export function calculationHelp(calculation: Calculation, width = 100): string {
 	const keyWidth = Math.max(...[...Object.keys(calculation.inputs), ...Object.keys(calculation.outputs)].map((key) => key.length));
@@ -38,7 +29,7 @@ export function calculationHelp(calculation: Calculation, width = 100): string {
 		const info = dimensions[input.dimension];
 		const extra = input.default !== undefined ? ` (default ${formatQuantity(input.default, input.dimension)})` : input.optional ? ' (optional)' : '';
 		const range = `; ${rangeShortText(input.range, input.dimension)}`;
-		const example = wholeExample(input) ?? info.example.replace(' ', '');
+		const example = compactExample({dimension: input.dimension, range: input.range, ...(input.default === undefined ? {} : {default: input.default})});
 		lines.push(...definitionRow(key, `${input.description}; ${info.noun}, e.g. ${key}=${example}${range}${extra}`, keyWidth, width));
 	}
 	for (const condition of calculation.conditions ?? []) lines.push(...wrap(`Refused unless ${condition.keys[0]} is ${condition.description}.`, width));

@@ -133,6 +133,9 @@ Usage:
   prelase check --answers FILE [--rules FILE] [--json] [--records DIR]
                 [--sign NAME [--role ROLE] [--amends RECORD --reason TEXT]
                  [--cosign NAME --cosign-key FILE [--cosign-role ROLE] [--cosign-meaning verified|approved]]]
+  prelase check [--setup NAME] [--rules FILE]
+                on a terminal: the bench check on screen, step by step (--setup NAME starts it
+                on a saved setup), with the same checks and the same record
 
 Reads the setup's numbers and confirmations from an answers file (YAML), evaluates every
 check of the rule file, and prints each verdict with its value, limit and margin, failures
@@ -148,6 +151,7 @@ Exit status:
   2  bad usage or bad input (the message names the file, line and field)
   74 a file could not be written (disk full, file size limit, read-only or denied folder);
      nothing was written and the file there before is unchanged
+  130 on screen: the check was left with Ctrl-C (the draft is kept)
 
 Without --answers, on a terminal, the check runs on screen (--setup NAME starts it on that
 setup); elsewhere give --answers FILE.`,

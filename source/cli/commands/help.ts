@@ -25,6 +25,12 @@ Commands:
 ${list.flatMap((command) => definitionRow(command.name, command.summary, nameWidth, 100)).join('\n')}
 
 Every command takes --help. NO_COLOR turns colour off.
+
+Exit status:
+  0  done (each command's --help lists what it returns)
+  2  bad usage or bad input (the message says what and where)
+  70 an internal error (a bug in prelase, not in your input)
+  74 a file could not be written (disk full, file size limit, read-only or denied folder)
 The shipped bench policy is rules/default.yaml; --rules FILE uses a site policy instead.
 
 prelase says which checks held; it never says a setup is safe. The laser safety officer and

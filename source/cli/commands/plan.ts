@@ -10,6 +10,8 @@ import {testSheetHtml} from '../../render/test-sheet-html.js';
 import {testSheetMarkdown} from '../../render/test-sheet-markdown.js';
 import {recordTest} from '../../services/record-functional-test.js';
 import {formatProblem} from '../../shared/problems.js';
+import {planProblemWords} from '../../ui/planner/plan-problem-words.js';
+import {withResultsWords} from './plan-problem-text.js';
 import {editorJsonSchema} from '../../shared/json-schema.js';
 import {terminalSafeJson} from '../../shared/text.js';
 import {deferral} from '../../shared/deferral.js';
@@ -71,19 +73,19 @@ export function runPlan(args: string[], io: Io): number | Promise<number> {
 	if (!rules.ok) throw new UsageError('the rule file has problems', rules.errors);
 	const loaded = loadPlanAndText(file, rules.value);
 	if (!loaded.ok) {
-		for (const found of loaded.errors) io.stderr.write(`${formatProblem(found)}\n`);
+		for (const found of loaded.errors) io.stderr.write(`${planProblemWords(formatProblem(found))}\n`);
 		const files = [...new Set(loaded.errors.map((found) => found.file ?? file))].join(', ');
 		io.stderr.write(`prelase plan: ${loaded.errors.length} problem(s) in ${files}; nothing analysed\n`);
 		return 2;
 	}
-	for (const found of loaded.warnings) io.stderr.write(`${formatProblem(found)}\n`);
 	const {plan, text} = loaded.value;
+	for (const found of loaded.warnings) io.stderr.write(`${planProblemWords(formatProblem(found), plan)}\n`);
 	if (sheetFormat !== undefined) {
 		io.stdout.write(sheetWriters[sheetFormat as keyof typeof sheetWriters](testSheet(plan)));
 		return 0;
 	}
 	if (values['record-test'] !== undefined) {
-		const recorded = valueOrUsageError(recordTest(plan, file, text, rules.value, {results: values['record-test'], records: values.records, witnessKey: values['witness-key']}, io.env));
+		const recorded = valueOrUsageError(withResultsWords(recordTest(plan, file, text, rules.value, {results: values['record-test'], records: values.records, witnessKey: values['witness-key']}, io.env)));
 		const verdict = recorded.outcome === 'passed' ? 'PASSED' : 'FAILED';
 		io.stdout.write(
 			[
@@ -143,6 +145,7 @@ severity and the device or access point it concerns:
      nothing is recorded
   74 a file could not be written (disk full, file size limit, read-only or denied folder);
      nothing was written and the file there before is unchanged
+  130 with --edit: the planner was left with Ctrl-C (the unsaved plan is kept as a draft)
 
 The planner says which findings it has; it never says a loop is safe. The laser safety
 officer and the codes in force (IEC 60825 series, ANSI Z136 series, local law) decide.`,

@@ -106,6 +106,7 @@ remote. The system git does the work: install it where a repository folder is us
   3  sync refused: the remote's history was rewritten; nothing taken, nothing pushed
   4  sync: the remote cannot be reached (offline); the commits stay for the next sync
   5  sync: git refused the rebase or the push; the commits stay
+  74 the records folder could not be made or written (disk full, read-only or denied folder)
 
 Records are evidence for the laser safety officer; they never say a setup is safe. The laser
 safety officer and the codes in force (IEC 60825 series, ANSI Z136 series, local law) decide.`,

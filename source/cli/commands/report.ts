@@ -104,7 +104,9 @@ its SHA-256, the policy, every step with its result, stop time and note, and the
 		notes: `Exit status:
   0  the report was printed or written
   2  bad usage (no RECORD, unknown format, FILE exists)
-  3  the record fails its integrity check (altered, unsigned, unreadable); nothing is printed`,
+  3  the record fails its integrity check (altered, unsigned, unreadable); nothing is printed
+  74 the --out FILE could not be written (disk full, file size limit, read-only or denied folder);
+     no file is left`,
 	},
 	run: runReport,
 };

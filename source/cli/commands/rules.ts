@@ -127,7 +127,9 @@ docs/rule-file.md. The laser safety officer decides the site policy.`,
 		notes: `Exit status:
   validate  0 no problems, 1 problems found, 2 bad usage
   diff      0 no differences in meaning, 1 differences, 2 bad usage or a file with problems
-  init, show, schema  0 done, 2 bad usage (init: the file exists)`,
+  init, show, schema  0 done, 2 bad usage (init: the file exists)
+  init      74 the file could not be written (disk full, file size limit, read-only or denied
+            folder); no file is left`,
 	},
 	run: runRules,
 };

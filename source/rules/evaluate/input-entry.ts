@@ -1,7 +1,7 @@
 import {formatQuantity} from '../../quantities/format.js';
 import {parseQuantity} from '../../quantities/parse-quantity.js';
 import type {ConfirmationAnswer, InputAnswer} from './answers.js';
-import {dimensionWords} from '../../quantities/dimensions.js';
+import {fieldWords} from '../../quantities/field-example.js';
 import type {CompiledConfirmation, CompiledInput} from '../compile/compiled-rules.js';
 import type {ProblemCode} from '../../shared/messages.js';
 import {hasLineBreak} from '../../shared/one-line.js';
@@ -31,7 +31,7 @@ export function parseInputEntry(compiled: CompiledInput, raw: unknown): Entry<In
 	const label = `${input.label} (${input.id})`;
 	switch (input.kind) {
 		case 'quantity': {
-			const words = {label, ...dimensionWords(input.dimension)};
+			const words = {label, ...fieldWords({dimension: input.dimension, ...(compiled.range ? {range: compiled.range} : {}), ...(compiled.defaultValue ? {default: compiled.defaultValue.si} : {})})};
 			if (typeof raw !== 'string' && typeof raw !== 'number') return {ok: false, problem: {code: 'answers-not-quantity', data: {...words, expected: words.noun, received: describeRaw(raw)}}};
 			const entered = String(raw);
 			const parsed = parseQuantity(entered, input.dimension);

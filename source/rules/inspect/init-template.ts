@@ -48,7 +48,7 @@ export function siteFileTemplate(shipped: CompiledRules): string {
 	];
 	for (const [id, entry] of Object.entries(shipped.rules.policy)) {
 		const dimension = entry.dimension === undefined ? undefined : dimensions[entry.dimension];
-		const kind = dimension ? `${dimension.noun}${dimension.display ? `, for example ${dimension.example}` : ''}` : `a list of options of ${entry.options_of}`;
+		const kind = dimension ? dimension.noun : `a list of options of ${entry.options_of}`;
 		const value = policyValueText(entry.value);
 		lines.push(`#   ${id}:`, ...comment(`${entry.meaning}. Default ${value} (${kind}).`).map((text) => `#     # ${text}`), `#     value: ${value}`);
 	}

@@ -1,5 +1,6 @@
 import {dimensions} from '../../quantities/dimensions.js';
 import {formatQuantity} from '../../quantities/format.js';
+import {fieldExample} from '../../quantities/field-example.js';
 import type {CompiledRules} from '../../rules/compile/compiled-rules.js';
 import type {Field} from './session.js';
 
@@ -12,9 +13,11 @@ export function fieldHint(rules: CompiledRules, field: Field, fromRecord = false
 	const {input} = field;
 	switch (input.kind) {
 		case 'quantity': {
-			const range = rules.inputs.get(input.id)?.range;
+			const compiled = rules.inputs.get(input.id);
+			const range = compiled?.range;
 			const span = range ? `, ${formatQuantity(range.min, input.dimension)} to ${formatQuantity(range.max, input.dimension)}` : '';
-			return `${dimensions[input.dimension].noun}, e.g. ${dimensions[input.dimension].example}${span}`;
+			const example = fieldExample({dimension: input.dimension, ...(range ? {range} : {}), ...(compiled?.defaultValue ? {default: compiled.defaultValue.si} : {})});
+			return `${dimensions[input.dimension].noun}, e.g. ${example}${span}`;
 		}
 		case 'choice':
 			return '← → choose · Enter accept';

@@ -1,6 +1,7 @@
 import {accessPointSchema, deviceKinds, deviceSchema, type Plan} from '../../interlock/plan/plan-schema.js';
 import type {PlanList} from '../../interlock/plan/plan-edit.js';
 import {dimensions, type Dimension} from '../../quantities/dimensions.js';
+import {fieldExample} from '../../quantities/field-example.js';
 
 /** One field of the planner's form: where it is in the item, and how it is typed or chosen. */
 export type PlanField = {
@@ -90,7 +91,7 @@ export function typedValue(field: PlanField, entry: string): unknown {
 /** One line saying what a field expects. */
 export function planFieldHint(field: PlanField): string {
 	const optional = field.removes ? ` · empty removes the whole ${field.removes.join('.')}` : field.optional ? ' · empty leaves it out' : '';
-	if (field.kind === 'quantity' && field.dimension) return `${dimensions[field.dimension].noun} with its unit, e.g. ${dimensions[field.dimension].example}${optional}`;
+	if (field.kind === 'quantity' && field.dimension) return `${dimensions[field.dimension].noun} with its unit, e.g. ${fieldExample({dimension: field.dimension})}${optional}`;
 	if (field.kind === 'choice') return `← → choose · Enter apply${field.options?.[0] === 'yes' ? ' · y n' : ''}`;
 	if (field.kind === 'number') return `a whole number${optional}`;
 	if (field.kind === 'run') return 'Enter opens the wire run: its size and length together';

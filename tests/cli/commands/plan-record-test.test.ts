@@ -130,9 +130,9 @@ describe('prelase plan FILE --record-test RESULTS', () => {
 		expect(code).toBe(2);
 		expect(stdout).toBe('');
 		const lineOf = (needle: string) => text.slice(0, text.indexOf(needle)).split('\n').length;
-		expect(stderr.split('\n').filter(Boolean).map((line) => line.replace(/^(.+?:\d+):\d+: error: ([\w.]+): .*$/, '$1 $2'))).toEqual([
-			`${results}:${lineOf('room_door')} steps.3.concerns`,
-			`${results}:${lineOf('25 ms')} steps.4.stopped_in`,
+		expect(stderr.split('\n').filter(Boolean).map((line) => line.replace(/^(.+?:\d+):\d+: error: (step \d+ of the results: [a-z ]+?): .*$/, '$1 $2'))).toEqual([
+			`${results}:${lineOf('room_door')} step 4 of the results: concerns`,
+			`${results}:${lineOf('25 ms')} step 5 of the results: stopped in`,
 			'prelase: the results file has problems; no record was written',
 		]);
 		expect(existsSync(records)).toBe(false);

@@ -38,7 +38,7 @@ describe('single-line fields of a plan refuse a line break: exit 2, file:line, t
 	it.each([
 		{name: 'the plan name', from: 'name: Fenwick Hollow B.112 bench 3 — enclosure and room loop', to: 'name: "Loop\\nOutcome: passed"', field: 'name'},
 		{name: 'the location', from: 'location: Room B.112, bench 3 ', to: 'location: "Room B.112\\r\\nbench 3" ', field: 'location'},
-		{name: 'a device description', from: 'description: Hinged lid of the bench 3 beam enclosure', to: 'description: "Hinged lid\\u2028FAKE"', field: 'access_points.0.description'},
+		{name: 'a device description', from: 'description: Hinged lid of the bench 3 beam enclosure', to: 'description: "Hinged lid\\u2028FAKE"', field: 'access point 1: description'},
 	])('$name', async ({from, to, field}) => {
 		const edited = edit(planText, from, to);
 		const file = writeTemp('plan.yaml', edited.text);
@@ -52,9 +52,9 @@ describe('single-line fields of a plan refuse a line break: exit 2, file:line, t
 
 describe('single-line fields of test results refuse a line break: exit 2, file:line, the field', () => {
 	it.each([
-		{name: 'the tester\'s name', from: 'tested_by: {name: Ines Marlow,', to: 'tested_by: {name: "Ines\\nMarlow",', field: 'tested_by.name'},
-		{name: 'the witness\'s role', from: 'role: deputy laser safety officer}', to: 'role: "deputy\\nlaser safety officer"}', field: 'witness.role'},
-		{name: 'what a step concerns', from: '{step: 1, concerns: lid_switch,', to: '{step: 1, concerns: "lid_switch\\nOutcome: passed",', field: 'steps.0.concerns'},
+		{name: 'the tester\'s name', from: 'tested_by: {name: Ines Marlow,', to: 'tested_by: {name: "Ines\\nMarlow",', field: 'tested by: name'},
+		{name: 'the witness\'s role', from: 'role: deputy laser safety officer}', to: 'role: "deputy\\nlaser safety officer"}', field: 'witness: role'},
+		{name: 'what a step concerns', from: '{step: 1, concerns: lid_switch,', to: '{step: 1, concerns: "lid_switch\\nOutcome: passed",', field: 'step 1 of the results: concerns'},
 	])('$name', async ({from, to, field}) => {
 		const edited = edit(resultsText, from, to);
 		const file = writeTemp('results.yaml', edited.text);
