@@ -7,3 +7,6 @@ export type JudgeTask = {task: 'prelase-audit-judge'; rulesFile: string; trust: 
 export function isJudgeTask(data: unknown): data is JudgeTask {
 	return typeof data === 'object' && data !== null && (data as {task?: unknown}).task === 'prelase-audit-judge';
 }
+
+/** Records above which a summarised audit is judged in worker threads by default: starting a worker (loading the program) costs about as much as judging a few hundred records. */
+export const parallelAbove = 2000;

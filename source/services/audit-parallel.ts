@@ -5,9 +5,8 @@ import {AuditRun, judgeForSummary, runContext, type AuditOptions, type AuditRepo
 import {loadRules} from '../rules/load.js';
 import {formatProblem} from '../shared/problems.js';
 import type {JudgeTask} from './audit-judge-task.js';
+export {parallelAbove} from './audit-judge-task.js';
 
-/** Records below which a summarised audit is judged in its own thread: starting a worker (loading the program) costs about as much as judging a few hundred records. */
-export const parallelAbove = 2000;
 
 /** The worker threads an audit uses by default: one a core, at most four (each loads the program, about 25 MB). */
 export function defaultJobs(): number {
