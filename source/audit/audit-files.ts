@@ -1,4 +1,4 @@
-import {lstatSync, readdirSync, realpathSync, statSync, type Stats} from 'node:fs';
+import {lstatSync, readdirSync, realpathSync, statSync, type Dirent, type Stats} from 'node:fs';
 import {join, resolve} from 'node:path';
 
 /** Record files found under the paths given, and the paths that do not exist. */
@@ -35,9 +35,11 @@ export function listRecordFiles(paths: readonly string[]): RecordFiles {
 		const names = listFolder(folder, seenFolders);
 		// A folder that cannot be listed is audited as a file: it is then reported as unreadable, never passed over.
 		if (names === 'unreadable') return add(folder);
-		for (const name of names) {
+		for (const entry of names) {
+			const name = entry.name;
 			const path = join(folder, name);
-			const stat = statOrDenied(path, lstatSync);
+			// The folder's listing says what each name is (no stat of each file); where it cannot tell, lstat does.
+			const stat = entry.isFile() ? entry : entry.isDirectory() ? entry : statOrDenied(path, lstatSync);
 			if (stat === 'denied') add(path);
 			else if (stat?.isDirectory()) walk(path);
 			// A link inside a folder is not followed (it could leave the folder, loop, or show a record twice):
@@ -60,12 +62,14 @@ export function listRecordFiles(paths: readonly string[]): RecordFiles {
 }
 
 /** The names to look at in a folder (none when it was seen already by another path), or 'unreadable' when it cannot be listed. */
-function listFolder(folder: string, seenFolders: Set<string>): string[] | 'unreadable' {
+function listFolder(folder: string, seenFolders: Set<string>): Dirent[] | 'unreadable' {
 	try {
 		const real = realpathSync(folder);
 		if (seenFolders.has(real)) return [];
 		seenFolders.add(real);
-		return readdirSync(folder).filter((name) => !skipped(name)).sort();
+		return readdirSync(folder, {withFileTypes: true})
+			.filter((entry) => !skipped(entry.name))
+			.sort((a, b) => (a.name < b.name ? -1 : a.name > b.name ? 1 : 0));
 	} catch {
 		return 'unreadable';
 	}
