@@ -21,7 +21,7 @@ export function readCappedText(path: string, maxBytes = maxSmallFileBytes): stri
 		const stat = fstatSync(descriptor);
 		if (!stat.isFile()) throw new FileShapeError(`it is ${fileKind(stat)}, not a regular file`);
 		if (stat.size > maxBytes) throw new FileShapeError(`it is ${stat.size} bytes, above the ${maxBytes} bytes such a file may have`);
-		const read = readToCap(descriptor, maxBytes);
+		const read = readToCap(descriptor, maxBytes, stat.size);
 		if (!read.ok) throw new FileShapeError(`it is more than ${maxBytes} bytes, the most such a file may have`);
 		return read.bytes.toString('utf8');
 	} finally {

@@ -44,7 +44,7 @@ export function readTextFile(file: string, expected: string, maxBytes = maxYamlF
 		if (!stat.isFile()) return failure([problem('file-not-regular', {expected}, {file})]);
 		if (stat.size > maxBytes) return failure([problem('file-too-large', {size: stat.size, max: maxBytes, expected}, {file})]);
 		// Read to the end in chunks, stopping past the limit: a file that grows while it is read is still bounded.
-		const read = readToCap(descriptor, maxBytes);
+		const read = readToCap(descriptor, maxBytes, stat.size);
 		if (!read.ok) return failure([problem('file-too-large', {size: read.length, max: maxBytes, expected}, {file})]);
 		bytes = read.bytes;
 	} catch (error) {
