@@ -2,6 +2,10 @@ import {planSchema, type Plan} from '../../source/interlock/plan/plan-schema.js'
 import {loadPlan} from '../../source/interlock/plan/load-plan.js';
 import {interlockPolicy, type InterlockPolicy} from '../../source/interlock/plan/policy.js';
 import {loadRules, shippedRulesPath} from '../../source/rules/load.js';
+import {openPlanForEditing, type PlanEditing} from '../../source/interlock/plan/plan-edit.js';
+import {copyFileSync, mkdtempSync} from 'node:fs';
+import {tmpdir} from 'node:os';
+import {join} from 'node:path';
 
 /** The demo plan of the invented Fenwick Hollow lab. */
 export const demoPlanFile = 'docs/examples/interlock/bench3-interlock-plan.yaml';
@@ -63,4 +67,15 @@ export function testPolicy(changes: Partial<InterlockPolicy> = {}): InterlockPol
 /** Validates a plan entry and gives it a policy; throws when a test wrote an invalid one, since that is the test's mistake. */
 export function makePlan(changes: Record<string, unknown> = {}, policy: Partial<InterlockPolicy> = {}): Plan {
 	return {...planSchema.parse(planEntry(changes)), policy: testPolicy(policy)};
+}
+
+/** The demo plan copied to a fresh folder and opened for editing under the shipped policy. */
+export function openDemoForEditing(prefix = 'prelase-plan-edit-'): PlanEditing {
+	const file = join(mkdtempSync(join(tmpdir(), prefix)), 'plan.yaml');
+	copyFileSync(demoPlanFile, file);
+	const rules = loadRules(shippedRulesPath());
+	if (!rules.ok) throw new Error(JSON.stringify(rules.errors));
+	const opened = openPlanForEditing(file, rules.value);
+	if (!opened.ok) throw new Error(JSON.stringify(opened.errors));
+	return opened.value;
 }

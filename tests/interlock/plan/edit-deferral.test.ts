@@ -1,23 +1,11 @@
-import {copyFileSync, mkdtempSync} from 'node:fs';
-import {tmpdir} from 'node:os';
-import {join} from 'node:path';
 import {describe, expect, it} from 'vitest';
 import {deferringEdits} from '../../../source/interlock/plan/edit-deferral.js';
-import {addItem, draftFieldProblem, moveDevice, openPlanForEditing, planEditingText, removeItem, setItemField, type EditResult, type PlanEditing} from '../../../source/interlock/plan/plan-edit.js';
+import {addItem, draftFieldProblem, moveDevice, planEditingText, removeItem, setItemField, type EditResult, type PlanEditing} from '../../../source/interlock/plan/plan-edit.js';
 import {planDocumentText} from '../../../source/interlock/plan/plan-yaml.js';
-import {loadRules, shippedRulesPath} from '../../../source/rules/load.js';
 import {finish} from '../../../source/shared/steps.js';
-import {demoPlanFile} from '../plan-fixture.js';
+import {openDemoForEditing} from '../plan-fixture.js';
 
-function openDemo(): PlanEditing {
-	const file = join(mkdtempSync(join(tmpdir(), 'prelase-edit-deferral-')), 'plan.yaml');
-	copyFileSync(demoPlanFile, file);
-	const rules = loadRules(shippedRulesPath());
-	if (!rules.ok) throw new Error(JSON.stringify(rules.errors));
-	const opened = openPlanForEditing(file, rules.value);
-	if (!opened.ok) throw new Error(JSON.stringify(opened.errors));
-	return opened.value;
-}
+const openDemo = (): PlanEditing => openDemoForEditing('prelase-edit-deferral-');
 
 /** What an edit result holds that a person or a file sees: the plan text, the plan, the analysis, or the refusal. */
 function seen(result: EditResult) {

@@ -1,25 +1,14 @@
-import {copyFileSync, mkdtempSync, readdirSync, readFileSync} from 'node:fs';
-import {tmpdir} from 'node:os';
+import {readdirSync, readFileSync} from 'node:fs';
 import {join} from 'node:path';
 import {describe, expect, it} from 'vitest';
 import {loadPlan} from '../../../source/interlock/plan/load-plan.js';
-import {addItem, moveDevice, openPlanForEditing, planEditingText, removeItem, setItemField, type EditResult, type PlanEditing} from '../../../source/interlock/plan/plan-edit.js';
+import {addItem, moveDevice, planEditingText, removeItem, setItemField, type EditResult, type PlanEditing} from '../../../source/interlock/plan/plan-edit.js';
 import {savePlanEditing} from '../../../source/interlock/plan/save-plan.js';
-import {loadRules, shippedRulesPath} from '../../../source/rules/load.js';
-import {demoPlanFile} from '../plan-fixture.js';
+import {demoPlanFile, openDemoForEditing} from '../plan-fixture.js';
 
 const demoText = readFileSync(demoPlanFile, 'utf8');
 
-/** The demo plan copied to a fresh folder and opened for editing under the shipped policy. */
-function openDemo(): PlanEditing {
-	const file = join(mkdtempSync(join(tmpdir(), 'prelase-plan-edit-')), 'plan.yaml');
-	copyFileSync(demoPlanFile, file);
-	const rules = loadRules(shippedRulesPath());
-	if (!rules.ok) throw new Error(JSON.stringify(rules.errors));
-	const opened = openPlanForEditing(file, rules.value);
-	if (!opened.ok) throw new Error(JSON.stringify(opened.errors));
-	return opened.value;
-}
+const openDemo = (): PlanEditing => openDemoForEditing('prelase-plan-edit-');
 
 function applied(result: EditResult): PlanEditing {
 	if (!result.ok) throw new Error(`refused: ${result.message}`);
