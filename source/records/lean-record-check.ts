@@ -77,7 +77,7 @@ function isSignature(value: unknown): boolean {
 		optional(value['meaning'], oneOf(meanings)) &&
 		optional(value['purpose'], oneOf(purposes)) &&
 		optional(value['endorses'], (list) => Array.isArray(list) && list.every(matches(hex64))) &&
-		optional(value['count'], (count) => Number.isInteger(count) && (count as number) > 0) &&
+		optional(value['count'], (count) => Number.isSafeInteger(count) && (count as number) > 0) &&
 		isText(value['signedAt']) &&
 		value['algorithm'] === 'Ed25519' &&
 		matches(publicKeyText)(value['publicKey']) &&

@@ -76,6 +76,7 @@ describe('isLeanBenchRecord: a quick yes only where the record schema says yes',
 		['a margin with its SI number (before the lean body)', (data: any) => (data.body.checks[0].margin = {si: 1, unit: 'A', text: '1 A', fraction: 0.1})],
 		['an unknown name in a check', (data: any) => (data.body.checks[0].extra = 1)],
 		['no signatures', (data: any) => (data.signatures = [])],
+		['a signature count past the safe integers (found by this property at seed 735308053)', (data: any) => (data.signatures[0].count = 2 ** 53)],
 		['a fingerprint in capitals', (data: any) => (data.signatures[0].fingerprint = data.signatures[0].fingerprint.toUpperCase())],
 	])('leaves to the schema: %s', (_label, change) => {
 		const data = structuredClone(written[0]) as any;
