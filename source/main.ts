@@ -12,4 +12,7 @@ process.stdout.on('error', (error: NodeJS.ErrnoException) => {
 });
 
 // A worker thread of this program (the screens' audit) runs its task instead of a command.
-if (!(await runWorkerTask())) process.exitCode = await main(process.argv.slice(2), {stdout: process.stdout, stderr: process.stderr, env: process.env, stdin: process.stdin});
+// (No top-level await: the bundle is CommonJS, see scripts/launcher.cjs.)
+void runWorkerTask().then(async (isWorker) => {
+	if (!isWorker) process.exitCode = await main(process.argv.slice(2), {stdout: process.stdout, stderr: process.stderr, env: process.env, stdin: process.stdin});
+});

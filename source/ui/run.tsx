@@ -25,6 +25,8 @@ export async function runScreens(options: ScreenOptions): Promise<{code: number;
 		((folder: string) => auditInWorker({folder, rulesFile: rules.value.file, settingsFolder: settings.folder, columns: process.stdout.columns ?? 80}, new URL(import.meta.url)));
 	let code = 0;
 	let farewell: string | undefined;
+	// In the bundle, Yoga's WebAssembly is ready a moment after Ink is loaded (scripts/top-level-await-patches.mjs); unbundled, at once.
+	await (globalThis as {__prelaseYogaReady?: Promise<void>}).__prelaseYogaReady;
 	const instance = render(<App rules={rules.value.rules} {...(rules.value.broken ? {brokenRules: {file: rules.value.broken.file, settingsPath: rules.value.broken.settingsPath, problems: rules.value.broken.problems.map(formatProblem)}} : {})} settings={settings} env={options.env} {...(options.startCheck ? {startCheck: options.startCheck} : {})} {...(options.startPlan === undefined ? {} : {startPlan: options.startPlan})} audit={audit} onExit={(value, line) => {
 				code = value;
 				farewell = line;
