@@ -1,6 +1,7 @@
 // The program is bundled as CommonJS (so that its launcher can compile it with V8's code cache,
 // see scripts/launcher.cjs), and CommonJS has no top-level await. Two dependencies of the screens
-// use it; this esbuild plugin rewrites those few lines at bundle time. Each rewrite must match its
+// use it; this esbuild plugin rewrites those few lines at bundle time (and one line of Yoga's
+// loader that costs the first frame 50 ms). Each rewrite must match its
 // text exactly once, else the build stops: an upgraded dependency is looked at, never guessed at.
 import {readFile} from 'node:fs/promises';
 
@@ -11,6 +12,14 @@ const patches = [
 		// before the first render, source/ui/run.tsx; Ink reads Yoga only inside functions).
 		file: /yoga-layout[\\/]dist[\\/]src[\\/]index\.js$/,
 		replace: [['const Yoga = wrapAssembly(await loadYoga());', 'const Yoga = {};\nglobalThis.__prelaseYogaReady = loadYoga().then((lib) => { Object.assign(Yoga, wrapAssembly(lib)); });']],
+	},
+	{
+		// Not top-level await, but the same kind of line: Yoga's WebAssembly is embedded as a base64
+		// data: URL, and its loader reads it with fetch() when fetch exists, which in Node loads the
+		// whole HTTP client (about 50 ms before the first frame). The loader's own base64 decoding is
+		// used instead (what it does where fetch does not exist).
+		file: /yoga-layout[\\/]dist[\\/]binaries[\\/]yoga-wasm-base64-esm\.js$/,
+		replace: [['"function"!=typeof fetch?Promise.resolve()', 'true?Promise.resolve()']],
 	},
 	{
 		// Ink loads its developer tools and its own package.json only when DEV=true; the bundle has
