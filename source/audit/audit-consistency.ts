@@ -114,13 +114,33 @@ function confirmationFindings(body: RecordBody, evaluation: Evaluation): Finding
  * the outcome. Each difference is a finding.
  */
 export function consistencyFindings(body: RecordBody, rules: CompiledRules, read: RecordAnswers, evaluation: Evaluation): Finding[] {
-	const found = [...inputFindings(body, read)];
+	return [...identityFindings(body, rules, read), ...conclusionFindings(body, evaluation)];
+}
+
+/** The part of consistencyFindings that reads the record's own inputs as entered and its setup: different in every record. */
+export function identityFindings(body: RecordBody, rules: CompiledRules, read: RecordAnswers): Finding[] {
+	const found = inputFindings(body, read);
 	const setup = setupFingerprint(rules, read.answers).fingerprint;
 	if (setup !== body.setup.fingerprint) found.push(finding('consistency', 'audit-setup-fingerprint-mismatch', {recorded: body.setup.fingerprint, computed: setup}));
-	found.push(...derivedFindings(body, evaluation), ...checkFindings(body, evaluation), ...confirmationFindings(body, evaluation));
+	return found;
+}
+
+/**
+ * The part of consistencyFindings that compares the record's conclusions with the evaluation:
+ * it reads only the evaluation and the body's derived values, checks, counts, confirmations,
+ * missing inputs and outcome (conclusionParts), so records that hold the same conclusions under
+ * the same evaluation get the same findings.
+ */
+export function conclusionFindings(body: RecordBody, evaluation: Evaluation): Finding[] {
+	const found = [...derivedFindings(body, evaluation), ...checkFindings(body, evaluation), ...confirmationFindings(body, evaluation)];
 	const missing = [...evaluation.missingInputs].sort();
 	const heldMissing = [...body.missingInputs].sort();
 	if (missing.join('\n') !== heldMissing.join('\n')) found.push(finding('consistency', 'audit-missing-inputs-mismatch', {recorded: describeList(heldMissing), computed: describeList(missing)}));
 	if (evaluation.outcome !== body.outcome) found.push(finding('consistency', 'audit-outcome-mismatch', {recorded: outcomeWords[body.outcome], computed: outcomeWords[evaluation.outcome]}));
 	return found;
+}
+
+/** Every part of a body that conclusionFindings reads. */
+export function conclusionParts(body: RecordBody): unknown[] {
+	return [body.derived, body.checks, body.counts, body.confirmations, body.missingInputs, body.outcome];
 }

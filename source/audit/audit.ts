@@ -7,12 +7,7 @@
  * history, the site's store) goes in its own file, called from endOfRun.
  */
 import type {CompiledRules} from '../rules/compile/compiled-rules.js';
-import {evaluate} from '../rules/evaluate/evaluate.js';
-import {evaluationKey} from '../rules/evaluate/evaluation-key.js';
-import type {Evaluation} from '../rules/evaluate/evaluation.js';
 import {version} from '../shared/version.js';
-import {answersFromRecord, type RecordAnswers} from './audit-answers.js';
-import {consistencyFindings} from './audit-consistency.js';
 import type {Finding, FindingKind} from '../records/findings.js';
 import {describeProblem} from '../shared/problems.js';
 import {notChecked} from './audit-findings.js';
@@ -22,7 +17,8 @@ import {KeyCache, readIntegrity} from '../records/integrity.js';
 import {interlockTestConsistency, interlockTestToday, summariseInterlockTest, type InterlockTestSummary} from './audit-interlock.js';
 import {linkInterlockTests} from './audit-interlock-link.js';
 import type {RecordSummary} from './record-summary.js';
-import {policyReport, type PolicyReport} from './audit-policy.js';
+import type {PolicyReport} from './audit-policy.js';
+import {auditContents, ContentsMemo} from './audit-contents.js';
 import {signatureReports, type SignatureReport, type Trust} from './audit-trust.js';
 import {confirmationList, inputEntry, type RecordBody} from '../records/record-schema.js';
 import {locationInput} from '../interlock/plan/plan-input.js';
@@ -108,44 +104,6 @@ function historyEntry(file: string, bodySha256: string, body: RecordBody, words:
 	return {file, bodySha256, createdAt: body.createdAt, setupName: body.setup.name, fingerprint: body.setup.fingerprint, identifying, ...(body.amends ? {amends: body.amends} : {})};
 }
 
-/** Audits one authentic record's contents: consistency under its own rules, and what the current rules would change. */
-/**
- * Evaluations already made in this audit, by evaluation key: records of one setup with the
- * same numbers under the same rules are evaluated once (evaluate is pure). Bounded: the oldest
- * is dropped first.
- */
-class Evaluations {
-	readonly #known = new Map<string, Evaluation>();
-
-	of(rules: CompiledRules, answers: RecordAnswers['answers']): Evaluation {
-		const key = evaluationKey(rules, answers);
-		let evaluation = this.#known.get(key);
-		if (!evaluation) {
-			evaluation = evaluate(rules, answers);
-			if (this.#known.size >= 512) this.#known.delete(this.#known.keys().next().value!);
-			this.#known.set(key, evaluation);
-		}
-		return evaluation;
-	}
-}
-
-function auditContents(body: RecordBody, own: RecordRules, current: CompiledRules, evaluations: Evaluations): {consistency: NonNullable<RecordAudit['consistency']>; policy: PolicyReport; findings: Finding[]; switchedOff: number} {
-	const findings: Finding[] = [...own.findings];
-	let judged: {rules: CompiledRules; read: RecordAnswers; evaluation: Evaluation} | undefined;
-	if (own.rules) {
-		const read = answersFromRecord(own.rules, body);
-		judged = {rules: own.rules, read, evaluation: evaluations.of(own.rules, read.answers)};
-		findings.push(...consistencyFindings(body, judged.rules, read, judged.evaluation));
-	}
-	const consistency = {reevaluated: judged !== undefined, consistent: findings.length === 0, rulesSha256: own.sha256};
-
-	// The same rule text and the same answers give the same evaluation: evaluate is pure.
-	const read = judged && judged.rules === current ? judged.read : answersFromRecord(current, body);
-	const evaluation = judged && judged.rules === current ? judged.evaluation : evaluations.of(current, read.answers);
-	const policy = policyReport(body, current, read, evaluation);
-	return {consistency, policy: policy.report, findings: [...findings, ...policy.findings], switchedOff: judged?.rules.switchedOff.length ?? 0};
-}
-
 const emptyFindings = (): Record<FindingKind, number> => ({integrity: 0, trust: 0, consistency: 0, policy: 0, history: 0});
 
 /** One record as the audit keeps it until the end of the run. */
@@ -155,7 +113,7 @@ type Judged = Omit<RecordAudit, 'findings'> & {findings: Finding[]};
 type Kept = Judged | SummaryAudit;
 
 /** What the per-record step needs besides the file. */
-type RunContext = {evaluations: Evaluations; keys: KeyCache; rules: RuleTexts; options: AuditOptions; now: Date; notChecked: ReadonlyArray<{item: string; text: string}>; signing: ReturnType<typeof signingPolicy>};
+type RunContext = {memo: ContentsMemo; keys: KeyCache; rules: RuleTexts; options: AuditOptions; now: Date; notChecked: ReadonlyArray<{item: string; text: string}>; signing: ReturnType<typeof signingPolicy>};
 
 /** What one record leaves for the end of the run: its audit, and for a bench check what relates it to the others. */
 type Judgement = {audit: Judged; bench?: {entry: HistoryEntry; location: string | undefined}; /** What the chain audit keeps of the file. */ chained: ChainEntry};
@@ -192,7 +150,7 @@ function judgeRecord(file: string, index: number, context: RunContext): Judgemen
 		return {chained, audit: {file, authentic: true, bodySha256: checked.bodySha256, record, interlockTest, signatures: trust.signatures, consistency, currentPolicy: null, history: null, notChecked: versionNote, findings: [...trust.findings, ...signed, ...contents.findings, ...today]}};
 	}
 	const bench = body as RecordBody;
-	const contents = auditContents(bench, own!, options.current, context.evaluations);
+	const contents = auditContents(bench, own!, options.current, context.memo);
 	return {
 		audit: {
 			file,
@@ -214,7 +172,7 @@ function judgeRecord(file: string, index: number, context: RunContext): Judgemen
 
 /** The context of the per-record step, for the audit in this thread or in a worker thread. */
 export function runContext(options: AuditOptions): RunContext {
-	return {evaluations: new Evaluations(), keys: new KeyCache(), rules: new RuleTexts(options.current), options, now: options.now ?? new Date(), notChecked: notChecked.map(({item, code}) => ({item, text: describeProblem({code, data: {}})})), signing: signingPolicy(options.current)};
+	return {memo: new ContentsMemo(), keys: new KeyCache(), rules: new RuleTexts(options.current), options, now: options.now ?? new Date(), notChecked: notChecked.map(({item, code}) => ({item, text: describeProblem({code, data: {}})})), signing: signingPolicy(options.current)};
 }
 
 /** Judges one record for a summarised audit and gives its short form as plain data (a worker thread posts it to the audit's thread). */

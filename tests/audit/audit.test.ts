@@ -270,6 +270,27 @@ describe('consistency: altered and signed again with a valid key (exit 1)', () =
 		expect(audited!.consistency).toMatchObject({reevaluated: false, consistent: false});
 		expect(codes(audited!)).toEqual(expect.arrayContaining(['audit-rules-hash-mismatch', 'audit-rules-do-not-load']));
 	});
+
+	// The audit compares records that hold the same conclusions under the same evaluation once
+	// (audit-contents.ts): an altered record among honest ones of the same numbers must still be
+	// judged on what it holds, and an honest one after it must not inherit its findings.
+	it('honest and altered records of the same numbers in one audit: each judged on its own conclusions', () => {
+		const verdict = resigned((body) => {
+			body.checks.find((check) => check.id === 'emission_delay_long_enough')!.verdict = 'fail';
+		});
+		const figure = resigned((body) => {
+			body.checks.find((entry) => entry.id === 'emission_delay_long_enough')!.value = {si: 4, unit: 's', text: '4 s'};
+		});
+		const counts = resigned((body) => {
+			body.counts = {...body.counts, pass: (body.counts['pass'] ?? 0) + 1};
+		});
+		const consistencyCodes = (audited: RecordAudit) => audited.findings.filter((found) => found.kind === 'consistency').map((found) => found.code);
+		const alone = [verdict, figure, counts].map((record) => consistencyCodes(audit([writeRecordFile(record)]).records[0]!));
+		const paths = [cleanPath, writeRecordFile(verdict), writeRecordFile(resigned(() => {})), writeRecordFile(figure), cleanPath, writeRecordFile(counts), writeRecordFile(resigned(() => {}))];
+		const together = audit(paths).records.map(consistencyCodes);
+		expect(together).toEqual([[], alone[0], [], alone[1], [], alone[2], []]);
+		expect(alone).toEqual([expect.arrayContaining(['audit-verdict-mismatch']), ['audit-figure-mismatch'], ['audit-counts-mismatch']]);
+	});
 });
 
 describe('trust', () => {
