@@ -41,10 +41,16 @@ export class ContentsMemo {
 		return evaluation;
 	}
 
-	/** The comparisons of a body with its own evaluation (undefined: its rule text was not had) and the current one. */
-	compared(body: RecordBody, own: Evaluation | undefined, current: {rules: CompiledRules; read: RecordAnswers; evaluation: Evaluation}): Compared {
-		// Every input of the two comparisons: the evaluations (by identity), the body's parts they read, and what the current rules made of its inputs.
-		const key = `${own ? this.#id(own) : '-'} ${this.#id(current.evaluation)} ${JSON.stringify([...conclusionParts(body), body.rules.sha256, current.read.refusedInputs, current.read.unknownInputs])}`;
+	/**
+	 * The comparisons of a body with its own evaluation (undefined: its rule text was not had) and
+	 * the current one. `members`: the canonical text of each of the body's members, when
+	 * integrity checking made them (the body's parts need not be written again for the key).
+	 */
+	compared(body: RecordBody, members: ReadonlyMap<string, string> | undefined, own: Evaluation | undefined, current: {rules: CompiledRules; read: RecordAnswers; evaluation: Evaluation}): Compared {
+		// Every input of the two comparisons: the evaluations (by identity), the body's parts they read, and what the current rules made of its inputs. JSON text has no line break.
+		const texts = members && conclusionMembers.map((name) => members.get(name));
+		const parts = texts?.every((text) => text !== undefined) ? texts.join('\n') : JSON.stringify(conclusionParts(body));
+		const key = `${own ? this.#id(own) : '-'} ${this.#id(current.evaluation)}\n${parts}\n${JSON.stringify([body.rules.sha256, current.read.refusedInputs, current.read.unknownInputs])}`;
 		let compared = this.#compared.get(key);
 		if (!compared) {
 			compared = {conclusions: own ? conclusionFindings(body, own) : [], policy: policyReport(body, current.rules, current.read, current.evaluation)};
@@ -60,6 +66,9 @@ export class ContentsMemo {
 	}
 }
 
+/** The body's members whose values conclusionParts gives, by name (both the same parts; a test holds them equal). */
+export const conclusionMembers = ['derived', 'checks', 'counts', 'confirmations', 'missingInputs', 'outcome'];
+
 function remember<T>(memo: Map<string, T>, key: string, value: T): void {
 	if (memo.size >= kept) memo.delete(memo.keys().next().value!);
 	memo.set(key, value);
@@ -71,7 +80,7 @@ function remember<T>(memo: Map<string, T>, key: string, value: T): void {
  * change. The findings are new arrays; the finding objects and the policy report may be shared
  * with other records (they are never changed once made).
  */
-export function auditContents(body: RecordBody, own: RecordRules, current: CompiledRules, memo: ContentsMemo): ContentsAudit {
+export function auditContents(body: RecordBody, members: ReadonlyMap<string, string> | undefined, own: RecordRules, current: CompiledRules, memo: ContentsMemo): ContentsAudit {
 	const findings: Finding[] = [...own.findings];
 	let judged: {rules: CompiledRules; read: RecordAnswers; evaluation: Evaluation} | undefined;
 	if (own.rules) {
@@ -82,7 +91,7 @@ export function auditContents(body: RecordBody, own: RecordRules, current: Compi
 	// The same rule text and the same answers give the same evaluation: evaluate is pure.
 	const read = judged && judged.rules === current ? judged.read : answersFromRecord(current, body);
 	const evaluation = judged && judged.rules === current ? judged.evaluation : memo.evaluation(current, read.answers);
-	const compared = memo.compared(body, judged?.evaluation, {rules: current, read, evaluation});
+	const compared = memo.compared(body, members, judged?.evaluation, {rules: current, read, evaluation});
 	findings.push(...compared.conclusions);
 	const consistency = {reevaluated: judged !== undefined, consistent: findings.length === 0, rulesSha256: own.sha256};
 	return {consistency, policy: compared.policy.report, findings: [...findings, ...compared.policy.findings], switchedOff: judged?.rules.switchedOff.length ?? 0};

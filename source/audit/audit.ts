@@ -150,7 +150,7 @@ function judgeRecord(file: string, index: number, context: RunContext): Judgemen
 		return {chained, audit: {file, authentic: true, bodySha256: checked.bodySha256, record, interlockTest, signatures: trust.signatures, consistency, currentPolicy: null, history: null, notChecked: versionNote, findings: [...trust.findings, ...signed, ...contents.findings, ...today]}};
 	}
 	const bench = body as RecordBody;
-	const contents = auditContents(bench, own!, options.current, context.memo);
+	const contents = auditContents(bench, checked.bodyMembers, own!, options.current, context.memo);
 	return {
 		audit: {
 			file,

@@ -83,6 +83,26 @@ export function canonicalJsonOfParsed(value: unknown): string {
 	return canonicalJson(value);
 }
 
+/**
+ * The canonical text of an object read by JSON.parse, and the canonical text of each of its
+ * members' values by name, on the fast path of canonicalJsonOfParsed only (undefined otherwise:
+ * use canonicalJsonOfParsed). The text is the same as canonicalJsonOfParsed's, built member by
+ * member, so a caller can tell records apart by some of their members without writing them again.
+ */
+export function canonicalMembersOfParsed(value: unknown): {text: string; members: Map<string, string>} | undefined {
+	if (typeof value !== 'object' || value === null || Array.isArray(value) || !inCanonicalOrder(value)) return undefined;
+	const members = new Map<string, string>();
+	const parts: string[] = [];
+	for (const [name, item] of Object.entries(value)) {
+		const nameText = JSON.stringify(name);
+		const itemText = JSON.stringify(item);
+		if (loneSurrogate.test(nameText) || loneSurrogate.test(itemText)) return undefined;
+		parts.push(`${nameText}:${itemText}`);
+		members.set(name, itemText);
+	}
+	return {text: `{${parts.join(',')}}`, members};
+}
+
 /** Whether every object's names, in the order JSON.stringify writes them, are in strictly rising UTF-16 order. */
 function inCanonicalOrder(value: unknown): boolean {
 	if (typeof value !== 'object' || value === null) return true;

@@ -1,7 +1,7 @@
 import {sha256Hex} from '../shared/sha256.js';
 import type {KeyObject} from 'node:crypto';
 import {readRecordFile} from '../shared/record-file-read.js';
-import {canonicalJson, canonicalJsonOfParsed} from './canonical-json.js';
+import {canonicalJson, canonicalJsonOfParsed, canonicalMembersOfParsed} from './canonical-json.js';
 import {finding, type Finding} from './findings.js';
 import {unsafeJsonKey} from './unsafe-json-names.js';
 import {isLeanBenchRecord} from './lean-record-check.js';
@@ -15,7 +15,7 @@ export type SignatureCheck = {index: number; valid: boolean; code?: Finding['cod
 
 /** A record that passed integrity checking, with the SHA-256 of its canonical body; or why it did not. */
 export type IntegrityCheck = (
-	| {ok: true; record: AnyRecord; bodySha256: string; signatures: SignatureCheck[]}
+	| {ok: true; record: AnyRecord; bodySha256: string; signatures: SignatureCheck[]; /** The canonical text of each of the body's members, when the body was in canonical order (as prelase writes it). */ bodyMembers?: ReadonlyMap<string, string>}
 	| {ok: false; finding: Finding; record?: AnyRecord; signatures?: SignatureCheck[]}
 ) & {/** SHA-256 of the file's exact bytes, when read from a file: how the chain names a record. */ fileSha256?: string};
 
@@ -86,9 +86,13 @@ export function checkIntegrity(text: string, keys: KeyCache): IntegrityCheck {
 	const shape = signatureShapeFinding(record);
 	if (shape) return {ok: false, record, finding: shape};
 	let body: string;
+	let members: Map<string, string> | undefined;
 	try {
 		// The body as read from the file, not as the schema returns it (a copy with its names in the schema's order).
-		body = canonicalJsonOfParsed((data as {body: unknown}).body);
+		const read = (data as {body: unknown}).body;
+		const built = canonicalMembersOfParsed(read);
+		members = built?.members;
+		body = built?.text ?? canonicalJsonOfParsed(read);
 	} catch (error) {
 		return {ok: false, record, finding: finding('integrity', 'audit-not-record', {field: 'body', detail: `it has no canonical form (${(error as Error).message})`})};
 	}
@@ -100,7 +104,7 @@ export function checkIntegrity(text: string, keys: KeyCache): IntegrityCheck {
 	}
 	const order = record.version === 2 ? signatureOrderFinding(record.signatures) : undefined;
 	if (order) return {ok: false, record, signatures, finding: order};
-	return {ok: true, record, signatures, bodySha256: sha256Hex(body)};
+	return {ok: true, record, signatures, bodySha256: sha256Hex(body), ...(members ? {bodyMembers: members} : {})};
 }
 
 /**

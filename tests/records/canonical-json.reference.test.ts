@@ -1,7 +1,7 @@
 import canonicalize from 'canonicalize';
 import fc from 'fast-check';
 import {describe, expect, it} from 'vitest';
-import {canonicalJson, canonicalJsonOfParsed, NotCanonicalError} from '../../source/records/canonical-json.js';
+import {canonicalJson, canonicalJsonOfParsed, canonicalMembersOfParsed, NotCanonicalError} from '../../source/records/canonical-json.js';
 import {recordJson} from '../../source/records/record-json.js';
 
 // The reference is the canonicalize package (an RFC 8785 implementation by one of the RFC's
@@ -36,6 +36,26 @@ describe('canonicalJson against the canonicalize package (RFC 8785)', () => {
 			}),
 			{numRuns: 2000},
 		);
+	});
+
+	it('member by member, gives the same text, and each member the text of its value, for an object in canonical order', () => {
+		const objects = fc.dictionary(names, json, {maxKeys: 6});
+		fc.assert(
+			fc.property(objects, (value) => {
+				const expected = reference(value)!;
+				const parsed = JSON.parse(expected) as Record<string, unknown>;
+				const built = canonicalMembersOfParsed(parsed);
+				// JSON.parse puts integer-like names first, out of canonical order, at any depth: then no member texts, as canonicalJsonOfParsed leaves its fast path.
+				if (/"(0|[1-9]\d*)":/.test(expected)) return;
+				expect(built?.text).toBe(expected);
+				expect(Object.fromEntries(built!.members)).toEqual(Object.fromEntries(Object.entries(parsed).map(([name, item]) => [name, reference(item)])));
+			}),
+			{numRuns: 1000},
+		);
+		// Not in canonical order, or a lone surrogate: no member texts (the caller goes the full way).
+		expect(canonicalMembersOfParsed(JSON.parse('{"b":1,"a":2}'))).toBeUndefined();
+		expect(canonicalMembersOfParsed(JSON.parse(String.raw`{"a":"x\ud800y"}`))).toBeUndefined();
+		expect(canonicalMembersOfParsed([1, 2])).toBeUndefined();
 	});
 
 	it.each([
