@@ -21,7 +21,7 @@ export const screenKeys: Record<string, Array<[string, string]>> = {
 		['other text', 'never an answer, nor is a paste: it is shown as not taken'],
 		['Backspace', 'clear text typed on a confirmation, then answer'],
 		['Tab', 'write a note to an answered confirmation'],
-		['PgDn PgUp', 'next / previous step'],
+		['PgDn PgUp', 'next / previous step (accepts what you typed)'],
 		['last answer', "the step's verdicts stay: ↓ ↑ scroll, Enter goes on"],
 		['Esc', 'back (asks first when a value typed or chosen is not entered)'],
 		['?', 'this help'],

@@ -154,8 +154,12 @@ export function StepScreen({session, getSession, stepIndex, rows, width, onSessi
 			return;
 		}
 		if (state.asking) return discardAnswer(input, arrival) === 'discard' ? onBack() : update({asking: false});
-		if (key.pageDown) return onStep(stepIndex + 1);
-		if (key.pageUp) return stepIndex > 0 ? onStep(stepIndex - 1) : undefined;
+		if (key.pageDown || key.pageUp) {
+			if (key.pageUp && stepIndex === 0) return;
+			// As ↑ ↓ leave a field: a value typed and not yet entered is entered first; refused, the cursor stays with the reason.
+			if (field?.kind === 'input' && (field.input.kind === 'quantity' || field.input.kind === 'text') && pendingChange(getSession(), field, state) && !commit(field, state.buffer)) return;
+			return onStep(stepIndex + (key.pageDown ? 1 : -1));
+		}
 		// Esc never drops a change silently: it asks first.
 		if (key.escape) return pendingChange(getSession(), field, state) ? update({asking: true}) : onBack();
 		if (fields.length > 0 && state.focus >= fields.length) {

@@ -68,3 +68,36 @@ it('clears an answer when its text is erased, and its checks go back to open', a
 	expect(limit.verdict).toBe('? open');
 	expect(limit.figures).toContain('current_limit');
 });
+
+// PgDn and PgUp leave the step as ↑ ↓ leave a field: a value typed and not yet entered is entered
+// first, and one that is refused keeps the cursor on it with the reason; it is never dropped.
+it.each([
+	['PgDn', keys.pageDown, 'Step 4 of 9: Supply and wiring'],
+	['PgUp', keys.pageUp, 'Step 2 of 9: Laser diode ratings'],
+])('%s enters the value typed before it leaves the step', async (_label, key, arrived) => {
+	const screen = await renderApp({draft: {...demo, step: 2}});
+	await screen.press(keys.enter);
+	await focusOn(screen, 'Current limit as set');
+	await screen.press(keys.backspace, keys.backspace, keys.backspace);
+	await screen.type('2.4 A');
+	let frame = await screen.press(key);
+	expect(frame).toContain(arrived);
+	frame = await screen.press(key === keys.pageDown ? keys.pageUp : keys.pageDown);
+	expect(frame).toContain('Step 3 of 9: Driver settings');
+	expect(verdictOf(frame, limitCheck).verdict).toBe('✗ FAIL');
+	expect(await focusOn(screen, 'Current limit as set')).toContain('  2.4 A▌');
+});
+
+it('PgDn with a value that is refused stays on the field with the reason', async () => {
+	const screen = await renderApp({draft: {...demo, step: 2}});
+	await screen.press(keys.enter);
+	await focusOn(screen, 'Current limit as set');
+	await screen.press(keys.backspace, keys.backspace, keys.backspace);
+	await screen.type('2.4 V');
+	const frame = await screen.press(keys.pageDown);
+	expect(frame).toContain('Step 3 of 9: Driver settings');
+	expect(frame).toContain('› Current limit as set');
+	expect(frame).toContain('2.4 V▌');
+	expect(frame).toMatch(/current/i);
+	expect(verdictOf(frame, limitCheck).verdict).toBe('✓ pass');
+});
