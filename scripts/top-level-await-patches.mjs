@@ -19,7 +19,11 @@ const patches = [
 		// whole HTTP client (about 50 ms before the first frame). The loader's own base64 decoding is
 		// used instead (what it does where fetch does not exist).
 		file: /yoga-layout[\\/]dist[\\/]binaries[\\/]yoga-wasm-base64-esm\.js$/,
-		replace: [['"function"!=typeof fetch?Promise.resolve()', 'true?Promise.resolve()']],
+		replace: [
+			['"function"!=typeof fetch?Promise.resolve()', 'true?Promise.resolve()'],
+			// And that decoding is a loop over characters in JavaScript: Node's own base64 decoder does it at once.
+			['var b=xa(a.slice(37)),c=new Uint8Array(b.length);for(a=0;a<b.length;++a)c[a]=b.charCodeAt(a);var d=c', 'var d=new Uint8Array(Buffer.from(a.slice(37),"base64"))'],
+		],
 	},
 	{
 		// Ink loads its developer tools and its own package.json only when DEV=true; the bundle has

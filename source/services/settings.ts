@@ -9,6 +9,7 @@ import {ProblemError} from '../shared/problem-error.js';
 import {failure, success, type Result} from '../shared/result.js';
 import {replaceFileAtomically} from '../shared/atomic-file.js';
 import {asWriteError} from '../shared/file-write-error.js';
+import {lazySchema} from '../shared/lazy-schema.js';
 
 /** What prelase remembers between runs. */
 export type Settings = {
@@ -24,8 +25,10 @@ export type Settings = {
 	planFile?: string;
 };
 
-const settingsSchema = object({operator: string().optional(), role: string().optional(), recordsFolder: string().optional(), rulesFile: string().optional(), planFile: string().optional()})
-	.strip();
+const settingsSchema = lazySchema(() =>
+	object({operator: string().optional(), role: string().optional(), recordsFolder: string().optional(), rulesFile: string().optional(), planFile: string().optional()})
+	.strip(),
+);
 
 /** Where the settings file is: the same place conf uses (PRELASE_HOME, else the platform's config folder). */
 export function settingsFile(env: NodeJS.ProcessEnv = process.env): string {

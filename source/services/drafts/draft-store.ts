@@ -1,6 +1,7 @@
 // Named imports (not the z namespace) let the bundler leave out the parts of zod not used.
 import {enum as oneOf, number, object, record, string} from 'zod';
 import {draftStore} from './draft-kind.js';
+import {lazySchema} from '../../shared/lazy-schema.js';
 
 /** A check in progress: enough to resume it exactly where it was left. */
 export type Draft = {
@@ -13,7 +14,8 @@ export type Draft = {
 	savedAt: string;
 };
 
-const draftSchema = object({
+const draftSchema = lazySchema(() =>
+	object({
 		rulesFile: string(),
 		rulesSha256: string(),
 		setup: string(),
@@ -22,7 +24,8 @@ const draftSchema = object({
 		step: number().int().min(0),
 		savedAt: string(),
 	})
-	.strict();
+	.strict(),
+);
 
 const benchDrafts = draftStore<Draft, void>({fileName: () => 'current.json', schema: draftSchema});
 

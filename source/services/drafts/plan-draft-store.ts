@@ -2,6 +2,7 @@ import {sha256Hex} from '../../shared/sha256.js';
 // Named imports (not the z namespace) let the bundler leave out the parts of zod not used.
 import {object, string} from 'zod';
 import {fileDraftStore, type FoundDraft} from './draft-kind.js';
+import {lazySchema} from '../../shared/lazy-schema.js';
 
 /** Unsaved planner edits of one plan file, kept so that a crash or Ctrl-C loses none of them. */
 export type PlanDraft = {
@@ -14,7 +15,9 @@ export type PlanDraft = {
 	savedAt: string;
 };
 
-const planDraftSchema = object({file: string(), baseSha256: string().regex(/^[0-9a-f]{64}$/), text: string(), savedAt: string()}).strict();
+const planDraftSchema = lazySchema(() =>
+	object({file: string(), baseSha256: string().regex(/^[0-9a-f]{64}$/), text: string(), savedAt: string()}).strict(),
+);
 
 const planDrafts = fileDraftStore({prefix: 'plan', schema: planDraftSchema, madeFrom: (draft) => draft.baseSha256});
 

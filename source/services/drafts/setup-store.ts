@@ -4,11 +4,14 @@ import {replaceFileAtomically} from '../../shared/atomic-file.js';
 import {asWriteError} from '../../shared/file-write-error.js';
 // Named imports (not the z namespace) let the bundler leave out the parts of zod not used.
 import {object, record, string} from 'zod';
+import {lazySchema} from '../../shared/lazy-schema.js';
 
 /** A named bench setup: the inputs of a finished check, to prefill the next one. */
 export type SavedSetup = {name: string; entries: Record<string, string>; savedAt: string};
 
-const setupSchema = object({name: string(), entries: record(string(), string()), savedAt: string()}).strict();
+const setupSchema = lazySchema(() =>
+	object({name: string(), entries: record(string(), string()), savedAt: string()}).strict(),
+);
 
 function fileName(name: string): string {
 	return `${name.normalize('NFKD').replaceAll(/[^A-Za-z0-9]+/g, '-').replaceAll(/^-+|-+$/g, '').toLowerCase() || 'setup'}.json`;

@@ -2,6 +2,7 @@ import {sha256Hex} from '../../shared/sha256.js';
 // Named imports (not the z namespace) let the bundler leave out the parts of zod not used.
 import {array, enum as oneOf, object, string} from 'zod';
 import {fileDraftStore, type FoundDraft} from './draft-kind.js';
+import {lazySchema} from '../../shared/lazy-schema.js';
 
 /** One step as entered on screen: the result (once marked), the stop time and note as typed. */
 export type TestDraftStep = {result?: 'pass' | 'fail' | 'not_applicable'; stoppedIn: string; note: string};
@@ -20,13 +21,15 @@ export type TestDraft = {
 	savedAt: string;
 };
 
-const testDraftSchema = object({
+const testDraftSchema = lazySchema(() =>
+	object({
 	file: string(),
 	planSha256: string().regex(/^[0-9a-f]{64}$/),
 	steps: array(object({result: oneOf(['pass', 'fail', 'not_applicable']).optional(), stoppedIn: string(), note: string()}).strict()),
 	people: object({name: string(), role: string(), witnessName: string(), witnessRole: string(), witnessKey: string(), date: string()}).strict(),
 	savedAt: string().datetime(),
-}).strict();
+}).strict(),
+);
 
 const testDrafts = fileDraftStore({prefix: 'test', schema: testDraftSchema, madeFrom: (draft) => draft.planSha256});
 
