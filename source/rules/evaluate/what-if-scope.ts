@@ -11,7 +11,7 @@ export function numericInputsOf(rules: CompiledRules, compiled: CompiledCheck): 
 }
 
 /**
- * The rules cut down to one check and the derived values it reads: the same pure evaluator then
+ * The rules cut down to one check and the inputs and derived values it reads: the same pure evaluator then
  * judges only that check, so a search that evaluates it hundreds of times stays fast.
  */
 export function rulesForCheck(rules: CompiledRules, compiled: CompiledCheck): CompiledRules {
@@ -19,6 +19,7 @@ export function rulesForCheck(rules: CompiledRules, compiled: CompiledCheck): Co
 	return {
 		...rules,
 		rules: {...rules.rules, steps: rules.rules.steps.map((step) => ({...step, confirmations: []}))},
+		inputs: new Map([...rules.inputs].filter(([id]) => names.has(id))),
 		derived: rules.derived.filter((entry) => names.has(entry.derived.id)),
 		checks: [compiled],
 	};
