@@ -12,6 +12,7 @@ import {evaluationKey} from '../rules/evaluate/evaluation-key.js';
 import type {Evaluation} from '../rules/evaluate/evaluation.js';
 import {version} from '../shared/version.js';
 import {answersFromRecord, type RecordAnswers} from './audit-answers.js';
+import {sensitivityFindings} from './audit-sensitivity.js';
 import {consistencyFindings} from './audit-consistency.js';
 import type {Finding, FindingKind} from '../records/findings.js';
 import {describeProblem} from '../shared/problems.js';
@@ -136,6 +137,7 @@ function auditContents(body: RecordBody, own: RecordRules, current: CompiledRule
 		const read = answersFromRecord(own.rules, body);
 		judged = {rules: own.rules, read, evaluation: evaluations.of(own.rules, read.answers)};
 		findings.push(...consistencyFindings(body, judged.rules, read, judged.evaluation));
+		findings.push(...sensitivityFindings(body, judged.rules, read.answers, judged.evaluation));
 	}
 	const consistency = {reevaluated: judged !== undefined, consistent: findings.length === 0, rulesSha256: own.sha256};
 

@@ -40,7 +40,7 @@ const options = {
 	'cosign-role': {type: 'string', value: 'ROLE', summary: 'The second signer\'s role (with --cosign)'},
 	'cosign-meaning': {type: 'string', value: 'witness|approval', summary: 'What the second signature is for: witness (default) or approval (verified and approved are read as these)'},
 	setup: {type: 'string', value: 'NAME', summary: 'Without --answers, on a terminal: open the on-screen check on the setup NAME'},
-	'what-if': {type: 'boolean', summary: 'Also show what would flip each verdict: for each check and input, the value where the verdict changes, the closest calls, the changes that clear each fail, and a tornado chart'},
+	'what-if': {type: 'boolean', summary: 'Also show what would flip each verdict: for each check and input, the value where the verdict changes, the closest calls, the changes that clear each fail, and a tornado chart; with --sign the record keeps the flip points (its sensitivity section)'},
 	help: helpOption,
 } as const;
 
@@ -92,6 +92,7 @@ type FinishOptions = {json?: boolean | undefined; 'what-if'?: boolean | undefine
 /** Evaluates the (linked) answers, signs and writes a record when asked, prints the result; returns the exit status. */
 function finishCheck(rules: CompiledRules, linked: {answers: Answers; link: InterlockLink | null}, values: FinishOptions, io: Io): number {
 	const evaluation = evaluate(rules, linked.answers);
+	const whatIf = values['what-if'] ? analyseWhatIf(rules, linked.answers, evaluation) : undefined;
 	const written =
 		values.sign === undefined
 			? undefined
@@ -106,6 +107,7 @@ function finishCheck(rules: CompiledRules, linked: {answers: Answers; link: Inte
 							...(values.records === undefined ? {} : {records: values.records}),
 							...(values.amends === undefined ? {} : {amends: values.amends}),
 							...(values.reason === undefined ? {} : {reason: values.reason}),
+							...(whatIf ? {whatIf} : {}),
 							...(values.cosign === undefined
 								? {}
 								: {cosign: {name: values.cosign, key: values['cosign-key']!, meaning: values['cosign-meaning'] ?? 'witness', ...(values['cosign-role'] === undefined ? {} : {role: values['cosign-role']})}}),
@@ -114,7 +116,6 @@ function finishCheck(rules: CompiledRules, linked: {answers: Answers; link: Inte
 						linked.link,
 					),
 				);
-	const whatIf = values['what-if'] ? analyseWhatIf(rules, linked.answers, evaluation) : undefined;
 	if (values.json) {
 		const json = {...evaluationToJson(rules, linked.answers, evaluation), ...(whatIf ? {whatIf: whatIfToJson(whatIf)} : {}), ...(linked.link ? {interlockTest: linked.link} : {}), ...(written ? {record: {path: written.path, fingerprint: written.fingerprint, ...(typeof written.commit === 'string' ? {commit: written.commit} : {})}} : {})};
 		io.stdout.write(`${terminalSafeJson(json)}\n`);
