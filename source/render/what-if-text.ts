@@ -2,6 +2,7 @@ import {deferral} from '../shared/deferral.js';
 import {formatQuantity} from '../quantities/format.js';
 import type {FlipPoint, WhatIf} from '../rules/evaluate/what-if.js';
 import {wrap} from '../shared/wrap.js';
+import {marginChartLines, marginRows, type ChartableCheck} from './margin-chart.js';
 
 /** One flip point in words: "fails if ambient_max > 58 °C (now 35 °C)", "passes if current_limit ≤ 2.25 A (now 2.4 A)". */
 export function flipWords(flip: FlipPoint): string {
@@ -62,8 +63,8 @@ export function tornadoLines(result: WhatIf, width: number): string[] {
 	return lines;
 }
 
-/** The what-if analysis as text: closest calls, changes that clear each fail, the tornado chart, every flip point. */
-export function whatIfLines(result: WhatIf, width: number): string[] {
+/** The what-if analysis as text: closest calls, changes that clear each fail, the margin and tornado charts, every flip point. */
+export function whatIfLines(result: WhatIf, width: number, checks: readonly ChartableCheck[] = []): string[] {
 	const lines: string[] = ['', 'WHAT WOULD FLIP EACH VERDICT', ...wrap('Each input moved on its own, everything else as entered, within the input\'s allowed range; figures rounded toward the passing side. A flip point is arithmetic on the rule file, not a safe operating limit: the laser safety officer and the codes in force decide.', width, '  '), ''];
 	lines.push('Closest calls (the smallest change, as a fraction of the current value, that fails a pass)');
 	if (result.closest.length === 0) lines.push('  none: no passing check flips inside its inputs\' ranges');
@@ -79,6 +80,8 @@ export function whatIfLines(result: WhatIf, width: number): string[] {
 			lines.push(...wrap(options.length > 0 ? options.join(', or ') : 'no single input in its range clears it', width, '     '));
 		}
 	}
+	const margins = marginRows(checks);
+	if (margins.length > 0) lines.push('', 'Margins: each value against its limit (│), closest to failing first', ...marginChartLines(margins, width));
 	lines.push('', 'How far each input may move before the verdict flips', ...tornadoLines(result, width));
 	lines.push('', 'Every flip point');
 	for (const entry of result.checks) {

@@ -122,7 +122,7 @@ function finishCheck(rules: CompiledRules, linked: {answers: Answers; link: Inte
 		if (written && typeof written.commit === 'object') io.stderr.write(commitNote(written));
 	} else {
 		io.stdout.write(`${checkText(rules, linked.answers, evaluation, paintFor(io.stdout, io.env), io.stdout.columns ?? 100, linked.link)}\n`);
-		if (whatIf) io.stdout.write(`${whatIfLines(whatIf, io.stdout.columns ?? 100).join('\n')}\n`);
+		if (whatIf) io.stdout.write(`${whatIfLines(whatIf, io.stdout.columns ?? 100, evaluation.checks).join('\n')}\n`);
 		if (written) io.stdout.write(`\nRecord written: ${written.path}\nSigned with key ${written.fingerprint}${written.keyCreated ? ' (a new key, created now; share it with: prelase keys export)' : ''}\n${commitNote(written)}`);
 	}
 	return evaluation.outcome === 'clear_to_energize' ? 0 : 1;

@@ -113,7 +113,7 @@ function flipPoint(input: string, dimension: Dimension, now: number, raw: {direc
  * stays on the passing side. Read back, the text never claims a pass the check would not give.
  * Returns the text and the value it reads as.
  */
-function safeText(at: number, beyond: number, dimension: Dimension): {text: string; si: number} {
+export function safeText(at: number, beyond: number, dimension: Dimension): {text: string; si: number} {
 	const towardPass = beyond > at ? -1 : 1;
 	const shown = dimension === 'temperature' ? at - 273.15 : at;
 	for (let digits = 3; digits <= 8; digits++) {
