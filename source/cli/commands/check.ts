@@ -52,6 +52,7 @@ export function runCheck(args: string[], io: Io): number | Promise<number> {
 		return 0;
 	}
 	if (!values.answers) {
+		if (values['what-if']) throw new UsageError('--what-if goes with --answers FILE; on screen, press w on the summary');
 		if (values.setup !== undefined) {
 			// A name that is not a saved setup would start an empty check under that name.
 			const folder = openSettings(io.env).folder;

@@ -36,6 +36,12 @@ describe('check --what-if', () => {
 		expect(Math.abs(ceiling.at.si - 2.25)).toBeLessThan(1e-9); // 2.5 A·0.9 (hand arithmetic)
 	});
 
+	it('is a usage error without --answers (on screen it is the key w)', () => {
+		const {code, stderr} = runCliNow(['check', '--what-if']);
+		expect(code).toBe(2);
+		expect(stderr).toContain('--what-if goes with --answers FILE');
+	});
+
 	it('leaves the plain check as it was', () => {
 		const {stdout} = runCliNow(['check', '--answers', clearDemo, '--json']);
 		expect(JSON.parse(stdout)).not.toHaveProperty('whatIf');
