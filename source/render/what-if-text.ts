@@ -15,7 +15,7 @@ export function fixWords(flip: FlipPoint): string {
 	return flip.direction === 'up' ? `raise ${flip.input} by ${flip.change.text} to ≥ ${flip.at.text}` : `lower ${flip.input} by ${flip.change.text} to ≤ ${flip.at.text}`;
 }
 
-/** A fraction of the current value as text: "7.46 %"; "at zero" when the current value is zero. */
+/** A fraction of the current value as text: "7.46 %"; "from zero" when the current value is zero. */
 export function fractionWords(fraction: number | null): string {
 	return fraction === null ? 'from zero' : formatQuantity(fraction, 'ratio');
 }
@@ -83,11 +83,12 @@ export function whatIfLines(result: WhatIf, width: number, checks: readonly Char
 	const margins = marginRows(checks);
 	if (margins.length > 0) lines.push('', 'Margins: each value against its limit (│), closest to failing first', ...marginChartLines(margins, width));
 	lines.push('', 'How far each input may move before the verdict flips', ...tornadoLines(result, width));
-	lines.push('', 'Every flip point');
+	lines.push('', 'Every flip point (each pass\'s nearest marked, with how far it is as a fraction of the value)');
+	const nearest = new Set(result.nearest.map((call) => call.flip));
 	for (const entry of result.checks) {
 		if (entry.flips.length === 0) continue;
 		lines.push(...hang(`${entry.verdict}: ${entry.title}`, width, '  ', '    '));
-		for (const flip of entry.flips) lines.push(`     ${flipWords(flip)}`);
+		for (const flip of entry.flips) lines.push(...wrap(`${flipWords(flip)}${nearest.has(flip) ? ` · nearest, ${fractionWords(flip.fraction)} away` : ''}`, width, '     '));
 	}
 	lines.push('', ...wrap(deferral, width, '  '));
 	return lines;

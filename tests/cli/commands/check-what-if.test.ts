@@ -15,6 +15,8 @@ describe('check --what-if', () => {
 		expect(stdout).toContain('fails if ambient_max > 58 °C (now 35 °C)');
 		// Ceiling 2.5 A·(1 − 10 %) = 2.25 A (hand arithmetic; margin is site policy).
 		expect(stdout).toContain('fails if current_limit > 2.25 A (now 2 A)');
+		// Each pass's nearest flip is marked: the ceiling's is diode_max_current at 2/0.9 = 2.2222 A, 11.1 % below 2.5 A (hand arithmetic).
+		expect(stdout).toContain('fails if diode_max_current < 2.23 A (now 2.5 A) · nearest, 11.1 % away');
 		expect(stdout).toContain('1. Emission delay at or above the policy minimum');
 		expect(stdout).toMatch(/ambient_max\s+·+│█ +no flip \/ \+7\.46 %/); // 23 K of 308.15 K (hand arithmetic)
 		expect(stdout).toContain('laser safety officer');
