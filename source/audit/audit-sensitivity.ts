@@ -6,6 +6,25 @@ import {finding, type Finding} from '../records/findings.js';
 import type {RecordBody} from '../records/record-schema.js';
 import {sensitivityBody} from '../records/sensitivity-body.js';
 import {sameNumber} from './audit-consistency.js';
+import {evaluationKey} from '../rules/evaluate/evaluation-key.js';
+
+/**
+ * Flip points already worked out in this process, by evaluation key: records of one setup with the
+ * same numbers under the same rules are analysed once (the analysis is pure). Bounded: the oldest
+ * is dropped first.
+ */
+const known = new Map<string, ReturnType<typeof sensitivityBody>>();
+
+function computedSensitivity(rules: CompiledRules, answers: Answers, evaluation: Evaluation): ReturnType<typeof sensitivityBody> {
+	const key = evaluationKey(rules, answers);
+	let found = known.get(key);
+	if (!found) {
+		found = sensitivityBody(analyseWhatIf(rules, answers, evaluation));
+		if (known.size >= 64) known.delete(known.keys().next().value!);
+		known.set(key, found);
+	}
+	return found;
+}
 
 function describe(values: readonly number[] | undefined): string {
 	return values === undefined || values.length === 0 ? 'no flip point' : values.map((value) => String(value)).join(', ');
@@ -18,7 +37,7 @@ function describe(values: readonly number[] | undefined): string {
  */
 export function sensitivityFindings(body: RecordBody, rules: CompiledRules, answers: Answers, evaluation: Evaluation): Finding[] {
 	if (body.sensitivity === undefined) return [];
-	const computed = sensitivityBody(analyseWhatIf(rules, answers, evaluation));
+	const computed = computedSensitivity(rules, answers, evaluation);
 	const found: Finding[] = [];
 	for (const check of new Set([...Object.keys(computed), ...Object.keys(body.sensitivity)])) {
 		const held = body.sensitivity[check] ?? {};
