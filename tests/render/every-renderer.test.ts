@@ -102,6 +102,7 @@ const renderers: Record<string, Row | {partOf: string}> = {
 	'report-charts-html.ts': {via: 'report --format html of a record signed with --what-if under hostile titles (the charts and flip points)', run: () => cli(['report', files['whatIfRecord']!, '--format', 'html'])},
 	'chart-svg.ts': {partOf: 'report-charts-html.ts'},
 	'report-sensitivity.ts': {partOf: 'report-charts-html.ts'},
+	'report-sensitivity-markdown.ts': {via: 'report --format md of a record signed with --what-if under hostile titles (the flip points)', run: () => cli(['report', files['whatIfRecord']!, '--format', 'md'])},
 	'rules-diff-text.ts': {via: 'rules diff from the shipped policy to a hostile site rule file', run: () => cli(['rules', 'diff', shippedRulesPath(), files['rules']!])},
 };
 

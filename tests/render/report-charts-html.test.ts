@@ -1,6 +1,8 @@
 import {describe, expect, it} from 'vitest';
 import {marginChartSection, sensitivitySection} from '../../source/render/report-charts-html.js';
 import {sensitivityView} from '../../source/render/report-sensitivity.js';
+import {sensitivityMarkdown} from '../../source/render/report-sensitivity-markdown.js';
+import {markdownText} from '../../source/render/report-markdown.js';
 import {withRuleWords, withValuesShown} from '../../source/records/record-words.js';
 import {sampleAnswers, sampleRecord, sampleRules} from '../helpers/sample-record.js';
 
@@ -31,5 +33,13 @@ describe('the charts of the HTML report', () => {
 		const html = sensitivitySection(shown(true));
 		expect(html).toContain('<svg class="chart tornado-chart"');
 		expect(html).toContain('fails if ambient_max &gt; 58 °C (now 35 °C)');
+	});
+
+	it('gives the Markdown report the same flip points in words', () => {
+		expect(sensitivityMarkdown(shown(false), markdownText)).toEqual([]);
+		const lines = sensitivityMarkdown(shown(true), markdownText);
+		expect(lines[0]).toBe('## What would flip each verdict');
+		// Ambient flip 58 °C (hand arithmetic: 125 °C − 100 K·6.7 W/10 W); > is written as an entity for Markdown (the second closest call of bench 3).
+		expect(lines.join('\n')).toContain('2. Worst-case driver dissipation within its derated rating: fails if ambient_max &gt; 58 °C (now 35 °C)');
 	});
 });
