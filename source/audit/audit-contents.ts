@@ -7,6 +7,7 @@ import type {RecordBody} from '../records/record-schema.js';
 import {answersFromRecord, type RecordAnswers} from './audit-answers.js';
 import {conclusionFindings, conclusionParts, identityFindings} from './audit-consistency.js';
 import {policyReport, type PolicyReport} from './audit-policy.js';
+import {sensitivityFindings} from './audit-sensitivity.js';
 import type {RecordRules} from './audit-rule-texts.js';
 
 /** What auditContents finds about one authentic bench-check record. */
@@ -93,6 +94,8 @@ export function auditContents(body: RecordBody, members: ReadonlyMap<string, str
 	const evaluation = judged && judged.rules === current ? judged.evaluation : memo.evaluation(current, read.answers);
 	const compared = memo.compared(body, members, judged?.evaluation, {rules: current, read, evaluation});
 	findings.push(...compared.conclusions);
+	// A record signed with its flip points: worked out again from its own numbers (nothing to do for a record without them).
+	if (judged) findings.push(...sensitivityFindings(body, judged.rules, judged.read.answers, judged.evaluation));
 	const consistency = {reevaluated: judged !== undefined, consistent: findings.length === 0, rulesSha256: own.sha256};
 	return {consistency, policy: compared.policy.report, findings: [...findings, ...compared.policy.findings], switchedOff: judged?.rules.switchedOff.length ?? 0};
 }

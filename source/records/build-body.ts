@@ -7,6 +7,8 @@ import {canonicalBytes} from './canonical.js';
 import {recordBodySchema, type AnyBody, type RecordBody} from './record-schema.js';
 import {isoWithOffset} from '../shared/iso-time.js';
 import {displayPath} from '../shared/display-path.js';
+import type {WhatIf} from '../rules/evaluate/what-if.js';
+import {sensitivityBody} from './sensitivity-body.js';
 
 /** A correction: the record it corrects (file name and body hash) and why. */
 export type Amendment = {record: string; bodySha256: string; reason: string};
@@ -32,7 +34,7 @@ export function bodySha256(body: AnyBody): string {
 }
 
 /** Builds the body of a bench-check record, validated as plain data before anyone signs it. */
-export function buildRecordBody(input: {rules: CompiledRules; answers: Answers; evaluation: Evaluation; operator: {name: string; role: string}; amends?: Amendment; /** The interlock test record the confirmations were answered from (the link's own shape). */ interlockTest?: NonNullable<RecordBody['interlockTest']> | null; now?: Date}): RecordBody {
+export function buildRecordBody(input: {rules: CompiledRules; answers: Answers; evaluation: Evaluation; operator: {name: string; role: string}; amends?: Amendment; /** The interlock test record the confirmations were answered from (the link's own shape). */ interlockTest?: NonNullable<RecordBody['interlockTest']> | null; now?: Date; /** The what-if analysis, kept as the record's sensitivity section when given. */ whatIf?: WhatIf}): RecordBody {
 	const {rules, answers, evaluation, operator, amends} = input;
 	const {tool, rules: _rulesSummary, setup, outcomeText: _outcomeText, caution: _caution, deferral: _deferral, inputs, derived, checks, confirmations, ...evaluated} = evaluationToJson(rules, answers, evaluation);
 	const body = {
@@ -58,6 +60,7 @@ export function buildRecordBody(input: {rules: CompiledRules; answers: Answers; 
 		})),
 		confirmations: Object.fromEntries(confirmations.map(({id, step: _step, statement: _statement, status, ...more}) => [id, Object.keys(more).length === 0 ? status : {status, ...more}])),
 		...(input.interlockTest ? {interlockTest: input.interlockTest} : {}),
+		...(input.whatIf ? {sensitivity: sensitivityBody(input.whatIf)} : {}),
 	};
 	return recordBodySchema.parse(JSON.parse(JSON.stringify(body)));
 }

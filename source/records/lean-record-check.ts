@@ -20,7 +20,7 @@ type Plain = Record<string, unknown>;
 
 const recordKeys = new Set(['format', 'version', 'body', 'signatures']);
 const bodyRequired = new Set(['kind', 'tool', 'createdAt', 'operator', 'setup', 'rules', 'outcome', 'counts', 'missingInputs', 'inputs', 'derived', 'checks', 'confirmations']);
-const bodyAllowed = new Set([...bodyRequired, 'previous', 'amends', 'interlockTest', 'caution', 'deferral']);
+const bodyAllowed = new Set([...bodyRequired, 'previous', 'amends', 'interlockTest', 'caution', 'deferral', 'sensitivity']);
 const signatureRequired = new Set(['signer', 'signedAt', 'algorithm', 'publicKey', 'fingerprint', 'value']);
 const signatureAllowed = new Set([...signatureRequired, 'meaning', 'purpose', 'endorses', 'count']);
 const checkRequired = new Set(['id', 'verdict']);
@@ -152,6 +152,7 @@ function isLeanBody(body: unknown): boolean {
 		textRecord(body['confirmations'], isConfirmation) &&
 		body['interlockTest'] === undefined &&
 		optional(body['caution'], isText) &&
-		optional(body['deferral'], isText)
+		optional(body['deferral'], isText) &&
+		optional(body['sensitivity'], (given) => textRecord(given, (inputs) => textRecord(inputs, (values) => Array.isArray(values) && values.every(isNumber))))
 	);
 }

@@ -112,6 +112,8 @@ const schemas = once(() => {
 				.optional(),
 			caution: text.optional(),
 			deferral: text.optional(),
+			/** What would flip each verdict: check → input → the SI value(s) of its flip points (records signed with the what-if analysis). */
+			sensitivity: record(text, record(text, array(number()))).optional(),
 		})
 		.strict();
 

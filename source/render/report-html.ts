@@ -1,6 +1,7 @@
 import type {BenchRecord} from '../records/record-schema.js';
 import {reportModel, type CheckRow, type ConfirmationRow, type SignatureRow, type SignatureStatus, type TrustInfo} from './report-model.js';
 import {pageHead, reportStyle} from './report-style.js';
+import {marginChartSection, sensitivitySection} from './report-charts-html.js';
 
 const entities: Record<string, string> = {'&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;'};
 
@@ -57,6 +58,8 @@ export function reportHtml(record: BenchRecord, signatures: readonly SignatureSt
 	if (model.missingInputs.length > 0) out.push(`<p>Inputs not given: ${model.missingInputs.map((id) => `<code>${h(id)}</code>`).join(', ')}</p>`);
 	if (model.attention.length === 0 && model.attentionConfirmations.length === 0) out.push('<p>Every check that applies holds.</p>');
 	out.push('</section>');
+
+	out.push(marginChartSection(record.body), sensitivitySection(record.body));
 
 	out.push('<section class="record"><h2>Record</h2><table class="details"><tbody>');
 	for (const [field, value] of model.details) out.push(`<tr><th scope="row">${h(field)}</th><td>${h(value)}</td></tr>`);

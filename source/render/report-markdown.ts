@@ -1,4 +1,5 @@
 import type {BenchRecord} from '../records/record-schema.js';
+import {sensitivityMarkdown} from './report-sensitivity-markdown.js';
 import {reportModel, type CheckRow, type ConfirmationRow, type SignatureRow, type SignatureStatus, type TrustInfo} from './report-model.js';
 
 /**
@@ -51,6 +52,8 @@ export function reportMarkdown(record: BenchRecord, signatures: readonly Signatu
 	if (model.attentionConfirmations.length > 0) out.push(...confirmationTable(model.attentionConfirmations), '');
 	if (model.missingInputs.length > 0) out.push(`Inputs not given: ${model.missingInputs.map(code).join(', ')}`, '');
 	if (model.attention.length === 0 && model.attentionConfirmations.length === 0) out.push('Every check that applies holds.', '');
+
+	out.push(...sensitivityMarkdown(record.body, markdownText));
 
 	out.push('## Record', '', ...table(['Field', 'Value'], model.details.map(([field, value]) => [field, cell(value)])), '');
 	if (model.amendment) {

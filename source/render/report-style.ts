@@ -60,6 +60,9 @@ col.c-number { width: 6mm; } col.c-meaning { width: 20mm; } col.c-when { width: 
 table.details th { width: 36mm; border-bottom: 0.5px solid #888; font-size: 9pt; vertical-align: top; }
 footer { margin-top: 6mm; border-top: 1px solid #000; font-size: 8.5pt; }
 @media print { .verdict-fail td, .answer-no td, tbody.not-verified td { -webkit-print-color-adjust: exact; print-color-adjust: exact; } }
+figure { margin: 2mm 0; break-inside: avoid; }
+svg.chart { display: block; max-width: 100%; height: auto; }
+ol.closest { margin: 1mm 0 2mm; padding-left: 6mm; }
 `;
 }
 

@@ -13,6 +13,7 @@ import {problem, type Problem} from '../shared/problems.js';
 import {failure, success, type Result} from '../shared/result.js';
 import {stripControl} from '../shared/text.js';
 import {hasLineBreak} from '../shared/one-line.js';
+import type {WhatIf} from '../rules/evaluate/what-if.js';
 
 /** What `check --sign` was asked to do. */
 export type SignOptions = {
@@ -22,6 +23,8 @@ export type SignOptions = {
 	amends?: string;
 	reason?: string;
 	cosign?: {name: string; role?: string; key: string; meaning: string};
+	/** The what-if analysis to keep as the record's sensitivity section. */
+	whatIf?: WhatIf;
 };
 
 /** What a second signature is for, by the word given: the purposes, and the version 1 meanings that stand for them. */
@@ -60,7 +63,7 @@ export function signAndWrite(rules: CompiledRules, answers: Answers, evaluation:
 	}
 	const role = stripControl(options.role ?? saved.value.role ?? '').trim();
 	if (hasLineBreak(role) || hasLineBreak(options.cosign?.role ?? '')) return failure([problem('single-line', {label: 'the role'})]);
-	const body = buildRecordBody({rules, answers, evaluation, operator: {name, role}, interlockTest, ...(amends ? {amends} : {})});
+	const body = buildRecordBody({rules, answers, evaluation, operator: {name, role}, interlockTest, ...(amends ? {amends} : {}), ...(options.whatIf ? {whatIf: options.whatIf} : {})});
 	// The rule text goes in first, so that a record never names a text the folder lacks (and only once the signers are known good).
 	const stored = signAndStore(body, {name, role}, second, dirname(settingsFile(env)), folder, undefined, env, () => storeRuleText(folder, rules.text));
 	if (!stored.ok) return stored;

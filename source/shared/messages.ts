@@ -109,6 +109,7 @@ export const messages = {
 	'audit-counts-mismatch': 'the record counts {{recorded}}, but its checks give {{computed}}',
 	'audit-outcome-mismatch': 'the record says {{recorded}}, but its numbers give {{computed}}: the record\'s conclusions do not follow from its numbers',
 	'audit-setup-fingerprint-mismatch': 'the setup fingerprint {{recorded}} does not follow from the identifying inputs, which give {{computed}}',
+	'audit-sensitivity-mismatch': 'the record gives the flip point(s) of the check "{{id}}" on the input "{{input}}" as {{recorded}}, but its numbers give {{computed}}',
 	'audit-policy-outcome': 'under the current rules ({{rules}}) the outcome would be {{current}} instead of {{recorded}}; checks whose verdict would change: {{count}}',
 	'audit-policy-verdicts': 'under the current rules ({{rules}}) the outcome would stay {{recorded}}; checks whose verdict would change: {{count}}',
 	'audit-amended-missing': 'the record amends {{record}} (body SHA-256 {{bodySha256}}), which is not among the authentic records audited',

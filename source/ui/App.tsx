@@ -262,7 +262,7 @@ export function App({rules: givenRules, settings, env, startCheck, startPlan, au
 	const footer: Record<Screen, string> = {
 		home: '↑ ↓ choose · Enter open · Ctrl-C quit',
 		step: 'Enter accept · ↑ ↓ field · PgDn PgUp step · Esc back · ? help',
-		summary: 'Enter sign-off · ↑ ↓ scroll · Esc back · ? help',
+		summary: 'Enter sign-off · w what-if · ↑ ↓ scroll · Esc back · ? help',
 		signoff: 'Enter next · ↑ ↓ field · Esc back',
 		done: 's save setup · Enter home',
 		settings: 'Enter saves the field · ↑ ↓ move · Esc back',

@@ -31,6 +31,7 @@ export const screenKeys: Record<string, Array<[string, string]>> = {
 		['↑ ↓ PgUp PgDn', 'scroll'],
 		['Enter', 'go to sign-off'],
 		['Esc', 'back to the steps'],
+		['w', 'what would flip each verdict (and back): closest calls, fixes, tornado chart'],
 	],
 	signoff: [
 		['type', 'fill a field'],

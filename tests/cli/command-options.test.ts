@@ -9,7 +9,7 @@ import {runCliNow} from '../helpers/run-cli.js';
  * not list (or the other way round) fails below. The list is the project's own CLI design.
  */
 const table: Array<{command: string; options: Record<string, string | undefined>}> = [
-	{command: 'check', options: {answers: 'FILE', rules: 'FILE', json: undefined, sign: 'NAME', role: 'ROLE', records: 'DIR', amends: 'RECORD', reason: 'TEXT', cosign: 'NAME', 'cosign-key': 'FILE', 'cosign-role': 'ROLE', 'cosign-meaning': 'witness|approval', setup: 'NAME', help: undefined}},
+	{command: 'check', options: {answers: 'FILE', rules: 'FILE', json: undefined, sign: 'NAME', role: 'ROLE', records: 'DIR', amends: 'RECORD', reason: 'TEXT', cosign: 'NAME', 'cosign-key': 'FILE', 'cosign-role': 'ROLE', 'cosign-meaning': 'witness|approval', setup: 'NAME', 'what-if': undefined, help: undefined}},
 	{command: 'calc', options: {json: undefined, help: undefined}},
 	{command: 'rules', options: {json: undefined, site: undefined, help: undefined}},
 	{command: 'keys', options: {name: 'NAME', role: 'ROLE', from: 'DATE', 'revoked-from': 'DATE', help: undefined}},

@@ -565,6 +565,35 @@ describe.skipIf(!haveTmux())('the screens at 80x24, as a technician meets them',
 		expect(screen).toContain('Enter accept · ↑ ↓ field · PgDn PgUp step · Esc back · ? help');
 		expect(lines.filter((line) => line.includes('local codes') && line.includes('?'))).toHaveLength(1);
 	});
+	it('the summary shows on w what would flip each verdict, with the margin and tornado charts in characters, scrolling within 80x24', {timeout: 60_000}, async () => {
+		const home = mkdtempSync(join(tmpdir(), 'prelase-e2e-'));
+		seedDemoDraft(home, []);
+		const session = start('what-if', home, '', [80, 24]);
+		await resumeAndPage(session, (now) => now.includes('Outcome: CLEAR TO ENERGIZE'), 'the summary');
+		expect(await session.settle()).toContain('w what-if');
+		session.type('w');
+		let screen = await session.waitFor((now) => now.includes('WHAT WOULD FLIP EACH VERDICT'), 'the what-if view');
+		const seen: string[] = [];
+		for (let page = 0; page < 40; page += 1) {
+			const lines = screen.trimEnd().split('\n');
+			expect(lines.length).toBeLessThanOrEqual(24);
+			expect(lines[0]).toMatch(/^prelase · bench check/);
+			for (const line of lines) expect([...line].length).toBeLessThanOrEqual(80);
+			seen.push(...lines);
+			if (!/↓ \d+ more/.test(screen)) break;
+			session.press('PageDown');
+			screen = await session.waitFor((now) => now !== screen, 'the next page');
+			screen = await session.settle();
+		}
+		const all = seen.join('\n');
+		// Ambient flip: 125 °C − 100 K·6.7 W/10 W = 58 °C (hand arithmetic, linear derating); 23 K of 308.15 K = 7.46 %.
+		expect(all).toContain('fails if ambient_max > 58 °C (now 35 °C)');
+		expect(all).toMatch(/ambient_max +·+│█ +no flip \/ \+7\.46 %/);
+		// The margin chart: the ceiling 2 A of 2.25 A fills 18 of 20 cells (hand arithmetic).
+		expect(all).toMatch(/✓ limit_below_diode_maxim… █{18} {2}│ +11\.1 % left/);
+		session.type('w');
+		await session.waitFor((now) => !now.includes('WHAT WOULD FLIP') && /! advise/.test(now), 'the list again');
+	});
 });
 
 /** The demo plan copied to a fresh folder, with a home for the settings and drafts. */

@@ -8,6 +8,7 @@ import {signRecord, type Signer} from '../../source/records/sign.js';
 import type {Answers} from '../../source/rules/evaluate/answers.js';
 import type {CompiledRules} from '../../source/rules/compile/compiled-rules.js';
 import {evaluate} from '../../source/rules/evaluate/evaluate.js';
+import {analyseWhatIf} from '../../source/rules/evaluate/what-if.js';
 import {loadAnswers} from '../../source/rules/evaluate/load-answers.js';
 import {loadRules, shippedRulesPath} from '../../source/rules/load.js';
 
@@ -38,13 +39,14 @@ export function signerWith(name: string, meaning: 'performed' | 'verified' | 'ap
  * signed by prelase's own code. Signers default to one operator with a fresh key.
  */
 export function sampleRecord(
-	options: {rules?: CompiledRules; answers?: Answers; signers?: ReadonlyArray<{signer: Signer; key: KeyObject}>; now?: Date; operator?: {name: string; role: string}} = {},
+	options: {rules?: CompiledRules; answers?: Answers; signers?: ReadonlyArray<{signer: Signer; key: KeyObject}>; now?: Date; operator?: {name: string; role: string}; /** Keep the what-if analysis as the record's sensitivity section. */ withWhatIf?: boolean} = {},
 ): BenchRecord {
 	const rules = options.rules ?? sampleRules();
 	const answers = options.answers ?? sampleAnswers(rules);
 	const signers = options.signers ?? [signerWith('Ada Operator', 'performed')];
 	const operator = options.operator ?? {name: signers[0]!.signer.name, role: signers[0]!.signer.role};
-	const body = buildRecordBody({rules, answers, evaluation: evaluate(rules, answers), operator, ...(options.now ? {now: options.now} : {})});
+	const evaluation = evaluate(rules, answers);
+	const body = buildRecordBody({rules, answers, evaluation, operator, ...(options.now ? {now: options.now} : {}), ...(options.withWhatIf ? {whatIf: analyseWhatIf(rules, answers, evaluation)} : {})});
 	// The first record of its key in its folder, as prelase writes one: it names no previous record.
 	return signRecord({...body, previous: null}, signers, options.now);
 }

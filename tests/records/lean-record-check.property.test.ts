@@ -7,7 +7,7 @@ import {sampleRecord, sampleRules, serialise} from '../helpers/sample-record.js'
 // The quick check may only ever say yes to what the record schema accepts unchanged: the schema
 // is the reference. Records as prelase writes them must take the quick path (else it gains nothing).
 const rules = sampleRules();
-const written = [sampleRecord({rules}), sampleRecord({rules, now: new Date(Date.UTC(2026, 5, 1))})].map((record) => JSON.parse(serialise(record)) as unknown);
+const written = [sampleRecord({rules}), sampleRecord({rules, now: new Date(Date.UTC(2026, 5, 1))}), sampleRecord({rules, withWhatIf: true})].map((record) => JSON.parse(serialise(record)) as unknown);
 
 type Json = null | boolean | number | string | Json[] | {[name: string]: Json};
 
@@ -76,6 +76,7 @@ describe('isLeanBenchRecord: a quick yes only where the record schema says yes',
 		['a margin with its SI number (before the lean body)', (data: any) => (data.body.checks[0].margin = {si: 1, unit: 'A', text: '1 A', fraction: 0.1})],
 		['an unknown name in a check', (data: any) => (data.body.checks[0].extra = 1)],
 		['no signatures', (data: any) => (data.signatures = [])],
+		['a flip point that is not a number', (data: any) => (data.body.sensitivity = {a_check: {an_input: ['2 A']}})],
 		['a signature count past the safe integers (found by this property at seed 735308053)', (data: any) => (data.signatures[0].count = 2 ** 53)],
 		['a fingerprint in capitals', (data: any) => (data.signatures[0].fingerprint = data.signatures[0].fingerprint.toUpperCase())],
 	])('leaves to the schema: %s', (_label, change) => {

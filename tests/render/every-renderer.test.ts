@@ -56,6 +56,7 @@ beforeAll(async () => {
 
 	const plain = join(folder, 'records');
 	files['record'] = written(await cli(['check', '--answers', files['answers'], '--sign', hostile, '--role', hostile, '--records', plain]));
+	files['whatIfRecord'] = written(await cli(['check', '--answers', files['answers'], '--rules', files['rules'], '--what-if', '--sign', hostile, '--records', join(folder, 'what-if')]));
 	files['testRecord'] = written(await cli(['plan', files['plan'], '--record-test', files['results'], '--records', join(folder, 'tests')]));
 
 	// More records than an audit lists in full: each copy has a hostile file name and a finding.
@@ -95,6 +96,13 @@ const renderers: Record<string, Row | {partOf: string}> = {
 	'report-rule-outline.ts': {partOf: 'report-markdown.ts'},
 	'report-style.ts': {partOf: 'report-html.ts'},
 	'rules-show-text.ts': {via: 'rules show of a site rule file with hostile titles', run: () => cli(['rules', 'show', files['rules']!])},
+	'what-if-text.ts': {via: 'check --what-if under a site rule file with hostile titles', run: () => cli(['check', '--answers', files['answers']!, '--rules', files['rules']!, '--what-if'])},
+	'what-if-json.ts': {via: 'check --what-if --json under a site rule file with hostile titles', run: () => cli(['check', '--answers', files['answers']!, '--rules', files['rules']!, '--what-if', '--json']), arrives: /HOST\\u001b\[2J\\u001b\]52;c;aGk=\\u0007\\u009b31m\\u202e\\u2066\\u0090\\u2069ILE/},
+	'margin-chart.ts': {partOf: 'what-if-text.ts'},
+	'report-charts-html.ts': {via: 'report --format html of a record signed with --what-if under hostile titles (the charts and flip points)', run: () => cli(['report', files['whatIfRecord']!, '--format', 'html'])},
+	'chart-svg.ts': {partOf: 'report-charts-html.ts'},
+	'report-sensitivity.ts': {partOf: 'report-charts-html.ts'},
+	'report-sensitivity-markdown.ts': {via: 'report --format md of a record signed with --what-if under hostile titles (the flip points)', run: () => cli(['report', files['whatIfRecord']!, '--format', 'md'])},
 	'rules-diff-text.ts': {via: 'rules diff from the shipped policy to a hostile site rule file', run: () => cli(['rules', 'diff', shippedRulesPath(), files['rules']!])},
 };
 

@@ -20,6 +20,9 @@ import {isInteractive, startScreens} from '../screens.js';
 import {commitNote} from '../../render/record-commit-text.js';
 import {openSettings} from '../../services/settings.js';
 import {listSetups, loadSetup} from '../../services/drafts/setup-store.js';
+import {analyseWhatIf} from '../../rules/evaluate/what-if.js';
+import {whatIfLines} from '../../render/what-if-text.js';
+import {whatIfToJson} from '../../render/what-if-json.js';
 
 export type {Io} from '../command.js';
 
@@ -37,6 +40,7 @@ const options = {
 	'cosign-role': {type: 'string', value: 'ROLE', summary: 'The second signer\'s role (with --cosign)'},
 	'cosign-meaning': {type: 'string', value: 'witness|approval', summary: 'What the second signature is for: witness (default) or approval (verified and approved are read as these)'},
 	setup: {type: 'string', value: 'NAME', summary: 'Without --answers, on a terminal: open the on-screen check on the setup NAME'},
+	'what-if': {type: 'boolean', summary: 'Also show what would flip each verdict: for each check and input, the value where the verdict changes, the closest calls, the changes that clear each fail, and a tornado chart; with --sign the record keeps the flip points (its sensitivity section)'},
 	help: helpOption,
 } as const;
 
@@ -48,6 +52,7 @@ export function runCheck(args: string[], io: Io): number | Promise<number> {
 		return 0;
 	}
 	if (!values.answers) {
+		if (values['what-if']) throw new UsageError('--what-if goes with --answers FILE; on screen, press w on the summary');
 		if (values.setup !== undefined) {
 			// A name that is not a saved setup would start an empty check under that name.
 			const folder = openSettings(io.env).folder;
@@ -83,11 +88,12 @@ export function runCheck(args: string[], io: Io): number | Promise<number> {
 }
 
 /** The options of `check --answers` that decide what happens after the answers are read. */
-type FinishOptions = {json?: boolean | undefined; sign?: string | undefined; role?: string | undefined; records?: string | undefined; amends?: string | undefined; reason?: string | undefined; cosign?: string | undefined; 'cosign-role'?: string | undefined; 'cosign-key'?: string | undefined; 'cosign-meaning'?: string | undefined};
+type FinishOptions = {json?: boolean | undefined; 'what-if'?: boolean | undefined; sign?: string | undefined; role?: string | undefined; records?: string | undefined; amends?: string | undefined; reason?: string | undefined; cosign?: string | undefined; 'cosign-role'?: string | undefined; 'cosign-key'?: string | undefined; 'cosign-meaning'?: string | undefined};
 
 /** Evaluates the (linked) answers, signs and writes a record when asked, prints the result; returns the exit status. */
 function finishCheck(rules: CompiledRules, linked: {answers: Answers; link: InterlockLink | null}, values: FinishOptions, io: Io): number {
 	const evaluation = evaluate(rules, linked.answers);
+	const whatIf = values['what-if'] ? analyseWhatIf(rules, linked.answers, evaluation) : undefined;
 	const written =
 		values.sign === undefined
 			? undefined
@@ -102,6 +108,7 @@ function finishCheck(rules: CompiledRules, linked: {answers: Answers; link: Inte
 							...(values.records === undefined ? {} : {records: values.records}),
 							...(values.amends === undefined ? {} : {amends: values.amends}),
 							...(values.reason === undefined ? {} : {reason: values.reason}),
+							...(whatIf ? {whatIf} : {}),
 							...(values.cosign === undefined
 								? {}
 								: {cosign: {name: values.cosign, key: values['cosign-key']!, meaning: values['cosign-meaning'] ?? 'witness', ...(values['cosign-role'] === undefined ? {} : {role: values['cosign-role']})}}),
@@ -111,11 +118,12 @@ function finishCheck(rules: CompiledRules, linked: {answers: Answers; link: Inte
 					),
 				);
 	if (values.json) {
-		const json = {...evaluationToJson(rules, linked.answers, evaluation), ...(linked.link ? {interlockTest: linked.link} : {}), ...(written ? {record: {path: written.path, fingerprint: written.fingerprint, ...(typeof written.commit === 'string' ? {commit: written.commit} : {})}} : {})};
+		const json = {...evaluationToJson(rules, linked.answers, evaluation), ...(whatIf ? {whatIf: whatIfToJson(whatIf)} : {}), ...(linked.link ? {interlockTest: linked.link} : {}), ...(written ? {record: {path: written.path, fingerprint: written.fingerprint, ...(typeof written.commit === 'string' ? {commit: written.commit} : {})}} : {})};
 		io.stdout.write(`${terminalSafeJson(json)}\n`);
 		if (written && typeof written.commit === 'object') io.stderr.write(commitNote(written));
 	} else {
 		io.stdout.write(`${checkText(rules, linked.answers, evaluation, paintFor(io.stdout, io.env), io.stdout.columns ?? 100, linked.link)}\n`);
+		if (whatIf) io.stdout.write(`${whatIfLines(whatIf, io.stdout.columns ?? 100, evaluation.checks).join('\n')}\n`);
 		if (written) io.stdout.write(`\nRecord written: ${written.path}\nSigned with key ${written.fingerprint}${written.keyCreated ? ' (a new key, created now; share it with: prelase keys export)' : ''}\n${commitNote(written)}`);
 	}
 	return evaluation.outcome === 'clear_to_energize' ? 0 : 1;
@@ -130,7 +138,7 @@ export const checkCommand: Command = {
 		intro: `prelase check — the bench check
 
 Usage:
-  prelase check --answers FILE [--rules FILE] [--json] [--records DIR]
+  prelase check --answers FILE [--rules FILE] [--json] [--what-if] [--records DIR]
                 [--sign NAME [--role ROLE] [--amends RECORD --reason TEXT]
                  [--cosign NAME --cosign-key FILE [--cosign-role ROLE] [--cosign-meaning verified|approved]]]
   prelase check [--setup NAME] [--rules FILE]

@@ -1,23 +1,30 @@
 import {Box} from 'ink';
 import {Text} from '../Text.js';
 import {useKeystrokes} from '../use-keystrokes.js';
-import {useState} from 'react';
+import {useMemo, useState} from 'react';
 import {wrap} from '../../shared/wrap.js';
 import {countVerdicts} from '../../rules/evaluate/verdict-words.js';
 import type {Session} from './session.js';
 import {outcomeStyle} from '../verdict-style.js';
 import {outcomeReason, summaryLines, type SummaryLine} from './summary-lines.js';
+import {whatIfSummaryLines} from './what-if-lines.js';
 
 /**
  * The outcome and why, on top; then every check and confirmation that is not a plain yes: failures,
- * then what is unanswered or open, then advice, then passes. The caution is one line of the App.
+ * then what is unanswered or open, then advice, then passes. The key w switches to the pictures
+ * and what would flip each verdict (margin chart, closest calls, fixes, tornado chart) and back.
+ * The caution is one line of the App.
  */
 export function SummaryScreen({session, rows, width = 80, onSign, onBack, onHelp, active = true}: {session: Session; rows: number; width?: number; onSign(): void; onBack(): void; onHelp(): void; active?: boolean}) {
 	const [offset, setOffset] = useState(0);
+	const [whatIf, setWhatIf] = useState(false);
 	const {evaluation} = session;
-	const unwrapped = summaryLines(evaluation, session.interlockTest);
+	// The what-if view is worked out when asked for (a few hundred evaluations), once per evaluation.
+	const whatIfView = useMemo(() => (whatIf ? whatIfSummaryLines(session, Math.max(20, width - 1)) : []), [whatIf, session, width]);
+	const unwrapped = whatIf ? whatIfView : summaryLines(evaluation, session.interlockTest);
 	// Long lines wrap (under their own indent) rather than being cut, so every note and message can be read.
 	const wrapped: SummaryLine[] = unwrapped.flatMap((line) => {
+		if (line.preformatted) return [line];
 		const indent = /^\s*(?:\S+ \S+\s+|\S+\s+)?/.exec(line.text)?.[0].length ?? 0;
 		const pieces = wrap(line.text.slice(indent), Math.max(20, width - 1), ' '.repeat(Math.min(indent, 14)));
 		pieces[0] = line.text.slice(0, indent) + pieces[0]!.trimStart();
@@ -36,6 +43,10 @@ export function SummaryScreen({session, rows, width = 80, onSign, onBack, onHelp
 		else if (key.return) onSign();
 		else if (key.escape) onBack();
 		else if (input === '?') onHelp();
+		else if (input === 'w') {
+			setWhatIf(!whatIf);
+			setOffset(0);
+		}
 	}, {isActive: active});
 	const counts = countVerdicts(evaluation.checks);
 	const unanswered = evaluation.confirmations.filter((entry) => entry.status === 'unanswered' || entry.status === 'open').length;

@@ -3,7 +3,7 @@ import type {CheckResult, Evaluation} from '../../rules/evaluate/evaluation.js';
 import {confirmationStyle, verdictStyle} from '../verdict-style.js';
 
 /** One line of the summary, before wrapping. */
-export type SummaryLine = {key: string; text: string; color?: string; dim?: boolean};
+export type SummaryLine = {key: string; text: string; color?: string; dim?: boolean; /** Laid out already (a chart): cut at the width, never re-wrapped. */ preformatted?: boolean};
 
 /** What the summary lists, in the order it lists them: what blocks energizing comes first. */
 export type SummaryGroup = 'fail' | 'open' | 'advise' | 'pass';
