@@ -92,6 +92,13 @@ const schemas = once(() => {
 						message: text.optional(),
 						error: text.optional(),
 						reason: text.optional(),
+						/** Where in the ranges entered the check was judged (records since ranges; absent when no input it uses is a range). */
+						corner: object({
+								method: oneOf(['corners', 'searched', 'capped']),
+								inputs: array(object({id: text, end: oneOf(['low', 'high', 'inside', 'either']), si: number(), text}).strict()),
+							})
+							.strict()
+							.optional(),
 						explanation: text.optional(),
 						basis: text.optional(),
 					})

@@ -111,6 +111,7 @@ export const messages = {
 	'audit-check-extra': 'the record lists the check "{{id}}", which the embedded rules do not have',
 	'audit-verdict-mismatch': 'the check "{{id}}" is recorded as {{recorded}}, but its numbers give {{computed}}',
 	'audit-figure-mismatch': 'the {{what}} of the check "{{id}}" is recorded as {{recorded}}, but its numbers give {{computed}}',
+	'audit-corner-mismatch': 'the check "{{id}}" is recorded as judged {{recorded}}, but re-evaluating its ranges judges it {{computed}}',
 	'audit-derived-mismatch': 'the derived value "{{id}}" is recorded as {{recorded}}, but its numbers give {{computed}}',
 	'audit-confirmation-mismatch': 'the confirmation "{{id}}" is recorded as {{recorded}}, but re-evaluation gives {{computed}}',
 	'audit-missing-inputs-mismatch': 'the record lists the missing inputs as {{recorded}}, but re-evaluation gives {{computed}}',
