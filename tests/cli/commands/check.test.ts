@@ -225,6 +225,21 @@ describe('prelase check --json', () => {
 	});
 });
 
+describe('prelase check with ranges: the corner of every verdict', () => {
+	it('text and JSON name the end of the supply range each check was judged at', () => {
+		const text = run('check', '--answers', clearDemo);
+		// The demo's 5 V with the rules' default 5 %: 4.75 V .. 5.25 V (hand arithmetic: 5 × (1 ∓ 0.05)).
+		expect(text.stdout).toContain('supply_nominal                 4.75 V .. 5.25 V');
+		expect(text.stdout).toMatch(/3\.65 V ≥ 2\.4 V · margin 1\.25 V \(52\.1 %\)\n\s+judged at supply_nominal 4\.75 V \(low end\)/);
+		expect(text.stdout).toMatch(/6\.7 W ≤ 9 W[^\n]*\n\s+judged at supply_nominal 5\.25 V \(high end\)/);
+		const {json} = runJson(clearDemo);
+		const corner = (id: string) => (json['checks'] as Array<Record<string, any>>).find((check) => check['id'] === id)!['corner'];
+		expect(corner('compliance_headroom')).toEqual({method: 'corners', inputs: [{id: 'supply_nominal', end: 'low', si: 4.75, unit: 'V', text: '4.75 V'}]});
+		expect(corner('dissipation_within_rating')).toEqual({method: 'corners', inputs: [{id: 'supply_nominal', end: 'high', si: 5.25, unit: 'V', text: '5.25 V'}]});
+		expect(corner('limit_below_diode_maximum')).toBeUndefined();
+	});
+});
+
 describe('help and version', () => {
 	it.each([
 		{name: 'prelase --help', argv: ['--help'], first: 'prelase — pre-energize bench check'},
