@@ -3,7 +3,8 @@ import type {CompiledRules} from '../compile/compiled-rules.js';
 import type {DerivedResult} from './evaluation.js';
 import {inputsOfDerived} from './input-dependencies.js';
 import {shownSi, toShown} from './shown-value.js';
-import {maxCornerInputs, rangedInputs, scopeAt, type CornerContext} from './worst-corner.js';
+import {maxCornerInputs} from './worst-corner.js';
+import {pointScopes, type CornerContext} from './point-scopes.js';
 
 /**
  * Gives each derived value that uses a ranged input its span over the corners of those ranges
@@ -11,18 +12,16 @@ import {maxCornerInputs, rangedInputs, scopeAt, type CornerContext} from './wors
  * judged: its span is taken over the corners only, and each check still finds its own worst point.
  */
 export function withDerivedSpans(rules: CompiledRules, answers: Answers, derived: DerivedResult[], context: CornerContext): DerivedResult[] {
-	const ranged = rangedInputs(rules, answers, context.scope);
-	if (ranged.size === 0) return derived;
+	const scopes = pointScopes(rules, answers, context);
+	if (scopes.ranged.size === 0) return derived;
 	return derived.map((entry) => {
 		if (entry.status !== 'value') return entry;
 		const uses = inputsOfDerived(rules, entry.id);
-		const varied = [...ranged.values()].filter(({id}) => uses.has(id));
+		const varied = [...scopes.ranged.values()].filter(({id}) => uses.has(id));
 		if (varied.length === 0 || varied.length > maxCornerInputs) return entry;
-		const chain = rules.derived.filter(({derived: other}) => varied.some(({id}) => inputsOfDerived(rules, other.id).has(id)));
-		const upTo = chain.slice(0, chain.findIndex(({derived: other}) => other.id === entry.id) + 1);
 		let [low, high] = [entry.value.si, entry.value.si];
 		for (let mask = 0; mask < 1 << varied.length; mask += 1) {
-			const {scope} = scopeAt(varied, varied.map((input, bit) => (mask & (1 << bit) ? input.high : input.low)), upTo, context);
+			const {scope} = scopes.at(new Map(varied.map(({id, low: bottom, high: top}, bit) => [id, mask & (1 << bit) ? top : bottom])));
 			if (!scope.has(entry.id)) continue;
 			const {si} = toShown(scope.get(entry.id), entry.value.dimension);
 			[low, high] = [Math.min(low, si), Math.max(high, si)];

@@ -1,14 +1,13 @@
-import {isQuantity} from '../../quantities/engine.js';
-import {asDeclared} from '../../quantities/dimension-value.js';
 import type {Dimension} from '../../quantities/dimensions.js';
 import {formatQuantity} from '../../quantities/format.js';
 import type {Answers} from './answers.js';
-import type {CompiledCheck, CompiledDerived, CompiledRules} from '../compile/compiled-rules.js';
-import type {CompiledFormula} from '../compile/formula.js';
-import {toFormulaValue} from '../compile/sample-values.js';
+import type {CompiledCheck, CompiledRules} from '../compile/compiled-rules.js';
 import type {CheckResult, Corner, CornerInput, Verdict} from './evaluation.js';
 import {shownSi} from './shown-value.js';
-import {inputsOfCheck, inputsOfDerived} from './input-dependencies.js';
+import {inputsOfCheck} from './input-dependencies.js';
+import {pointScopes, type CornerContext, type PointScopes, type Ranged} from './point-scopes.js';
+
+export type {CornerContext} from './point-scopes.js';
 
 /** Past this many ranged inputs in one check, its 2^k corners are not all tried (2^8 = 256). */
 export const maxCornerInputs = 8;
@@ -16,20 +15,6 @@ export const maxCornerInputs = 8;
 const insideProbes = [0.25, 0.5, 0.75];
 const goldenSteps = 24;
 
-type Computed = {ok: true; value: unknown} | {ok: false; needs: string[]} | {ok: false; error: string; needs?: undefined};
-type Compute = (formula: CompiledFormula) => Computed;
-
-/** What the evaluation hands over: its scope at the middle values, and how to judge a check (passed in, so the two files import one way). */
-export type CornerContext = {
-	scope: Map<string, unknown>;
-	missing: ReadonlyMap<string, string[]>;
-	failedDerived: ReadonlyMap<string, string>;
-	judge: (compiled: CompiledCheck, compute: Compute, scope: Map<string, unknown>, failedDerived: Map<string, string>) => CheckResult;
-	makeCompute: (scope: Map<string, unknown>, missing: ReadonlyMap<string, string[]>) => Compute;
-};
-
-/** A ranged input: its id, ends in SI and dimension. */
-export type Ranged = {id: string; low: number; high: number; dimension: Dimension};
 type Judged = {result: CheckResult; point: number[]};
 
 /**
@@ -40,31 +25,21 @@ type Judged = {result: CheckResult; point: number[]};
  * (every input low first). A check none of whose inputs is ranged keeps its result as it is.
  */
 export function atWorstCorners(rules: CompiledRules, answers: Answers, checks: CheckResult[], context: CornerContext): CheckResult[] {
-	const ranged = rangedInputs(rules, answers, context.scope);
-	if (ranged.size === 0) return checks;
-	const order = [...rules.inputs.keys()];
+	const scopes = pointScopes(rules, answers, context);
+	if (scopes.ranged.size === 0) return checks;
 	return checks.map((middle, index) => {
-		const compiled = rules.checks[index]!;
-		const varied = order.filter((id) => ranged.has(id) && inputsOfCheck(rules, index).has(id)).map((id) => ranged.get(id)!);
+		const uses = inputsOfCheck(rules, index);
+		const varied = [...scopes.ranged.values()].filter(({id}) => uses.has(id));
 		if (varied.length === 0 || middle.verdict === 'open') return middle;
-		return worstFor(rules, compiled, varied, context);
+		return worstFor(rules.checks[index]!, varied, scopes, context);
 	});
 }
 
-/** The inputs entered as a range of more than one value that are asked (their condition holds). */
-export function rangedInputs(rules: CompiledRules, answers: Answers, scope: ReadonlyMap<string, unknown>): Map<string, Ranged> {
-	const ranged = new Map<string, Ranged>();
-	for (const [id, answer] of answers.inputs) {
-		if (answer.kind !== 'quantity' || !answer.range || !(answer.range.high > answer.range.low)) continue;
-		if (!rules.inputs.has(id) || !scope.has(id)) continue;
-		ranged.set(id, {id, ...answer.range, dimension: answer.dimension});
-	}
-	return ranged;
-}
-
-function worstFor(rules: CompiledRules, compiled: CompiledCheck, varied: Ranged[], context: CornerContext): CheckResult {
-	const recompute = rules.derived.filter((entry) => varied.some(({id}) => inputsOfDerived(rules, entry.derived.id).has(id)));
-	const judgeAt = (point: number[]): Judged => ({result: judgePoint(compiled, varied, point, recompute, context), point});
+function worstFor(compiled: CompiledCheck, varied: Ranged[], scopes: PointScopes, context: CornerContext): CheckResult {
+	const judgeAt = (point: number[]): Judged => {
+		const at = scopes.at(new Map(varied.map(({id}, position) => [id, point[position]!])));
+		return {result: context.judge(compiled, at.compute, at.scope, at.failed), point};
+	};
 	if (varied.length > maxCornerInputs) return capped(varied, judgeAt);
 
 	let worst: Judged | undefined;
@@ -131,36 +106,6 @@ function goldenSection(from: number, to: number, at: (fraction: number) => Judge
 	return isWorse(atD.result, atC.result) ? atD : atC;
 }
 
-function judgePoint(compiled: CompiledCheck, varied: Ranged[], point: number[], recompute: readonly CompiledDerived[], context: CornerContext): CheckResult {
-	const at = scopeAt(varied, point, recompute, context);
-	return context.judge(compiled, at.compute, at.scope, at.failed);
-}
-
-/** The scope with the ranged inputs set to a point and the derived values that use them computed again. */
-export function scopeAt(varied: readonly Ranged[], point: readonly number[], recompute: readonly CompiledDerived[], context: CornerContext) {
-	const scope = new Map(context.scope);
-	const missing = new Map(context.missing);
-	const failed = new Map(context.failedDerived);
-	varied.forEach(({id, dimension}, position) => scope.set(id, toFormulaValue({si: point[position]!, dimension})));
-	const compute = context.makeCompute(scope, missing);
-	for (const {derived, formula} of recompute) {
-		const result = compute(formula);
-		failed.delete(derived.id);
-		missing.delete(derived.id);
-		if (result.ok && isFiniteValue(result.value)) {
-			scope.set(derived.id, asDeclared(result.value, derived.dimension));
-			continue;
-		}
-		scope.delete(derived.id);
-		if (!result.ok && result.needs) missing.set(derived.id, result.needs);
-		else {
-			missing.set(derived.id, []);
-			failed.set(derived.id, result.ok ? 'the result is not a finite number' : result.error);
-		}
-	}
-	return {scope, missing, failed, compute};
-}
-
 function withCorner(result: CheckResult, varied: Ranged[], point: number[], method: Corner['method'], either: readonly boolean[] = []): CheckResult {
 	const inputs = varied.map(({id, low, high, dimension}, position): CornerInput => {
 		const si = point[position]!;
@@ -184,12 +129,6 @@ export function isWorse(a: CheckResult, b: CheckResult): boolean {
 function marginOf(result: CheckResult): number {
 	if (result.error !== undefined) return -Infinity;
 	return result.margin?.si ?? 0;
-}
-
-function isFiniteValue(value: unknown): boolean {
-	if (typeof value === 'number') return Number.isFinite(value);
-	if (typeof value === 'boolean' || typeof value === 'string') return true;
-	return isQuantity(value) && Number.isFinite(value.value);
 }
 
 /** The words of a corner: "judged at diode_knee_voltage 2 V (high end), ambient_max 35 °C (high end)". */
