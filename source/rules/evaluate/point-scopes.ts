@@ -42,7 +42,14 @@ export function pointScopes(rules: CompiledRules, answers: Answers, context: Cor
 	if (known) return known;
 	const ranged = rangedInputs(rules, answers, context.scope);
 	const all = [...ranged.values()];
-	const recompute = rules.derived.filter((entry) => all.some(({id}) => inputsOfDerived(rules, entry.derived.id).has(id)));
+	// Only the derived values that use an input the point moves from its middle are computed again: the rest are the evaluation's own.
+	const chains = new Map<string, CompiledDerived[]>();
+	const chainFor = (moved: readonly Ranged[]) => {
+		const key = moved.map(({id}) => id).join('|');
+		let chain = chains.get(key);
+		if (!chain) chains.set(key, (chain = rules.derived.filter((entry) => moved.some(({id}) => inputsOfDerived(rules, entry.derived.id).has(id)))));
+		return chain;
+	};
 	const points = new Map<string, PointScope>();
 	const scopes: PointScopes = {
 		ranged,
@@ -51,7 +58,8 @@ export function pointScopes(rules: CompiledRules, answers: Answers, context: Cor
 			const key = point.join('|');
 			const found = points.get(key);
 			if (found) return found;
-			const computed = scopeAt(all, point, recompute, context);
+			const moved = all.filter((input, position) => point[position] !== input.middle);
+			const computed = scopeAt(moved, moved.map((input) => point[all.indexOf(input)]!), chainFor(moved), context);
 			points.set(key, computed);
 			return computed;
 		},

@@ -11,8 +11,9 @@ export type {CornerContext} from './point-scopes.js';
 
 /** Past this many ranged inputs in one check, its 2^k corners are not all tried (2^8 = 256). */
 export const maxCornerInputs = 8;
-/** Points tried inside each range, as fractions of the way from its low end, to find a worse point than any corner. */
-const insideProbes = [0.25, 0.5, 0.75];
+/** The step inward from a range's worst end that tells whether a worse point lies inside, as a fraction of the range. */
+export const inwardStep = 1e-4;
+/** Golden-section steps: each narrows the bracket to 0.618 of itself, 24 to about 1e-5 of the range. */
 const goldenSteps = 24;
 
 type Judged = {result: CheckResult; point: number[]};
@@ -36,9 +37,15 @@ export function atWorstCorners(rules: CompiledRules, answers: Answers, checks: C
 }
 
 function worstFor(compiled: CompiledCheck, varied: Ranged[], scopes: PointScopes, context: CornerContext): CheckResult {
+	const seen = new Map<string, Judged>();
 	const judgeAt = (point: number[]): Judged => {
+		const key = point.join('|');
+		const known = seen.get(key);
+		if (known) return known;
 		const at = scopes.at(new Map(varied.map(({id}, position) => [id, point[position]!])));
-		return {result: context.judge(compiled, at.compute, at.scope, at.failed), point};
+		const made = {result: context.judge(compiled, at.compute, at.scope, at.failed), point};
+		seen.set(key, made);
+		return made;
 	};
 	if (varied.length > maxCornerInputs) return capped(varied, judgeAt);
 
@@ -48,15 +55,15 @@ function worstFor(compiled: CompiledCheck, varied: Ranged[], scopes: PointScopes
 		if (!worst || isWorse(judged.result, worst.result)) worst = judged;
 	}
 	let method: Corner['method'] = 'corners';
-	// A value need not be monotone in an input (a dissipation peaks inside a current range):
-	// try points inside each range with the others at the worst corner, and refine around the worst.
+	// A value need not be monotone in an input (a dissipation peaks inside a current range). One
+	// small step inward from the worst end tells: if it is worse, the worst point lies inside, and a
+	// golden-section search over the range finds it (exact for a value with one peak in the range).
 	for (const [position, input] of varied.entries()) {
 		const at = (fraction: number) => judgeAt(worst!.point.map((value, other) => (other === position ? input.low + fraction * (input.high - input.low) : value)));
-		const probes = insideProbes.map((fraction) => ({fraction, judged: at(fraction)}));
-		const inside = probes.reduce((a, b) => (isWorse(b.judged.result, a.judged.result) ? b : a));
-		if (!isWorse(inside.judged.result, worst!.result)) continue;
-		const refined = goldenSection(Math.max(0, inside.fraction - 0.25), Math.min(1, inside.fraction + 0.25), at);
-		worst = isWorse(refined.result, inside.judged.result) ? refined : inside.judged;
+		const step = at(worst!.point[position] === input.low ? inwardStep : 1 - inwardStep);
+		if (!isWorse(step.result, worst!.result)) continue;
+		const refined = goldenSection(0, 1, at);
+		worst = isWorse(refined.result, step.result) ? refined : step;
 		method = 'searched';
 	}
 	// An input whose other end gives the same verdict and margin does not decide this check: say "either end".
