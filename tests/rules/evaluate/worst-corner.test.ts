@@ -110,3 +110,65 @@ describe('a value not monotone in its input is searched inside the range', () =>
 		expect(check.corner).toEqual({method: 'corners', inputs: [expect.objectContaining({id: 'current', end: 'high'})]});
 	});
 });
+
+/** A rule file whose one check sums nine inputs: 2^9 = 512 corners, past the cap of 8 ranged inputs. */
+const nineRules = (limit: string) => `
+format: 1
+name: nine ranged inputs
+caution: Defer to the laser safety officer and local codes (IEC 60825 / ANSI Z136 / local law).
+steps:
+  - id: only
+    title: Only
+    inputs:
+${Array.from({length: 9}, (_, index) => `      - {id: v${index}, label: V${index}, dimension: voltage, range: [0 V, 10 V]}`).join('\n')}
+checks:
+  - id: total
+    step: only
+    title: Total within the limit
+    value: ${Array.from({length: 9}, (_, index) => `v${index}`).join(' + ')}
+    at_most: ${limit}
+    severity: stop
+    explanation: test
+    basis: hand arithmetic
+  - id: first_only
+    step: only
+    title: First and second
+    value: v0 + v1 * 0
+    at_most: 10 V
+    severity: stop
+    explanation: test
+    basis: hand arithmetic
+`;
+
+describe('past the cap of ranged inputs in one check', () => {
+	const judge = (limit: string, id: string) => {
+		const loaded = loadRulesFromText(nineRules(limit), 'nine.yaml');
+		if (!loaded.ok) throw new Error(loaded.errors.map((found) => found.code).join(', '));
+		const inputs = Object.fromEntries(Array.from({length: 9}, (_, index) => [`v${index}`, '1 V .. 2 V']));
+		const answers = loadAnswersFromText(stringify({inputs}), 'case.yaml', loaded.value);
+		if (!answers.ok) throw new Error(answers.errors.map((found) => found.code).join(', '));
+		return checkResult(evaluate(loaded.value, answers.value), id);
+	};
+
+	it('a fail found one input at a time stands, at every high end', () => {
+		// hand arithmetic: nine high ends 9 × 2 V = 18 V > 15 V
+		const check = judge('15 V', 'total');
+		expect(check.verdict).toBe('fail');
+		expect(check.value?.si).toBeCloseTo(18, 12);
+		expect(check.corner?.method).toBe('capped');
+		expect(check.corner?.inputs.every(({end}) => end === 'high')).toBe(true);
+	});
+
+	it('a pass found so is not trusted: the check is open, naming the ranged inputs', () => {
+		// hand arithmetic: 18 V ≤ 20 V would pass, but not every corner was tried
+		const check = judge('20 V', 'total');
+		expect(check.verdict).toBe('open');
+		expect(check.needs).toHaveLength(9);
+	});
+
+	it('an input the check reads but that does not move it is named "either end"', () => {
+		// hand arithmetic: v0 + 0 × v1; the worst is v0 = 2 V whatever v1 is
+		const check = judge('20 V', 'first_only');
+		expect(check.corner?.inputs.map(({id, end}) => `${id} ${end}`)).toEqual(['v0 high', 'v1 either']);
+	});
+});
