@@ -79,19 +79,23 @@ function rangedInputs(rules: CompiledRules, answers: Answers, scope: ReadonlyMap
 	return ranged;
 }
 
+/**
+ * The scope at a point. The derived values that use a moved input are computed when first read,
+ * not all at once: a check reads the few it needs, and a point is shared by checks that need others.
+ */
 function scopeAt(varied: readonly Ranged[], point: readonly number[], recompute: readonly CompiledDerived[], context: CornerContext): PointScope {
-	const scope = new Overlay(context.scope);
-	const missing = new Overlay(context.missing);
-	const failed = new Overlay(context.failedDerived);
-	varied.forEach(({id, dimension}, position) => scope.set(id, toFormulaValue({si: point[position]!, dimension})));
-	const compute = context.makeCompute(scope, missing);
-	for (const {derived, formula} of recompute) {
+	const pending = new Map(recompute.map((entry) => [entry.derived.id, entry]));
+	const resolve = (id: string) => {
+		const entry = pending.get(id);
+		if (!entry) return;
+		pending.delete(id);
+		const {derived, formula} = entry;
 		const result = compute(formula);
 		failed.delete(derived.id);
 		missing.delete(derived.id);
 		if (result.ok && isFiniteValue(result.value)) {
 			scope.set(derived.id, asDeclared(result.value, derived.dimension));
-			continue;
+			return;
 		}
 		scope.delete(derived.id);
 		if (!result.ok && result.needs) missing.set(derived.id, result.needs);
@@ -99,7 +103,12 @@ function scopeAt(varied: readonly Ranged[], point: readonly number[], recompute:
 			missing.set(derived.id, []);
 			failed.set(derived.id, result.ok ? 'the result is not a finite number' : result.error);
 		}
-	}
+	};
+	const scope = new Overlay(context.scope, resolve);
+	const missing = new Overlay(context.missing, resolve);
+	const failed = new Overlay(context.failedDerived, resolve);
+	varied.forEach(({id, dimension}, position) => scope.set(id, toFormulaValue({si: point[position]!, dimension})));
+	const compute = context.makeCompute(scope, missing);
 	return {scope, failed, compute};
 }
 
@@ -118,16 +127,22 @@ function isFiniteValue(value: unknown): boolean {
 class Overlay<V> extends Map<string, V> {
 	private readonly removed = new Set<string>();
 
-	constructor(private readonly base: ReadonlyMap<string, V>) {
+	/** `resolve` computes a value the point has not computed yet, before it is read. */
+	constructor(
+		private readonly base: ReadonlyMap<string, V>,
+		private readonly resolve: (key: string) => void,
+	) {
 		super();
 	}
 
 	override get(key: string): V | undefined {
+		this.resolve(key);
 		if (super.has(key)) return super.get(key);
 		return this.removed.has(key) ? undefined : this.base.get(key);
 	}
 
 	override has(key: string): boolean {
+		this.resolve(key);
 		return super.has(key) || (!this.removed.has(key) && this.base.has(key));
 	}
 
