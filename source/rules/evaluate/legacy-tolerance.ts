@@ -1,6 +1,6 @@
 import {parseQuantity} from '../../quantities/parse-quantity.js';
 import {looksLikeRange} from '../../quantities/range-entry.js';
-import type {CompiledRules} from '../compile/compiled-rules.js';
+import type {CompiledInput, CompiledRules} from '../compile/compiled-rules.js';
 import type {EntryProblem} from './input-entry.js';
 
 /** What folding older tolerance inputs did: the entries to read, and a problem per refused tolerance, by the id it was given under. */
@@ -14,9 +14,11 @@ export type FoldedTolerances = {entries: Record<string, unknown>; problems: Arra
  * text the record then keeps. A value already entered as a range keeps its own range.
  */
 export function foldLegacyTolerances(entries: Record<string, unknown>, rules: CompiledRules): FoldedTolerances {
-	const folded: Record<string, unknown> = {...entries};
 	const problems: FoldedTolerances['problems'] = [];
-	for (const [id, compiled] of rules.inputs) {
+	const folding = foldingInputs(rules);
+	if (folding.length === 0) return {entries, problems};
+	const folded: Record<string, unknown> = {...entries};
+	for (const [id, compiled] of folding) {
 		const {input} = compiled;
 		if (input.kind !== 'quantity' || !input.tolerance_input_was) continue;
 		const old = input.tolerance_input_was;
@@ -44,4 +46,18 @@ export function foldLegacyTolerances(entries: Record<string, unknown>, rules: Co
 function percentText(written: string, fraction: number): string {
 	if (written.endsWith('%')) return written;
 	return `${Number((fraction * 100).toPrecision(12))} %`;
+}
+
+const folders = new WeakMap<CompiledRules, Array<[string, CompiledInput]>>();
+
+/** The inputs whose tolerance older rules asked for separately (most rules have none: then nothing is copied). */
+function foldingInputs(rules: CompiledRules): Array<[string, CompiledInput]> {
+	let found = folders.get(rules);
+	if (!found) folders.set(rules, (found = [...rules.inputs].filter(([, {input}]) => input.kind === 'quantity' && input.tolerance_input_was !== undefined)));
+	return found;
+}
+
+/** True when the rules fold an older separate tolerance input into a value's range. */
+export function foldsTolerances(rules: CompiledRules): boolean {
+	return foldingInputs(rules).length > 0;
 }
