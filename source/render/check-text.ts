@@ -67,7 +67,7 @@ function confirmationLines(entry: ConfirmationResult, paint: Paint, width: numbe
 }
 
 function answerText(input: Input, answer: InputAnswer): string {
-	if (answer.kind === 'quantity') return answer.range ? rangeText(answer.range, answer.dimension) : formatQuantity(answer.si, answer.dimension);
+	if (answer.kind === 'quantity') return answer.range && answer.range.high > answer.range.low ? rangeText(answer.range, answer.dimension) : formatQuantity(answer.si, answer.dimension);
 	if (answer.kind === 'choice' && input.kind === 'choice') return oneLine(input.options[answer.option] ?? answer.option);
 	if (answer.kind === 'yes_no') return answer.value ? 'yes' : 'no';
 	return oneLine(answer.entered);

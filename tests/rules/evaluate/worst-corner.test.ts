@@ -35,6 +35,14 @@ describe('forward voltage as a range: each check takes the end worst for it', ()
 	it('leaves a check that uses no ranged input without a corner', () => {
 		expect(checkResult(evaluation, 'limit_below_diode_maximum').corner).toBeUndefined();
 	});
+
+	it('a range of one value (a supply at ± 0 %) is no range: no corner, the value itself', () => {
+		const flat = evaluateDocument(rules, withChanges(demo, {supply_nominal: '5 V ± 0 %', supply_tolerance: null}));
+		const check = checkResult(flat, 'compliance_headroom');
+		// hand arithmetic: 5 − 2 × 0.15 − 0.8 = 3.9 V
+		expectClose(check.value?.si, 3.9, 'available at 5 V');
+		expect(check.corner).toBeUndefined();
+	});
 });
 
 describe('the worst corner decides the verdict', () => {
