@@ -78,7 +78,7 @@ function worstFor(compiled: CompiledCheck, varied: Ranged[], scopes: PointScopes
 
 /** Too many ranged inputs for every corner: each input at its worse end with the others in the middle, then all together. */
 function capped(varied: Ranged[], judgeAt: (point: number[]) => Judged): CheckResult {
-	const middle = varied.map(({low, high}) => (low + high) / 2);
+	const middle = varied.map(({middle: value}) => value);
 	const point = varied.map((input, position) => {
 		const low = judgeAt(middle.map((value, other) => (other === position ? input.low : value)));
 		const high = judgeAt(middle.map((value, other) => (other === position ? input.high : value)));
