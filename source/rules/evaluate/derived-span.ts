@@ -21,7 +21,7 @@ export function withDerivedSpans(rules: CompiledRules, answers: Answers, derived
 		if (varied.length === 0 || varied.length > maxCornerInputs) return entry;
 		let [low, high] = [entry.value.si, entry.value.si];
 		for (let mask = 0; mask < 1 << varied.length; mask += 1) {
-			const {scope} = scopes.at(new Map(varied.map(({id, low: bottom, high: top}, bit) => [id, mask & (1 << bit) ? top : bottom])));
+			const {scope} = scopes.at(varied, varied.map(({low: bottom, high: top}, bit) => (mask & (1 << bit) ? top : bottom)));
 			if (!scope.has(entry.id)) continue;
 			const {si} = toShown(scope.get(entry.id), entry.value.dimension);
 			[low, high] = [Math.min(low, si), Math.max(high, si)];

@@ -28,7 +28,7 @@ export type Ranged = {id: string; low: number; high: number; middle: number; dim
 export type PointScope = {scope: Map<string, unknown>; failed: Map<string, string>; compute: Compute};
 
 /** The ranged inputs of one evaluation, and the scope at any point of their ranges (each point computed once). */
-export type PointScopes = {ranged: ReadonlyMap<string, Ranged>; at(values: ReadonlyMap<string, number>): PointScope};
+export type PointScopes = {ranged: ReadonlyMap<string, Ranged>; /** The scope with these ranged inputs at these values, the others at their middle. */ at(inputs: readonly Ranged[], values: readonly number[]): PointScope};
 
 const made = new WeakMap<CornerContext, PointScopes>();
 
@@ -42,6 +42,7 @@ export function pointScopes(rules: CompiledRules, answers: Answers, context: Cor
 	if (known) return known;
 	const ranged = rangedInputs(rules, answers, context.scope);
 	const all = [...ranged.values()];
+	const position = new Map(all.map(({id}, index) => [id, index]));
 	// Only the derived values that use an input the point moves from its middle are computed again: the rest are the evaluation's own.
 	const chains = new Map<string, CompiledDerived[]>();
 	const chainFor = (moved: readonly Ranged[]) => {
@@ -53,13 +54,14 @@ export function pointScopes(rules: CompiledRules, answers: Answers, context: Cor
 	const points = new Map<string, PointScope>();
 	const scopes: PointScopes = {
 		ranged,
-		at(values) {
-			const point = all.map(({id, middle}) => values.get(id) ?? middle);
+		at(inputs, values) {
+			const point = all.map(({middle}) => middle);
+			inputs.forEach(({id}, index) => (point[position.get(id)!] = values[index]!));
 			const key = point.join('|');
 			const found = points.get(key);
 			if (found) return found;
 			const moved = all.filter((input, position) => point[position] !== input.middle);
-			const computed = scopeAt(moved, moved.map((input) => point[all.indexOf(input)]!), chainFor(moved), context);
+			const computed = scopeAt(moved, moved.map(({id}) => point[position.get(id)!]!), chainFor(moved), context);
 			points.set(key, computed);
 			return computed;
 		},
@@ -125,7 +127,7 @@ function isFiniteValue(value: unknown): boolean {
  * true here; iterating an overlay gives its own entries alone.
  */
 class Overlay<V> extends Map<string, V> {
-	private readonly removed = new Set<string>();
+	private removed: Set<string> | undefined;
 
 	/** `resolve` computes a value the point has not computed yet, before it is read. */
 	constructor(
@@ -138,12 +140,12 @@ class Overlay<V> extends Map<string, V> {
 	override get(key: string): V | undefined {
 		this.resolve(key);
 		if (super.has(key)) return super.get(key);
-		return this.removed.has(key) ? undefined : this.base.get(key);
+		return this.removed?.has(key) ? undefined : this.base.get(key);
 	}
 
 	override has(key: string): boolean {
 		this.resolve(key);
-		return super.has(key) || (!this.removed.has(key) && this.base.has(key));
+		return super.has(key) || (!this.removed?.has(key) && this.base.has(key));
 	}
 
 	override set(key: string, value: V): this {
@@ -154,7 +156,7 @@ class Overlay<V> extends Map<string, V> {
 	override delete(key: string): boolean {
 		const had = this.has(key);
 		super.delete(key);
-		this.removed.add(key);
+		(this.removed ??= new Set()).add(key);
 		return had;
 	}
 }

@@ -42,7 +42,7 @@ function worstFor(compiled: CompiledCheck, varied: Ranged[], scopes: PointScopes
 		const key = point.join('|');
 		const known = seen.get(key);
 		if (known) return known;
-		const at = scopes.at(new Map(varied.map(({id}, position) => [id, point[position]!])));
+		const at = scopes.at(varied, point);
 		const made = {result: context.judge(compiled, at.compute, at.scope, at.failed), point};
 		seen.set(key, made);
 		return made;
