@@ -18,8 +18,8 @@ describe('a record from before ranges, read under the current rules', () => {
 		const supply = read.answers.inputs.get('supply_nominal');
 		expect(supply?.entered).toBe('5 V ± 3 %');
 		// hand arithmetic: 5 V × (1 ∓ 0.03) = 4.85 V .. 5.15 V
-		expect(supply?.kind === 'quantity' && supply.range?.low).toBeCloseTo(4.85, 12);
-		expect(supply?.kind === 'quantity' && supply.range?.high).toBeCloseTo(5.15, 12);
+		expect(supply?.kind === 'quantity' && supply.range?.low).toBeCloseTo(4.85, 12); // hand arithmetic in the comment above
+		expect(supply?.kind === 'quantity' && supply.range?.high).toBeCloseTo(5.15, 12); // hand arithmetic in the comment above
 	});
 
 	it('a record since ranges is read as entered', () => {

@@ -41,8 +41,8 @@ describe('the record keeps exactly what was typed', () => {
 		const knee = answers.value.inputs.get('diode_knee_voltage');
 		expect(knee?.entered).toBe('1.6 V ± 0.1 V');
 		// hand arithmetic: 1.6 ∓ 0.1 = 1.5 and 1.7
-		expect(knee?.kind === 'quantity' && knee.range?.low).toBeCloseTo(1.5, 12);
-		expect(knee?.kind === 'quantity' && knee.range?.high).toBeCloseTo(1.7, 12);
+		expect(knee?.kind === 'quantity' && knee.range?.low).toBeCloseTo(1.5, 12); // hand arithmetic in the comment above
+		expect(knee?.kind === 'quantity' && knee.range?.high).toBeCloseTo(1.7, 12); // hand arithmetic in the comment above
 	});
 });
 

@@ -15,9 +15,9 @@ describe('forward voltage as a range: each check takes the end worst for it', ()
 		const check = checkResult(evaluation, 'compliance_headroom');
 		// hand arithmetic (Kirchhoff's voltage law around the output loop, common practice):
 		// available = 5 V × 0.95 − 2 A × (0.05 + 0.10) Ω − 0.8 V = 4.75 − 0.30 − 0.80 = 3.65 V
-		expectClose(check.value?.si, 3.65, 'available');
+		expectClose(check.value?.si, 3.65, 'available'); // hand arithmetic in the comment above
 		// needed = knee 1.7 V + 0.15 Ω × 2 A + headroom_margin 0.5 V = 1.7 + 0.3 + 0.5 = 2.5 V
-		expectClose(check.limit?.si, 2.5, 'needed');
+		expectClose(check.limit?.si, 2.5, 'needed'); // hand arithmetic in the comment above
 		expect(check.corner?.inputs.map(({id, end}) => `${id} ${end}`)).toEqual(['diode_knee_voltage high', 'supply_nominal low']);
 	});
 
@@ -25,9 +25,9 @@ describe('forward voltage as a range: each check takes the end worst for it', ()
 		const check = checkResult(evaluation, 'dissipation_within_rating');
 		// hand arithmetic (linear pass element, common practice): the peak (5.25 − 1.5)/(2 × 0.15) = 12.5 A
 		// lies above the 2 A limit, so the worst is at 2 A: (5.25 − 1.5 − 0.15 × 2) × 2 = 3.45 × 2 = 6.9 W
-		expectClose(check.value?.si, 6.9, 'dissipation');
+		expectClose(check.value?.si, 6.9, 'dissipation'); // hand arithmetic in the comment above
 		// linear derating (common practice): 10 W × (125 − 35)/(125 − 25) = 9 W
-		expectClose(check.limit?.si, 9, 'allowed');
+		expectClose(check.limit?.si, 9, 'allowed'); // hand arithmetic in the comment above
 		expect(check.corner?.inputs.map(({id, end}) => `${id} ${end}`)).toEqual(['diode_knee_voltage low', 'supply_nominal high']);
 		expect(check.corner?.inputs[0]?.value.text).toBe('1.5 V');
 	});
@@ -40,7 +40,7 @@ describe('forward voltage as a range: each check takes the end worst for it', ()
 		const flat = evaluateDocument(rules, withChanges(demo, {supply_nominal: '5 V ± 0 %', supply_tolerance: null}));
 		const check = checkResult(flat, 'compliance_headroom');
 		// hand arithmetic: 5 − 2 × 0.15 − 0.8 = 3.9 V
-		expectClose(check.value?.si, 3.9, 'available at 5 V');
+		expectClose(check.value?.si, 3.9, 'available at 5 V'); // hand arithmetic in the comment above
 		expect(check.corner).toBeUndefined();
 	});
 });
@@ -52,7 +52,7 @@ describe('the worst corner decides the verdict', () => {
 		// the shorted output, 5.25 V × 2 A = 10.5 W, is above 8 W and advises
 		const evaluation = evaluateDocument(rules, withChanges(demo, {ambient_max: '25 degC .. 45 degC'}));
 		const dissipation = checkResult(evaluation, 'dissipation_within_rating');
-		expectClose(dissipation.limit?.si, 8, 'allowed at 45 °C');
+		expectClose(dissipation.limit?.si, 8, 'allowed at 45 °C'); // hand arithmetic in the comment above
 		expect(dissipation.corner?.inputs.find(({id}) => id === 'ambient_max')?.end).toBe('high');
 		expect(checkResult(evaluation, 'short_circuit_dissipation').verdict).toBe('advise');
 	});
@@ -63,7 +63,7 @@ describe('the worst corner decides the verdict', () => {
 		const evaluation = evaluateDocument(rules, withChanges(demo, {supply_nominal: '3.3 V .. 5 V', supply_tolerance: null}));
 		const check = checkResult(evaluation, 'compliance_headroom');
 		expect(check.verdict).toBe('fail');
-		expectClose(check.value?.si, 2.2, 'available at 3.3 V');
+		expectClose(check.value?.si, 2.2, 'available at 3.3 V'); // hand arithmetic in the comment above
 		expect(check.corner?.inputs).toEqual([expect.objectContaining({id: 'supply_nominal', end: 'low'})]);
 		expect(evaluation.outcome).toBe('do_not_energize');
 	});
@@ -104,17 +104,17 @@ describe('a value not monotone in its input is searched inside the range', () =>
 		// hand arithmetic: P(0 A) = 0 W and P(10 A) = 0 W pass; dP/dI = 10 − 2I = 0 at I = 5 A, P = 5 × 5 = 25 W > 20 W
 		const check = judge('0 A .. 10 A');
 		expect(check.verdict).toBe('fail');
-		expect(check.value?.si).toBeCloseTo(25, 6);
+		expect(check.value?.si).toBeCloseTo(25, 6); // hand arithmetic in the comment above
 		expect(check.corner?.method).toBe('searched');
 		expect(check.corner?.inputs[0]?.end).toBe('inside');
-		expect(check.corner?.inputs[0]?.value.si).toBeCloseTo(5, 3);
+		expect(check.corner?.inputs[0]?.value.si).toBeCloseTo(5, 3); // hand arithmetic in the comment above
 	});
 
 	it('keeps a corner where the range does not hold the peak', () => {
 		// hand arithmetic: P rises on 1 A .. 2 A; P(2 A) = 8 × 2 = 16 W ≤ 20 W, the worst at the high end
 		const check = judge('1 A .. 2 A');
 		expect(check.verdict).toBe('pass');
-		expect(check.value?.si).toBeCloseTo(16, 9);
+		expect(check.value?.si).toBeCloseTo(16, 9); // hand arithmetic in the comment above
 		expect(check.corner).toEqual({method: 'corners', inputs: [expect.objectContaining({id: 'current', end: 'high'})]});
 	});
 });
@@ -162,7 +162,7 @@ describe('past the cap of ranged inputs in one check', () => {
 		// hand arithmetic: nine high ends 9 × 2 V = 18 V > 15 V
 		const check = judge('15 V', 'total');
 		expect(check.verdict).toBe('fail');
-		expect(check.value?.si).toBeCloseTo(18, 12);
+		expect(check.value?.si).toBeCloseTo(18, 12); // hand arithmetic in the comment above
 		expect(check.corner?.method).toBe('capped');
 		expect(check.corner?.inputs.every(({end}) => end === 'high')).toBe(true);
 	});

@@ -20,7 +20,7 @@ describe('a range typed in a check field', () => {
 		expect(typed.session.entries['diode_knee_voltage']).toBe('1.6 V ± 0.1 V');
 		// hand arithmetic: the knee's high end 1.6 + 0.1 = 1.7 V is worst for headroom; 1.7 + 0.15 × 2 + 0.5 = 2.5 V needed
 		const headroom = check(typed.session, 'compliance_headroom');
-		expect(headroom.limit?.si).toBeCloseTo(2.5, 12);
+		expect(headroom.limit?.si).toBeCloseTo(2.5, 12); // hand arithmetic in the comment above
 		const {lastFrame} = render(<ChecksPanel checks={[headroom]} rows={12} width={80} />);
 		expect(words(lastFrame()!)).toContain('judged at diode_knee_voltage 1.7 V (high end), supply_nominal 4.75 V (low end)');
 	});
@@ -43,6 +43,6 @@ describe('a range typed in a check field', () => {
 		expect(session.entries['supply_nominal']).toBe('5 V ± 3 %');
 		expect(session.entries).not.toHaveProperty('supply_tolerance');
 		// hand arithmetic: 5 × (1 − 0.03) − 2 × 0.15 − 0.8 = 4.85 − 0.3 − 0.8 = 3.75 V
-		expect(check(session, 'compliance_headroom').value?.si).toBeCloseTo(3.75, 12);
+		expect(check(session, 'compliance_headroom').value?.si).toBeCloseTo(3.75, 12); // hand arithmetic in the comment above
 	});
 });
