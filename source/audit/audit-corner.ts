@@ -1,5 +1,6 @@
 import type {Corner} from '../rules/evaluate/evaluation.js';
 import {cornerWords} from '../rules/evaluate/worst-corner.js';
+import {shownSi} from '../rules/evaluate/shown-value.js';
 import {finding, type Finding} from '../records/findings.js';
 import type {RecordBody} from '../records/record-schema.js';
 
@@ -10,8 +11,10 @@ function sameNumber(a: number, b: number): boolean {
 	return a === b || Math.abs(a - b) <= 1e-9 * Math.max(Math.abs(a), Math.abs(b));
 }
 
-function recordedWords(corner: NonNullable<RecordedCorner>): string {
-	return cornerWords({method: corner.method, inputs: corner.inputs.map(({id, end, si, text}) => ({id, end, value: {si, text, dimension: 'number'}}))});
+/** The recorded corner in the words of a computed one, each end's number shown in SI (the record keeps no unit). */
+function recordedWords(corner: NonNullable<RecordedCorner>, computed: Corner | undefined): string {
+	const dimension = (id: string) => computed?.inputs.find((input) => input.id === id)?.value.dimension ?? 'number';
+	return cornerWords({method: corner.method ?? 'corners', inputs: corner.inputs.map(({id, end, si}) => ({id, end, value: shownSi(si, dimension(id))}))});
 }
 
 /**
@@ -24,12 +27,12 @@ export function cornerFinding(id: string, recorded: RecordedCorner, computed: Co
 	const same =
 		recorded !== undefined &&
 		computed !== undefined &&
-		recorded.method === computed.method &&
+		(recorded.method ?? 'corners') === computed.method &&
 		recorded.inputs.length === computed.inputs.length &&
 		recorded.inputs.every((input, index) => {
 			const other = computed.inputs[index]!;
 			return input.id === other.id && input.end === other.end && sameNumber(input.si, other.value.si);
 		});
 	if (same) return undefined;
-	return finding('consistency', 'audit-corner-mismatch', {id, recorded: recorded ? recordedWords(recorded) : 'nowhere in particular (no corner)', computed: computed ? cornerWords(computed) : 'nowhere in particular (no corner)'});
+	return finding('consistency', 'audit-corner-mismatch', {id, recorded: recorded ? recordedWords(recorded, computed) : 'nowhere in particular (no corner)', computed: computed ? cornerWords(computed) : 'nowhere in particular (no corner)'});
 }

@@ -52,7 +52,8 @@ export function buildRecordBody(input: {rules: CompiledRules; answers: Answers; 
 		derived: Object.fromEntries(Object.entries(derived).map(([id, entry]) => [id, 'si' in entry ? entry.si : entry])),
 		checks: checks.map(({step: _step, title: _title, severity: _severity, relation: _relation, explanation: _explanation, basis: _basis, value, limit, margin, corner, ...check}) => ({
 			...check,
-			...(corner ? {corner: {method: corner.method, inputs: corner.inputs.map(({id, end, si, text}) => ({id, end, si, text}))}} : {}),
+			// Lean: the text of an end follows from its number and the input's unit; "every corner tried" is the default.
+			...(corner ? {corner: {...(corner.method === 'corners' ? {} : {method: corner.method}), inputs: corner.inputs.map(({id, end, si}) => ({id, end, si}))}} : {}),
 			...(value ? {value: figure(value)} : {}),
 			...(limit ? {limit: figure(limit)} : {}),
 			...(margin ? {margin: margin.text} : {}),

@@ -25,9 +25,10 @@ const signatureRequired = new Set(['signer', 'signedAt', 'algorithm', 'publicKey
 const signatureAllowed = new Set([...signatureRequired, 'meaning', 'purpose', 'endorses', 'count']);
 const checkRequired = new Set(['id', 'verdict']);
 const checkAllowed = new Set(['id', 'step', 'title', 'severity', 'verdict', 'relation', 'value', 'limit', 'margin', 'needs', 'message', 'error', 'reason', 'explanation', 'basis', 'corner']);
-const cornerKeys = new Set(['method', 'inputs']);
-const cornerInputKeys = new Set(['id', 'end', 'si', 'text']);
-const cornerMethods = new Set(['corners', 'searched', 'capped']);
+const cornerRequired = new Set(['inputs']);
+const cornerAllowed = new Set(['method', 'inputs']);
+const cornerInputKeys = new Set(['id', 'end', 'si']);
+const cornerMethods = new Set(['searched', 'capped']);
 const cornerEnds = new Set(['low', 'high', 'inside', 'either']);
 const figureKeys = new Set(['si', 'text']);
 const personKeys = new Set(['name', 'role']);
@@ -112,10 +113,10 @@ function isCheck(value: unknown): boolean {
 	);
 }
 
-/** The point in the ranges a check was judged at: how it was found, and each ranged input's end with its SI number and text. */
+/** The point in the ranges a check was judged at: how it was found (when not every corner), and each ranged input's end with its SI number. */
 function isCorner(value: unknown): boolean {
-	if (!plainWith(value, cornerKeys, cornerKeys) || !oneOf(cornerMethods)(value['method']) || !Array.isArray(value['inputs'])) return false;
-	return value['inputs'].every((input: unknown) => plainWith(input, cornerInputKeys, cornerInputKeys) && isText(input['id']) && oneOf(cornerEnds)(input['end']) && isNumber(input['si']) && isText(input['text']));
+	if (!plainWith(value, cornerRequired, cornerAllowed) || !optional(value['method'], oneOf(cornerMethods)) || !Array.isArray(value['inputs'])) return false;
+	return value['inputs'].every((input: unknown) => plainWith(input, cornerInputKeys, cornerInputKeys) && isText(input['id']) && oneOf(cornerEnds)(input['end']) && isNumber(input['si']));
 }
 
 /** A derived value as the lean body keeps it: its SI number, open (with what it needs), or not computable. */

@@ -94,8 +94,9 @@ const schemas = once(() => {
 						reason: text.optional(),
 						/** Where in the ranges entered the check was judged (records since ranges; absent when no input it uses is a range). */
 						corner: object({
-								method: oneOf(['corners', 'searched', 'capped']),
-								inputs: array(object({id: text, end: oneOf(['low', 'high', 'inside', 'either']), si: number(), text}).strict()),
+								/** How the point was found, when not by trying every corner. */
+								method: oneOf(['searched', 'capped']).optional(),
+								inputs: array(object({id: text, end: oneOf(['low', 'high', 'inside', 'either']), si: number()}).strict()),
 							})
 							.strict()
 							.optional(),
