@@ -2,6 +2,7 @@ import {describeProblem, problem} from '../shared/problems.js';
 import type {Answers, ConfirmationAnswer, InputAnswer} from '../rules/evaluate/answers.js';
 import type {CompiledInput, CompiledRules} from '../rules/compile/compiled-rules.js';
 import {parseInputEntry} from '../rules/evaluate/input-entry.js';
+import {foldLegacyTolerances, foldsTolerances} from '../rules/evaluate/legacy-tolerance.js';
 import {confirmationList, inputEntry, type RecordBody} from '../records/record-schema.js';
 
 /** An input the rules refuse as entered (outside a range, not an option, wrong dimension). */
@@ -39,8 +40,10 @@ export function answersFromRecord(rules: CompiledRules, body: RecordBody): Recor
 	const inputs = new Map<string, InputAnswer>();
 	const unknownInputs: string[] = [];
 	const refusedInputs: RefusedInput[] = [];
-	for (const [id, value] of Object.entries(body.inputs)) {
-		const entry = inputEntry(value)!;
+	// A record from before ranges, re-read under rules that fold its separate tolerance into the value's range.
+	const folded = foldsTolerances(rules) ? foldLegacyTolerances(Object.fromEntries(Object.entries(body.inputs).map(([id, value]) => [id, inputEntry(value)!.entered])), rules).entries : undefined;
+	for (const id of Object.keys(folded ?? body.inputs)) {
+		const entry = folded ? {entered: String(folded[id])} : inputEntry(body.inputs[id])!;
 		const compiled = rules.inputs.get(id);
 		if (!compiled) {
 			unknownInputs.push(id);

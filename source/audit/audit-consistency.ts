@@ -6,6 +6,7 @@ import type {RecordAnswers} from './audit-answers.js';
 import {finding, type Finding} from '../records/findings.js';
 import {setupFingerprint} from '../records/build-body.js';
 import {confirmationList, derivedEntry, inputEntry, type RecordBody} from '../records/record-schema.js';
+import {cornerFinding} from './audit-corner.js';
 
 type RecordedShown = {si: number; text: string} | undefined;
 
@@ -85,6 +86,8 @@ function checkFindings(body: RecordBody, evaluation: Evaluation): Finding[] {
 			const figure = figureFinding(check.id, what, held[what], check[what]);
 			if (figure) found.push(figure);
 		}
+		const corner = cornerFinding(check.id, held.corner, check.corner);
+		if (corner) found.push(corner);
 	}
 	for (const id of recorded.keys()) found.push(finding('consistency', 'audit-check-extra', {id}));
 

@@ -52,8 +52,10 @@ export function buildRecordBody(input: {rules: CompiledRules; answers: Answers; 
 		// number and fraction follow from the value and the limit.
 		inputs: Object.fromEntries(Object.entries(inputs).map(([id, entry]) => [id, entry.entered])),
 		derived: Object.fromEntries(Object.entries(derived).map(([id, entry]) => [id, 'si' in entry ? entry.si : entry])),
-		checks: checks.map(({step: _step, title: _title, severity: _severity, relation: _relation, explanation: _explanation, basis: _basis, value, limit, margin, ...check}) => ({
+		checks: checks.map(({step: _step, title: _title, severity: _severity, relation: _relation, explanation: _explanation, basis: _basis, value, limit, margin, corner, ...check}) => ({
 			...check,
+			// Lean: the text of an end follows from its number and the input's unit; "every corner tried" is the default.
+			...(corner ? {corner: {...(corner.method === 'corners' ? {} : {method: corner.method}), inputs: corner.inputs.map(({id, end, si}) => ({id, end, si}))}} : {}),
 			...(value ? {value: figure(value)} : {}),
 			...(limit ? {limit: figure(limit)} : {}),
 			...(margin ? {margin: margin.text} : {}),

@@ -92,6 +92,14 @@ const schemas = once(() => {
 						message: text.optional(),
 						error: text.optional(),
 						reason: text.optional(),
+						/** Where in the ranges entered the check was judged (records since ranges; absent when no input it uses is a range). */
+						corner: object({
+								/** How the point was found, when not by trying every corner. */
+								method: oneOf(['searched', 'capped']).optional(),
+								inputs: array(object({id: text, end: oneOf(['low', 'high', 'inside', 'either']), si: number()}).strict()),
+							})
+							.strict()
+							.optional(),
 						explanation: text.optional(),
 						basis: text.optional(),
 					})

@@ -12,6 +12,7 @@ import {version} from '../shared/version.js';
 import {wrap} from '../shared/wrap.js';
 import {oneLine} from '../shared/one-line.js';
 import {displayPath} from '../shared/display-path.js';
+import {cornerWords, rangeText} from '../rules/evaluate/worst-corner.js';
 
 const order = {fail: 0, advise: 1, open: 2, pass: 3, skip: 4} as const;
 
@@ -40,6 +41,7 @@ function checkLines(check: CheckResult, paint: Paint, width: number, withMessage
 	lines[0] = `   ${label} ${lines[0]!.trimStart()}`;
 	const figures = checkFigures(check);
 	if (figures) lines.push(...wrap(figures, width, '                '));
+	if (check.corner) lines.push(...wrap(cornerWords(check.corner), width, '                '));
 	if (check.needs?.length) lines.push(...wrap(`needs ${check.needs.join(', ')}`, width, '                '));
 	if (check.error) lines.push(...wrap(check.error, width, '                '));
 	if (check.reason) lines.push(...wrap(check.reason, width, '                '));
@@ -65,7 +67,7 @@ function confirmationLines(entry: ConfirmationResult, paint: Paint, width: numbe
 }
 
 function answerText(input: Input, answer: InputAnswer): string {
-	if (answer.kind === 'quantity') return formatQuantity(answer.si, answer.dimension);
+	if (answer.kind === 'quantity') return answer.range && answer.range.high > answer.range.low ? rangeText(answer.range, answer.dimension) : formatQuantity(answer.si, answer.dimension);
 	if (answer.kind === 'choice' && input.kind === 'choice') return oneLine(input.options[answer.option] ?? answer.option);
 	if (answer.kind === 'yes_no') return answer.value ? 'yes' : 'no';
 	return oneLine(answer.entered);

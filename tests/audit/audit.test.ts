@@ -243,6 +243,33 @@ describe('consistency: altered and signed again with a valid key (exit 1)', () =
 		expect(audited!.findings).toEqual([expect.objectContaining({code: 'audit-figure-mismatch', data: {id: 'emission_delay_long_enough', what: 'value', recorded: '4 s', computed: '3 s'}})]);
 	});
 
+	it('keeps the corner each check was judged at, and agrees with it on re-evaluation', () => {
+		// The demo's supply is 5 V with the rules' default 5 %: 4.75 V .. 5.25 V (hand arithmetic: 5 × (1 ∓ 0.05)).
+		const headroom = clean.body.checks.find((entry) => entry.id === 'compliance_headroom')!;
+		expect(headroom.corner).toEqual({inputs: [{id: 'supply_nominal', end: 'low', si: 4.75}]}); // hand arithmetic in the comment above
+		const dissipation = clean.body.checks.find((entry) => entry.id === 'dissipation_within_rating')!;
+		expect(dissipation.corner?.inputs.map(({end, si}) => [end, si])).toEqual([['high', 5.25]]); // 5 × 1.05 (hand arithmetic)
+		expect(audit([cleanPath]).records[0]!.findings).toEqual([]);
+	});
+
+	it.each([
+		{name: 'moved to the other end', change: (corner: NonNullable<RecordBody['checks'][number]['corner']>) => Object.assign(corner.inputs[0]!, {end: 'high', si: 5.25})},
+		{name: 'its number edited', change: (corner: NonNullable<RecordBody['checks'][number]['corner']>) => Object.assign(corner.inputs[0]!, {si: 4.8})},
+		{name: 'its method edited', change: (corner: NonNullable<RecordBody['checks'][number]['corner']>) => Object.assign(corner, {method: 'searched'})},
+	])('a corner $name is a finding', ({change}) => {
+		const record = resigned((body) => change(body.checks.find((entry) => entry.id === 'compliance_headroom')!.corner!));
+		const [audited] = audit([writeRecordFile(record)]).records;
+		expect(audited!.findings).toEqual([expect.objectContaining({code: 'audit-corner-mismatch', data: expect.objectContaining({id: 'compliance_headroom'})})]);
+	});
+
+	it('a corner removed is a finding', () => {
+		const record = resigned((body) => {
+			delete body.checks.find((entry) => entry.id === 'compliance_headroom')!.corner;
+		});
+		const [audited] = audit([writeRecordFile(record)]).records;
+		expect(audited!.findings).toEqual([expect.objectContaining({code: 'audit-corner-mismatch', data: expect.objectContaining({id: 'compliance_headroom', recorded: 'nowhere in particular (no corner)'})})]);
+	});
+
 	it('a stated rule hash that does not match the embedded text (a record made before the store)', () => {
 		const record = resigned((body) => {
 			body.rules.text = shippedText;

@@ -436,6 +436,8 @@ describe.skipIf(!haveTmux())('the screens at 80x24, as a technician meets them',
 		// The step's two checks (rules/default.yaml, step thermal), whole, with their verdicts.
 		expect(flat).toContain('✓ pass Worst-case driver dissipation within its derated rating');
 		expect(flat).toContain('! advise Dissipation with the output shorted within the derated rating');
+		// Each judged at the supply's high end: the demo's 5 V with the rules' default 5 % (5 × 1.05 = 5.25 V, hand arithmetic).
+		expect(flat).toContain('judged at supply_nominal 5.25 V (high end)');
 		expect(screen).toContain('Enter or PgDn: on to step 6');
 		expect(screen.split('\n')[0]).toMatch(/^prelase · bench check/);
 		// ↑ goes back to the last field, ↓ from it shows the verdicts again.

@@ -249,7 +249,7 @@ const opens: Array<{check: string; base?: Base; remove: string[]; needs: string[
 	{check: 'cold_power_at_limit', remove: ['diode_t0'], needs: ['diode_t0']},
 	{check: 'compliance_headroom', remove: ['cable_resistance'], needs: ['cable_resistance']},
 	{check: 'brownout_before_control_lost', remove: ['brownout_trip'], needs: ['brownout_trip']},
-	{check: 'brownout_clear_of_service_supply', remove: ['supply_tolerance'], needs: ['supply_tolerance']},
+	{check: 'brownout_clear_of_service_supply', remove: ['supply_nominal'], needs: ['supply_nominal']},
 	{check: 'dissipation_within_rating', remove: ['diode_series_resistance'], needs: ['diode_series_resistance']},
 	{check: 'dissipation_within_rating', remove: ['driver_rated_dissipation', 'ambient_max'], needs: ['ambient_max', 'driver_rated_dissipation']},
 	{check: 'short_circuit_dissipation', remove: ['supply_nominal'], needs: ['supply_nominal']},

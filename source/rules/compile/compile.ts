@@ -1,3 +1,4 @@
+import {parseTolerance} from '../../quantities/range-entry.js';
 import {sha256Hex} from '../../shared/sha256.js';
 import {formulaFunctions} from '../../calculations/formula-functions.js';
 import {describeProblem, problem, warning, type Problem} from '../../shared/problems.js';
@@ -95,6 +96,11 @@ export function compileRules(
 					const parsed = quantity(input.default, input.dimension);
 					if (parsed.ok) compiled.defaultValue = {si: parsed.value.si, dimension: input.dimension};
 					else problems.push(problem('default-value', {id: input.id, detail: describeProblem(problem(parsed.problem.code, {...parsed.problem, ...words}))}, where([...path, 'default'])));
+				}
+				if (input.default_tolerance !== undefined) {
+					const tolerance = parseTolerance(String(input.default_tolerance), input.dimension);
+					if (tolerance.ok) compiled.tolerance = tolerance.value;
+					else problems.push(problem('range-rule-tolerance', {id: input.id, detail: describeProblem(problem(tolerance.problem.code, {...tolerance.problem, ...words}))}, where([...path, 'default_tolerance'])));
 				}
 			}
 			if (input.kind === 'choice' && input.default !== undefined && !Object.hasOwn(input.options, input.default)) {

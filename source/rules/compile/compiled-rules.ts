@@ -1,4 +1,5 @@
 import type {Dimension} from '../../quantities/dimensions.js';
+import type {Tolerance} from '../../quantities/range-entry.js';
 import type {CompiledFormula} from './formula.js';
 import type {NameTable} from './names.js';
 import type {Provenance} from '../file/provenance.js';
@@ -8,7 +9,7 @@ import type {Check, Confirmation, Derived, Input, RuleFile, Step, Table} from '.
 export type SiValue = {si: number; dimension: Dimension};
 
 /** An input with its step and compiled condition; quantity inputs carry their range in SI. */
-export type CompiledInput = {input: Input; step: Step; when?: CompiledFormula; range?: {min: number; max: number}; defaultValue?: SiValue};
+export type CompiledInput = {input: Input; step: Step; when?: CompiledFormula; range?: {min: number; max: number}; defaultValue?: SiValue; /** The rules' default tolerance: a single value entered becomes a range this wide each way. */ tolerance?: Tolerance};
 
 /** A confirmation with its step and compiled condition. */
 export type CompiledConfirmation = {confirmation: Confirmation; step: Step; when?: CompiledFormula};

@@ -2,7 +2,7 @@ import type {Dimension} from '../../quantities/dimensions.js';
 
 /** An input as the operator gave it, with its parsed value. */
 export type InputAnswer =
-	| {kind: 'quantity'; entered: string; si: number; dimension: Dimension}
+	| {kind: 'quantity'; entered: string; si: number; dimension: Dimension; /** When entered as a range (or given one by the rules' default tolerance): its ends in SI; `si` is then its middle. */ range?: {low: number; high: number}}
 	| {kind: 'choice'; entered: string; option: string}
 	| {kind: 'yes_no'; entered: string; value: boolean}
 	| {kind: 'text'; entered: string; value: string};

@@ -11,24 +11,21 @@ import {toFormulaValue} from '../compile/sample-values.js';
 import {classifyError} from '../compile/scope.js';
 import {inferDimension, shownSi, toShown} from './shown-value.js';
 import {newScope} from '../compile/scope.js';
+import {atWorstCorners} from './worst-corner.js';
+import {withDerivedSpans} from './derived-span.js';
 
 const tolerance = 1e-12;
 
-type Computed = {ok: true; value: unknown} | {ok: false; needs: string[]} | {ok: false; error: string; needs?: undefined};
+/** A formula's result: its value, the inputs it still needs, or why it could not be computed. */
+export type Computed = {ok: true; value: unknown} | {ok: false; needs: string[]} | {ok: false; error: string; needs?: undefined};
 
 /**
- * Evaluates rules against answers: derived values, then each check's verdict and margin,
- * each confirmation's status, and the outcome. Pure: the same inputs give the same result.
+ * Evaluates formulas over a scope. A formula is evaluated even when some of its names have no
+ * value: `a and b` with a false needs no b. Only when evaluation reaches a missing name is the
+ * result open, and then it lists every missing input the formula could need.
  */
-export function evaluate(rules: CompiledRules, answers: Answers): Evaluation {
-	const scope = newScope(rules.optionLists);
-	const missing = new Map<string, string[]>();
-	for (const [id, value] of rules.policy) scope.set(id, toFormulaValue(value));
-
-	// A formula is evaluated even when some of its names have no value: `a and b` with a false
-	// needs no b. Only when evaluation reaches a missing name is the result open, and then it
-	// lists every missing input the formula could need.
-	const compute = (formula: CompiledFormula): Computed => {
+export function makeCompute(scope: Map<string, unknown>, missing: ReadonlyMap<string, string[]>): (formula: CompiledFormula) => Computed {
+	return (formula) => {
 		try {
 			return {ok: true, value: formula.evaluate(scope)};
 		} catch (error) {
@@ -40,6 +37,18 @@ export function evaluate(rules: CompiledRules, answers: Answers): Evaluation {
 			return {ok: false, error: classifyError(error).detail};
 		}
 	};
+}
+
+/**
+ * Evaluates rules against answers: derived values, then each check's verdict and margin,
+ * each confirmation's status, and the outcome. Pure: the same inputs give the same result.
+ */
+export function evaluate(rules: CompiledRules, answers: Answers): Evaluation {
+	const scope = newScope(rules.optionLists);
+	const missing = new Map<string, string[]>();
+	for (const [id, value] of rules.policy) scope.set(id, toFormulaValue(value));
+
+	const compute = makeCompute(scope, missing);
 
 	// Inputs: an input whose condition is false is not asked; one whose condition is open waits on it.
 	for (const [id, answer] of answers.inputs) {
@@ -85,7 +94,10 @@ export function evaluate(rules: CompiledRules, answers: Answers): Evaluation {
 	}
 	const failedDerived = new Map(derived.filter((entry) => entry.status === 'error').map((entry) => [entry.id, entry.status === 'error' ? entry.error : '']));
 
-	const checks = rules.checks.map((compiled) => judge(compiled, compute, scope, failedDerived));
+	const middle = rules.checks.map((compiled) => judge(compiled, compute, scope, failedDerived));
+	const corners = {scope, missing, failedDerived, judge, makeCompute};
+	const checks = atWorstCorners(rules, answers, middle, corners);
+	const derivedShown = withDerivedSpans(rules, answers, derived, corners);
 	const confirmations = rules.rules.steps.flatMap((step) =>
 		step.confirmations.map((confirmation): ConfirmationResult => {
 			const base = {id: confirmation.id, step: step.id, statement: confirmation.statement, basis: confirmation.basis};
@@ -100,7 +112,7 @@ export function evaluate(rules: CompiledRules, answers: Answers): Evaluation {
 			return {...base, status: answer.answer, ...(answer.note ? {note: answer.note} : {})};
 		}),
 	);
-	return {outcome: decideOutcome(checks, confirmations, missingInputs), checks, confirmations, derived, missingInputs, askedInputs};
+	return {outcome: decideOutcome(checks, confirmations, missingInputs), checks, confirmations, derived: derivedShown, missingInputs, askedInputs};
 }
 
 /**
@@ -126,7 +138,8 @@ function isFiniteResult(value: unknown): boolean {
 	return false;
 }
 
-function judge(compiled: CompiledCheck, compute: (formula: CompiledFormula) => Computed, scope: Map<string, unknown>, failedDerived: Map<string, string>): CheckResult {
+/** One check's verdict, value, limit and margin over a scope (exported for the worst-corner search). */
+export function judge(compiled: CompiledCheck, compute: (formula: CompiledFormula) => Computed, scope: Map<string, unknown>, failedDerived: Map<string, string>): CheckResult {
 	const {check} = compiled;
 	const base: CheckResult = {id: check.id, step: check.step, title: check.title, severity: check.severity, explanation: check.explanation, basis: check.basis, verdict: 'open'};
 	const notHeld = check.severity === 'stop' ? 'fail' : 'advise';

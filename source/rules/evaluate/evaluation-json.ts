@@ -6,6 +6,7 @@ import type {CompiledRules} from '../compile/compiled-rules.js';
 import {outcomeWords, type Evaluation, type Shown, type Verdict} from './evaluation.js';
 import {shownSi} from './shown-value.js';
 import {countVerdicts} from './verdict-words.js';
+import {cornerToJson} from './corner-json.js';
 
 /** A value in the JSON output: SI number, its SI unit, and the text a person reads. */
 export type JsonValue = {si: number; unit: string; text: string};
@@ -22,9 +23,9 @@ function json(value: Shown): JsonValue {
  */
 export function evaluationToJson(rules: CompiledRules, answers: Answers, evaluation: Evaluation) {
 	const counts = countVerdicts(evaluation.checks);
-	const inputs: Record<string, {entered: string} & Partial<JsonValue> & {option?: string; value?: boolean | string}> = {};
+	const inputs: Record<string, {entered: string} & Partial<JsonValue> & {option?: string; value?: boolean | string; range?: {low: JsonValue; high: JsonValue}}> = {};
 	for (const [id, answer] of answers.inputs) {
-		if (answer.kind === 'quantity') inputs[id] = {entered: answer.entered, ...json(shownSi(answer.si, answer.dimension))};
+		if (answer.kind === 'quantity') inputs[id] = {entered: answer.entered, ...json(shownSi(answer.si, answer.dimension)), ...(answer.range ? {range: {low: json(shownSi(answer.range.low, answer.dimension)), high: json(shownSi(answer.range.high, answer.dimension))}} : {})};
 		else if (answer.kind === 'choice') inputs[id] = {entered: answer.entered, option: answer.option};
 		else inputs[id] = {entered: answer.entered, value: answer.value};
 	}
@@ -44,7 +45,7 @@ export function evaluationToJson(rules: CompiledRules, answers: Answers, evaluat
 		missingInputs: evaluation.missingInputs,
 		inputs,
 		derived: Object.fromEntries(
-			evaluation.derived.map((entry) => [entry.id, entry.status === 'value' ? json(entry.value) : entry.status === 'open' ? {open: entry.needs} : {error: entry.error}]),
+			evaluation.derived.map((entry) => [entry.id, entry.status === 'value' ? {...json(entry.value), ...(entry.span ? {span: {low: json(entry.span.low), high: json(entry.span.high)}} : {})} : entry.status === 'open' ? {open: entry.needs} : {error: entry.error}]),
 		),
 		checks: evaluation.checks.map((check) => ({
 			id: check.id,
@@ -60,6 +61,7 @@ export function evaluationToJson(rules: CompiledRules, answers: Answers, evaluat
 			...(check.message ? {message: check.message} : {}),
 			...(check.error ? {error: check.error} : {}),
 			...(check.reason ? {reason: check.reason} : {}),
+			...(check.corner ? {corner: cornerToJson(check.corner)} : {}),
 			explanation: check.explanation,
 			basis: check.basis,
 		})),

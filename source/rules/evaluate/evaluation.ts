@@ -28,7 +28,20 @@ export type CheckResult = {
 	error?: string;
 	/** Why a skipped check does not apply (the rule file's `skip_reason`). */
 	reason?: string;
+	/** Where in the ranges entered the check was judged: the worst corner (absent when none of its inputs is a range). */
+	corner?: Corner;
 };
+
+/** One ranged input at the point a check was judged: its low or high end, a point inside its range that a search found worse, or either end (the other end gives the same verdict and margin). */
+export type CornerInput = {id: string; end: 'low' | 'high' | 'inside' | 'either'; value: Shown};
+
+/**
+ * The point of the ranged inputs at which a check was judged. `corners`: every corner was
+ * tried; `searched`: the inside of a range was searched too and was worse than every corner;
+ * `capped`: too many ranged inputs to try every corner, so each input was set to its worse end
+ * one at a time (a pass found so is not trusted: the check is open).
+ */
+export type Corner = {inputs: CornerInput[]; method: 'corners' | 'searched' | 'capped'};
 
 /** Status of one confirmation. */
 export type ConfirmationStatus = 'yes' | 'no' | 'not_applicable' | 'unanswered' | 'skip' | 'open';
@@ -47,7 +60,7 @@ export const outcomeWords: Record<Outcome, string> = {
 };
 
 /** A derived value's result. */
-export type DerivedResult = {id: string; label: string; /** The step it is shown with, if any. */ step?: string} & ({status: 'value'; value: Shown} | {status: 'open'; needs: string[]} | {status: 'error'; error: string});
+export type DerivedResult = {id: string; label: string; /** The step it is shown with, if any. */ step?: string} & ({status: 'value'; value: Shown; /** Its lowest and highest over the corners of the ranged inputs it uses (the value is at their middle). */ span?: {low: Shown; high: Shown}} | {status: 'open'; needs: string[]} | {status: 'error'; error: string});
 
 /** Everything the evaluation found, in the order of the rule file. */
 export type Evaluation = {

@@ -4,6 +4,7 @@ import {parseYamlSource, readTextFile, type YamlSource} from '../../shared/yaml-
 import type {Answers, ConfirmationAnswer, InputAnswer} from './answers.js';
 import type {CompiledRules} from '../compile/compiled-rules.js';
 import {parseConfirmationEntry, parseInputEntry} from './input-entry.js';
+import {foldLegacyTolerances} from './legacy-tolerance.js';
 import {didYouMean} from '../../shared/did-you-mean.js';
 import {hasLineBreak} from '../../shared/one-line.js';
 
@@ -35,7 +36,12 @@ export function loadAnswersFromText(text: string, file: string, rules: CompiledR
 	else if (typeof data['setup'] === 'string' && hasLineBreak(data['setup'])) problems.push(problem('single-line', {label: 'the setup name'}, at(['setup'])));
 
 	const inputs = new Map<string, InputAnswer>();
-	for (const [id, raw] of entries(data['inputs'], 'inputs', source, problems)) {
+	const given = entries(data['inputs'], 'inputs', source, problems);
+	const folded = foldLegacyTolerances(Object.fromEntries(given), rules);
+	for (const {id, problem: refused} of folded.problems) problems.push(problem(refused.code, refused.data, at(['inputs', id])));
+	for (const [id] of given) {
+		if (!Object.hasOwn(folded.entries, id)) continue;
+		const raw = folded.entries[id];
 		const compiled = rules.inputs.get(id);
 		if (!compiled) {
 			problems.push(problem('answers-unknown-input', {id, hint: hint(id, rules.inputs.keys())}, at(['inputs', id])));

@@ -21,11 +21,20 @@ export function inferDimension(value: unknown, declared?: Dimension, beside?: un
 
 /** A formula result as an SI number of a dimension, with its text. */
 export function toShown(value: unknown, dimension: Dimension): Shown {
-	const si = siOf(value as Quantity | number, dimension);
-	return {si, dimension, text: formatQuantity(si, dimension)};
+	return shownSi(siOf(value as Quantity | number, dimension), dimension);
 }
 
-/** A number already in SI, with its text. */
+/**
+ * A number already in SI, with its text. The text is formatted when first read: the worst-corner
+ * search judges a check at many points and shows only one of them.
+ */
 export function shownSi(si: number, dimension: Dimension): Shown {
-	return {si, dimension, text: formatQuantity(si, dimension)};
+	let text: string | undefined;
+	return {
+		si,
+		dimension,
+		get text() {
+			return (text ??= formatQuantity(si, dimension));
+		},
+	};
 }

@@ -52,6 +52,9 @@ const schemas = once(() => {
 			dimension: oneOf(dimensionNames),
 			range: tuple([quantityText, quantityText]).describe('[lowest, highest] accepted entry, with units'),
 			default: quantityText.optional(),
+			range_entry: oneOf(['allowed', 'refused']).optional().describe('Whether the operator may enter a range (1.6 V .. 2.0 V, 1.8 V ± 0.2 V); default allowed'),
+			default_tolerance: quantityText.optional().describe('Policy: a single value entered is read as this much each way (5 % of it, or an amount such as 0.1 V; a difference in K for a temperature)'),
+			tolerance_input_was: identifier.optional().describe('An input of older rules that held this input\'s tolerance (supply_tolerance): an answers file that still gives it is read as this input\'s range'),
 		})
 		.strict();
 

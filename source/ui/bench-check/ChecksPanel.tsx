@@ -5,13 +5,16 @@ import type {CheckResult} from '../../rules/evaluate/evaluation.js';
 import type {ShownDerived} from '../../rules/evaluate/shown-derived.js';
 import {wrap} from '../../shared/wrap.js';
 import {verdictStyle} from '../verdict-style.js';
+import {cornerWords} from '../../rules/evaluate/worst-corner.js';
 
 const indent = '          ';
 
 /** The detail lines of a check, wrapped in full (an error or reason is never cut mid-sentence). */
 export function checkDetailLines(check: CheckResult, width: number): string[] {
 	const detail = checkFigures(check) ?? (check.needs?.length ? `needs ${check.needs.join(', ')}` : check.error ?? check.reason ?? '');
-	return detail ? wrap(detail, width, indent) : [];
+	const lines = detail ? wrap(detail, width, indent) : [];
+	if (check.corner) lines.push(...wrap(cornerWords(check.corner), width, indent));
+	return lines;
 }
 
 /** The line of a derived value: its figure and label, cut to one line or wrapped whole under the label. */

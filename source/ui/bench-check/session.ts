@@ -4,6 +4,7 @@ import type {CompiledRules} from '../../rules/compile/compiled-rules.js';
 import {evaluate} from '../../rules/evaluate/evaluate.js';
 import type {Evaluation} from '../../rules/evaluate/evaluation.js';
 import {parseConfirmationEntry, parseInputEntry} from '../../rules/evaluate/input-entry.js';
+import {foldLegacyTolerances} from '../../rules/evaluate/legacy-tolerance.js';
 import {describeProblem, problem} from '../../shared/problems.js';
 import type {Confirmation, Input, Step} from '../../rules/file/schema.js';
 
@@ -47,7 +48,9 @@ function build(rules: CompiledRules, setup: string, entries: Record<string, stri
 
 /** A new session, prefilled from a draft or a saved setup when given. */
 export function startSession(rules: CompiledRules, prefill: Prefill = {}, linker?: Linker): Session {
-	return build(rules, prefill.setup ?? '', {...prefill.entries}, {...prefill.confirmations}, linker);
+	// A draft or saved setup from before ranges may still give the supply's tolerance as an entry of its own.
+	const entries = Object.fromEntries(Object.entries(foldLegacyTolerances({...prefill.entries}, rules).entries).map(([id, text]) => [id, String(text)]));
+	return build(rules, prefill.setup ?? '', entries, {...prefill.confirmations}, linker);
 }
 
 /** The result of entering a value: the new session, or why the entry was refused (the session unchanged). */

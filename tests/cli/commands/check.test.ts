@@ -136,7 +136,9 @@ describe('prelase check --json', () => {
 		expect(inputs['cable_resistance'].si).toBeCloseTo(0.05, 12);
 		expect(inputs['ambient_max']).toMatchObject({entered: '35 degC', unit: 'K', text: '35 °C'});
 		expect(inputs['ambient_max'].si).toBeCloseTo(308.15, 9);
-		expect(inputs['supply_tolerance']).toEqual({entered: '5 %', si: 0.05, unit: '', text: '5 %'});
+		// The old file's supply_tolerance is read as the supply's range: 5 V × (1 ∓ 0.05) = 4.75 V .. 5.25 V (hand arithmetic).
+		expect(inputs['supply_nominal']).toMatchObject({entered: '5 V ± 5 %', si: 5, unit: 'V', text: '5 V', range: {low: {unit: 'V', text: '4.75 V'}, high: {unit: 'V', text: '5.25 V'}}});
+		expect(Object.keys(inputs)).not.toContain('supply_tolerance');
 		expect(inputs['laser_class']).toEqual({entered: 'class_4', option: 'class_4'});
 		expect(inputs['reverse_protection']).toEqual({entered: 'yes', value: true});
 		expect(inputs['location']).toEqual({entered: 'Room B.112, bench 3', value: 'Room B.112, bench 3'});
@@ -146,10 +148,13 @@ describe('prelase check --json', () => {
 	it('gives derived values in SI with their unit', () => {
 		const {json} = runJson(clearDemo);
 		const derived = json['derived'];
-		// Supply high 5 V × 1.05; worst dissipation at the limit: (5.25 V − 1.6 V − 0.15 Ω × 2 A) × 2 A.
-		expect(derived['supply_high'].si).toBeCloseTo(5.25, 12);
-		expect(derived['worst_dissipation']).toMatchObject({unit: 'W', text: '6.7 W'});
-		expect(derived['worst_dissipation'].si).toBeCloseTo((5.25 - 1.6 - 0.15 * 2) * 2, 9);
+		// A derived value is shown at the middle of the supply's range, with its span over the range's ends:
+		// worst dissipation at the limit, (V − 1.6 V − 0.15 Ω × 2 A) × 2 A, at 5 V, 4.75 V and 5.25 V (hand arithmetic).
+		expect(derived['supply_high'].si).toBeCloseTo(5, 12);
+		expect(derived['worst_dissipation']).toMatchObject({unit: 'W', text: '6.2 W'});
+		expect(derived['worst_dissipation'].si).toBeCloseTo((5 - 1.6 - 0.15 * 2) * 2, 9);
+		expect(derived['worst_dissipation'].span.low.si).toBeCloseTo((4.75 - 1.6 - 0.15 * 2) * 2, 9);
+		expect(derived['worst_dissipation'].span.high.si).toBeCloseTo((5.25 - 1.6 - 0.15 * 2) * 2, 9);
 		// Derated linearly from 10 W at 25 °C to 0 W at 125 °C, at 35 °C.
 		expect(derived['allowed_dissipation'].si).toBeCloseTo((10 * (125 - 35)) / (125 - 25), 9);
 		expect(derived['monitor_current']).toEqual({open: ['photodiode_responsivity', 'power_setpoint']});
@@ -217,6 +222,21 @@ describe('prelase check --json', () => {
 		expect(open).toMatchObject({verdict: 'open', needs: ['brownout_trip']});
 		const unanswered = (incomplete['confirmations'] as Array<Record<string, any>>).find((entry) => entry['id'] === 'interlock_loop_tested');
 		expect(unanswered).toMatchObject({status: 'unanswered'});
+	});
+});
+
+describe('prelase check with ranges: the corner of every verdict', () => {
+	it('text and JSON name the end of the supply range each check was judged at', () => {
+		const text = run('check', '--answers', clearDemo);
+		// The demo's 5 V with the rules' default 5 %: 4.75 V .. 5.25 V (hand arithmetic: 5 × (1 ∓ 0.05)).
+		expect(text.stdout).toContain('supply_nominal                 4.75 V .. 5.25 V');
+		expect(text.stdout).toMatch(/3\.65 V ≥ 2\.4 V · margin 1\.25 V \(52\.1 %\)\n\s+judged at supply_nominal 4\.75 V \(low end\)/);
+		expect(text.stdout).toMatch(/6\.7 W ≤ 9 W[^\n]*\n\s+judged at supply_nominal 5\.25 V \(high end\)/);
+		const {json} = runJson(clearDemo);
+		const corner = (id: string) => (json['checks'] as Array<Record<string, any>>).find((check) => check['id'] === id)!['corner'];
+		expect(corner('compliance_headroom')).toEqual({method: 'corners', inputs: [{id: 'supply_nominal', end: 'low', si: 4.75, unit: 'V', text: '4.75 V'}]});
+		expect(corner('dissipation_within_rating')).toEqual({method: 'corners', inputs: [{id: 'supply_nominal', end: 'high', si: 5.25, unit: 'V', text: '5.25 V'}]});
+		expect(corner('limit_below_diode_maximum')).toBeUndefined();
 	});
 });
 
@@ -348,7 +368,11 @@ const answersCases: AnswersCase[] = [
 		field: 'inputs.current_limit',
 		data: {entered: '900 A', min: '0 A', max: '500 A'},
 	},
-	{name: 'a tolerance over its range', from: 'supply_tolerance: 5 %', to: 'supply_tolerance: 50 %', code: 'answers-out-of-range', field: 'inputs.supply_tolerance', data: {max: '30 %'}},
+	{name: 'an old tolerance below zero', from: 'supply_tolerance: 5 %', to: 'supply_tolerance: -5 %', code: 'answers-out-of-range', field: 'inputs.supply_tolerance', data: {min: '0 %', max: '100 %'}},
+	{name: 'a reversed range', from: 'diode_knee_voltage: 1.6 V', to: 'diode_knee_voltage: 1.7 V .. 1.5 V', code: 'range-reversed', field: 'inputs.diode_knee_voltage'},
+	{name: 'a range with ends of two dimensions', from: 'diode_knee_voltage: 1.6 V', to: 'diode_knee_voltage: 1.5 V .. 1.7 A', code: 'range-mixed-dimensions', field: 'inputs.diode_knee_voltage'},
+	{name: 'a range on a choice', from: 'laser_class: class_4', to: 'laser_class: 3 .. 4', code: 'range-not-numeric', field: 'inputs.laser_class'},
+	{name: 'a range the rules refuse', from: 'diode_max_current: 2.5 A', to: 'diode_max_current: 2.4 A .. 2.6 A', code: 'range-not-allowed', field: 'inputs.diode_max_current'},
 	{name: 'NaN', from: 'current_limit: 2 A', to: 'current_limit: NaN', code: 'entry-not-a-number', field: 'inputs.current_limit'},
 	{name: 'YAML .nan for a ratio', from: 'supply_tolerance: 5 %', to: 'supply_tolerance: .nan', code: 'entry-not-a-number', field: 'inputs.supply_tolerance'},
 	{name: 'YAML .inf', from: 'current_limit: 2 A', to: 'current_limit: .inf', code: 'entry-not-a-number', field: 'inputs.current_limit'},

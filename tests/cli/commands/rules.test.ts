@@ -49,7 +49,7 @@ describe('prelase rules validate', () => {
 		writeFileSync(bad, 'format: 1\nextends: shipped\npolicy_changed:\n  current_margin:\n    value: 2 A\nswitched_off:\n  pin_configuration_supported: ""\n  no_such_check: why\n');
 		const {code, stdout} = await run('rules', 'validate', sitePath, bad);
 		expect(code).toBe(1);
-		expect(stdout).toContain(`${sitePath}: ok (28 checks, 1 switched off, 65 inputs, 21 confirmations; extends 1 file(s))`);
+		expect(stdout).toContain(`${sitePath}: ok (28 checks, 1 switched off, 64 inputs, 21 confirmations; extends 1 file(s))`);
 		expect(stdout).toContain(`${bad}:7:3: error: switched_off.pin_configuration_supported: switching off the check "pin_configuration_supported" needs a reason`);
 		expect(stdout).toContain(`${bad}:8:3: error: switched_off.no_such_check: the base has no check "no_such_check"`);
 		expect(stdout).toContain(`${bad}:5:12: error: policy_changed.current_margin.value: the policy value "current_margin" is not valid`);
