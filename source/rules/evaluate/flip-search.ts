@@ -1,5 +1,6 @@
 import type {Dimension} from '../../quantities/dimensions.js';
 import {dimensions} from '../../quantities/dimensions.js';
+import {looksLikeRange, type Tolerance} from '../../quantities/range-entry.js';
 import type {CompiledRules} from '../compile/compiled-rules.js';
 import type {Answers, InputAnswer} from './answers.js';
 import {evaluate} from './evaluate.js';
@@ -33,12 +34,40 @@ export function makeProbe(rules: CompiledRules, answers: Answers, input: string,
 	const inputs = new Map(answers.inputs);
 	const changed: Answers = {...answers, inputs};
 	const unit = dimensions[dimension].si;
+	const given = answers.inputs.get(input);
+	const spread = given?.kind === 'quantity' && given.range ? rangeSpread(given.si, given.range, dimension, relativeRange(given.entered, rules.inputs.get(input)?.tolerance)) : undefined;
+	const written = (value: number) => (unit === '' ? String(value) : `${value} ${unit}`);
 	return (si) => {
-		// A single value replaces whatever was entered for this input: one input changes at a time.
-		const answer: InputAnswer = {kind: 'quantity', entered: unit === '' ? String(si) : `${si} ${unit}`, si, dimension};
+		// The value replaces whatever was entered for this input: one input changes at a time. An input
+		// entered as a range moves as a whole, `si` its middle (see rangeSpread).
+		const range = spread?.(si);
+		const answer: InputAnswer = range ? {kind: 'quantity', entered: `${written(range.low)} .. ${written(range.high)}`, si, dimension, range} : {kind: 'quantity', entered: written(si), si, dimension};
 		inputs.set(input, answer);
 		return evaluate(rules, changed).checks[0]!;
 	};
+}
+
+/**
+ * Whether a range was given as a fraction of its middle: typed with a percentage (`12 V ± 5 %`),
+ * or a single value widened by the rules' default tolerance in percent. A range typed with two
+ * ends or an amount each way (`1.6 V .. 2.0 V`, `1.8 V ± 0.2 V`) keeps its width instead.
+ */
+function relativeRange(entered: string, tolerance: Tolerance | undefined): boolean {
+	if (looksLikeRange(entered)) return entered.includes('%');
+	return tolerance !== undefined && 'relative' in tolerance;
+}
+
+/**
+ * How a range entered around `middle` is carried to another middle, as the operator would enter
+ * it there: the same fraction of the middle each way when it was given as one (`relative`), else
+ * the same amounts below and above. A temperature keeps its amounts (a fraction of a temperature
+ * has no meaning, and the rules refuse one).
+ */
+function rangeSpread(middle: number, range: {low: number; high: number}, dimension: Dimension, relative: boolean): (at: number) => {low: number; high: number} {
+	const below = middle - range.low;
+	const above = range.high - middle;
+	const factor = relative && dimension !== 'temperature' && middle !== 0 ? (at: number) => Math.abs(at / middle) : () => 1;
+	return (at) => ({low: at - below * factor(at), high: at + above * factor(at)});
 }
 
 /**

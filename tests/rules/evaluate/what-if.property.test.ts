@@ -4,6 +4,9 @@ import {evaluate} from '../../../source/rules/evaluate/evaluate.js';
 import type {Answers} from '../../../source/rules/evaluate/answers.js';
 import {onPassingSide} from '../../../source/rules/evaluate/flip-search.js';
 import {analyseWhatIf} from '../../../source/rules/evaluate/what-if.js';
+import {parseInputEntry} from '../../../source/rules/evaluate/input-entry.js';
+import {dimensions} from '../../../source/quantities/dimensions.js';
+import {looksLikeRange} from '../../../source/quantities/range-entry.js';
 import {readAnswers, readDemo, shippedRules} from '../bench-answers.js';
 
 const rules = shippedRules();
@@ -14,11 +17,24 @@ const loaded = demos.map((name) => {
 	return answers.value;
 });
 
+/**
+ * The answers with one input moved to `si`, entered as the operator would enter it there: a value
+ * given with a tolerance in percent (`5 V ± 5 %`, as the demos' supply is read) or widened by the
+ * rules' default tolerance is read again through the answers' own entry parser with the same
+ * tolerance, so it keeps it; any other value is an exact value.
+ */
 function withInput(answers: Answers, input: string, si: number): Answers {
 	const inputs = new Map(answers.inputs);
 	const answer = inputs.get(input);
 	if (answer?.kind !== 'quantity') throw new Error(`${input} is not a quantity`);
-	inputs.set(input, {kind: 'quantity', entered: String(si), si, dimension: answer.dimension});
+	if (answer.range) {
+		const unit = dimensions[answer.dimension].si;
+		const percent = /\u00B1\s*([\d.]+)\s*%\s*$/.exec(answer.entered)?.[1];
+		if (percent === undefined && looksLikeRange(answer.entered)) throw new Error(`${input} = ${answer.entered}: a range this test does not move`);
+		const read = parseInputEntry(rules.inputs.get(input)!, `${si} ${unit}${percent === undefined ? '' : ` \u00B1 ${percent} %`}`.trim());
+		if (!read.ok) throw new Error(`${input} = ${si} was refused`);
+		inputs.set(input, read.value);
+	} else inputs.set(input, {kind: 'quantity', entered: String(si), si, dimension: answer.dimension});
 	return {...answers, inputs};
 }
 

@@ -90,3 +90,28 @@ describe('the summary', () => {
 		expectClose(fix!.options[0]!.fraction, 0.15 / 2.4, 'fraction');
 	});
 });
+
+// An input entered as a range moves as a whole: its flip point is the range's middle, the range
+// kept as wide around it (given as a fraction, as wide a fraction). Replacing the range by one
+// exact value would leave the tolerance out and report a flip the setup has already passed.
+describe('flip points of an input given as a range (the supply at 5 V ± 5 %, the shipped default tolerance)', () => {
+	// Compliance headroom (common practice, linear driver): the low supply V·(1 − 5 %) less the drops
+	// (dropout 0.8 V, 50 mΩ + 100 mΩ at 2 A = 0.3 V) must cover the diode at the limit, 1.6 V + 0.15 Ω·2 A = 1.9 V,
+	// plus the policy's 0.5 V of headroom (the check's limit, 2.4 V):
+	// V·0.95 − 0.8 − 0.3 = 2.4 → V = 3.5/0.95 = 3.6842 V. Without the tolerance it would be 3.5 V.
+	// Worst dissipation (as above, derated rating 10 W·(125 − 35)/100 = 9 W): (V·1.05 − 1.9)·2 = 9 → V·1.05 = 6.4 → V = 6.0952 V.
+	it.each([
+		{check: 'compliance_headroom', direction: 'down', at: 3.5 / 0.95}, // hand arithmetic above
+		{check: 'dissipation_within_rating', direction: 'up', at: 6.4 / 1.05}, // hand arithmetic above
+	])('$check flips with the supply\'s middle at $at V', ({check, direction, at}) => {
+		const flip = flipOf(clear, check, 'supply_nominal');
+		expect(flip.direction).toBe(direction);
+		expectClose(flip.at.si, at, `${check} flip`);
+	});
+
+	it('an absolute half-width moves with the middle: 5 V ± 0.25 V keeps ±0.25 V on the low side', () => {
+		const absolute = whatIf(withChanges(bench3, {supply_nominal: '5 V ± 0.25 V'}));
+		// Typed as an amount each way, the range keeps ±0.25 V: V − 0.25 − 1.1 = 2.4 → V = 3.75 V.
+		expectClose(flipOf(absolute, 'compliance_headroom', 'supply_nominal').at.si, 3.75, 'headroom flip'); // hand arithmetic
+	});
+});
