@@ -5,7 +5,9 @@ import {deferral} from '../shared/deferral.js';
 import {shortFingerprint} from '../records/key-material.js';
 import type {TrustedKey} from '../records/key-files.js';
 import {confirmationList, derivedEntry, inputEntry, type AnyRecord, type RecordConfirmation, type BenchRecord, type RecordBody} from '../records/record-schema.js';
-import {ruleOutline} from './report-rule-outline.js';
+import {ruleOutline, type RuleOutline} from './report-rule-outline.js';
+import {cornerWords} from '../rules/evaluate/worst-corner.js';
+import {dimensions, type Dimension} from '../quantities/dimensions.js';
 import {purposeOf} from '../records/signature-purpose.js';
 
 type RecordCheck = RecordBody['checks'][number];
@@ -103,7 +105,24 @@ function marginOf(check: RecordCheck): {text: string; fraction: number | null} |
 	return {text: margin, fraction: si / Math.abs(check.limit.si)};
 }
 
-function checkRow(check: RecordCheck): CheckRow {
+/**
+ * Where a check was judged, in words, from a record's corner (which keeps each end in SI): the
+ * value in its unit when the rule text names the input's dimension, else the end alone.
+ */
+function cornerNote(corner: NonNullable<RecordCheck['corner']>, outline: RuleOutline): string {
+	const dimensionOf = (id: string): Dimension | undefined => {
+		const named = outline.labels.get(id)?.dimension;
+		return named !== undefined && Object.hasOwn(dimensions, named) ? (named as Dimension) : undefined;
+	};
+	const inputs = corner.inputs.map(({id, end, si}) => {
+		const dimension = dimensionOf(id);
+		return {id, end, value: {si, dimension: dimension ?? 'ratio', text: dimension ? formatQuantity(si, dimension) : ''}};
+	});
+	// Without the dimension, the end alone: "supply_nominal (low end)".
+	return cornerWords({method: corner.method ?? 'corners', inputs}).replaceAll(/ {2,}/g, ' ');
+}
+
+function checkRow(check: RecordCheck, outline: RuleOutline): CheckRow {
 	// Without the rule text a lean record does not say which side of its limit a check holds on.
 	const sign = check.relation === 'at_least' ? '≥' : check.relation === 'at_most' ? '≤' : 'limit';
 	const figures = marginOf(check);
@@ -113,7 +132,7 @@ function checkRow(check: RecordCheck): CheckRow {
 		margin = check.verdict === 'pass' ? amount : `${check.relation === 'at_least' ? 'short by' : check.relation === 'at_most' ? 'over by' : 'misses by'} ${amount}`;
 	}
 	const fraction = figures?.fraction === null || figures?.fraction === undefined ? '' : formatQuantity(Math.abs(figures.fraction), 'ratio');
-	const notes = [check.message, check.needs?.length ? `needs ${check.needs.join(', ')}` : undefined, check.error].filter((entry): entry is string => Boolean(entry)).map(clean);
+	const notes = [check.message, check.needs?.length ? `needs ${check.needs.join(', ')}` : undefined, check.error, check.corner ? cornerNote(check.corner, outline) : undefined].filter((entry): entry is string => Boolean(entry)).map(clean);
 	return {
 		id: clean(check.id),
 		verdict: check.verdict,
@@ -167,7 +186,7 @@ export function reportModel(record: BenchRecord, signatures: readonly SignatureS
 	const outline = ruleOutline(body.rules.text ?? '');
 	const setupName = body.setup.name === null ? '(no setup name)' : clean(body.setup.name);
 	const outcomeText = outcomeWords[body.outcome];
-	const checks = body.checks.map(checkRow);
+	const checks = body.checks.map((check) => checkRow(check, outline));
 	const recordedConfirmations = confirmationList(body);
 	const confirmations = recordedConfirmations.map(confirmationRow);
 

@@ -72,6 +72,7 @@ describe.each(formats)('$name report of the failing demo', ({write, escape}) => 
 		{name: 'the operator and role', text: 'Test Person, test engineer'},
 		{name: 'the created time', text: body.createdAt},
 		{name: 'the step title from the rule file', text: '2. Laser diode ratings'},
+		{name: 'the corner a check was judged at', text: 'judged at supply_nominal 5.7 V (low end)'}, // 6 V − 5 % = 5.7 V, the supply's low end, worst for the headroom
 		{name: 'the signature verified', text: '✓ verified'},
 		{name: 'the signer key', text: shortFingerprint(operatorFingerprint)},
 		{name: 'the signer key in full', text: operatorFingerprint},
