@@ -8,6 +8,7 @@ import {recordBodySchema, type AnyBody, type RecordBody} from './record-schema.j
 import {isoWithOffset} from '../shared/iso-time.js';
 import {displayPath} from '../shared/display-path.js';
 import type {WhatIf} from '../rules/evaluate/what-if.js';
+import {recordedCornerText} from './record-corner.js';
 import {sensitivityBody} from './sensitivity-body.js';
 
 /** A correction: the record it corrects (file name and body hash) and why. */
@@ -54,8 +55,8 @@ export function buildRecordBody(input: {rules: CompiledRules; answers: Answers; 
 		derived: Object.fromEntries(Object.entries(derived).map(([id, entry]) => [id, 'si' in entry ? entry.si : entry])),
 		checks: checks.map(({step: _step, title: _title, severity: _severity, relation: _relation, explanation: _explanation, basis: _basis, value, limit, margin, corner, ...check}) => ({
 			...check,
-			// Lean: the text of an end follows from its number and the input's unit; "every corner tried" is the default.
-			...(corner ? {corner: {...(corner.method === 'corners' ? {} : {method: corner.method}), inputs: corner.inputs.map(({id, end, si}) => ({id, end, si}))}} : {}),
+			// Lean: one line (records/record-corner.ts); an end's number follows from the range entered.
+			...(corner && recordedCornerText(corner) !== undefined ? {corner: recordedCornerText(corner)!} : {}),
 			...(value ? {value: figure(value)} : {}),
 			...(limit ? {limit: figure(limit)} : {}),
 			...(margin ? {margin: margin.text} : {}),

@@ -1,4 +1,5 @@
 import type {BenchRecord} from './record-schema.js';
+import {isRecordedCornerText} from './record-corner.js';
 
 /**
  * A quick check that data read from a record file is a bench-check record in the shape prelase
@@ -25,11 +26,6 @@ const signatureRequired = new Set(['signer', 'signedAt', 'algorithm', 'publicKey
 const signatureAllowed = new Set([...signatureRequired, 'meaning', 'purpose', 'endorses', 'count']);
 const checkRequired = new Set(['id', 'verdict']);
 const checkAllowed = new Set(['id', 'step', 'title', 'severity', 'verdict', 'relation', 'value', 'limit', 'margin', 'needs', 'message', 'error', 'reason', 'explanation', 'basis', 'corner']);
-const cornerRequired = new Set(['inputs']);
-const cornerAllowed = new Set(['method', 'inputs']);
-const cornerInputKeys = new Set(['id', 'end', 'si']);
-const cornerMethods = new Set(['searched', 'capped']);
-const cornerEnds = new Set(['low', 'high', 'inside', 'either']);
 const figureKeys = new Set(['si', 'text']);
 const personKeys = new Set(['name', 'role']);
 const toolKeys = new Set(['name', 'version']);
@@ -107,17 +103,12 @@ function isCheck(value: unknown): boolean {
 		optional(value['message'], isText) &&
 		optional(value['error'], isText) &&
 		optional(value['reason'], isText) &&
-		optional(value['corner'], isCorner) &&
+		optional(value['corner'], isRecordedCornerText) &&
 		optional(value['explanation'], isText) &&
 		optional(value['basis'], isText)
 	);
 }
 
-/** The point in the ranges a check was judged at: how it was found (when not every corner), and each ranged input's end with its SI number. */
-function isCorner(value: unknown): boolean {
-	if (!plainWith(value, cornerRequired, cornerAllowed) || !optional(value['method'], oneOf(cornerMethods)) || !Array.isArray(value['inputs'])) return false;
-	return value['inputs'].every((input: unknown) => plainWith(input, cornerInputKeys, cornerInputKeys) && isText(input['id']) && oneOf(cornerEnds)(input['end']) && isNumber(input['si']));
-}
 
 /** A derived value as the lean body keeps it: its SI number, open (with what it needs), or not computable. */
 function isDerived(value: unknown): boolean {

@@ -2,6 +2,7 @@
 import {array, boolean, enum as oneOf, literal, number, object, record, string, union} from 'zod';
 import type {z} from 'zod';
 import {lazySchema, once} from '../shared/lazy-schema.js';
+import {isRecordedCornerText} from './record-corner.js';
 
 /** Every record schema, built on first use: most runs of prelase read no record. */
 const schemas = once(() => {
@@ -92,14 +93,8 @@ const schemas = once(() => {
 						message: text.optional(),
 						error: text.optional(),
 						reason: text.optional(),
-						/** Where in the ranges entered the check was judged (records since ranges; absent when no input it uses is a range). */
-						corner: object({
-								/** How the point was found, when not by trying every corner. */
-								method: oneOf(['searched', 'capped']).optional(),
-								inputs: array(object({id: text, end: oneOf(['low', 'high', 'inside', 'either']), si: number()}).strict()),
-							})
-							.strict()
-							.optional(),
+						/** Where in the ranges entered the check was judged, as one line (records/record-corner.ts; records since ranges; absent when no range's end mattered to it). */
+						corner: text.refine(isRecordedCornerText, {message: 'not a corner line (such as "supply_nominal low")'}).optional(),
 						explanation: text.optional(),
 						basis: text.optional(),
 					})

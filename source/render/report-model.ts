@@ -8,6 +8,9 @@ import {confirmationList, derivedEntry, inputEntry, type AnyRecord, type RecordC
 import {ruleOutline, type RuleOutline} from './report-rule-outline.js';
 import {cornerWords} from '../rules/evaluate/worst-corner.js';
 import {dimensions, type Dimension} from '../quantities/dimensions.js';
+import {looksLikeRange, parseRange, parseTolerance, withTolerance} from '../quantities/range-entry.js';
+import {parseQuantity} from '../quantities/parse-quantity.js';
+import {readRecordedCorner} from '../records/record-corner.js';
 import {purposeOf} from '../records/signature-purpose.js';
 
 type RecordCheck = RecordBody['checks'][number];
@@ -106,23 +109,39 @@ function marginOf(check: RecordCheck): {text: string; fraction: number | null} |
 }
 
 /**
- * Where a check was judged, in words, from a record's corner (which keeps each end in SI): the
- * value in its unit when the rule text names the input's dimension, else the end alone.
+ * Where a check was judged, in words, from a record's corner line: each end's number read from
+ * the range the record keeps as entered (or the single value and the rules' default tolerance),
+ * in its unit when the rule text names the input's dimension; else the end alone.
  */
-function cornerNote(corner: NonNullable<RecordCheck['corner']>, outline: RuleOutline): string {
-	const dimensionOf = (id: string): Dimension | undefined => {
-		const named = outline.labels.get(id)?.dimension;
-		return named !== undefined && Object.hasOwn(dimensions, named) ? (named as Dimension) : undefined;
-	};
-	const inputs = corner.inputs.map(({id, end, si}) => {
-		const dimension = dimensionOf(id);
-		return {id, end, value: {si, dimension: dimension ?? 'ratio', text: dimension ? formatQuantity(si, dimension) : ''}};
+function cornerNote(line: string, inputs: RecordBody['inputs'], outline: RuleOutline): string {
+	const corner = readRecordedCorner(line);
+	if (!corner) return `judged at ${line}`;
+	const shown = corner.inputs.map(({id, end, si}) => {
+		const known = outline.labels.get(id);
+		const dimension = known?.dimension !== undefined && Object.hasOwn(dimensions, known.dimension) ? (known.dimension as Dimension) : undefined;
+		const value = si ?? (dimension ? endOf(inputEntry(inputs[id])?.entered ?? '', end, dimension, known?.tolerance) : undefined);
+		return {id, end, value: {si: value ?? Number.NaN, dimension: dimension ?? 'ratio', text: value !== undefined && dimension ? formatQuantity(value, dimension) : ''}};
 	});
-	// Without the dimension, the end alone: "supply_nominal (low end)".
-	return cornerWords({method: corner.method ?? 'corners', inputs}).replaceAll(/ {2,}/g, ' ');
+	// Without a number, the end alone: "supply_nominal (low end)".
+	return cornerWords({method: corner.method, inputs: shown}).replaceAll(/ {2,}/g, ' ');
 }
 
-function checkRow(check: RecordCheck, outline: RuleOutline): CheckRow {
+/** The SI number at one end of what was entered for an input: its range, or its value widened by the rules' default tolerance. */
+function endOf(entered: string, end: 'low' | 'high' | 'inside', dimension: Dimension, tolerance: string | undefined): number | undefined {
+	if (end === 'inside') return undefined;
+	let range: {low: number; high: number} | undefined;
+	if (looksLikeRange(entered)) {
+		const read = parseRange(entered, dimension);
+		range = read.ok ? read.value : undefined;
+	} else if (tolerance !== undefined) {
+		const value = parseQuantity(entered, dimension);
+		const spread = parseTolerance(tolerance, dimension);
+		range = value.ok && spread.ok ? withTolerance(value.value.si, spread.value) : undefined;
+	}
+	return range?.[end];
+}
+
+function checkRow(check: RecordCheck, inputs: RecordBody['inputs'], outline: RuleOutline): CheckRow {
 	// Without the rule text a lean record does not say which side of its limit a check holds on.
 	const sign = check.relation === 'at_least' ? '≥' : check.relation === 'at_most' ? '≤' : 'limit';
 	const figures = marginOf(check);
@@ -132,7 +151,7 @@ function checkRow(check: RecordCheck, outline: RuleOutline): CheckRow {
 		margin = check.verdict === 'pass' ? amount : `${check.relation === 'at_least' ? 'short by' : check.relation === 'at_most' ? 'over by' : 'misses by'} ${amount}`;
 	}
 	const fraction = figures?.fraction === null || figures?.fraction === undefined ? '' : formatQuantity(Math.abs(figures.fraction), 'ratio');
-	const notes = [check.message, check.needs?.length ? `needs ${check.needs.join(', ')}` : undefined, check.error, check.corner ? cornerNote(check.corner, outline) : undefined].filter((entry): entry is string => Boolean(entry)).map(clean);
+	const notes = [check.message, check.needs?.length ? `needs ${check.needs.join(', ')}` : undefined, check.error, check.corner ? cornerNote(check.corner, inputs, outline) : undefined].filter((entry): entry is string => Boolean(entry)).map(clean);
 	return {
 		id: clean(check.id),
 		verdict: check.verdict,
@@ -186,7 +205,7 @@ export function reportModel(record: BenchRecord, signatures: readonly SignatureS
 	const outline = ruleOutline(body.rules.text ?? '');
 	const setupName = body.setup.name === null ? '(no setup name)' : clean(body.setup.name);
 	const outcomeText = outcomeWords[body.outcome];
-	const checks = body.checks.map((check) => checkRow(check, outline));
+	const checks = body.checks.map((check) => checkRow(check, body.inputs, outline));
 	const recordedConfirmations = confirmationList(body);
 	const confirmations = recordedConfirmations.map(confirmationRow);
 

@@ -5,7 +5,7 @@ export type RuleOutline = {
 	/** Steps in the order the rule file walks them. */
 	steps: Array<{id: string; title: string}>;
 	/** Label, step and option labels of each input, and label of each derived value, by id. */
-	labels: Map<string, {label: string; step?: string; options?: Record<string, string>; /** A quantity input's dimension, as the rule text names it. */ dimension?: string}>;
+	labels: Map<string, {label: string; step?: string; options?: Record<string, string>; /** A quantity input's dimension, as the rule text names it. */ dimension?: string; /** Its default tolerance (policy), as written. */ tolerance?: string}>;
 };
 
 function isObject(value: unknown): value is Record<string, unknown> {
@@ -42,7 +42,8 @@ export function ruleOutline(text: string): RuleOutline {
 			if (!inputId) continue;
 			const options = isObject(input['options']) ? Object.fromEntries(Object.entries(input['options']).filter((entry): entry is [string, string] => typeof entry[1] === 'string')) : undefined;
 			const dimension = words(input['dimension']);
-			outline.labels.set(inputId, {label: words(input['label']) ?? inputId, step: id, ...(options ? {options} : {}), ...(dimension ? {dimension} : {})});
+			const tolerance = typeof input['default_tolerance'] === 'string' || typeof input['default_tolerance'] === 'number' ? String(input['default_tolerance']) : undefined;
+			outline.labels.set(inputId, {label: words(input['label']) ?? inputId, step: id, ...(options ? {options} : {}), ...(dimension ? {dimension} : {}), ...(tolerance ? {tolerance} : {})});
 		}
 	}
 	for (const derived of list(data['derived'])) {

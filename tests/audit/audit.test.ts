@@ -246,20 +246,34 @@ describe('consistency: altered and signed again with a valid key (exit 1)', () =
 	it('keeps the corner each check was judged at, and agrees with it on re-evaluation', () => {
 		// The demo's supply is 5 V with the rules' default 5 %: 4.75 V .. 5.25 V (hand arithmetic: 5 × (1 ∓ 0.05)).
 		const headroom = clean.body.checks.find((entry) => entry.id === 'compliance_headroom')!;
-		expect(headroom.corner).toEqual({inputs: [{id: 'supply_nominal', end: 'low', si: 4.75}]}); // hand arithmetic in the comment above
+		// The low end is worst for the headroom, the high end for the dissipation (hand arithmetic in the worst-corner tests).
+		expect(headroom.corner).toBe('supply_nominal low');
 		const dissipation = clean.body.checks.find((entry) => entry.id === 'dissipation_within_rating')!;
-		expect(dissipation.corner?.inputs.map(({end, si}) => [end, si])).toEqual([['high', 5.25]]); // 5 × 1.05 (hand arithmetic)
+		expect(dissipation.corner).toBe('supply_nominal high');
+		// A check whose result is the same at either end of the supply keeps no corner (the record stays short).
+		expect(clean.body.checks.find((entry) => entry.id === 'brownout_before_control_lost')!.corner).toBeUndefined();
 		expect(audit([cleanPath]).records[0]!.findings).toEqual([]);
 	});
 
 	it.each([
-		{name: 'moved to the other end', change: (corner: NonNullable<RecordBody['checks'][number]['corner']>) => Object.assign(corner.inputs[0]!, {end: 'high', si: 5.25})},
-		{name: 'its number edited', change: (corner: NonNullable<RecordBody['checks'][number]['corner']>) => Object.assign(corner.inputs[0]!, {si: 4.8})},
-		{name: 'its method edited', change: (corner: NonNullable<RecordBody['checks'][number]['corner']>) => Object.assign(corner, {method: 'searched'})},
-	])('a corner $name is a finding', ({change}) => {
-		const record = resigned((body) => change(body.checks.find((entry) => entry.id === 'compliance_headroom')!.corner!));
+		{name: 'moved to the other end', corner: 'supply_nominal high'},
+		{name: 'moved inside the range', corner: 'supply_nominal inside 4.8'},
+		{name: 'with its method edited', corner: 'searched: supply_nominal low'},
+		{name: 'naming another input', corner: 'ambient_max low'},
+	])('a corner $name is a finding', ({corner}) => {
+		const record = resigned((body) => {
+			body.checks.find((entry) => entry.id === 'compliance_headroom')!.corner = corner;
+		});
 		const [audited] = audit([writeRecordFile(record)]).records;
 		expect(audited!.findings).toEqual([expect.objectContaining({code: 'audit-corner-mismatch', data: expect.objectContaining({id: 'compliance_headroom'})})]);
+	});
+
+	it('a corner added to a check whose result did not depend on the range\'s end is a finding', () => {
+		const record = resigned((body) => {
+			body.checks.find((entry) => entry.id === 'brownout_before_control_lost')!.corner = 'supply_nominal low';
+		});
+		const [audited] = audit([writeRecordFile(record)]).records;
+		expect(audited!.findings).toEqual([expect.objectContaining({code: 'audit-corner-mismatch', data: expect.objectContaining({id: 'brownout_before_control_lost', computed: 'nowhere in particular (no corner)'})})]);
 	});
 
 	it('a corner removed is a finding', () => {

@@ -15,6 +15,8 @@ import {evaluationToJson} from '../../source/rules/evaluate/evaluation-json.js';
 import {checkRecordText} from '../../source/records/read-record.js';
 import {displayPath} from '../../source/shared/display-path.js';
 import {sampleAnswers, sampleRecord, sampleRules, serialise, signerWith} from '../helpers/sample-record.js';
+import {recordedCornerText} from '../../source/records/record-corner.js';
+import type {CornerJson} from '../../source/rules/evaluate/corner-json.js';
 
 /**
  * Records made before the lean body carried the words of their rule text (titles, explanations,
@@ -34,12 +36,13 @@ const trust = {trusted: [{name: 'Ada Operator', publicKey: rawPublicKey(operator
 function fullBody(): RecordBody {
 	const {tool, rules: _summary, setup, ...evaluated} = evaluationToJson(rules, answers, evaluate(rules, answers));
 	// Fields that came after the lean body with ranges: a range's ends beside an input and a derived value's span are
-	// the JSON output's only; a check's corner is kept, in the record's form (no unit: the rule text has it).
+	// the JSON output's only; a check's corner is kept, in the record's one-line form.
 	for (const entry of Object.values(evaluated.inputs)) delete entry.range;
 	for (const entry of Object.values(evaluated.derived) as Array<{span?: unknown}>) delete entry.span;
-	for (const check of evaluated.checks as Array<{corner?: {method?: string; inputs: Array<{unit?: string; text?: string}>}}>) {
-		if (check.corner?.method === 'corners') delete check.corner.method;
-		for (const input of check.corner?.inputs ?? []) [delete input.unit, delete input.text];
+	for (const check of evaluated.checks as Array<{corner?: unknown}>) {
+		const line = check.corner ? recordedCornerText(check.corner as CornerJson) : undefined;
+		if (line === undefined) delete check.corner;
+		else check.corner = line;
 	}
 	const body = {kind: 'bench-check', tool, createdAt: '2026-11-02T09:00:00+00:00', operator: {name: 'Ada Operator', role: 'bench operator'}, setup: {name: setup, ...setupFingerprint(rules, answers)}, rules: {name: rules.rules.name, file: displayPath(rules.file), sha256: rules.sha256}, ...evaluated, previous: null};
 	return recordBodySchema.parse(JSON.parse(JSON.stringify(body)));
