@@ -255,17 +255,12 @@ function childCpuSeconds() {
 async function buildGenerator() {
 	const {build} = await import('esbuild');
 	const outfile = join(repoRoot, 'bench/out/audit-generate.mjs');
+	const {taskBuildOptions} = await import('./task-build-options.mjs');
 	await build({
-		absWorkingDir: repoRoot,
+		...taskBuildOptions,
 		stdin: {contents: generatorSource, resolveDir: repoRoot, sourcefile: 'audit-generate.ts', loader: 'ts'},
 		outfile,
-		bundle: true,
-		platform: 'node',
-		format: 'esm',
-		target: 'node20',
-		banner: {js: "import {createRequire as __cr} from 'node:module'; const require = __cr(import.meta.url);"},
 		define: {PRELASE_VERSION: JSON.stringify(JSON.parse(readFileSync(join(repoRoot, 'package.json'), 'utf8')).version)},
-		logLevel: 'warning',
 	});
 	return outfile;
 }

@@ -6,23 +6,14 @@ import {spawnSync} from 'node:child_process';
 import {join} from 'node:path';
 import {fileURLToPath} from 'node:url';
 import {parseArgs} from 'node:util';
+import {taskBuildOptions} from './task-build-options.mjs';
 
 const repoRoot = fileURLToPath(new URL('..', import.meta.url));
 const TARGET_MS = 300;
 const {values} = parseArgs({options: {rounds: {type: 'string', default: '15'}, strict: {type: 'boolean', default: false}}, allowPositionals: false, strict: true});
 
 const outfile = join(repoRoot, 'bench/out/what-if-task.mjs');
-await build({
-	absWorkingDir: repoRoot,
-	entryPoints: ['bench/what-if-task.ts'],
-	outfile,
-	bundle: true,
-	platform: 'node',
-	format: 'esm',
-	target: 'node20',
-	banner: {js: "import {createRequire as __cr} from 'node:module'; const require = __cr(import.meta.url);"},
-	logLevel: 'warning',
-});
+await build({...taskBuildOptions, entryPoints: ['bench/what-if-task.ts'], outfile});
 
 let holds = true;
 process.stdout.write('What-if analysis against one evaluation (medians, ms; p10–p90)\n');
