@@ -56,7 +56,7 @@ export function buildRecordBody(input: {rules: CompiledRules; answers: Answers; 
 		checks: checks.map(({step: _step, title: _title, severity: _severity, relation: _relation, explanation: _explanation, basis: _basis, value, limit, margin, corner, ...check}) => ({
 			...check,
 			// Lean: one line (records/record-corner.ts); an end's number follows from the range entered.
-			...(corner && recordedCornerText(corner) !== undefined ? {corner: recordedCornerText(corner)!} : {}),
+			...optionalCorner(corner),
 			...(value ? {value: figure(value)} : {}),
 			...(limit ? {limit: figure(limit)} : {}),
 			...(margin ? {margin: margin.text} : {}),
@@ -71,4 +71,10 @@ export function buildRecordBody(input: {rules: CompiledRules; answers: Answers; 
 /** A value as a record keeps it: the SI number and the text shown (the unit is the check's, in the rule text). */
 function figure(value: {si: number; text: string}): {si: number; text: string} {
 	return {si: value.si, text: value.text};
+}
+
+/** A check's corner as a record keeps it, when one of its ranges' ends mattered. */
+function optionalCorner(corner: Parameters<typeof recordedCornerText>[0] | undefined): {corner?: string} {
+	const line = corner && recordedCornerText(corner);
+	return line === undefined ? {} : {corner: line};
 }
