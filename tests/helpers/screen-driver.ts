@@ -97,6 +97,17 @@ export async function drive(tree: ReactElement): Promise<Screen> {
 	return screen;
 }
 
+/**
+ * The frame once it matches `pattern`: for what a screen draws after work done in steps (the
+ * planner's edits yield to the event loop between slices), which may come after the frames of the
+ * keystroke have settled on a busy machine. Gives the last frame after `timeoutMs` otherwise.
+ */
+export async function frameMatching(screen: Screen, pattern: RegExp, timeoutMs = 5000): Promise<string> {
+	const deadline = Date.now() + timeoutMs;
+	while (!pattern.test(screen.frame()) && Date.now() < deadline) await sleep(10);
+	return screen.frame();
+}
+
 let shipped: CompiledRules | undefined;
 
 /** The shipped rule file, compiled once per test file. */

@@ -6,7 +6,7 @@ import {cleanup} from 'ink-testing-library';
 import {afterEach, describe, expect, it} from 'vitest';
 import {loadPlan} from '../../../source/interlock/plan/load-plan.js';
 import {openSettings} from '../../../source/services/settings.js';
-import {keys, renderApp, type AppScreen} from '../../helpers/screen-driver.js';
+import {frameMatching, keys, renderApp, type AppScreen} from '../../helpers/screen-driver.js';
 import {demoPlanFile} from '../../interlock/plan-fixture.js';
 
 const level = chalk.level;
@@ -115,8 +115,11 @@ describe('the interlock planner', () => {
 		await screen.press(keys.enter);
 		await field(screen, 'Opening time');
 		await screen.paste(keys.backspace.repeat(4));
-		let frame = await screen.paste('8 V\r');
-		expect(frame).toMatch(/› Opening time +8 V▌\n {2}✗ "8 V" is a voltage, but this field is a time, for example "3 s"/);
+		await screen.paste('8 V\r');
+		// The edit is worked out in steps (it yields to the event loop): wait for its answer, not only for the keys' frames.
+		const refused = /› Opening time +8 V▌\n {2}✗ "8 V" is a voltage, but this field is a time, for example "3 s"/;
+		let frame = await frameMatching(screen, refused);
+		expect(frame).toMatch(refused);
 		// The refused entry is still in the field: Esc asks before dropping it.
 		expect(await screen.press(keys.escape)).toContain('Discard the change to opening time? y discard it and go back');
 		frame = await screen.press('y');
