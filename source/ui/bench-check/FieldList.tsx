@@ -4,6 +4,7 @@ import {answeredByRecord, type Field, type Session} from './session.js';
 import {fieldHint} from './field-hint.js';
 import {strayShown} from '../answer-key.js';
 import {confirmationStyle} from '../verdict-style.js';
+import {Prose} from '../Prose.js';
 
 /** Props of the list of a step's fields. */
 export type FieldListProps = {
@@ -78,9 +79,8 @@ export function FieldList({session, fields, focus, buffer, choice, message, note
 						{message ? (
 							// Indented as a block, so that a message that wraps stays under the field.
 							<Box paddingLeft={2}>
-								<Text color="red" wrap="wrap">
-									✗ {message}
-								</Text>
+								{/* Wrapped by words before Ink sees it: a line Ink breaks itself at a space starts with that space. */}
+								<Prose color="red" text={message} lead="✗ " hang="  " margin={2} />
 							</Box>
 						) : null}
 					</Box>
