@@ -162,23 +162,16 @@ const schemas = once(() => {
 		})
 		.strict();
 
-	/** An interlock test record file: the body and the signatures over it. */
-	const interlockTestRecordSchema = object({
+	/** A record file of either kind: the body and the signatures over it. */
+	const recordFile = <Body extends typeof recordBodySchema | typeof interlockTestBodySchema>(body: Body) =>
+		object({
 			format: literal('prelase-record'),
 			version: union([literal(1), literal(2)]),
-			body: interlockTestBodySchema,
+			body,
 			signatures: array(signatureSchema).min(1, 'a record needs at least one signature'),
-		})
-		.strict();
-
-	/** A record file: the body and the signatures over it. */
-	const recordSchema = object({
-			format: literal('prelase-record'),
-			version: union([literal(1), literal(2)]),
-			body: recordBodySchema,
-			signatures: array(signatureSchema).min(1, 'a record needs at least one signature'),
-		})
-		.strict();
+		}).strict();
+	const interlockTestRecordSchema = recordFile(interlockTestBodySchema);
+	const recordSchema = recordFile(recordBodySchema);
 	return {chainLinkSchema, signatureSchema, recordBodySchema, interlockTestBodySchema, interlockTestRecordSchema, recordSchema, recordedInput, confirmationEntry};
 });
 
